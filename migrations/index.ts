@@ -1,0 +1,21 @@
+// Every migration, in order. Knex loads them through this list (a folder of .ts files
+// cannot be required under vitest); tests/unit/migrations-list.test.ts keeps it complete.
+import type { Knex } from 'knex';
+import * as createUsers from './20261201000100_create_users.ts';
+import * as createSessions from './20261201000200_create_sessions.ts';
+import * as createUserTokens from './20261201000300_create_user_tokens.ts';
+import * as createAuditEvents from './20261201000400_create_audit_events.ts';
+import * as createApiKeys from './20261201000500_create_api_keys.ts';
+
+export interface Migration {
+  up(knex: Knex): Promise<void>;
+  down(knex: Knex): Promise<void>;
+}
+
+export const migrations: Record<string, Migration> = {
+  '20261201000100_create_users': createUsers,
+  '20261201000200_create_sessions': createSessions,
+  '20261201000300_create_user_tokens': createUserTokens,
+  '20261201000400_create_audit_events': createAuditEvents,
+  '20261201000500_create_api_keys': createApiKeys,
+};

@@ -1,0 +1,87 @@
+// createApp({ db, config }) builds the whole HTTP application without listening, so tests can
+// drive it with supertest and index.ts can serve it.
+import { existsSync } from 'node:fs';
+import { resolve } from 'node:path';
+import cookieParser from 'cookie-parser';
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import { pinoHttp } from 'pino-http';
+import type { Logger } from 'pino';
+import type { Config } from './config.ts';
+import type { AppContext } from './context.ts';
+import type { Db } from './db/knex.ts';
+import { authenticate } from './http/authenticate.ts';
+import { errorHandler, notFoundHandler } from './http/error-handler.ts';
+import { apiLimiter } from './http/rate-limit.ts';
+import { requestId } from './http/request-id.ts';
+import { mountRoutes } from './http/route.ts';
+import { createLogger } from './logger.ts';
+import type { Outbox } from './mail/fake-smtp.ts';
+import { createMailer, type Mailer } from './mail/mailer.ts';
+import { v1Routes } from './routes/v1/index.ts';
+
+export interface AppOptions {
+  db: Db;
+  config: Config;
+  logger?: Logger;
+  mailer?: Mailer;
+  outbox?: Outbox;
+  /** Folder of the built console; served with a single-page fallback when it exists. */
+  consoleDir?: string;
+}
+
+export const DEFAULT_CONSOLE_DIR = resolve(import.meta.dirname, '../dist');
+
+export function createApp(options: AppOptions): Express & { locals: { ctx: AppContext } } {
+  const { db, config } = options;
+  const logger = options.logger ?? createLogger(config.logLevel);
+  const mailer = options.mailer ?? createMailer({ smtpUrl: config.smtpUrl, from: config.mailFrom, logger });
+  const ctx: AppContext = { db, config, logger, mailer, outbox: options.outbox };
+
+  const app = express();
+  app.locals.ctx = ctx;
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+  app.use(requestId());
+  app.use(pinoHttp({ logger, genReqId: (req) => (req as express.Request).requestId, autoLogging: { ignore: (req) => req.url === '/api/v1/health' } }));
+  const https = config.publicUrl.startsWith('https://');
+  app.use(
+    helmet({
+      strictTransportSecurity: https,
+      contentSecurityPolicy: {
+        directives: {
+          // Over plain http (local use) upgrading would break every asset request.
+          'upgrade-insecure-requests': https ? [] : null,
+          'default-src': ["'self'"],
+          'img-src': ["'self'", 'data:'],
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'script-src': ["'self'"],
+          'connect-src': ["'self'"],
+          'font-src': ["'self'", 'data:'],
+        },
+      },
+    }),
+  );
+
+  const api = express.Router();
+  api.use(express.json({ limit: config.bodyLimit }));
+  api.use(cookieParser());
+  api.use(authenticate(ctx));
+  api.use(apiLimiter(ctx));
+  mountRoutes(api, v1Routes, ctx);
+  api.use(notFoundHandler());
+  app.use('/api/v1', api);
+  app.use('/api', notFoundHandler());
+
+  const consoleDir = options.consoleDir ?? DEFAULT_CONSOLE_DIR;
+  if (existsSync(resolve(consoleDir, 'index.html'))) {
+    app.use(express.static(consoleDir, { index: false, maxAge: '1h' }));
+    app.get('/{*splat}', (_req, res) => {
+      res.setHeader('Cache-Control', 'no-cache');
+      res.sendFile(resolve(consoleDir, 'index.html'));
+    });
+  }
+  app.use(notFoundHandler());
+  app.use(errorHandler(logger, config.bodyLimit));
+  return app as Express & { locals: { ctx: AppContext } };
+}

@@ -1,0 +1,97 @@
+// Environment → validated configuration. Fails fast with one readable message per bad variable.
+import { randomBytes } from 'node:crypto';
+import { z } from 'zod';
+import packageJson from '../package.json' with { type: 'json' };
+
+const booleanFlag = z
+  .enum(['true', 'false', '1', '0', 'yes', 'no'])
+  .transform((value) => value === 'true' || value === '1' || value === 'yes');
+
+const envSchema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  DATABASE_FILE: z.string().min(1).default('./data/meltwire.db'),
+  DATABASE_URL: z
+    .string()
+    .regex(/^postgres(ql)?:\/\//, 'must be a postgres:// or postgresql:// URL')
+    .optional(),
+  SESSION_SECRET: z.string().min(32, 'must be at least 32 characters').optional(),
+  SESSION_TTL_MINUTES: z.coerce.number().int().min(1).max(24 * 60).default(30),
+  SMTP_URL: z.string().regex(/^smtps?:\/\//, 'must be an smtp:// or smtps:// URL').optional(),
+  MAIL_FROM: z.string().min(3).default('Meltwire <no-reply@meltwire.test>'),
+  PUBLIC_URL: z.url().optional(),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  SEED_DEMO: booleanFlag.optional(),
+  LOGIN_RATE_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).default(10),
+  RATE_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).default(600),
+  BODY_LIMIT: z.string().regex(/^\d+(b|kb|mb)$/i, 'must look like 512kb or 1mb').default('1mb'),
+});
+
+export interface Config {
+  env: 'development' | 'production' | 'test';
+  port: number;
+  databaseFile: string;
+  databaseUrl?: string;
+  sessionSecret: string;
+  sessionTtlMinutes: number;
+  smtpUrl?: string;
+  mailFrom: string;
+  publicUrl: string;
+  logLevel: string;
+  seedDemo: boolean;
+  loginRateLimitPerMinute: number;
+  rateLimitPerMinute: number;
+  bodyLimit: string;
+  version: string;
+}
+
+export class ConfigError extends Error {
+  constructor(public readonly problems: string[]) {
+    super(`Invalid configuration:\n${problems.map((p) => `  - ${p}`).join('\n')}`);
+    this.name = 'ConfigError';
+  }
+}
+
+export const APP_VERSION: string = packageJson.version;
+
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
+  const present = Object.fromEntries(Object.entries(env).filter(([, value]) => value !== ''));
+  const parsed = envSchema.safeParse(present);
+  if (!parsed.success) {
+    throw new ConfigError(
+      parsed.error.issues.map((issue) => `${issue.path.join('.')}: ${issue.message}`),
+    );
+  }
+  const e = parsed.data;
+  if (e.NODE_ENV === 'production' && !e.SESSION_SECRET) {
+    throw new ConfigError(['SESSION_SECRET: required when NODE_ENV=production (32+ characters)']);
+  }
+  return {
+    env: e.NODE_ENV,
+    port: e.PORT,
+    databaseFile: e.DATABASE_FILE,
+    databaseUrl: e.DATABASE_URL,
+    // Without a configured secret, sessions last until the process restarts (development only).
+    sessionSecret: e.SESSION_SECRET ?? randomBytes(32).toString('hex'),
+    sessionTtlMinutes: e.SESSION_TTL_MINUTES,
+    smtpUrl: e.SMTP_URL,
+    mailFrom: e.MAIL_FROM,
+    publicUrl: (e.PUBLIC_URL ?? `http://localhost:${e.PORT}`).replace(/\/$/, ''),
+    logLevel: e.LOG_LEVEL,
+    seedDemo: e.SEED_DEMO ?? e.NODE_ENV !== 'production',
+    loginRateLimitPerMinute: e.LOGIN_RATE_LIMIT_PER_MINUTE,
+    rateLimitPerMinute: e.RATE_LIMIT_PER_MINUTE,
+    bodyLimit: e.BODY_LIMIT,
+    version: APP_VERSION,
+  };
+}
+
+/** A configuration for tests: in-memory database, quiet logs, generous limits. */
+export function testConfig(overrides: Partial<Config> = {}): Config {
+  return {
+    ...loadConfig({ NODE_ENV: 'test', LOG_LEVEL: 'silent', DATABASE_FILE: ':memory:' }),
+    loginRateLimitPerMinute: 1000,
+    rateLimitPerMinute: 100000,
+    ...overrides,
+  };
+}

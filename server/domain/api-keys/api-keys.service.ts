@@ -1,0 +1,106 @@
+// Issue, list, revoke and roll API keys. A caller grants only scopes it holds itself;
+// non-admins see and manage only the keys they created.
+import type { Knex } from 'knex';
+import type { AppContext } from '../../context.ts';
+import { ForbiddenProblem, NotFoundProblem, ConflictProblem } from '../../http/problem.ts';
+import type { AuthContext } from '../../http/request-context.ts';
+import { newId } from '../../lib/ids.ts';
+import { sha256Hex } from '../../lib/secrets.ts';
+import { nowIso } from '../../lib/time.ts';
+import { actorOf } from '../audit/actor.ts';
+import { recordAudit } from '../audit/audit.repository.ts';
+import type { Scope } from '../auth/scopes.ts';
+import { type ApiKey, type ApiKeyRow, findApiKey, insertApiKey, toApiKey, updateApiKey } from './api-keys.repository.ts';
+import { displayPrefix, generateKeySecret } from './key-format.ts';
+
+type Queryable = Knex | Knex.Transaction;
+
+export interface NewKeyInput {
+  name: string;
+  scopes: Scope[];
+  expires_at?: string;
+  instrument_ids?: string[];
+}
+
+function assertGrantable(auth: AuthContext, scopes: Scope[]): void {
+  const missing = scopes.filter((scope) => !auth.scopes.has(scope));
+  if (missing.length > 0) {
+    throw new ForbiddenProblem(`You cannot grant scopes you do not hold: ${missing.join(', ')}.`, { scopes_not_held: missing });
+  }
+}
+
+export function canManageAllKeys(auth: AuthContext): boolean {
+  return auth.role === 'admin' && auth.kind === 'session';
+}
+
+async function loadManageable(db: Queryable, auth: AuthContext, id: string) {
+  const row = await findApiKey(db, id);
+  if (!row || (!canManageAllKeys(auth) && row.created_by !== auth.userId)) throw new NotFoundProblem(`No API key ${id}.`);
+  return row;
+}
+
+function newKeyRow(input: NewKeyInput, createdBy: string, now: string): { row: ApiKeyRow; secret: string } {
+  const secret = generateKeySecret();
+  return {
+    secret,
+    row: {
+      id: newId('key'),
+      name: input.name,
+      prefix: displayPrefix(secret),
+      secret_hash: sha256Hex(secret),
+      scopes_json: JSON.stringify(input.scopes),
+      instrument_ids_json: input.instrument_ids ? JSON.stringify(input.instrument_ids) : null,
+      created_by: createdBy,
+      created_at: now,
+      expires_at: input.expires_at ? new Date(input.expires_at).toISOString() : null,
+      revoked_at: null,
+      last_used_at: null,
+      replaced_by: null,
+    },
+  };
+}
+
+export async function createApiKey(ctx: AppContext, auth: AuthContext, input: NewKeyInput, requestId?: string): Promise<ApiKey & { secret: string }> {
+  assertGrantable(auth, input.scopes);
+  const { row, secret } = newKeyRow(input, auth.userId, nowIso());
+  await ctx.db.transaction(async (trx) => {
+    await insertApiKey(trx, row);
+    await recordAudit(trx, { actor: actorOf(auth), requestId, action: 'api_key.created', targetType: 'api_key', targetId: row.id, after: toApiKey(row) });
+  });
+  return { ...toApiKey({ ...row, created_by_email: auth.email }), secret };
+}
+
+export async function getApiKey(ctx: AppContext, auth: AuthContext, id: string): Promise<ApiKey> {
+  return toApiKey(await loadManageable(ctx.db, auth, id));
+}
+
+export async function revokeApiKey(ctx: AppContext, auth: AuthContext, id: string, requestId?: string): Promise<void> {
+  await ctx.db.transaction(async (trx) => {
+    const row = await loadManageable(trx, auth, id);
+    if (row.revoked_at) return;
+    const revoked_at = nowIso();
+    await updateApiKey(trx, id, { revoked_at });
+    await recordAudit(trx, { actor: actorOf(auth), requestId, action: 'api_key.revoked', targetType: 'api_key', targetId: id, before: toApiKey(row), after: toApiKey({ ...row, revoked_at }) });
+  });
+}
+
+export async function rollApiKey(ctx: AppContext, auth: AuthContext, id: string, overlapMinutes: number, requestId?: string): Promise<ApiKey & { secret: string }> {
+  const old = await loadManageable(ctx.db, auth, id);
+  const current = toApiKey(old);
+  if (current.status !== 'active') throw new ConflictProblem(`Only an active key can be rolled; this one is ${current.status}.`);
+  assertGrantable(auth, current.scopes);
+  const now = nowIso();
+  const { row, secret } = newKeyRow(
+    { name: old.name, scopes: current.scopes, instrument_ids: current.instrument_ids ?? undefined, expires_at: old.expires_at ?? undefined },
+    auth.userId,
+    now,
+  );
+  const overlapEnd = new Date(Date.now() + overlapMinutes * 60_000).toISOString();
+  const oldExpiry = old.expires_at && old.expires_at < overlapEnd ? old.expires_at : overlapEnd;
+  await ctx.db.transaction(async (trx) => {
+    await insertApiKey(trx, row);
+    await updateApiKey(trx, id, { expires_at: oldExpiry, replaced_by: row.id });
+    await recordAudit(trx, { actor: actorOf(auth), requestId, action: 'api_key.rolled', targetType: 'api_key', targetId: id, before: current, after: { ...current, expires_at: oldExpiry, replaced_by: row.id } });
+  });
+  return { ...toApiKey({ ...row, created_by_email: auth.email }), secret };
+}

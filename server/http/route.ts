@@ -1,0 +1,115 @@
+// One declaration per operation: path, access (scope), request schemas, responses and handler.
+// mountRoutes() turns the declarations into Express routes; registerOpenApi() documents them.
+// Because both read the same object, no route can be served without its scope or its docs.
+import type { Request, RequestHandler, Response, Router } from 'express';
+import type { ZodType } from 'zod';
+import type { AppContext } from '../context.ts';
+import type { Scope } from '../domain/auth/scopes.ts';
+import { ForbiddenProblem, UnauthorizedProblem, ValidationProblem } from './problem.ts';
+import type { AuthContext } from './request-context.ts';
+
+export type Access = { scope: Scope } | 'public' | 'signed-in';
+
+export interface ResponseSpec {
+  description: string;
+  schema?: ZodType;
+  /** Defaults to application/json when a schema is given. */
+  contentType?: string;
+  headers?: Record<string, string>;
+}
+
+export interface HandlerInput<P, Q, B> {
+  params: P;
+  query: Q;
+  body: B;
+  /** The caller; throws 401 when read on a public route without credentials. */
+  readonly auth: AuthContext;
+  req: Request;
+  res: Response;
+  ctx: AppContext;
+}
+
+export interface RouteSpec<P extends ZodType = ZodType, Q extends ZodType = ZodType, B extends ZodType = ZodType> {
+  method: 'get' | 'post' | 'put' | 'patch' | 'delete';
+  /** OpenAPI-style path below /api/v1, e.g. /users/{id} */
+  path: string;
+  operationId: string;
+  summary: string;
+  description?: string;
+  tag: string;
+  access: Access;
+  params?: P;
+  query?: Q;
+  body?: B;
+  bodyContentType?: string;
+  /** Middleware run after authorization and before parsing (uploads, route-specific limits). */
+  before?: (ctx: AppContext) => RequestHandler[];
+  responses: Record<number, ResponseSpec>;
+  handler(input: HandlerInput<ZodOutput<P>, ZodOutput<Q>, ZodOutput<B>>): Promise<void> | void;
+}
+
+type ZodOutput<T> = T extends ZodType<infer O> ? O : undefined;
+
+export type AnyRoute = RouteSpec<ZodType, ZodType, ZodType>;
+
+/** Identity helper that lets TypeScript infer the handler's input types from the schemas. */
+export function defineRoute<P extends ZodType, Q extends ZodType, B extends ZodType>(spec: RouteSpec<P, Q, B>): AnyRoute {
+  return spec as unknown as AnyRoute;
+}
+
+export function toExpressPath(path: string): string {
+  return path.replace(/\{(\w+)\}/g, ':$1');
+}
+
+export function requiredScope(access: Access): Scope | undefined {
+  return typeof access === 'object' ? access.scope : undefined;
+}
+
+export function authorize(access: Access, req: Request): void {
+  if (access === 'public') return;
+  if (!req.auth) throw new UnauthorizedProblem();
+  const scope = requiredScope(access);
+  if (scope && !req.auth.scopes.has(scope)) {
+    throw new ForbiddenProblem(`This action needs the scope "${scope}".`, { required_scope: scope });
+  }
+}
+
+function parsePart(part: 'params' | 'query' | 'body', schema: ZodType | undefined, value: unknown): unknown {
+  if (!schema) return undefined;
+  const result = schema.safeParse(value ?? (part === 'body' ? undefined : {}));
+  if (result.success) return result.data;
+  throw new ValidationProblem(
+    result.error.issues.map((issue) => ({
+      location: [part, ...issue.path.map(String)].join('.'),
+      message: issue.message,
+      code: issue.code,
+    })),
+  );
+}
+
+export function mountRoutes(router: Router, routes: AnyRoute[], ctx: AppContext): void {
+  for (const spec of routes) {
+    const guard: RequestHandler = (req, _res, next) => {
+      authorize(spec.access, req);
+      next();
+    };
+    const run: RequestHandler = async (req, res) => {
+      const params = parsePart('params', spec.params, req.params);
+      const query = parsePart('query', spec.query, req.query);
+      const body = parsePart('body', spec.body, req.body);
+      await spec.handler({
+        params,
+        query,
+        body,
+        req,
+        res,
+        ctx,
+        get auth(): AuthContext {
+          if (!req.auth) throw new UnauthorizedProblem();
+          return req.auth;
+        },
+      });
+    };
+    router[spec.method](toExpressPath(spec.path), guard, ...(spec.before?.(ctx) ?? []), run);
+  }
+}

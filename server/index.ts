@@ -1,0 +1,49 @@
+// Listens and shuts down gracefully: stop accepting, finish in-flight requests, close the database.
+import type { Server } from 'node:http';
+import type { Express } from 'express';
+import type { Logger } from 'pino';
+import type { Db } from './db/knex.ts';
+
+export interface RunningServer {
+  server: Server;
+  url: string;
+  stop(): Promise<void>;
+}
+
+export async function listen(app: Express, db: Db, logger: Logger, port: number, onStop?: () => Promise<void>): Promise<RunningServer> {
+  const server = await new Promise<Server>((resolve, reject) => {
+    const s = app.listen(port, (error?: Error) => (error ? reject(error) : resolve(s)));
+  });
+  const address = server.address();
+  const boundPort = typeof address === 'object' && address ? address.port : port;
+  let stopping: Promise<void> | undefined;
+  const stop = () =>
+    (stopping ??= (async () => {
+      logger.info('shutting down: finishing in-flight requests');
+      await new Promise<void>((resolve) => {
+        server.close(() => resolve());
+        server.closeIdleConnections();
+        // Keep-alive clients that never go idle must not hold the shutdown forever.
+        setTimeout(() => server.closeAllConnections(), 10_000).unref();
+      });
+      await onStop?.();
+      await db.destroy();
+      logger.info('stopped');
+    })());
+  return { server, url: `http://localhost:${boundPort}`, stop };
+}
+
+export function stopOnSignals(running: RunningServer, logger: Logger): void {
+  const handle = (signal: NodeJS.Signals) => {
+    logger.info({ signal }, 'signal received');
+    running.stop().then(
+      () => process.exit(0),
+      (error: unknown) => {
+        logger.error({ err: error }, 'shutdown failed');
+        process.exit(1);
+      },
+    );
+  };
+  process.once('SIGINT', handle);
+  process.once('SIGTERM', handle);
+}

@@ -1,0 +1,101 @@
+// Builds the OpenAPI 3.1 document from the route declarations and their zod schemas.
+import { OpenAPIRegistry, OpenApiGeneratorV31, type ResponseConfig } from '@asteasolutions/zod-to-openapi';
+import { APP_VERSION } from '../config.ts';
+import { type AnyRoute, requiredScope } from '../http/route.ts';
+import { PROBLEM_CONTENT_TYPE } from '../http/problem.ts';
+import { ProblemSchema } from './problem.schemas.ts';
+import { z } from './zod.ts';
+
+const SESSION = 'sessionCookie';
+const BEARER = 'apiKey';
+
+function problemResponse(description: string): ResponseConfig {
+  return { description, content: { [PROBLEM_CONTENT_TYPE]: { schema: ProblemSchema } } };
+}
+
+function responsesFor(route: AnyRoute): Record<number, ResponseConfig> {
+  const responses: Record<number, ResponseConfig> = {};
+  for (const [status, spec] of Object.entries(route.responses)) {
+    const contentType = spec.contentType ?? 'application/json';
+    if (Number(status) >= 400 && !spec.schema) {
+      responses[Number(status)] = problemResponse(spec.description);
+      continue;
+    }
+    responses[Number(status)] = {
+      description: spec.description,
+      ...(spec.schema ? { content: { [contentType]: { schema: spec.schema } } } : {}),
+      ...(spec.headers
+        ? { headers: Object.fromEntries(Object.entries(spec.headers).map(([name, description]) => [name, { description, schema: { type: 'string' } }])) }
+        : {}),
+    };
+  }
+  const add = (status: number, description: string) => {
+    responses[status] ??= problemResponse(description);
+  };
+  if (route.params || route.query || route.body) add(400, 'The request is not valid; `errors[]` names each field.');
+  if (route.access !== 'public') add(401, 'No valid session or API key.');
+  if (requiredScope(route.access)) add(403, `The caller lacks the scope \`${requiredScope(route.access)}\`.`);
+  add(429, 'Rate limit exceeded; see `Retry-After`.');
+  add(500, 'Unexpected server error.');
+  return responses;
+}
+
+function describe(route: AnyRoute): string | undefined {
+  const scope = requiredScope(route.access);
+  const access =
+    route.access === 'public' ? 'No authentication.' : scope ? `Requires the scope \`${scope}\`.` : 'Requires a signed-in user or an API key.';
+  return [route.description, access].filter(Boolean).join('\n\n');
+}
+
+export function buildOpenApiDocument(routes: AnyRoute[]) {
+  const registry = new OpenAPIRegistry();
+  registry.registerComponent('securitySchemes', BEARER, {
+    type: 'http',
+    scheme: 'bearer',
+    description: 'An API key issued by a lab admin, sent as `Authorization: Bearer mw_live_…`.',
+  });
+  registry.registerComponent('securitySchemes', SESSION, {
+    type: 'apiKey',
+    in: 'cookie',
+    name: 'mw_session',
+    description: 'The console\'s session cookie, set by `POST /auth/login`.',
+  });
+  registry.register('Problem', ProblemSchema);
+
+  for (const route of routes) {
+    const scope = requiredScope(route.access);
+    const roles = scope ? [scope] : [];
+    registry.registerPath({
+      method: route.method,
+      path: route.path,
+      operationId: route.operationId,
+      summary: route.summary,
+      description: describe(route),
+      tags: [route.tag],
+      ...(scope ? { 'x-required-scope': scope } : {}),
+      security: route.access === 'public' ? [] : [{ [BEARER]: roles }, { [SESSION]: roles }],
+      request: {
+        ...(route.params ? { params: route.params as z.ZodObject } : {}),
+        ...(route.query ? { query: route.query as z.ZodObject } : {}),
+        ...(route.body
+          ? { body: { required: true, content: { [route.bodyContentType ?? 'application/json']: { schema: route.body } } } }
+          : {}),
+      },
+      responses: responsesFor(route),
+    });
+  }
+
+  return new OpenApiGeneratorV31(registry.definitions).generateDocument({
+    openapi: '3.1.0',
+    info: {
+      title: 'Meltwire API',
+      version: APP_VERSION,
+      description:
+        'Ingests spark OES results, averages burns, applies drift correction, checks grades and serves every result with its raw burns and audit trail.\n\n' +
+        'Errors are RFC 9457 `application/problem+json`. Lists use cursor pagination (`{ data, next_cursor }`). Timestamps are ISO 8601 UTC.\n\n' +
+        '**Caution:** released results decide whether a heat ships. Review and authorise results under your laboratory\'s own accredited procedures.',
+    },
+    servers: [{ url: '/api/v1', description: 'This server' }],
+    tags: [],
+  });
+}

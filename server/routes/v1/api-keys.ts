@@ -1,0 +1,102 @@
+import { listApiKeyRows, toApiKey } from '../../domain/api-keys/api-keys.repository.ts';
+import {
+  ApiKeyIdParams,
+  ApiKeyListQuerySchema,
+  ApiKeyListSchema,
+  ApiKeySchema,
+  ApiKeyWithSecretSchema,
+  CreateApiKeyRequestSchema,
+  RollApiKeyRequestSchema,
+} from '../../domain/api-keys/api-keys.schemas.ts';
+import { canManageAllKeys, createApiKey, getApiKey, revokeApiKey, rollApiKey } from '../../domain/api-keys/api-keys.service.ts';
+import { decodeCursor, pageOf } from '../../http/pagination.ts';
+import { defineRoute } from '../../http/route.ts';
+
+export const apiKeyRoutes = [
+  defineRoute({
+    method: 'get',
+    path: '/api-keys',
+    operationId: 'listApiKeys',
+    summary: 'List API keys',
+    description: 'Admins see every key; other callers see the keys they created. Secrets are never shown again.',
+    tag: 'API keys',
+    access: { scope: 'api-keys:read' },
+    query: ApiKeyListQuerySchema,
+    responses: { 200: { description: 'A page of keys, newest first.', schema: ApiKeyListSchema } },
+    async handler({ query, auth, res, ctx }) {
+      const afterId = query.cursor ? decodeCursor<{ id: string }>(query.cursor, ['id']).id : undefined;
+      const rows = await listApiKeyRows(ctx.db, {
+        createdBy: canManageAllKeys(auth) ? undefined : auth.userId,
+        includeRevoked: query.include_revoked,
+        afterId,
+        limit: query.limit,
+      });
+      const now = new Date().toISOString();
+      res.json(pageOf(rows, query.limit, (row) => toApiKey(row, now), (row) => ({ id: row.id })));
+    },
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/api-keys',
+    operationId: 'createApiKey',
+    summary: 'Issue an API key',
+    description: 'The response carries the secret once. You can grant only scopes you hold yourself.',
+    tag: 'API keys',
+    access: { scope: 'api-keys:write' },
+    body: CreateApiKeyRequestSchema,
+    responses: {
+      201: { description: 'Issued; copy the secret now.', schema: ApiKeyWithSecretSchema, headers: { Location: 'The new key.' } },
+    },
+    async handler({ body, auth, req, res, ctx }) {
+      const key = await createApiKey(ctx, auth, body, req.requestId);
+      res.status(201).location(`/api/v1/api-keys/${key.id}`).json(key);
+    },
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/api-keys/{id}',
+    operationId: 'getApiKey',
+    summary: 'Get an API key (without its secret)',
+    tag: 'API keys',
+    access: { scope: 'api-keys:read' },
+    params: ApiKeyIdParams,
+    responses: { 200: { description: 'The key.', schema: ApiKeySchema }, 404: { description: 'No such key, or not yours.' } },
+    async handler({ params, auth, res, ctx }) {
+      res.json(await getApiKey(ctx, auth, params.id));
+    },
+  }),
+  defineRoute({
+    method: 'delete',
+    path: '/api-keys/{id}',
+    operationId: 'revokeApiKey',
+    summary: 'Revoke an API key at once',
+    tag: 'API keys',
+    access: { scope: 'api-keys:write' },
+    params: ApiKeyIdParams,
+    responses: { 204: { description: 'Revoked (also when it already was).' }, 404: { description: 'No such key, or not yours.' } },
+    async handler({ params, auth, req, res, ctx }) {
+      await revokeApiKey(ctx, auth, params.id, req.requestId);
+      res.status(204).end();
+    },
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/api-keys/{id}/roll',
+    operationId: 'rollApiKey',
+    summary: 'Replace a key, letting the old one live for an overlap',
+    description: 'Issues a new key with the same name, scopes and restrictions; the old key expires after `overlap_minutes`.',
+    tag: 'API keys',
+    access: { scope: 'api-keys:write' },
+    params: ApiKeyIdParams,
+    body: RollApiKeyRequestSchema,
+    responses: {
+      201: { description: 'The replacement, with its secret shown once.', schema: ApiKeyWithSecretSchema, headers: { Location: 'The new key.' } },
+      404: { description: 'No such key, or not yours.' },
+      409: { description: 'The key is revoked or expired.' },
+    },
+    async handler({ params, body, auth, req, res, ctx }) {
+      const key = await rollApiKey(ctx, auth, params.id, body.overlap_minutes, req.requestId);
+      res.status(201).location(`/api/v1/api-keys/${key.id}`).json(key);
+    },
+  }),
+];

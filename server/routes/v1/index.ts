@@ -1,0 +1,21 @@
+import type { AnyRoute } from '../../http/route.ts';
+import { apiKeyRoutes } from './api-keys.ts';
+import { auditRoutes } from './audit-events.ts';
+import { authRoutes } from './auth.ts';
+import { healthRoutes } from './health.ts';
+import { openApiRoutes } from './openapi.ts';
+import { outboxRoutes } from './outbox.ts';
+import { sampleRoutes } from './samples.ts';
+import { userRoutes } from './users.ts';
+
+/** Every /api/v1 operation. The OpenAPI document and the Express router are both built from this list. */
+export const v1Routes: AnyRoute[] = [
+  ...healthRoutes,
+  ...openApiRoutes,
+  ...authRoutes,
+  ...userRoutes,
+  ...apiKeyRoutes,
+  ...sampleRoutes,
+  ...auditRoutes,
+  ...outboxRoutes,
+];

@@ -1,0 +1,50 @@
+// `npm start`: build the console if needed, migrate, seed the demo on an empty database,
+// capture mail in-process when no SMTP server is configured, then serve API and console.
+import { createApp, DEFAULT_CONSOLE_DIR } from './app.ts';
+import { ConfigError, loadConfig } from './config.ts';
+import { buildConsole, consoleNeedsBuild } from './console-build.ts';
+import { createDb } from './db/knex.ts';
+import { migrateLatest } from './db/migrate.ts';
+import { listen, stopOnSignals } from './index.ts';
+import { createLogger } from './logger.ts';
+import { startFakeSmtp, type FakeSmtp } from './mail/fake-smtp.ts';
+import { demoAdminStillDefault, DEMO_PASSWORD, DEMO_USERS } from './seed/demo-users.ts';
+import { seedDemoIfEmpty } from './seed/demo.ts';
+
+async function main(): Promise<void> {
+  const config = loadConfig();
+  const logger = createLogger(config.logLevel);
+  if (config.env !== 'production' && consoleNeedsBuild(DEFAULT_CONSOLE_DIR)) {
+    logger.info('building the console (dist/ is missing or older than src/)');
+    await buildConsole();
+  }
+  const db = createDb(config);
+  const applied = await migrateLatest(db);
+  if (applied.length > 0) logger.info({ migrations: applied }, 'database migrated');
+  if (config.seedDemo && (await seedDemoIfEmpty(db))) logger.info('demo data seeded (Kestrel Bend Metals, invented)');
+
+  let smtp: FakeSmtp | undefined;
+  if (!config.smtpUrl && config.env !== 'production') {
+    smtp = await startFakeSmtp();
+    config.smtpUrl = smtp.url;
+    logger.info({ smtp: smtp.url }, 'no SMTP_URL: e-mail is captured in-process and shown on the console\'s outbox page');
+  }
+  const app = createApp({ db, config, logger, outbox: smtp?.outbox });
+  const running = await listen(app, db, logger, config.port, async () => smtp?.close());
+  stopOnSignals(running, logger);
+
+  const lines = [`Meltwire ${config.version} is serving API and console on ${config.publicUrl}`, `  API reference: ${config.publicUrl}/api/v1/openapi.json`];
+  if (config.seedDemo && (await demoAdminStillDefault(db))) {
+    lines.push(`  Demo admin: ${DEMO_USERS[0].email} / ${DEMO_PASSWORD}  (demo data is invented; change this password before real use)`);
+  }
+  console.log(lines.join('\n'));
+}
+
+main().catch((error: unknown) => {
+  if (error instanceof ConfigError) {
+    console.error(error.message);
+  } else {
+    console.error('Meltwire failed to start:', error);
+  }
+  process.exit(1);
+});

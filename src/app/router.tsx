@@ -1,0 +1,52 @@
+import type { QueryClient } from '@tanstack/react-query';
+import { createBrowserRouter, redirect } from 'react-router';
+import { Spinner } from '../components/ui/feedback.tsx';
+import { meQuery } from '../features/auth/api/me.ts';
+import { ConsoleLayout } from './layout.tsx';
+import { AcceptInvitationPage } from './routes/accept-invitation.tsx';
+import { ApiKeysPage } from './routes/api-keys.tsx';
+import { AuditPage } from './routes/audit.tsx';
+import { HomePage } from './routes/home.tsx';
+import { NotFoundPage } from './routes/not-found.tsx';
+import { OutboxPage } from './routes/outbox.tsx';
+import { ResetPasswordPage } from './routes/reset-password.tsx';
+import { RouteError } from './routes/route-error.tsx';
+import { SignInPage } from './routes/sign-in.tsx';
+import { UsersPage } from './routes/users.tsx';
+
+export function createRouter(queryClient: QueryClient) {
+  /** Loader of the signed-in area: no session → the sign-in page, remembering where to return. */
+  async function requireSession({ request }: { request: Request }) {
+    const me = await queryClient.ensureQueryData(meQuery);
+    if (!me) {
+      const url = new URL(request.url);
+      throw redirect(`/sign-in?next=${encodeURIComponent(url.pathname + url.search)}`);
+    }
+    return null;
+  }
+
+  return createBrowserRouter([
+    {
+      HydrateFallback: () => <Spinner />,
+      errorElement: <RouteError />,
+      children: [
+        { path: '/sign-in', element: <SignInPage /> },
+        { path: '/accept-invitation', element: <AcceptInvitationPage /> },
+        { path: '/reset-password', element: <ResetPasswordPage /> },
+        {
+          loader: requireSession,
+          element: <ConsoleLayout />,
+          children: [
+            { index: true, element: <HomePage /> },
+            { path: 'api-keys', element: <ApiKeysPage /> },
+            { path: 'reference', lazy: async () => ({ Component: (await import('./routes/reference.tsx')).ReferencePage }) },
+            { path: 'users', element: <UsersPage /> },
+            { path: 'audit', element: <AuditPage /> },
+            { path: 'outbox', element: <OutboxPage /> },
+            { path: '*', element: <NotFoundPage /> },
+          ],
+        },
+      ],
+    },
+  ]);
+}

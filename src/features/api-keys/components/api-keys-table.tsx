@@ -1,0 +1,84 @@
+import { useState } from 'react';
+import { Button } from '../../../components/ui/button.tsx';
+import { Dialog } from '../../../components/ui/dialog.tsx';
+import { EmptyState, ProblemAlert, Spinner } from '../../../components/ui/feedback.tsx';
+import { Badge, Table } from '../../../components/ui/layout.tsx';
+import { useApiKeys, useRevokeApiKey, useRollApiKey, type ApiKey } from '../api/api-keys.ts';
+import { SecretOnce } from './secret-once.tsx';
+
+export function ApiKeysTable({ canWrite }: { canWrite: boolean }) {
+  const [includeRevoked, setIncludeRevoked] = useState(false);
+  const keys = useApiKeys(includeRevoked);
+  const revoke = useRevokeApiKey();
+  const roll = useRollApiKey();
+  const [revoking, setRevoking] = useState<ApiKey | null>(null);
+  const rows = keys.data?.pages.flatMap((page) => page.data) ?? [];
+
+  return (
+    <div className="space-y-3">
+      <label className="flex items-center gap-2 text-sm text-slag-700">
+        <input type="checkbox" checked={includeRevoked} onChange={(e) => setIncludeRevoked(e.target.checked)} className="accent-ember-600" />
+        Show revoked keys
+      </label>
+      <ProblemAlert error={keys.error ?? revoke.error ?? roll.error} />
+      {keys.isPending && <Spinner label="Loading keys…" />}
+      {!keys.isPending && rows.length === 0 && <EmptyState title="No API keys yet">Issue one for each integration, with only the scopes it needs.</EmptyState>}
+      {rows.length > 0 && (
+        <Table head={['Name', 'Key', 'Scopes', 'Created by', 'Last used', 'Expires', 'Status', '']} caption="API keys">
+          {rows.map((key) => (
+            <tr key={key.id}>
+              <td className="px-3 py-2 font-medium">{key.name}</td>
+              <td className="px-3 py-2 font-mono text-xs">{key.prefix}…</td>
+              <td className="px-3 py-2">
+                <div className="flex max-w-xs flex-wrap gap-1">
+                  {key.scopes.map((s) => (
+                    <code key={s} className="rounded bg-ash-100 px-1 text-xs">
+                      {s}
+                    </code>
+                  ))}
+                </div>
+              </td>
+              <td className="px-3 py-2 text-xs">{key.created_by.email}</td>
+              <td className="px-3 py-2 font-mono text-xs text-slag-500">{key.last_used_at ?? 'never'}</td>
+              <td className="px-3 py-2 font-mono text-xs text-slag-500">{key.expires_at ?? '—'}</td>
+              <td className="px-3 py-2">
+                <Badge tone={key.status === 'active' ? 'good' : 'bad'}>{key.status}</Badge>
+              </td>
+              <td className="whitespace-nowrap px-3 py-2 text-right">
+                {canWrite && key.status === 'active' && (
+                  <>
+                    <Button variant="ghost" onClick={() => roll.mutate({ id: key.id, overlap_minutes: 60 })} disabled={roll.isPending} title="Issue a replacement; this key keeps working for 60 minutes">
+                      Roll
+                    </Button>
+                    <Button variant="ghost" className="!text-oxide-600" onClick={() => setRevoking(key)}>
+                      Revoke
+                    </Button>
+                  </>
+                )}
+              </td>
+            </tr>
+          ))}
+        </Table>
+      )}
+      {keys.hasNextPage && (
+        <Button variant="secondary" onClick={() => keys.fetchNextPage()}>
+          Load more
+        </Button>
+      )}
+      <Dialog open={!!revoking} title={`Revoke “${revoking?.name}”?`} onClose={() => setRevoking(null)}>
+        <p className="mb-4 text-sm">Calls with this key fail at once with 401. Integrations using it stop working until they get a new key.</p>
+        <div className="flex justify-end gap-2">
+          <Button variant="secondary" onClick={() => setRevoking(null)}>
+            Keep it
+          </Button>
+          <Button variant="danger" onClick={() => revoking && revoke.mutate(revoking.id, { onSuccess: () => setRevoking(null) })} disabled={revoke.isPending}>
+            Revoke now
+          </Button>
+        </div>
+      </Dialog>
+      <Dialog open={!!roll.data} title="Replacement key issued" onClose={() => roll.reset()}>
+        {roll.data && <SecretOnce secret={roll.data.secret} onDone={() => roll.reset()} />}
+      </Dialog>
+    </div>
+  );
+}

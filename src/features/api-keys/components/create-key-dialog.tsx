@@ -1,0 +1,73 @@
+import { useState, type FormEvent } from 'react';
+import { ApiProblem } from '../../../api/problem.ts';
+import { Button } from '../../../components/ui/button.tsx';
+import { Dialog } from '../../../components/ui/dialog.tsx';
+import { ProblemAlert } from '../../../components/ui/feedback.tsx';
+import { TextField } from '../../../components/ui/field.tsx';
+import type { Scope } from '../../auth/api/me.ts';
+import { useCreateApiKey } from '../api/api-keys.ts';
+import { SecretOnce } from './secret-once.tsx';
+
+export function CreateKeyDialog({ open, grantable, onClose }: { open: boolean; grantable: Scope[]; onClose: () => void }) {
+  const [name, setName] = useState('');
+  const [scopes, setScopes] = useState<Scope[]>([]);
+  const [expiresAt, setExpiresAt] = useState('');
+  const create = useCreateApiKey();
+  const problem = create.error instanceof ApiProblem ? create.error : undefined;
+
+  function close() {
+    create.reset();
+    setName('');
+    setScopes([]);
+    setExpiresAt('');
+    onClose();
+  }
+
+  function toggle(scope: Scope) {
+    setScopes((current) => (current.includes(scope) ? current.filter((s) => s !== scope) : [...current, scope]));
+  }
+
+  function submit(event: FormEvent) {
+    event.preventDefault();
+    create.mutate({ name, scopes, ...(expiresAt ? { expires_at: new Date(expiresAt).toISOString() } : {}) });
+  }
+
+  return (
+    <Dialog open={open} title={create.data ? `Key “${create.data.name}” issued` : 'Issue an API key'} onClose={close}>
+      {create.data ? (
+        <SecretOnce secret={create.data.secret} onDone={close} />
+      ) : (
+        <form onSubmit={submit} className="space-y-4" noValidate>
+          <ProblemAlert error={create.error} fields={['name', 'scopes', 'expires_at']} />
+          <TextField label="Name" placeholder="e.g. MES melt shop" value={name} onChange={(e) => setName(e.target.value)} error={problem?.fieldError('name')} />
+          <fieldset>
+            <legend className="mb-1 text-sm font-medium text-slag-800">Scopes</legend>
+            <p className="mb-2 text-xs text-slag-500">Grant only what the integration does. You can grant the scopes your role holds.</p>
+            <div className="grid grid-cols-2 gap-1">
+              {grantable.map((scope) => (
+                <label key={scope} className="flex items-center gap-2 text-sm">
+                  <input type="checkbox" checked={scopes.includes(scope)} onChange={() => toggle(scope)} className="accent-ember-600" />
+                  <code className="text-xs">{scope}</code>
+                </label>
+              ))}
+            </div>
+            {problem?.fieldError('scopes') && (
+              <p role="alert" className="mt-1 text-xs font-medium text-oxide-600">
+                ⚠ {problem.fieldError('scopes')}
+              </p>
+            )}
+          </fieldset>
+          <TextField label="Expires (optional)" type="datetime-local" value={expiresAt} onChange={(e) => setExpiresAt(e.target.value)} error={problem?.fieldError('expires_at')} hint="Leave empty for a key that lives until revoked." />
+          <div className="flex justify-end gap-2">
+            <Button variant="secondary" onClick={close}>
+              Cancel
+            </Button>
+            <Button type="submit" disabled={create.isPending}>
+              Issue key
+            </Button>
+          </div>
+        </form>
+      )}
+    </Dialog>
+  );
+}

@@ -1,0 +1,41 @@
+import { infiniteQueryOptions, useInfiniteQuery, useMutation, useQueryClient } from '@tanstack/react-query';
+import { api, unwrap } from '../../../api/client.ts';
+import type { components } from '../../../api/schema';
+
+export type User = components['schemas']['User'];
+export type Role = components['schemas']['Role'];
+export const ROLES: Role[] = ['admin', 'manager', 'analyst', 'integrator', 'viewer'];
+
+export const usersQuery = infiniteQueryOptions({
+  queryKey: ['users'],
+  queryFn: ({ pageParam }) => unwrap(api.GET('/users', { params: { query: { limit: 50, cursor: pageParam } } })),
+  initialPageParam: undefined as string | undefined,
+  getNextPageParam: (page) => page.next_cursor ?? undefined,
+});
+
+export function useUsers() {
+  return useInfiniteQuery(usersQuery);
+}
+
+export function useInviteUser() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (body: { email: string; name: string; role: Role }) => unwrap(api.POST('/users', { body })),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['users'] }),
+  });
+}
+
+export function useUpdateUser() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id, ...body }: { id: string; role?: Role; status?: 'active' | 'disabled'; name?: string }) =>
+      unwrap(api.PATCH('/users/{id}', { params: { path: { id } }, body })),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['users'] }),
+  });
+}
+
+export function useResendInvitation() {
+  return useMutation({
+    mutationFn: (id: string) => unwrap(api.POST('/users/{id}/invitation', { params: { path: { id } } })),
+  });
+}

@@ -1,0 +1,34 @@
+// The real app with the built console, listening on a free port, on a SQLite file seeded
+// with the demo scenario — what `npm start` serves, minus the build step.
+import { existsSync, mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { createApp, DEFAULT_CONSOLE_DIR } from '../../server/app.ts';
+import { testConfig } from '../../server/config.ts';
+import { createDb } from '../../server/db/knex.ts';
+import { migrateLatest } from '../../server/db/migrate.ts';
+import { listen } from '../../server/index.ts';
+import { createLogger } from '../../server/logger.ts';
+import { startFakeSmtp } from '../../server/mail/fake-smtp.ts';
+import { seedDemoIfEmpty } from '../../server/seed/demo.ts';
+
+export async function startLiveServer() {
+  if (!existsSync(join(DEFAULT_CONSOLE_DIR, 'index.html'))) throw new Error('dist/ is missing: run `npm run build` first (npm test does)');
+  const dir = mkdtempSync(join(tmpdir(), 'meltwire-live-'));
+  const smtp = await startFakeSmtp();
+  const config = testConfig({ databaseFile: join(dir, 'live.db'), smtpUrl: smtp.url });
+  const db = createDb(config);
+  await migrateLatest(db);
+  await seedDemoIfEmpty(db);
+  const logger = createLogger('silent');
+  const app = createApp({ db, config, logger, outbox: smtp.outbox });
+  const running = await listen(app, db, logger, 0, () => smtp.close());
+  return {
+    url: running.url,
+    db,
+    async stop() {
+      await running.stop();
+      rmSync(dir, { recursive: true, force: true });
+    },
+  };
+}

@@ -1,0 +1,33 @@
+import { describe, expect, it } from 'vitest';
+import { ConfigError, loadConfig } from '../../server/config.ts';
+
+describe('loadConfig', () => {
+  it('applies documented defaults', () => {
+    const config = loadConfig({});
+    expect(config).toMatchObject({ env: 'development', port: 3000, databaseFile: './data/meltwire.db', publicUrl: 'http://localhost:3000', seedDemo: true });
+    expect(config.sessionSecret.length).toBeGreaterThanOrEqual(32);
+  });
+
+  it('names every bad variable in one readable error', () => {
+    let error: unknown;
+    try {
+      loadConfig({ PORT: 'eighty', DATABASE_URL: 'mysql://x', SMTP_URL: 'mail.example', SESSION_SECRET: 'short' });
+    } catch (e) {
+      error = e;
+    }
+    expect(error).toBeInstanceOf(ConfigError);
+    const message = (error as Error).message;
+    for (const name of ['PORT', 'DATABASE_URL', 'SMTP_URL', 'SESSION_SECRET']) expect(message).toContain(name);
+  });
+
+  it('requires a session secret in production and does not seed demo data there', () => {
+    expect(() => loadConfig({ NODE_ENV: 'production' })).toThrow(/SESSION_SECRET/);
+    const config = loadConfig({ NODE_ENV: 'production', SESSION_SECRET: 's'.repeat(40), PUBLIC_URL: 'https://lab.kestrelbend.test/' });
+    expect(config.seedDemo).toBe(false);
+    expect(config.publicUrl).toBe('https://lab.kestrelbend.test');
+  });
+
+  it('treats empty variables as unset', () => {
+    expect(loadConfig({ PORT: '', SMTP_URL: '' })).toMatchObject({ port: 3000, smtpUrl: undefined });
+  });
+});

@@ -1,0 +1,21 @@
+import { defineConfig } from 'vitest/config';
+
+export default defineConfig({
+  test: {
+    projects: [
+      { test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node' } },
+      { test: { name: 'api', include: ['tests/api/**/*.test.ts'], environment: 'node', env: { NODE_ENV: 'test' }, testTimeout: 20_000 } },
+      {
+        test: {
+          name: 'e2e',
+          include: ['tests/e2e/**/*.test.ts'],
+          environment: 'node',
+          env: { NODE_ENV: 'test' },
+          testTimeout: 60_000,
+          hookTimeout: 60_000,
+          fileParallelism: false,
+        },
+      },
+    ],
+  },
+});
