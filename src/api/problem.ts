@@ -1,16 +1,7 @@
-export interface FieldError {
-  location: string;
-  message: string;
-  code?: string;
-}
+import type { components } from './schema';
 
-export interface ProblemBody {
-  type: string;
-  title: string;
-  status: number;
-  detail?: string;
-  errors?: FieldError[];
-}
+export type FieldError = components['schemas']['FieldError'];
+export type ProblemBody = Pick<components['schemas']['Problem'], 'type' | 'title' | 'status' | 'detail' | 'errors'>;
 
 /** A failed API call, carrying the RFC 9457 problem the server sent. */
 export class ApiProblem extends Error {
