@@ -1,3 +1,5 @@
+import { readFileSync } from 'node:fs';
+import { resolve } from 'node:path';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { parseResultFile } from '../../server/domain/imports/parse/index.ts';
@@ -9,18 +11,8 @@ beforeAll(async () => {
 });
 afterAll(() => t.close());
 
-const LONG_PROFILE = {
-  name: 'OES-1 long export',
-  description: 'Nightly export of the melt-shop spectrometer',
-  delimiter: 'tab',
-  encoding: 'utf-8',
-  header_row: 3,
-  layout: 'long',
-  columns: { sample_code: 'Specimen Ref', heat: 'Cast', measured_at: 'Analysed', fields: { shift: 'Shift' } },
-  long_columns: { element: 'Analyte', value: 'Reading', unit: 'Unit' },
-  default_unit: 'mg/kg',
-  time: { format: 'DD.MM.YYYY HH:mm[:ss]', utc_offset: '+01:00' },
-};
+// The profile that reads tests/fixtures/imports/quirks-long.csv.
+const LONG_PROFILE = JSON.parse(readFileSync(resolve(import.meta.dirname, '../fixtures/imports/quirks-long.profile.json'), 'utf8'));
 
 describe('POST /api/v1/import-profiles', () => {
   it('creates a profile with defaults for everything but the name', async () => {

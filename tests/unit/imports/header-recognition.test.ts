@@ -66,3 +66,19 @@ describe('identification headers', () => {
     expect(Object.fromEntries(rows)).toEqual(HEADER_ALIASES);
   });
 });
+
+describe('profile header names', () => {
+  it('match ignoring case and surrounding or repeated spaces, and win over recognition', async () => {
+    const { CreateImportProfileRequestSchema } = await import('../../../server/domain/imports/import-profiles.schemas.ts');
+    const { parseResultFile } = await import('../../../server/domain/imports/parse/index.ts');
+    const profile = CreateImportProfileRequestSchema.parse({ name: 'p', columns: { sample_code: '  heat   NO ', heat: 'Sample' }, ignore_columns: ['c'] });
+    const parsed = parseResultFile(Buffer.from('Sample,Heat No,C,Mn\nK24-0412,S1,0.4,0.7\n'), { profile });
+    expect(parsed.columns.map((c) => [c.header, c.role, c.source])).toEqual([
+      ['Sample', 'heat', 'profile'],
+      ['Heat No', 'sample_code', 'profile'],
+      ['C', 'ignored', 'profile'],
+      ['Mn', 'element', 'auto'],
+    ]);
+    expect(parsed.samples[0]).toMatchObject({ sample_code: 'S1', heat: 'K24-0412' });
+  });
+});

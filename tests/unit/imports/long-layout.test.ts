@@ -7,21 +7,12 @@ import { describe, expect, it } from 'vitest';
 import { CreateImportProfileRequestSchema } from '../../../server/domain/imports/import-profiles.schemas.ts';
 import { parseResultFile } from '../../../server/domain/imports/parse/index.ts';
 
-const profile = CreateImportProfileRequestSchema.parse({
-  name: 'OES-1 long export',
-  delimiter: 'tab',
-  encoding: 'utf-8',
-  header_row: 3,
-  layout: 'long',
-  columns: { sample_code: 'specimen ref', heat: 'Cast', measured_at: 'Analysed', fields: { shift: 'Shift' } },
-  long_columns: { element: 'Analyte', value: 'Reading', unit: 'Unit' },
-  default_unit: 'mg/kg',
-  time: { format: 'DD.MM.YYYY HH:mm[:ss]', utc_offset: '+01:00' },
-});
+const fixtures = resolve(import.meta.dirname, '../../fixtures/imports');
+const profile = CreateImportProfileRequestSchema.parse(JSON.parse(readFileSync(resolve(fixtures, 'quirks-long.profile.json'), 'utf8')));
 
 describe('long layout', () => {
   it('reads the long fixture with a profile: burns split where an element repeats and the time changes', () => {
-    const parsed = parseResultFile(readFileSync(resolve(import.meta.dirname, '../../fixtures/imports/quirks-long.csv')), { profile });
+    const parsed = parseResultFile(readFileSync(resolve(fixtures, 'quirks-long.csv')), { profile });
     expect(parsed).toEqual({
       encoding: 'utf-8',
       bom: false,

@@ -5,9 +5,8 @@ import { parseUnit, type Unit } from '../../chemistry/units.ts';
 import { CellError, readCell } from './cell-value.ts';
 import type { SampleState } from './grouping.ts';
 import type { RawRecord } from './read-records.ts';
-import { cellCountIssue, isIssue, readBurnNumber, readIdentity, readTime } from './row-cells.ts';
+import { enterRow, isIssue, readBurnNumber, readTime, type RowReading } from './row-cells.ts';
 import type { ColumnRole, Issue, ParsedBurn, ParsedValue } from './types.ts';
-import type { RowReading } from './wide-rows.ts';
 
 export interface LongColumns {
   element: ColumnRole;
@@ -50,13 +49,11 @@ function burnFor(state: SampleState, written: number | undefined, element: strin
 }
 
 export function readLongRow(record: RawRecord, reading: RowReading, long: LongColumns): void {
+  const entered = enterRow(record, reading);
+  if (!entered) return;
+  const { identity, state } = entered;
   const { line, cells } = record;
   const { columns, grouper } = reading;
-  const countIssue = cellCountIssue(record, columns.width);
-  if (countIssue) return grouper.reject([countIssue]);
-  const identity = readIdentity(cells, line, columns);
-  if (isIssue(identity)) return grouper.reject([identity]);
-  const state = grouper.enter(identity, line);
 
   const element = readElement(cells, line, long);
   const unit = readUnit(cells, line, long);

@@ -10,9 +10,9 @@ import { detectDelimiter, firstNonBlankLine, physicalLines } from './detect-deli
 import { SampleGrouper } from './grouping.ts';
 import { readLongRow } from './long-rows.ts';
 import { isBlankRecord, normaliseLineEnds, readRecords } from './read-records.ts';
-import { rowColumns } from './row-cells.ts';
+import { rowColumns, type RowReading } from './row-cells.ts';
 import { type DecimalSeparator, type Delimiter, type Issue, layoutError, type ParsedFile } from './types.ts';
-import { readWideRow, type RowReading } from './wide-rows.ts';
+import { readWideRow } from './wide-rows.ts';
 
 export interface ParseOptions {
   /** How to read the file; without one everything is detected. */

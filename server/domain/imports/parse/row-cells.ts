@@ -3,8 +3,8 @@
 // so one row can report every broken cell at once.
 import type { RawRecord } from './read-records.ts';
 import { parseBurnTime, type TimeFormat } from './times.ts';
-import type { RowIdentity } from './grouping.ts';
-import type { ColumnRole, Issue } from './types.ts';
+import type { RowIdentity, SampleGrouper, SampleState } from './grouping.ts';
+import type { ColumnRole, DecimalSeparator, Issue } from './types.ts';
 
 export interface RowColumns {
   width: number;
@@ -88,4 +88,24 @@ export function readTime(cells: string[], line: number, columns: RowColumns, set
 
 export function isIssue(value: unknown): value is Issue {
   return typeof value === 'object' && value !== null && 'code' in value && 'message' in value;
+}
+
+/** Everything a row reader needs, built once per file. */
+export interface RowReading {
+  columns: RowColumns;
+  elements: ColumnRole[];
+  decimal: DecimalSeparator;
+  time: TimeSettings;
+  grouper: SampleGrouper;
+  warnings: Issue[];
+}
+
+/** Checks the cell count and the sample code and puts the row into its sample; undefined when rejected. */
+export function enterRow(record: RawRecord, reading: RowReading): { identity: RowIdentity; state: SampleState } | undefined {
+  const { columns, grouper } = reading;
+  const countIssue = cellCountIssue(record, columns.width);
+  if (countIssue) return void grouper.reject([countIssue]);
+  const identity = readIdentity(record.cells, record.line, columns);
+  if (isIssue(identity)) return void grouper.reject([identity]);
+  return { identity, state: grouper.enter(identity, record.line) };
 }

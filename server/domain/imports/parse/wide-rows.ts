@@ -2,28 +2,16 @@
 // rejected as a whole (every broken cell is reported) and keeps its burn number, so the
 // numbers of the following burns do not shift.
 import { CellError, readCell } from './cell-value.ts';
-import type { SampleGrouper } from './grouping.ts';
 import type { RawRecord } from './read-records.ts';
-import { cellCountIssue, isIssue, readBurnNumber, readIdentity, readTime, type RowColumns, type TimeSettings } from './row-cells.ts';
-import type { ColumnRole, DecimalSeparator, Issue, ParsedValue } from './types.ts';
-
-export interface RowReading {
-  columns: RowColumns;
-  elements: ColumnRole[];
-  decimal: DecimalSeparator;
-  time: TimeSettings;
-  grouper: SampleGrouper;
-  warnings: Issue[];
-}
+import { enterRow, isIssue, readBurnNumber, readTime, type RowReading } from './row-cells.ts';
+import type { Issue, ParsedValue } from './types.ts';
 
 export function readWideRow(record: RawRecord, reading: RowReading): void {
+  const entered = enterRow(record, reading);
+  if (!entered) return;
+  const { identity, state } = entered;
   const { line, cells } = record;
   const { columns, grouper } = reading;
-  const countIssue = cellCountIssue(record, columns.width);
-  if (countIssue) return grouper.reject([countIssue]);
-  const identity = readIdentity(cells, line, columns);
-  if (isIssue(identity)) return grouper.reject([identity]);
-  const state = grouper.enter(identity, line);
   const issues: Issue[] = [];
 
   const written = readBurnNumber(cells, line, columns);
