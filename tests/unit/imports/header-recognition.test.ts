@@ -3,8 +3,10 @@
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { CreateImportProfileRequestSchema } from '../../../server/domain/imports/import-profiles.schemas.ts';
 import { parseElementHeader } from '../../../server/domain/imports/parse/element-header.ts';
 import { aliasRole, HEADER_ALIASES } from '../../../server/domain/imports/parse/header-aliases.ts';
+import { parseResultFile } from '../../../server/domain/imports/parse/index.ts';
 
 describe('element headers', () => {
   it.each([
@@ -68,9 +70,7 @@ describe('identification headers', () => {
 });
 
 describe('profile header names', () => {
-  it('match ignoring case and surrounding or repeated spaces, and win over recognition', async () => {
-    const { CreateImportProfileRequestSchema } = await import('../../../server/domain/imports/import-profiles.schemas.ts');
-    const { parseResultFile } = await import('../../../server/domain/imports/parse/index.ts');
+  it('match ignoring case and surrounding or repeated spaces, and win over recognition', () => {
     const profile = CreateImportProfileRequestSchema.parse({ name: 'p', columns: { sample_code: '  heat   NO ', heat: 'Sample' }, ignore_columns: ['c'] });
     const parsed = parseResultFile(Buffer.from('Sample,Heat No,C,Mn\nK24-0412,S1,0.4,0.7\n'), { profile });
     expect(parsed.columns.map((c) => [c.header, c.role, c.source])).toEqual([
