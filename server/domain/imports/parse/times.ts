@@ -37,26 +37,28 @@ export interface ParsedTime {
   hadOffset: boolean;
 }
 
+const ALL_FORMATS = Object.keys(PATTERNS) as (keyof typeof PATTERNS)[];
+
 /** The time in UTC, or undefined when the text is not a valid time in the format. */
 export function parseBurnTime(text: string, format: TimeFormat, defaultOffset: string): ParsedTime | undefined {
-  const formats = format === 'auto' ? (Object.keys(PATTERNS) as (keyof typeof PATTERNS)[]) : [format];
-  for (const name of formats) {
+  const trimmed = text.trim();
+  for (const name of format === 'auto' ? ALL_FORMATS : [format]) {
     const { regex, order } = PATTERNS[name];
-    const m = regex.exec(text.trim());
+    const m = regex.exec(trimmed);
     if (!m) continue;
-    const [a, b, c, hh, mm, ss = '0', fraction = '', offset] = m.slice(1);
-    const [year, month, day] = order === 'ymd' ? [Number(a), Number(b), Number(c)] : [Number(c), Number(b), Number(a)];
-    const [hour, minute, second] = [Number(hh), Number(mm), Number(ss)];
-    if (month < 1 || month > 12 || day < 1 || day > daysInMonth(year, month) || hour > 23 || minute > 59 || second > 59) return undefined;
-    const shift = offsetMinutes(offset ?? defaultOffset);
+    const year = Number(order === 'ymd' ? m[1] : m[3]);
+    const month = Number(m[2]);
+    const day = Number(order === 'ymd' ? m[3] : m[1]);
+    const hour = Number(m[4]);
+    const minute = Number(m[5]);
+    const second = m[6] === undefined ? 0 : Number(m[6]);
+    // Date.UTC maps years 0–99 to 1900–1999; refuse early years rather than guess.
+    if (year < 1900 || month < 1 || month > 12 || day < 1 || day > daysInMonth(year, month) || hour > 23 || minute > 59 || second > 59) return undefined;
+    const shift = offsetMinutes(m[8] ?? defaultOffset);
     if (shift === undefined) return undefined;
-    const millis = Number(fraction.padEnd(3, '0').slice(0, 3));
-    const epoch = Date.UTC(year, month - 1, day, hour, minute, second, millis) - shift * 60_000;
-    const date = new Date(epoch);
-    if (Number.isNaN(date.getTime())) return undefined;
-    // Date.UTC maps years 0–99 to 1900–1999; refuse them rather than guess.
-    if (year < 1900) return undefined;
-    return { iso: date.toISOString(), hadOffset: offset !== undefined };
+    const millis = m[7] === undefined ? 0 : Number(m[7].padEnd(3, '0').slice(0, 3));
+    const date = new Date(Date.UTC(year, month - 1, day, hour, minute, second, millis) - shift * 60_000);
+    return { iso: date.toISOString(), hadOffset: m[8] !== undefined };
   }
   return undefined;
 }
