@@ -2,6 +2,7 @@ import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { getImportProfile } from '../../server/domain/imports/import-profiles.service.ts';
 import { parseResultFile } from '../../server/domain/imports/parse/index.ts';
 import { createTestApp, expectProblem, issueKey, problemBody, signedInAgent, type TestApp } from '../helpers/test-app.ts';
 
@@ -177,7 +178,10 @@ describe('scopes', () => {
 describe('a stored profile drives the parser', () => {
   it('the profile as served by the API is accepted by parseResultFile', async () => {
     const { agent } = await signedInAgent(t, 'analyst');
-    const profile = (await agent.post('/api/v1/import-profiles').send({ ...LONG_PROFILE, name: 'Parser input' })).body;
+    const created = (await agent.post('/api/v1/import-profiles').send({ ...LONG_PROFILE, name: 'Parser input' })).body;
+    // Typed: the stored profile as the service returns it is the parser's option.
+    const profile = await getImportProfile(t.ctx, created.id);
+    expect(profile).toEqual(created);
     const file = ['preamble', '', 'Specimen Ref\tCast\tShift\tAnalysed\tAnalyte\tReading\tUnit', 'S1\tK24-0412\tA\t04.03.2024 06:00:00\tCr\t1250\t'].join('\n');
     const parsed = parseResultFile(Buffer.from(file), { profile });
     expect(parsed.samples[0].burns[0]).toEqual({ line: 4, burn_number: 1, measured_at: '2024-03-04T05:00:00.000Z', values: { Cr: { value: '0.125', qualifier: null, raw: '1250', unit: 'ppm' } } });

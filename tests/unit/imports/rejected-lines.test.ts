@@ -77,6 +77,14 @@ describe('rejected lines (wide layout)', () => {
   });
 });
 
+describe('preamble', () => {
+  it('lines above the profile\'s header row are skipped, even with a quote that never closes', () => {
+    const parsed = parse(['"Export of OES-1', 'operator: A. Moss', 'Sample,C', 'S1,0.4', 'S1,x'], { header_row: 3 });
+    expect(parsed.samples[0].burns.map((b) => b.line)).toEqual([4]);
+    expect(parsed.rejected[0]).toMatchObject({ line: 5, column: 'C' });
+  });
+});
+
 describe('rejected lines (long layout)', () => {
   const long = { layout: 'long', long_columns: { element: 'Element', value: 'Value', unit: 'Unit' } };
 

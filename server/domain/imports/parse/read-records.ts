@@ -17,11 +17,10 @@ function isCsvError(error: unknown): error is Error & { code: string } {
   return error instanceof Error && typeof code === 'string' && code.startsWith('CSV_');
 }
 
-function parseCells(text: string, delimiter: Delimiter, fromLine: number, onRecord?: (lines: number) => void): string[][] {
+function parseCells(text: string, delimiter: Delimiter, onRecord?: (lines: number) => void): string[][] {
   return parse(text, {
     delimiter,
     record_delimiter: '\n',
-    from_line: fromLine,
     relax_column_count: true,
     relax_quotes: true,
     skip_empty_lines: false,
@@ -33,18 +32,30 @@ function parseCells(text: string, delimiter: Delimiter, fromLine: number, onReco
 function failingRecordLine(text: string, delimiter: Delimiter, fromLine: number): number {
   let next = fromLine;
   try {
-    parseCells(text, delimiter, fromLine, (lines) => (next = lines + 1));
+    parseCells(text, delimiter, (lines) => (next = fromLine + lines));
   } catch {
     // expected: the same error again
   }
   return next;
 }
 
-/** `text` must use "\n" line ends only (see normaliseLineEnds). */
-export function readRecords(text: string, delimiter: Delimiter, fromLine: number): RawRecord[] {
+/** Where line `line` (1-based) starts in `text`. */
+function lineStart(text: string, line: number): number {
+  let at = 0;
+  for (let n = 1; n < line; n += 1) at = text.indexOf('\n', at) + 1;
+  return at;
+}
+
+/**
+ * Records from line `fromLine` on. The lines above it (a preamble) are cut off before csv-parse
+ * sees them, so a stray quote there cannot swallow the header. `text` must use "\n" line ends
+ * only (see normaliseLineEnds).
+ */
+export function readRecords(fullText: string, delimiter: Delimiter, fromLine: number): RawRecord[] {
+  const text = fromLine > 1 ? fullText.slice(lineStart(fullText, fromLine)) : fullText;
   let rows: string[][];
   try {
-    rows = parseCells(text, delimiter, fromLine);
+    rows = parseCells(text, delimiter);
   } catch (error) {
     if (!isCsvError(error)) throw error;
     const line = failingRecordLine(text, delimiter, fromLine);
