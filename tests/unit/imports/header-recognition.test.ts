@@ -3,7 +3,7 @@
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { CreateImportProfileRequestSchema } from '../../../server/domain/imports/import-profiles.schemas.ts';
+import { AUTO_DETECTION_DESCRIPTION, CreateImportProfileRequestSchema } from '../../../server/domain/imports/import-profiles.schemas.ts';
 import { parseElementHeader } from '../../../server/domain/imports/parse/element-header.ts';
 import { aliasRole, HEADER_ALIASES } from '../../../server/domain/imports/parse/header-aliases.ts';
 import { parseResultFile } from '../../../server/domain/imports/parse/index.ts';
@@ -59,6 +59,10 @@ describe('identification headers', () => {
     ['Sample kind', 'kind'],
   ])('%s → %s', (header, role) => {
     expect(aliasRole(header)).toBe(role);
+  });
+
+  it('the OpenAPI description of import profiles names every alias', () => {
+    for (const alias of Object.values(HEADER_ALIASES).flat()) expect(AUTO_DETECTION_DESCRIPTION).toContain(`\`${alias}\``);
   });
 
   it('docs/imports/auto-detection.md lists exactly the aliases the code recognises', () => {
