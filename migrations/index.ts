@@ -6,6 +6,7 @@ import * as createSessions from './20261201000200_create_sessions.ts';
 import * as createUserTokens from './20261201000300_create_user_tokens.ts';
 import * as createAuditEvents from './20261201000400_create_audit_events.ts';
 import * as createApiKeys from './20261201000500_create_api_keys.ts';
+import * as createImportProfiles from './20261201300100_create_import_profiles.ts';
 
 export interface Migration {
   up(knex: Knex): Promise<void>;
@@ -18,4 +19,5 @@ export const migrations: Record<string, Migration> = {
   '20261201000300_create_user_tokens': createUserTokens,
   '20261201000400_create_audit_events': createAuditEvents,
   '20261201000500_create_api_keys': createApiKeys,
+  '20261201300100_create_import_profiles': createImportProfiles,
 };
