@@ -24,7 +24,7 @@ export function parseMeasuredValue(raw: string | number | null | undefined, deci
   if (raw === null || raw === undefined) return { kind: 'blank' };
   if (typeof raw === 'number') {
     if (!Number.isFinite(raw)) throw new MeasuredValueError('is not a finite number');
-    return checked({ kind: 'value', value: new Decimal(raw).toString(), qualifier: null });
+    return checked({ kind: 'value', value: plain(raw), qualifier: null });
   }
   const text = raw.trim();
   if (text === '') return { kind: 'blank' };
@@ -36,13 +36,19 @@ export function parseMeasuredValue(raw: string | number | null | undefined, deci
     number = number.replace(',', '.');
   }
   if (!NUMBER.test(number)) throw new MeasuredValueError(`"${text}" is not a number, a qualified value such as "<0.001" or "n.d."`);
-  const value = new Decimal(number).toString();
+  const value = plain(number);
   return checked(qualifier ? { kind: 'qualified', value, qualifier } : { kind: 'value', value, qualifier: null });
 }
 
 function checked<T extends MeasuredValue>(parsed: T): T {
-  if ('value' in parsed && parsed.value !== null && new Decimal(parsed.value).isNegative()) {
+  if ('value' in parsed && parsed.value !== null && new Decimal(parsed.value).isNegative() && !new Decimal(parsed.value).isZero()) {
     throw new MeasuredValueError(`${parsed.value} is negative; a mass fraction cannot be`);
   }
   return parsed;
+}
+
+/** Plain notation ("0.00000005", never "5e-8"), trailing zeros dropped, "-0" written "0". */
+function plain(number: string | number): string {
+  const value = new Decimal(number);
+  return value.isZero() ? '0' : value.toFixed();
 }
