@@ -6,7 +6,12 @@ import * as createSessions from './20261201000200_create_sessions.ts';
 import * as createUserTokens from './20261201000300_create_user_tokens.ts';
 import * as createAuditEvents from './20261201000400_create_audit_events.ts';
 import * as createApiKeys from './20261201000500_create_api_keys.ts';
+import * as createInstruments from './20261201200100_create_instruments.ts';
+import * as createMethods from './20261201200200_create_methods.ts';
 import * as createImportProfiles from './20261201300100_create_import_profiles.ts';
+import * as createImports from './20261201400100_create_imports.ts';
+import * as createSamples from './20261201400200_create_samples.ts';
+import * as createBurns from './20261201400300_create_burns.ts';
 
 export interface Migration {
   up(knex: Knex): Promise<void>;
@@ -19,5 +24,10 @@ export const migrations: Record<string, Migration> = {
   '20261201000300_create_user_tokens': createUserTokens,
   '20261201000400_create_audit_events': createAuditEvents,
   '20261201000500_create_api_keys': createApiKeys,
+  '20261201200100_create_instruments': createInstruments,
+  '20261201200200_create_methods': createMethods,
   '20261201300100_create_import_profiles': createImportProfiles,
+  '20261201400100_create_imports': createImports,
+  '20261201400200_create_samples': createSamples,
+  '20261201400300_create_burns': createBurns,
 };

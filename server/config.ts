@@ -24,6 +24,7 @@ const envSchema = z.object({
   SEED_DEMO: booleanFlag.optional(),
   LOGIN_RATE_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).default(10),
   RATE_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).default(600),
+  IMPORT_MAX_BYTES: z.coerce.number().int().min(1024).default(20 * 1024 * 1024),
   BODY_LIMIT: z.string().regex(/^\d+(b|kb|mb)$/i, 'must look like 512kb or 1mb').default('1mb'),
 });
 
@@ -42,6 +43,7 @@ export interface Config {
   loginRateLimitPerMinute: number;
   rateLimitPerMinute: number;
   bodyLimit: string;
+  importMaxBytes: number;
   version: string;
 }
 
@@ -82,6 +84,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     loginRateLimitPerMinute: e.LOGIN_RATE_LIMIT_PER_MINUTE,
     rateLimitPerMinute: e.RATE_LIMIT_PER_MINUTE,
     bodyLimit: e.BODY_LIMIT,
+    importMaxBytes: e.IMPORT_MAX_BYTES,
     version: APP_VERSION,
   };
 }

@@ -316,6 +316,106 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/instruments": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * List instruments
+         * @description Ordered by code. A key restricted to some instruments sees only those.
+         *
+         *     Requires the scope `samples:read`.
+         */
+        get: operations["listInstruments"];
+        put?: never;
+        /**
+         * Register an instrument
+         * @description Requires the scope `instruments:write`.
+         */
+        post: operations["createInstrument"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/instruments/{id}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Get an instrument
+         * @description Requires the scope `samples:read`.
+         */
+        get: operations["getInstrument"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        /**
+         * Change an instrument's code, name or site
+         * @description Requires the scope `instruments:write`.
+         */
+        patch: operations["updateInstrument"];
+        trace?: never;
+    };
+    "/methods": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * List analytical methods
+         * @description Requires the scope `samples:read`.
+         */
+        get: operations["listMethods"];
+        put?: never;
+        /**
+         * Define an analytical method
+         * @description Requires the scope `methods:write`.
+         */
+        post: operations["createMethod"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/methods/{id}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Get a method with its element settings
+         * @description Requires the scope `samples:read`.
+         */
+        get: operations["getMethod"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        /**
+         * Change a method's name, default unit or element settings
+         * @description Results already stored keep the settings they were computed with.
+         *
+         *     Requires the scope `methods:write`.
+         */
+        patch: operations["updateMethod"];
+        trace?: never;
+    };
     "/samples": {
         parameters: {
             query?: never;
@@ -324,16 +424,174 @@ export interface paths {
             cookie?: never;
         };
         /**
-         * List samples
-         * @description Requires the scope `samples:read`.
+         * List samples with their results
+         * @description Newest first by default. With `updated_since`, ordered by last change (oldest first) so an integration can poll: keep the last `updated_at` you saw and pass it next time. Filters combine with AND.
+         *
+         *     **How results are computed** (per element, over the included burns; mass fractions in %, converted exactly for `unit=ppm|ppb`):
+         *
+         *     1. The mean, SD (n − 1), RSD % = 100·SD/|mean|, n, min and max are computed over the included burns that carry a numeric value. SD and RSD are null for one burn, RSD also when the mean is 0. (Basis: Averaging two or three burns: common practice, no source. SD and coefficient of variation as defined in ISO 3534-1 (from memory).)
+         *     2. reported = the mean rounded half to even, in one step from the full-precision mean, to the method's decimals for the element, written with trailing zeros ("0.70"). (Basis: ASTM E29 (rounding method); ISO 80000-1 Annex B, rule A.)
+         *     3. An element that no included burn measured has no result: all values null, flag not_measured. (Basis: Common practice, no source.)
+         *     4. A mean below the detection limit or below the lower end of the working range is reported as "<" the lowest reportable value, i.e. the larger of those two limits that the method sets. A mean above the upper end of the working range is reported as ">" that end. Limits are compared with the full-precision mean; a mean equal to a limit is inside. (Basis: Qualifiers "<"/">" for results outside what the method can quantify: product requirement; reporting "< limit" is common practice, no source.)
+         *     5. Burns reported as "<" (n.d. counts as "<" the detection limit): the result is "<" an upper bound — the mean of all burns with each "<" burn set to its limit — but never less than the lowest reportable value. Every burn "<" gives a "<" result (flag all_burns_qualified); "<" and numeric burns together also give a "<" result (flag mixed_qualified_burns). (Basis: Upper-bound substitution for left-censored data (WHO GEMS/Food 1995; EFSA 2010 — from memory); applying it to burns is our choice, no source.)
+         *     6. Burns reported as ">": the result is ">" a lower bound — the mean with each ">" burn set to its limit — capped at the upper end of the working range. Every burn ">" gives a ">" result. (Basis: The same substitution mirrored for right-censored values: common practice, no source.)
+         *     7. Burns saying both "<" and ">", or a qualified burn with no value and no method limit to stand for it: nothing is reported (reported and qualifier null) and a flag says why. (Basis: No bound is true in these cases: common practice, no source.)
+         *     8. A "<" bound is written with the method's decimals rounded up, a ">" bound rounded down, so that the statement stays true ("<0.00045" at 3 decimals → "<0.001"). (Basis: Common practice, no source.)
+         *     9. Individual burns outside the working range while the result is inside are flagged (burns_outside_working_range), not changed. (Basis: Common practice, no source.)
+         *     10. With at least two numeric burns and a repeatability SD σr set for the element, the range of the burns is compared with the critical range f(n)·σr (f(2) = 2.77, f(3) = 3.31 …, up to n = 20); a larger range sets repeatability_exceeded. The result is still the mean: the analyst excludes a burn or sparks again. (Basis: ISO 5725-6:1994 §5.2 and Table 1 (critical range factors). The standard itself would take further results and report the median; flagging instead is our choice.)
+         *
+         *     **Result flags**
+         *
+         *     - `not_measured`: No included burn measured this element: there is no result.
+         *     - `single_burn`: The result rests on one numeric burn: no SD, RSD or repeatability check.
+         *     - `repeatability_exceeded`: The range of the burns exceeds the ISO 5725-6 critical range f(n)·σr (95 %).
+         *     - `repeatability_unchecked`: More than 20 numeric burns: beyond the critical-range table, repeatability was not checked.
+         *     - `below_detection_limit`: The mean (or its upper bound) is below the method's detection limit.
+         *     - `below_working_range`: The mean (or its upper bound) is below the lower end of the method's working range.
+         *     - `above_working_range`: The mean (or its lower bound) is above the upper end of the method's working range.
+         *     - `burns_outside_working_range`: At least one burn lies outside the working range although the result does not.
+         *     - `all_burns_qualified`: Every burn was reported as "<", ">" or n.d.: the result is a bound, there is no mean.
+         *     - `mixed_qualified_burns`: Numeric burns and "<", ">" or n.d. burns together: the result is a bound; mean, SD and n describe the numeric burns only.
+         *     - `not_detected`: At least one burn was reported as not detected (counted as "<" the detection limit).
+         *     - `conflicting_qualified_burns`: Burns say both "<" and ">": no bound holds, nothing is reported.
+         *     - `limit_missing`: A burn is qualified without a value (n.d., or "<"/">" alone) and the method sets no limit to bound it: nothing is reported.
+         *     - `not_in_method`: The method does not list this element; it is averaged anyway, with 4 reporting decimals and no limits.
+         *
+         *     Results must be reviewed and authorised under the laboratory's own procedures before release.
+         *
+         *     Requires the scope `samples:read`.
          */
         get: operations["listSamples"];
+        put?: never;
+        /**
+         * Push one sample with its burns (JSON)
+         * @description Element symbols are normalised (MN → Mn); values are numbers or strings such as "<0.0005", ">1.5" or "n.d.", in `unit` (default: the method's). Nothing is stored when any value is wrong: the 400 problem names each one in `errors[]`. Unknown instrument or method → 422.
+         *
+         *     Requires the scope `samples:write`.
+         */
+        post: operations["pushSample"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/samples.csv": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Export samples as CSV
+         * @description The same filters as the list, every matching sample (up to 100000), newest first: one row per sample, one column per element holding the reported value with its qualifier (e.g. "<0.002"). Text cells that a spreadsheet would evaluate (starting with =, +, -, @) are prefixed with a quote.
+         *
+         *     Requires the scope `samples:read`.
+         */
+        get: operations["exportSamplesCsv"];
         put?: never;
         post?: never;
         delete?: never;
         options?: never;
         head?: never;
         patch?: never;
+        trace?: never;
+    };
+    "/samples/batch": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Push many samples in one transaction
+         * @description All samples are stored, or none: any problem answers 400/422 with `errors[]` located as `body.samples.<i>…`.
+         *
+         *     Requires the scope `samples:write`.
+         */
+        post: operations["pushSampleBatch"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/samples/{id}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Get a sample: results, burns and provenance
+         * @description **How results are computed** (per element, over the included burns; mass fractions in %, converted exactly for `unit=ppm|ppb`):
+         *
+         *     1. The mean, SD (n − 1), RSD % = 100·SD/|mean|, n, min and max are computed over the included burns that carry a numeric value. SD and RSD are null for one burn, RSD also when the mean is 0. (Basis: Averaging two or three burns: common practice, no source. SD and coefficient of variation as defined in ISO 3534-1 (from memory).)
+         *     2. reported = the mean rounded half to even, in one step from the full-precision mean, to the method's decimals for the element, written with trailing zeros ("0.70"). (Basis: ASTM E29 (rounding method); ISO 80000-1 Annex B, rule A.)
+         *     3. An element that no included burn measured has no result: all values null, flag not_measured. (Basis: Common practice, no source.)
+         *     4. A mean below the detection limit or below the lower end of the working range is reported as "<" the lowest reportable value, i.e. the larger of those two limits that the method sets. A mean above the upper end of the working range is reported as ">" that end. Limits are compared with the full-precision mean; a mean equal to a limit is inside. (Basis: Qualifiers "<"/">" for results outside what the method can quantify: product requirement; reporting "< limit" is common practice, no source.)
+         *     5. Burns reported as "<" (n.d. counts as "<" the detection limit): the result is "<" an upper bound — the mean of all burns with each "<" burn set to its limit — but never less than the lowest reportable value. Every burn "<" gives a "<" result (flag all_burns_qualified); "<" and numeric burns together also give a "<" result (flag mixed_qualified_burns). (Basis: Upper-bound substitution for left-censored data (WHO GEMS/Food 1995; EFSA 2010 — from memory); applying it to burns is our choice, no source.)
+         *     6. Burns reported as ">": the result is ">" a lower bound — the mean with each ">" burn set to its limit — capped at the upper end of the working range. Every burn ">" gives a ">" result. (Basis: The same substitution mirrored for right-censored values: common practice, no source.)
+         *     7. Burns saying both "<" and ">", or a qualified burn with no value and no method limit to stand for it: nothing is reported (reported and qualifier null) and a flag says why. (Basis: No bound is true in these cases: common practice, no source.)
+         *     8. A "<" bound is written with the method's decimals rounded up, a ">" bound rounded down, so that the statement stays true ("<0.00045" at 3 decimals → "<0.001"). (Basis: Common practice, no source.)
+         *     9. Individual burns outside the working range while the result is inside are flagged (burns_outside_working_range), not changed. (Basis: Common practice, no source.)
+         *     10. With at least two numeric burns and a repeatability SD σr set for the element, the range of the burns is compared with the critical range f(n)·σr (f(2) = 2.77, f(3) = 3.31 …, up to n = 20); a larger range sets repeatability_exceeded. The result is still the mean: the analyst excludes a burn or sparks again. (Basis: ISO 5725-6:1994 §5.2 and Table 1 (critical range factors). The standard itself would take further results and report the median; flagging instead is our choice.)
+         *
+         *     **Result flags**
+         *
+         *     - `not_measured`: No included burn measured this element: there is no result.
+         *     - `single_burn`: The result rests on one numeric burn: no SD, RSD or repeatability check.
+         *     - `repeatability_exceeded`: The range of the burns exceeds the ISO 5725-6 critical range f(n)·σr (95 %).
+         *     - `repeatability_unchecked`: More than 20 numeric burns: beyond the critical-range table, repeatability was not checked.
+         *     - `below_detection_limit`: The mean (or its upper bound) is below the method's detection limit.
+         *     - `below_working_range`: The mean (or its upper bound) is below the lower end of the method's working range.
+         *     - `above_working_range`: The mean (or its lower bound) is above the upper end of the method's working range.
+         *     - `burns_outside_working_range`: At least one burn lies outside the working range although the result does not.
+         *     - `all_burns_qualified`: Every burn was reported as "<", ">" or n.d.: the result is a bound, there is no mean.
+         *     - `mixed_qualified_burns`: Numeric burns and "<", ">" or n.d. burns together: the result is a bound; mean, SD and n describe the numeric burns only.
+         *     - `not_detected`: At least one burn was reported as not detected (counted as "<" the detection limit).
+         *     - `conflicting_qualified_burns`: Burns say both "<" and ">": no bound holds, nothing is reported.
+         *     - `limit_missing`: A burn is qualified without a value (n.d., or "<"/">" alone) and the method sets no limit to bound it: nothing is reported.
+         *     - `not_in_method`: The method does not list this element; it is averaged anyway, with 4 reporting decimals and no limits.
+         *
+         *     Results must be reviewed and authorised under the laboratory's own procedures before release.
+         *
+         *     Requires the scope `samples:read`.
+         */
+        get: operations["getSample"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/samples/{id}/burns/{n}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        /**
+         * Exclude a burn from the results, or include it again
+         * @description The burn is never deleted. The results are recomputed, and the change is audited with the reason, who and when. Released samples cannot be changed this way (409).
+         *
+         *     Requires the scope `samples:write`.
+         */
+        patch: operations["setBurnExclusion"];
         trace?: never;
     };
     "/import-profiles": {
@@ -388,6 +646,96 @@ export interface paths {
          *     Requires the scope `imports:write`.
          */
         patch: operations["updateImportProfile"];
+        trace?: never;
+    };
+    "/imports": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * List imports, newest first
+         * @description Requires the scope `samples:read`.
+         */
+        get: operations["listImports"];
+        put?: never;
+        /**
+         * Upload an instrument result file
+         * @description The raw bytes are kept with their SHA-256. Uploading the same bytes again returns the earlier import with 200 and creates nothing. By default a file is imported all or nothing: one unreadable value answers 422 with `errors[]` naming line and column (`file:line 12:Mn`), and the database is unchanged.
+         *
+         *     Without a profile (and for whatever a profile leaves open) the parser detects: the encoding (UTF-8 with or without BOM, else Windows-1252); the delimiter (`,` `;` or tab: the one that splits the header into most columns and the data lines into as many); the decimal separator (`.` in comma-delimited files; otherwise `,` when more element cells write a digit-comma-digit than a digit-dot-digit); the header (the first non-blank line); the layout (long when an element column and a value column are named and no header is an element, else wide); element columns (a real element symbol in any case with an optional unit: `Mn`, `Mn %`, `%Mn`, `Mn [%]`, `C [ppm]`, `Si(%)`, `Cu mg/kg`; unit from the header, else the profile's default unit, else the caller's, else %); identification headers, ignoring case and treating `_ - . / :` as spaces — sample code (required): `sample`, `sample code`, `sample id`, `sample no`, `sample number`, `sample name`, `specimen`, `specimen id`; heat or lot number: `heat`, `heat no`, `heat number`, `heat id`, `lot`, `lot no`, `lot number`, `batch`, `cast`, `cast no`, `melt`, `melt no`; grade: `grade`, `steel grade`, `alloy`, `alloy grade`, `material`; sample kind (preliminary, final, ladle, incoming, control …): `kind`, `sample kind`, `sample type`, `type`; burn (replicate) number; without it burns count 1, 2, 3 … within a sample: `burn`, `burn no`, `burn number`, `replicate`, `rep`, `spark`, `spark no`; time of the burn: `time`, `timestamp`, `date time`, `datetime`, `measured at`, `measurement time`, `analysed at`, `analyzed at`; long layout: the element symbol: `element`, `analyte`; long layout: the value: `value`, `result`, `concentration`, `conc`; long layout: the unit of the value: `unit`, `units`; ignored (row counter): `no`, `nr`, `row`, `line`, `index`, `#`. Any other header becomes an identification field in `fields`. A header with a unit whose symbol is no element (`Xx %`) rejects the file.
+         *
+         *     Requires the scope `imports:write`.
+         */
+        post: operations["uploadImport"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/imports/preview": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Read a result file without storing anything
+         * @description Shows how the file would be read: recognised columns, the first samples, warnings and rejected lines, and whether these bytes were imported before.
+         *
+         *     Requires the scope `imports:write`.
+         */
+        post: operations["previewImport"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/imports/{id}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Get an import and its report
+         * @description Requires the scope `samples:read`.
+         */
+        get: operations["getImport"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/imports/{id}/file": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Download the raw file exactly as uploaded
+         * @description Requires the scope `samples:read`.
+         */
+        get: operations["downloadImportFile"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
         trace?: never;
     };
     "/audit-events": {
@@ -497,7 +845,7 @@ export interface components {
         /** @enum {string} */
         UserStatus: "invited" | "active" | "disabled";
         /** @enum {string} */
-        Scope: "samples:read" | "samples:write" | "samples:release" | "imports:write" | "standardizations:read" | "standardizations:write" | "grades:read" | "grades:write" | "control:read" | "control:write" | "webhooks:read" | "webhooks:write" | "events:read" | "request-log:read" | "api-keys:read" | "api-keys:write" | "users:read" | "users:write" | "audit:read";
+        Scope: "samples:read" | "samples:write" | "samples:release" | "imports:write" | "instruments:write" | "methods:write" | "standardizations:read" | "standardizations:write" | "grades:read" | "grades:write" | "control:read" | "control:write" | "webhooks:read" | "webhooks:write" | "events:read" | "request-log:read" | "api-keys:read" | "api-keys:write" | "users:read" | "users:write" | "audit:read";
         LoginRequest: {
             email: string;
             password: string;
@@ -608,6 +956,120 @@ export interface components {
              */
             overlap_minutes: number;
         };
+        InstrumentList: {
+            data: components["schemas"]["Instrument"][];
+            /** @description Pass as `cursor` to get the next page; null on the last page. */
+            next_cursor: string | null;
+        };
+        /** @description One spectrometer at a site. */
+        Instrument: {
+            id: string;
+            code: string;
+            name: string;
+            site: string;
+            /** Format: date-time */
+            created_at: string;
+            /** Format: date-time */
+            updated_at: string;
+        };
+        CreateInstrumentRequest: {
+            /** @example OES-1 */
+            code: string;
+            /** @example Melt shop spark stand */
+            name: string;
+            /** @example Foundry, Kestrel Bend */
+            site: string;
+        };
+        UpdateInstrumentRequest: {
+            /** @example OES-1 */
+            code?: string;
+            /** @example Melt shop spark stand */
+            name?: string;
+            /** @example Foundry, Kestrel Bend */
+            site?: string;
+        };
+        MethodList: {
+            data: components["schemas"]["Method"][];
+            /** @description Pass as `cursor` to get the next page; null on the last page. */
+            next_cursor: string | null;
+        };
+        /** @description An analytical method for one base matrix. Ranges, limits and σr are mass fractions in %. */
+        Method: {
+            id: string;
+            code: string;
+            name: string;
+            /**
+             * @description Base element of the alloys measured (Fe, Al, Cu, Ni, Zn …).
+             * @example Fe
+             */
+            matrix: string;
+            /**
+             * @description Unit assumed for pushed values that do not say theirs.
+             * @enum {string}
+             */
+            default_unit: "%" | "ppm" | "ppb";
+            elements: components["schemas"]["MethodElement"][];
+            /** Format: date-time */
+            created_at: string;
+            /** Format: date-time */
+            updated_at: string;
+        };
+        MethodElement: {
+            /**
+             * @description Element symbol; any case is accepted and normalised (MN → Mn).
+             * @example Mn
+             */
+            element: string;
+            /** @description Reporting decimals in % (rounded half to even, ASTM E29). */
+            decimals: number;
+            /**
+             * @description Lowest calibrated value, %.
+             * @default null
+             * @example 0.0005
+             */
+            working_range_low: string | null;
+            /**
+             * @description Highest calibrated value, %.
+             * @default null
+             * @example 0.0005
+             */
+            working_range_high: string | null;
+            /**
+             * @description Detection limit, %.
+             * @default null
+             * @example 0.0005
+             */
+            detection_limit: string | null;
+            /**
+             * @description Repeatability standard deviation σr, % (ISO 5725); enables the burn agreement check.
+             * @default null
+             * @example 0.0005
+             */
+            repeatability_sd: string | null;
+        };
+        CreateMethodRequest: {
+            /** @example FE-LA */
+            code: string;
+            name: string;
+            /**
+             * @description Element symbol; any case is accepted and normalised (MN → Mn).
+             * @example Mn
+             */
+            matrix: string;
+            /**
+             * @default %
+             * @enum {string}
+             */
+            default_unit: "%" | "ppm" | "ppb";
+            elements: components["schemas"]["MethodElement"][];
+        };
+        UpdateMethodRequest: {
+            name?: string;
+            /** @enum {string} */
+            default_unit?: "%" | "ppm" | "ppb";
+            /** @description Replaces the element list. Stored results keep the settings they were computed with until recomputed. */
+            elements?: components["schemas"]["MethodElement"][];
+        };
         SampleList: {
             data: components["schemas"]["SampleSummary"][];
             /** @description Pass as `cursor` to get the next page; null on the last page. */
@@ -616,6 +1078,173 @@ export interface components {
         SampleSummary: {
             id: string;
             sample_code: string;
+            heat: string | null;
+            grade: string | null;
+            kind: components["schemas"]["SampleKind"];
+            status: components["schemas"]["SampleStatus"];
+            instrument: {
+                id: string;
+                code: string;
+            };
+            method: {
+                id: string;
+                code: string;
+            };
+            fields: {
+                [key: string]: string;
+            };
+            /** @enum {string} */
+            source: "push" | "import";
+            import_id: string | null;
+            burn_count: number;
+            /** @description Every flag raised on any element result. */
+            flags: string[];
+            results: components["schemas"]["ElementResult"][];
+            created_by: string;
+            /** Format: date-time */
+            created_at: string;
+            /** Format: date-time */
+            updated_at: string;
+        };
+        /** @enum {string|null} */
+        SampleKind: "preliminary" | "final" | "ladle" | "incoming" | "control" | null;
+        /** @enum {string} */
+        SampleStatus: "draft" | "released";
+        ElementResult: {
+            /** @example Mn */
+            element: string;
+            /** @description Mean of the included burns after drift correction, in `unit`. */
+            mean: number | null;
+            /** @description Sample standard deviation (n − 1); null when n < 2. */
+            sd: number | null;
+            /** @description Relative standard deviation, %; null when n < 2 or the mean is 0. */
+            rsd: number | null;
+            /** @description Number of numeric burn values averaged. */
+            n: number;
+            min: number | null;
+            max: number | null;
+            unit: components["schemas"]["OutputUnit"];
+            /** @description Mean before drift correction. */
+            raw_mean: number | null;
+            /**
+             * @description The mean rounded half to even (ASTM E29) to the method's decimals, as a string; with `qualifier` when qualified.
+             * @example 0.71
+             */
+            reported: string | null;
+            /**
+             * @description `<` below the detection limit or working range, `>` above the working range.
+             * @enum {string|null}
+             */
+            qualifier: "<" | ">" | null;
+            /** @description Decimal places of `reported` in this unit: the method's decimals in %, shifted for ppm (−4) and ppb (−7). Negative = rounded to tens, hundreds … */
+            decimals: number;
+            /** @description See the result flags in the operation description. */
+            flags: string[];
+            /** @description ISO 5725-6 check of the burns' range against f(n)·σr, when the method sets σr and there are at least two burns. */
+            repeatability: {
+                range: number;
+                critical_range: number;
+                exceeded: boolean;
+            } | null;
+        };
+        /**
+         * @description `%` (mass fraction in percent, the default), `ppm` (mg/kg) or `ppb` (µg/kg).
+         * @enum {string}
+         */
+        OutputUnit: "%" | "ppm" | "ppb";
+        Sample: components["schemas"]["SampleSummary"] & {
+            burns: components["schemas"]["Burn"][];
+            provenance: {
+                /** @enum {string} */
+                source: "push" | "import";
+                import_id: string | null;
+                file_sha256: string | null;
+                file_name: string | null;
+                /** @description File lines of the burns, for imported samples. */
+                lines: number[];
+            };
+        };
+        Burn: {
+            number: number;
+            /** Format: date-time */
+            measured_at: string | null;
+            excluded: boolean;
+            exclusion: {
+                reason: string;
+                by: string;
+                at: string;
+            } | null;
+            /** @description Line of the imported file this burn came from. */
+            source_line: number | null;
+            values: {
+                [key: string]: components["schemas"]["BurnValue"];
+            };
+        };
+        BurnValue: {
+            /** @description Canonical value in the requested unit; null for "n.d.". */
+            value: number | null;
+            /** @enum {string|null} */
+            qualifier: "<" | ">" | "nd" | null;
+            /** @description The value exactly as received. */
+            raw: string;
+            /** @description The unit it was received in. */
+            raw_unit: string;
+        };
+        PushSampleRequest: {
+            /** @example K24-0412-F1 */
+            sample_code: string;
+            /** @example K24-0412 */
+            heat?: string;
+            /** @example SAE 1045 */
+            grade?: string;
+            kind?: components["schemas"]["SampleKind"];
+            instrument_id: string;
+            method_id: string;
+            /**
+             * @description Further identification fields (furnace, customer order …).
+             * @example {
+             *       "furnace": "EAF-2"
+             *     }
+             */
+            fields?: {
+                [key: string]: string;
+            };
+            /**
+             * @description Unit of every value in `burns`; defaults to the method's default unit. `fraction` = plain mass fraction (0.01 = 1 %).
+             * @enum {string}
+             */
+            unit?: "%" | "ppm" | "ppb" | "fraction";
+            burns: components["schemas"]["PushedBurn"][];
+        };
+        PushedBurn: {
+            /**
+             * Format: date-time
+             * @description When the burn was sparked (ISO 8601).
+             */
+            measured_at?: string;
+            /**
+             * @description Element symbol → value. Symbols in any case (MN → Mn).
+             * @example {
+             *       "C": 0.452,
+             *       "Mn": 0.71,
+             *       "S": "<0.002"
+             *     }
+             */
+            values: {
+                [key: string]: number | string;
+            };
+        };
+        SampleBatch: {
+            data: components["schemas"]["Sample"][];
+        };
+        /** @description Up to 500 samples, stored in one transaction: all or none. */
+        PushSampleBatchRequest: {
+            samples: components["schemas"]["PushSampleRequest"][];
+        };
+        /** @description Exclude a burn from the statistics (it is never deleted), or include it again. The reason is recorded either way. */
+        SetBurnExclusionRequest: {
+            excluded: boolean;
+            reason: string;
         };
         ImportProfileList: {
             data: components["schemas"]["ImportProfile"][];
@@ -879,6 +1508,139 @@ export interface components {
             default_unit?: string | null;
             ignore_columns?: string[];
             time?: components["schemas"]["ImportProfileTime"];
+        };
+        Import: {
+            id: string;
+            instrument_id: string;
+            method_id: string;
+            profile_id: string | null;
+            file: {
+                name: string;
+                content_type: string;
+                size_bytes: number;
+                /** @description SHA-256 of the raw bytes, hex. */
+                sha256: string;
+            };
+            /** @enum {string} */
+            mode: "all_or_nothing" | "per_sample";
+            report: components["schemas"]["ImportReport"];
+            created_by: string;
+            /** Format: date-time */
+            created_at: string;
+        };
+        ImportReport: {
+            /** @description How the file was read. */
+            layout: {
+                encoding: string;
+                delimiter: string;
+                decimal_separator: string;
+                /** @enum {string} */
+                layout: "wide" | "long";
+                columns: {
+                    header: string;
+                    role: string;
+                    element?: string;
+                    unit?: string;
+                }[];
+            };
+            counts: {
+                rows: number;
+                samples_created: number;
+                /** @description Samples left out because a line of theirs was rejected (a sample whose every line was rejected counts in lines_rejected only). */
+                samples_rejected: number;
+                lines_rejected: number;
+                burns: number;
+                values: number;
+            };
+            sample_ids: string[];
+            warnings: components["schemas"]["ImportIssue"][];
+            /** @description Lines that were not imported, with the reason (per-sample mode only; in all-or-nothing mode any of them stops the import). */
+            rejected: components["schemas"]["ImportIssue"][];
+        };
+        ImportIssue: {
+            /** @description Physical line of the file (1 = first line, the header counts). */
+            line?: number;
+            /** @description Header of the column concerned. */
+            column?: string;
+            message: string;
+            /** @example bad_value */
+            code: string;
+        };
+        ImportUpload: {
+            /**
+             * Format: binary
+             * @description The result file (CSV or other delimited text).
+             */
+            file: string;
+            instrument_id: string;
+            method_id: string;
+            /** @description An import profile describing the layout; without it the layout is detected. */
+            profile_id?: string;
+            /**
+             * @description `all_or_nothing` (default): any broken value rejects the whole file (422 naming line and column). `per_sample`: samples with a broken line are left out and listed in `report.rejected`; the rest is imported.
+             * @default all_or_nothing
+             * @enum {string}
+             */
+            mode: "all_or_nothing" | "per_sample";
+        };
+        ImportPreview: {
+            /** @description How the file was read. */
+            layout: {
+                encoding: string;
+                delimiter: string;
+                decimal_separator: string;
+                /** @enum {string} */
+                layout: "wide" | "long";
+                columns: {
+                    header: string;
+                    role: string;
+                    element?: string;
+                    unit?: string;
+                }[];
+            };
+            counts: {
+                rows: number;
+                samples: number;
+                burns: number;
+                values: number;
+            };
+            /** @description The first 20 samples as they would be stored (values as written, with their qualifier). */
+            samples: {
+                sample_code: string;
+                heat: string | null;
+                grade: string | null;
+                kind: string | null;
+                first_line: number;
+                burns: {
+                    line: number;
+                    burn_number: number;
+                    measured_at: string | null;
+                    values: {
+                        [key: string]: string;
+                    };
+                }[];
+            }[];
+            warnings: components["schemas"]["ImportIssue"][];
+            /** @description Lines that were not imported, with the reason (per-sample mode only; in all-or-nothing mode any of them stops the import). */
+            rejected: components["schemas"]["ImportIssue"][];
+            /** @description An earlier import of exactly these bytes; uploading them again would return it and create nothing. */
+            duplicate_of: string | null;
+        };
+        ImportPreviewRequest: {
+            /**
+             * Format: binary
+             * @description The result file (CSV or other delimited text).
+             */
+            file: string;
+            instrument_id: string;
+            method_id: string;
+            /** @description An import profile describing the layout; without it the layout is detected. */
+            profile_id?: string;
+        };
+        ImportList: {
+            data: components["schemas"]["Import"][];
+            /** @description Pass as `cursor` to get the next page; null on the last page. */
+            next_cursor: string | null;
         };
         AuditEventList: {
             data: components["schemas"]["AuditEvent"][];
@@ -2102,7 +2864,7 @@ export interface operations {
             };
         };
     };
-    listSamples: {
+    listInstruments: {
         parameters: {
             query?: {
                 /** @description Page size (1–200). */
@@ -2116,7 +2878,646 @@ export interface operations {
         };
         requestBody?: never;
         responses: {
-            /** @description A page of samples. */
+            /** @description A page of instruments. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["InstrumentList"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `samples:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    createInstrument: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["CreateInstrumentRequest"];
+            };
+        };
+        responses: {
+            /** @description Registered. */
+            201: {
+                headers: {
+                    /** @description The new instrument. */
+                    Location?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Instrument"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `instruments:write`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The code is taken (codes are compared ignoring case). */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    getInstrument: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The instrument. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Instrument"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `samples:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such instrument. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    updateInstrument: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["UpdateInstrumentRequest"];
+            };
+        };
+        responses: {
+            /** @description The updated instrument. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Instrument"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `instruments:write`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such instrument. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The new code is taken. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    listMethods: {
+        parameters: {
+            query?: {
+                /** @description Page size (1–200). */
+                limit?: number;
+                /** @description Opaque cursor from the previous page's `next_cursor`. */
+                cursor?: string;
+                /** @description Element symbol; any case is accepted and normalised (MN → Mn). */
+                matrix?: string;
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description A page of methods, ordered by code. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["MethodList"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `samples:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    createMethod: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["CreateMethodRequest"];
+            };
+        };
+        responses: {
+            /** @description Defined. */
+            201: {
+                headers: {
+                    /** @description The new method. */
+                    Location?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Method"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `methods:write`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The code is taken (codes are compared ignoring case). */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    getMethod: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The method. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Method"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `samples:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such method. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    updateMethod: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["UpdateMethodRequest"];
+            };
+        };
+        responses: {
+            /** @description The updated method. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Method"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `methods:write`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such method. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    listSamples: {
+        parameters: {
+            query?: {
+                /** @description Page size (1–200). */
+                limit?: number;
+                /** @description Opaque cursor from the previous page's `next_cursor`. */
+                cursor?: string;
+                heat?: string;
+                grade?: string;
+                sample_code?: string;
+                instrument_id?: string;
+                method_id?: string;
+                import_id?: string;
+                status?: components["schemas"]["SampleStatus"];
+                kind?: components["schemas"]["SampleKind"];
+                /** @description Only samples with this flag on some element. */
+                flag?: string;
+                created_from?: string;
+                created_to?: string;
+                /** @description Samples changed at or after this time; the list is then ordered oldest change first, so a client can resume from its last `updated_at`. */
+                updated_since?: string;
+                /** @description `%` (mass fraction in percent, the default), `ppm` (mg/kg) or `ppb` (µg/kg). */
+                unit?: components["schemas"]["OutputUnit"];
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description A page of samples (burns are on the single-sample endpoint). */
             200: {
                 headers: {
                     [name: string]: unknown;
@@ -2145,6 +3546,424 @@ export interface operations {
             };
             /** @description The caller lacks the scope `samples:read`. */
             403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    pushSample: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["PushSampleRequest"];
+            };
+        };
+        responses: {
+            /** @description Stored, with results computed. */
+            201: {
+                headers: {
+                    /** @description The new sample. */
+                    Location?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Sample"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `samples:write`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The instrument or method does not exist. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    exportSamplesCsv: {
+        parameters: {
+            query?: {
+                heat?: string;
+                grade?: string;
+                sample_code?: string;
+                instrument_id?: string;
+                method_id?: string;
+                import_id?: string;
+                status?: components["schemas"]["SampleStatus"];
+                kind?: components["schemas"]["SampleKind"];
+                /** @description Only samples with this flag on some element. */
+                flag?: string;
+                created_from?: string;
+                created_to?: string;
+                /** @description Samples changed at or after this time; the list is then ordered oldest change first, so a client can resume from its last `updated_at`. */
+                updated_since?: string;
+                /** @description `%` (mass fraction in percent, the default), `ppm` (mg/kg) or `ppb` (µg/kg). */
+                unit?: components["schemas"]["OutputUnit"];
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description UTF-8 CSV with a header row. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "text/csv": string;
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `samples:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description More than 100000 samples match: narrow the filters. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    pushSampleBatch: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["PushSampleBatchRequest"];
+            };
+        };
+        responses: {
+            /** @description All stored, in request order. */
+            201: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["SampleBatch"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `samples:write`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description An instrument or method does not exist. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    getSample: {
+        parameters: {
+            query?: {
+                /** @description `%` (mass fraction in percent, the default), `ppm` (mg/kg) or `ppb` (µg/kg). */
+                unit?: components["schemas"]["OutputUnit"];
+            };
+            header?: never;
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The sample. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Sample"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `samples:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such sample. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    setBurnExclusion: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                id: string;
+                n: number;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["SetBurnExclusionRequest"];
+            };
+        };
+        responses: {
+            /** @description The sample with recomputed results. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Sample"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `samples:write`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such sample or burn. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The sample is released, or this is its only included burn. */
+            409: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -2460,6 +4279,432 @@ export interface operations {
             };
             /** @description Another profile has this name. */
             409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    listImports: {
+        parameters: {
+            query?: {
+                /** @description Page size (1–200). */
+                limit?: number;
+                /** @description Opaque cursor from the previous page's `next_cursor`. */
+                cursor?: string;
+                instrument_id?: string;
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description A page of imports. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ImportList"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `samples:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    uploadImport: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "multipart/form-data": components["schemas"]["ImportUpload"];
+            };
+        };
+        responses: {
+            /** @description These bytes were imported before: the earlier import, unchanged. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Import"];
+                };
+            };
+            /** @description Imported; the report lists what was created, warnings and rejected lines. */
+            201: {
+                headers: {
+                    /** @description The new import. */
+                    Location?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Import"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `imports:write`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The file exceeds IMPORT_MAX_BYTES. */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Not a multipart/form-data request. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The file cannot be read, a value is broken (all-or-nothing), or a referenced instrument, method or profile does not exist. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    previewImport: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "multipart/form-data": components["schemas"]["ImportPreviewRequest"];
+            };
+        };
+        responses: {
+            /** @description How the file reads. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ImportPreview"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `imports:write`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The file exceeds IMPORT_MAX_BYTES. */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Not a multipart/form-data request. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The file cannot be read as result data, or a reference does not exist. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    getImport: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The import. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Import"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `samples:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such import. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    downloadImportFile: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The bytes as uploaded, with their SHA-256 in the `x-content-sha256` header. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/octet-stream": string;
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `samples:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such import. */
+            404: {
                 headers: {
                     [name: string]: unknown;
                 };

@@ -111,3 +111,6 @@ export function expectProblem(res: request.Response, status: number): void {
 export function problemBody(res: request.Response): { type: string; title: string; status: number; detail?: string; request_id?: string; errors?: { location: string; message: string }[]; [extension: string]: unknown } {
   return JSON.parse(res.text);
 }
+
+/** The demo lab's instruments and methods (invented settings), for ingest tests. */
+export { seedDemoLab } from '../../server/seed/demo-lab.ts';

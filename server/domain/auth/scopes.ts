@@ -5,6 +5,8 @@ export const SCOPES = [
   'samples:write',
   'samples:release',
   'imports:write',
+  'instruments:write',
+  'methods:write',
   'standardizations:read',
   'standardizations:write',
   'grades:read',
@@ -34,6 +36,8 @@ const ANALYST: Scope[] = [...VIEWER, 'samples:write', 'imports:write', 'standard
 const MANAGER: Scope[] = [
   ...ANALYST,
   'samples:release',
+  'instruments:write',
+  'methods:write',
   'grades:write',
   'webhooks:read',
   'request-log:read',
@@ -63,7 +67,7 @@ export const ROLE_SCOPES: Record<Role, ReadonlySet<Scope>> = {
 
 export const ROLE_DESCRIPTIONS: Record<Role, string> = {
   admin: 'Everything, including users, keys and the audit trail.',
-  manager: 'Lab manager: releases results, edits grades, reviews the audit trail.',
+  manager: 'Lab manager: releases results, sets up instruments, methods and grades, reviews the audit trail.',
   analyst: 'Imports results, excludes burns, runs standardizations.',
   integrator: 'Plant-system integration: pushes and pulls chemistry, manages webhooks and its keys.',
   viewer: 'Reads results, grades and control charts.',

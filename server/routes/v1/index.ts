@@ -4,6 +4,9 @@ import { auditRoutes } from './audit-events.ts';
 import { authRoutes } from './auth.ts';
 import { healthRoutes } from './health.ts';
 import { importProfileRoutes } from './import-profiles.ts';
+import { importRoutes } from './imports.ts';
+import { instrumentRoutes } from './instruments.ts';
+import { methodRoutes } from './methods.ts';
 import { openApiRoutes } from './openapi.ts';
 import { outboxRoutes } from './outbox.ts';
 import { sampleRoutes } from './samples.ts';
@@ -16,8 +19,11 @@ export const v1Routes: AnyRoute[] = [
   ...authRoutes,
   ...userRoutes,
   ...apiKeyRoutes,
+  ...instrumentRoutes,
+  ...methodRoutes,
   ...sampleRoutes,
   ...importProfileRoutes,
+  ...importRoutes,
   ...auditRoutes,
   ...outboxRoutes,
 ];

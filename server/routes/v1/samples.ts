@@ -1,22 +1,144 @@
-import { listOf, paginationQuery } from '../../http/pagination.ts';
-import { defineRoute } from '../../http/route.ts';
+import { listSampleRows, type SampleOrder } from '../../domain/samples/samples.repository.ts';
+import {
+  BurnParams,
+  PushSampleBatchRequestSchema,
+  PushSampleRequestSchema,
+  SampleBatchResponseSchema,
+  SampleIdParams,
+  SampleListQuerySchema,
+  SampleListSchema,
+  SampleSchema,
+  SetBurnExclusionRequestSchema,
+  UnitQuerySchema,
+} from '../../domain/samples/samples.schemas.ts';
+import { pushSamples, setBurnExclusion } from '../../domain/samples/samples.service.ts';
+import { loadSampleDetail, toSampleSummary } from '../../domain/samples/sample-view.ts';
+import { RESULTS_DESCRIPTION } from '../../domain/samples/results-docs.ts';
+import { samplesToCsv } from '../../domain/samples/samples-csv.ts';
+import { decodeCursor, pageOf } from '../../http/pagination.ts';
+import { UnprocessableProblem } from '../../http/problem.ts';
 import { z } from '../../openapi/zod.ts';
 
-// Placeholder until ingest lands: the route, its scope and its contract exist; no samples yet.
-const SampleSummarySchema = z.object({ id: z.string(), sample_code: z.string() }).openapi('SampleSummary');
+const CSV_MAX_ROWS = 100_000;
+import { defineRoute } from '../../http/route.ts';
 
 export const sampleRoutes = [
   defineRoute({
     method: 'get',
     path: '/samples',
     operationId: 'listSamples',
-    summary: 'List samples',
+    summary: 'List samples with their results',
+    description:
+      'Newest first by default. With `updated_since`, ordered by last change (oldest first) so an integration can poll: keep the last `updated_at` you saw and pass it next time. Filters combine with AND.\n\n' +
+      RESULTS_DESCRIPTION,
     tag: 'Samples',
     access: { scope: 'samples:read' },
-    query: paginationQuery,
-    responses: { 200: { description: 'A page of samples.', schema: listOf(SampleSummarySchema, 'SampleList') } },
-    handler({ res }) {
-      res.json({ data: [], next_cursor: null });
+    query: SampleListQuerySchema,
+    responses: { 200: { description: 'A page of samples (burns are on the single-sample endpoint).', schema: SampleListSchema } },
+    async handler({ query, auth, res, ctx }) {
+      const by = query.updated_since ? 'updated_asc' : 'created_desc';
+      const after = query.cursor ? decodeCursor<{ by: string; t: string; id: string }>(query.cursor, ['by', 't', 'id']) : undefined;
+      const order = { by, after: after && after.by === by ? after : undefined } as SampleOrder;
+      const rows = await listSampleRows(ctx.db, { ...query, onlyInstrumentIds: auth.instrumentIds }, order, query.limit);
+      res.json(
+        pageOf(rows, query.limit, (row) => toSampleSummary(row, query.unit), (row) => ({ by, t: by === 'updated_asc' ? row.updated_at : row.created_at, id: row.id })),
+      );
+    },
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/samples.csv',
+    operationId: 'exportSamplesCsv',
+    summary: 'Export samples as CSV',
+    description: `The same filters as the list, every matching sample (up to ${CSV_MAX_ROWS}), newest first: one row per sample, one column per element holding the reported value with its qualifier (e.g. "<0.002"). Text cells that a spreadsheet would evaluate (starting with =, +, -, @) are prefixed with a quote.`,
+    tag: 'Samples',
+    access: { scope: 'samples:read' },
+    query: SampleListQuerySchema.omit({ cursor: true, limit: true }),
+    responses: {
+      200: { description: 'UTF-8 CSV with a header row.', contentType: 'text/csv', schema: z.string() },
+      422: { description: `More than ${CSV_MAX_ROWS} samples match: narrow the filters.` },
+    },
+    async handler({ query, auth, res, ctx }) {
+      const by = query.updated_since ? 'updated_asc' : 'created_desc';
+      const rows = await listSampleRows(ctx.db, { ...query, onlyInstrumentIds: auth.instrumentIds }, { by } as SampleOrder, CSV_MAX_ROWS);
+      if (rows.length > CSV_MAX_ROWS) throw new UnprocessableProblem(`More than ${CSV_MAX_ROWS} samples match: narrow the filters (e.g. created_from/created_to).`);
+      res.type('text/csv; charset=utf-8');
+      res.attachment(`samples-${new Date().toISOString().slice(0, 10)}.csv`);
+      res.send(samplesToCsv(rows.map((row) => toSampleSummary(row, query.unit)), query.unit));
+    },
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/samples',
+    operationId: 'pushSample',
+    summary: 'Push one sample with its burns (JSON)',
+    description:
+      'Element symbols are normalised (MN → Mn); values are numbers or strings such as "<0.0005", ">1.5" or "n.d.", in `unit` (default: the method\'s). Nothing is stored when any value is wrong: the 400 problem names each one in `errors[]`. Unknown instrument or method → 422.',
+    tag: 'Samples',
+    access: { scope: 'samples:write' },
+    body: PushSampleRequestSchema,
+    responses: {
+      201: { description: 'Stored, with results computed.', schema: SampleSchema, headers: { Location: 'The new sample.' } },
+      422: { description: 'The instrument or method does not exist.' },
+    },
+    async handler({ body, auth, req, res, ctx }) {
+      const [id] = await pushSamples(ctx, auth, [body], false, req.requestId);
+      res.status(201).location(`/api/v1/samples/${id}`).json(await loadSampleDetail(ctx.db, auth, id, '%'));
+    },
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/samples/batch',
+    operationId: 'pushSampleBatch',
+    summary: 'Push many samples in one transaction',
+    description: 'All samples are stored, or none: any problem answers 400/422 with `errors[]` located as `body.samples.<i>…`.',
+    tag: 'Samples',
+    access: { scope: 'samples:write' },
+    body: PushSampleBatchRequestSchema,
+    responses: {
+      201: { description: 'All stored, in request order.', schema: SampleBatchResponseSchema },
+      422: { description: 'An instrument or method does not exist.' },
+    },
+    async handler({ body, auth, req, res, ctx }) {
+      const ids = await pushSamples(ctx, auth, body.samples, true, req.requestId);
+      const data = [];
+      for (const id of ids) data.push(await loadSampleDetail(ctx.db, auth, id, '%'));
+      res.status(201).json({ data });
+    },
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/samples/{id}',
+    operationId: 'getSample',
+    summary: 'Get a sample: results, burns and provenance',
+    description: RESULTS_DESCRIPTION,
+    tag: 'Samples',
+    access: { scope: 'samples:read' },
+    params: SampleIdParams,
+    query: UnitQuerySchema,
+    responses: { 200: { description: 'The sample.', schema: SampleSchema }, 404: { description: 'No such sample.' } },
+    async handler({ params, query, auth, res, ctx }) {
+      res.json(await loadSampleDetail(ctx.db, auth, params.id, query.unit));
+    },
+  }),
+  defineRoute({
+    method: 'patch',
+    path: '/samples/{id}/burns/{n}',
+    operationId: 'setBurnExclusion',
+    summary: 'Exclude a burn from the results, or include it again',
+    description: 'The burn is never deleted. The results are recomputed, and the change is audited with the reason, who and when. Released samples cannot be changed this way (409).',
+    tag: 'Samples',
+    access: { scope: 'samples:write' },
+    params: BurnParams,
+    body: SetBurnExclusionRequestSchema,
+    responses: {
+      200: { description: 'The sample with recomputed results.', schema: SampleSchema },
+      404: { description: 'No such sample or burn.' },
+      409: { description: 'The sample is released, or this is its only included burn.' },
+    },
+    async handler({ params, body, auth, req, res, ctx }) {
+      await setBurnExclusion(ctx, auth, params.id, params.n, body, req.requestId);
+      res.json(await loadSampleDetail(ctx.db, auth, params.id, '%'));
     },
   }),
 ];

@@ -1,0 +1,65 @@
+// The only code that touches the imports table.
+import type { Knex } from 'knex';
+import type { ImportReport } from './import-report.ts';
+
+type Queryable = Knex | Knex.Transaction;
+
+export interface ImportRow {
+  id: string;
+  instrument_id: string;
+  method_id: string;
+  profile_id: string | null;
+  file_name: string;
+  content_type: string;
+  size_bytes: number;
+  sha256: string;
+  content: Buffer;
+  mode: 'all_or_nothing' | 'per_sample';
+  report_json: string;
+  created_by_type: string;
+  created_by_id: string | null;
+  created_by_label: string;
+  created_at: string;
+}
+
+export type ImportMeta = Omit<ImportRow, 'content'>;
+
+const META_COLUMNS = ['id', 'instrument_id', 'method_id', 'profile_id', 'file_name', 'content_type', 'size_bytes', 'sha256', 'mode', 'report_json', 'created_by_type', 'created_by_id', 'created_by_label', 'created_at'] as const;
+
+export function toImport(row: ImportMeta) {
+  return {
+    id: row.id,
+    instrument_id: row.instrument_id,
+    method_id: row.method_id,
+    profile_id: row.profile_id,
+    file: { name: row.file_name, content_type: row.content_type, size_bytes: Number(row.size_bytes), sha256: row.sha256 },
+    mode: row.mode,
+    report: JSON.parse(row.report_json) as ImportReport,
+    created_by: row.created_by_label,
+    created_at: row.created_at,
+  };
+}
+
+export async function insertImport(db: Queryable, row: ImportRow): Promise<void> {
+  await db<ImportRow>('imports').insert(row);
+}
+
+export function findImportMeta(db: Queryable, id: string): Promise<ImportMeta | undefined> {
+  return db<ImportRow>('imports').select(...META_COLUMNS).where({ id }).first();
+}
+
+export function findImportBySha(db: Queryable, sha256: string): Promise<ImportMeta | undefined> {
+  return db<ImportRow>('imports').select(...META_COLUMNS).where({ sha256 }).first();
+}
+
+export function findImportFile(db: Queryable, id: string): Promise<Pick<ImportRow, 'instrument_id' | 'file_name' | 'content_type' | 'content' | 'sha256'> | undefined> {
+  return db<ImportRow>('imports').select('instrument_id', 'file_name', 'content_type', 'content', 'sha256').where({ id }).first();
+}
+
+export function listImportRows(db: Queryable, filters: { instrumentId?: string; onlyInstrumentIds?: string[] | null; afterId?: string; limit: number }): Promise<ImportMeta[]> {
+  const query = db<ImportRow>('imports').select(...META_COLUMNS).orderBy('id', 'desc').limit(filters.limit + 1);
+  if (filters.instrumentId) query.where('instrument_id', filters.instrumentId);
+  if (filters.onlyInstrumentIds) query.whereIn('instrument_id', filters.onlyInstrumentIds);
+  if (filters.afterId) query.where('id', '<', filters.afterId);
+  return query;
+}

@@ -1,0 +1,166 @@
+// Uploading a result file: deduplicated by SHA-256, parsed, and stored in one transaction —
+// all or nothing per file by default, or per sample when asked. The raw bytes are kept.
+import type { AppContext } from '../../context.ts';
+import { type FieldError, NotFoundProblem, UnprocessableProblem } from '../../http/problem.ts';
+import type { AuthContext } from '../../http/request-context.ts';
+import { newId } from '../../lib/ids.ts';
+import { sha256Hex } from '../../lib/secrets.ts';
+import { nowIso } from '../../lib/time.ts';
+import { actorOf } from '../audit/actor.ts';
+import { recordAudit } from '../audit/audit.repository.ts';
+import { findInstrument } from '../instruments/instruments.repository.ts';
+import { assertInstrumentAllowed } from '../instruments/instruments.service.ts';
+import { findMethod, type Method } from '../methods/methods.repository.ts';
+import { storeNewSamples } from '../samples/samples.service.ts';
+import type { ImportIssue, ImportReport } from './import-report.ts';
+import { buildImportedSamples } from './import-samples.ts';
+import { getImportProfile } from './import-profiles.service.ts';
+import { findImportBySha, findImportMeta, insertImport, toImport } from './imports.repository.ts';
+import { FileLayoutError, parseResultFile, type ParsedFile } from './parse/index.ts';
+
+export interface UploadInput {
+  file: Express.Multer.File;
+  instrument_id: string;
+  method_id: string;
+  profile_id?: string;
+}
+
+/** At most this many issues are listed in one problem; `errors_total` gives the full count. */
+const MAX_LISTED_ISSUES = 200;
+
+function issueLocation(issue: ImportIssue): string {
+  return ['file', issue.line !== undefined ? `line ${issue.line}` : null, issue.column ?? null].filter(Boolean).join(':');
+}
+
+function fileProblem(detail: string, issues: ImportIssue[]): UnprocessableProblem {
+  const errors: FieldError[] = issues.slice(0, MAX_LISTED_ISSUES).map((issue) => ({ location: issueLocation(issue), message: issue.message, code: issue.code }));
+  const problem = new UnprocessableProblem(detail, errors);
+  Object.assign(problem.extensions, { errors_total: issues.length, issues: issues.slice(0, MAX_LISTED_ISSUES) });
+  return problem;
+}
+
+async function prepare(ctx: AppContext, auth: AuthContext, input: UploadInput): Promise<{ method: Method; parsed: ParsedFile }> {
+  const errors: FieldError[] = [];
+  const instrument = await findInstrument(ctx.db, input.instrument_id);
+  if (!instrument) errors.push({ location: 'body.instrument_id', message: `no instrument ${input.instrument_id}`, code: 'unknown_reference' });
+  else assertInstrumentAllowed(auth, instrument.id);
+  const method = await findMethod(ctx.db, input.method_id);
+  if (!method) errors.push({ location: 'body.method_id', message: `no method ${input.method_id}`, code: 'unknown_reference' });
+  let profile;
+  if (input.profile_id) {
+    try {
+      profile = await getImportProfile(ctx, input.profile_id);
+    } catch (error) {
+      if (!(error instanceof NotFoundProblem)) throw error;
+      errors.push({ location: 'body.profile_id', message: `no import profile ${input.profile_id}`, code: 'unknown_reference' });
+    }
+  }
+  if (errors.length) throw new UnprocessableProblem('The upload refers to an instrument, method or profile that does not exist.', errors);
+  try {
+    return { method: method!, parsed: parseResultFile(input.file.buffer, { profile, defaultUnit: method!.default_unit }) };
+  } catch (error) {
+    if (error instanceof FileLayoutError) throw fileProblem(`The file cannot be read as result data: ${error.message}`, error.issues);
+    throw error;
+  }
+}
+
+function layoutOf(parsed: ParsedFile): ImportReport['layout'] {
+  return {
+    encoding: parsed.bom ? `${parsed.encoding} (BOM)` : parsed.encoding,
+    delimiter: parsed.delimiter === '\t' ? 'tab' : parsed.delimiter,
+    decimal_separator: parsed.decimal_separator,
+    layout: parsed.layout,
+    columns: parsed.columns.map((c) => ({ header: c.header, role: c.role, ...(c.element ? { element: c.element } : {}), ...(c.unit ? { unit: c.unit } : {}) })),
+  };
+}
+
+export async function previewImport(ctx: AppContext, auth: AuthContext, input: UploadInput) {
+  const { parsed } = await prepare(ctx, auth, input);
+  const duplicate = await findImportBySha(ctx.db, sha256Hex(input.file.buffer));
+  return {
+    layout: layoutOf(parsed),
+    counts: { rows: parsed.counts.rows, samples: parsed.samples.length, burns: parsed.counts.burns, values: parsed.counts.values },
+    samples: parsed.samples.slice(0, 20).map((s) => ({
+      sample_code: s.sample_code,
+      heat: s.heat ?? null,
+      grade: s.grade ?? null,
+      kind: s.kind ?? null,
+      first_line: s.first_line,
+      burns: s.burns.map((b) => ({
+        line: b.line,
+        burn_number: b.burn_number,
+        measured_at: b.measured_at ?? null,
+        values: Object.fromEntries(Object.entries(b.values).map(([el, v]) => [el, v.raw])),
+      })),
+    })),
+    warnings: parsed.warnings,
+    rejected: parsed.rejected,
+    duplicate_of: duplicate?.id ?? null,
+  };
+}
+
+/** Stores the file and its samples; an identical earlier upload is returned instead (created = false). */
+export async function uploadImport(ctx: AppContext, auth: AuthContext, input: UploadInput & { mode: 'all_or_nothing' | 'per_sample' }, requestId?: string) {
+  const sha256 = sha256Hex(input.file.buffer);
+  const existing = await findImportBySha(ctx.db, sha256);
+  if (existing) {
+    assertInstrumentAllowed(auth, existing.instrument_id);
+    return { created: false, record: toImport(existing) };
+  }
+  const { method, parsed } = await prepare(ctx, auth, input);
+  if (input.mode === 'all_or_nothing' && parsed.rejected.length > 0) {
+    throw fileProblem(`${parsed.rejected.length} value(s) cannot be read, so nothing was imported. Fix the lines listed in errors[], or upload with mode=per_sample to import the other samples.`, parsed.rejected);
+  }
+  const accepted = parsed.samples.filter((s) => s.rejected.length === 0);
+  if (accepted.length === 0) throw fileProblem('No sample in this file can be imported.', parsed.rejected);
+
+  const id = newId('imp');
+  const actor = actorOf(auth);
+  const now = nowIso();
+  const warnings: ImportIssue[] = [...parsed.warnings];
+  const built = buildImportedSamples(accepted, { instrumentId: input.instrument_id, method, importId: id, createdBy: actor.label, now }, warnings);
+  const report: ImportReport = {
+    layout: layoutOf(parsed),
+    counts: {
+      rows: parsed.counts.rows,
+      samples_created: built.length,
+      samples_rejected: parsed.samples.length - accepted.length,
+      lines_rejected: new Set(parsed.rejected.map((issue) => issue.line)).size,
+      burns: built.reduce((sum, b) => sum + b.burns.length, 0),
+      values: accepted.reduce((sum, s) => sum + s.burns.reduce((n, b) => n + Object.keys(b.values).length, 0), 0),
+    },
+    sample_ids: built.map((b) => b.sample.id),
+    warnings,
+    rejected: parsed.rejected,
+  };
+  const row = {
+    id,
+    instrument_id: input.instrument_id,
+    method_id: input.method_id,
+    profile_id: input.profile_id ?? null,
+    file_name: input.file.originalname.slice(0, 255) || 'upload',
+    content_type: (input.file.mimetype || 'application/octet-stream').slice(0, 100),
+    size_bytes: input.file.size,
+    sha256,
+    content: input.file.buffer,
+    mode: input.mode,
+    report_json: JSON.stringify(report),
+    created_by_type: actor.type,
+    created_by_id: actor.id,
+    created_by_label: actor.label,
+    created_at: now,
+  };
+  await ctx.db.transaction(async (trx) => {
+    await insertImport(trx, row);
+    await storeNewSamples(trx, built, actor, requestId, { auditEach: false });
+    await recordAudit(trx, { actor, requestId, action: 'import.completed', targetType: 'import', targetId: id, after: { file_name: row.file_name, sha256, mode: input.mode, counts: report.counts } });
+  });
+  const { content: _content, ...meta } = row;
+  return { created: true, record: toImport(meta) };
+}
+
+export async function getImport(ctx: AppContext, auth: AuthContext, id: string) {
+  const row = await findImportMeta(ctx.db, id);
+  if (!row || (auth.instrumentIds && !auth.instrumentIds.includes(row.instrument_id))) throw new NotFoundProblem(`No import ${id}.`);
+  return toImport(row);
+}

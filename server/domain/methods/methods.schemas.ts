@@ -1,0 +1,88 @@
+import { listOf, paginationQuery } from '../../http/pagination.ts';
+import { z } from '../../openapi/zod.ts';
+import { normaliseElement } from '../chemistry/elements.ts';
+import { OUTPUT_UNITS } from '../chemistry/units.ts';
+
+/** A non-negative decimal written as a string, so its digits are kept exactly. */
+export const DecimalString = z
+  .string()
+  .trim()
+  .regex(/^\d+(\.\d+)?$/, 'must be a non-negative decimal number written as a string, e.g. "0.0005"')
+  .openapi({ example: '0.0005' });
+
+export const ElementSymbolSchema = z
+  .string()
+  .transform((value, ctx) => {
+    const symbol = normaliseElement(value);
+    if (!symbol) ctx.addIssue({ code: 'custom', message: `"${value}" is not an element symbol` });
+    return symbol ?? value;
+  })
+  .openapi({ type: 'string', example: 'Mn', description: 'Element symbol; any case is accepted and normalised (MN → Mn).' });
+
+export const MethodElementSchema = z
+  .object({
+    element: ElementSymbolSchema,
+    decimals: z.number().int().min(0).max(6).openapi({ description: 'Reporting decimals in % (rounded half to even, ASTM E29).' }),
+    working_range_low: DecimalString.nullable().default(null).openapi({ description: 'Lowest calibrated value, %.' }),
+    working_range_high: DecimalString.nullable().default(null).openapi({ description: 'Highest calibrated value, %.' }),
+    detection_limit: DecimalString.nullable().default(null).openapi({ description: 'Detection limit, %.' }),
+    repeatability_sd: DecimalString.nullable().default(null).openapi({ description: 'Repeatability standard deviation σr, % (ISO 5725); enables the burn agreement check.' }),
+  })
+  .refine((e) => !e.working_range_low || !e.working_range_high || Number(e.working_range_low) < Number(e.working_range_high), {
+    message: 'working_range_low must be below working_range_high',
+    path: ['working_range_high'],
+  })
+  .openapi('MethodElement');
+
+const elementList = z
+  .array(MethodElementSchema)
+  .min(1)
+  .max(80)
+  .superRefine(
+    (elements, ctx) => {
+      const seen = new Set<string>();
+      elements.forEach((e, i) => {
+        // Runs even when other entries are invalid, so one 400 names every problem.
+        const symbol = typeof e?.element === 'string' ? normaliseElement(e.element) : undefined;
+        if (symbol && seen.has(symbol)) ctx.addIssue({ code: 'custom', message: `${symbol} is listed twice`, path: [i, 'element'] });
+        if (symbol) seen.add(symbol);
+      });
+    },
+    { when: (payload) => Array.isArray(payload.value) },
+  );
+
+export const MethodSchema = z
+  .object({
+    id: z.string(),
+    code: z.string(),
+    name: z.string(),
+    matrix: z.string().openapi({ description: 'Base element of the alloys measured (Fe, Al, Cu, Ni, Zn …).', example: 'Fe' }),
+    default_unit: z.enum(OUTPUT_UNITS).openapi({ description: 'Unit assumed for pushed values that do not say theirs.' }),
+    elements: z.array(MethodElementSchema),
+    created_at: z.string().openapi({ format: 'date-time' }),
+    updated_at: z.string().openapi({ format: 'date-time' }),
+  })
+  .openapi('Method', { description: 'An analytical method for one base matrix. Ranges, limits and σr are mass fractions in %.' });
+
+export const MethodListSchema = listOf(MethodSchema, 'MethodList');
+export const MethodListQuerySchema = paginationQuery.extend({ matrix: ElementSymbolSchema.optional() });
+export const MethodIdParams = z.object({ id: z.string().min(1).max(40) });
+
+export const CreateMethodRequestSchema = z
+  .object({
+    code: z.string().trim().min(1).max(40).regex(/^[A-Za-z0-9][A-Za-z0-9._-]*$/, 'use letters, digits, ".", "_" and "-"').openapi({ example: 'FE-LA' }),
+    name: z.string().trim().min(1).max(200),
+    matrix: ElementSymbolSchema,
+    default_unit: z.enum(OUTPUT_UNITS).default('%'),
+    elements: elementList,
+  })
+  .openapi('CreateMethodRequest');
+
+export const UpdateMethodRequestSchema = z
+  .object({
+    name: z.string().trim().min(1).max(200).optional(),
+    default_unit: z.enum(OUTPUT_UNITS).optional(),
+    elements: elementList.optional().openapi({ description: 'Replaces the element list. Stored results keep the settings they were computed with until recomputed.' }),
+  })
+  .refine((value) => Object.keys(value).length > 0, 'give at least one of name, default_unit, elements')
+  .openapi('UpdateMethodRequest');

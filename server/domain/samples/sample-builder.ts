@@ -1,0 +1,70 @@
+// Builds the rows of a new sample (pushed or imported): burns as received, results computed.
+import { newId } from '../../lib/ids.ts';
+import type { Method } from '../methods/methods.repository.ts';
+import { computeSampleResults } from './sample-results.ts';
+import type { BurnRow, RawCell, SampleRow, StoredCell } from './samples.repository.ts';
+
+export interface NewBurn {
+  burn_number: number;
+  measured_at?: string | null;
+  values: Record<string, StoredCell>;
+  raw: Record<string, RawCell>;
+  source_line?: number | null;
+}
+
+export interface NewSample {
+  sample_code: string;
+  heat?: string | null;
+  grade?: string | null;
+  kind?: string | null;
+  fields?: Record<string, string>;
+  instrument_id: string;
+  method: Method;
+  source: 'push' | 'import';
+  import_id?: string | null;
+  first_line?: number | null;
+  created_by_label: string;
+  burns: NewBurn[];
+}
+
+export function buildSampleRows(input: NewSample, now: string): { sample: SampleRow; burns: BurnRow[] } {
+  const id = newId('smp');
+  const { results, flags } = computeSampleResults(
+    input.burns.map((b) => ({ excluded: false, values: b.values })),
+    input.method,
+  );
+  return {
+    sample: {
+      id,
+      sample_code: input.sample_code,
+      heat: input.heat ?? null,
+      grade: input.grade ?? null,
+      kind: input.kind ?? null,
+      instrument_id: input.instrument_id,
+      method_id: input.method.id,
+      fields_json: JSON.stringify(input.fields ?? {}),
+      status: 'draft',
+      source: input.source,
+      import_id: input.import_id ?? null,
+      first_line: input.first_line ?? null,
+      results_json: JSON.stringify(results),
+      flags_json: JSON.stringify(flags),
+      created_by_label: input.created_by_label,
+      created_at: now,
+      updated_at: now,
+    },
+    burns: input.burns.map((burn) => ({
+      id: newId('brn'),
+      sample_id: id,
+      burn_number: burn.burn_number,
+      measured_at: burn.measured_at ?? null,
+      values_json: JSON.stringify(burn.values),
+      raw_json: JSON.stringify(burn.raw),
+      excluded: false,
+      exclusion_reason: null,
+      excluded_by: null,
+      excluded_at: null,
+      source_line: burn.source_line ?? null,
+    })),
+  };
+}

@@ -1,0 +1,92 @@
+// Stored samples → API representations, in the unit the caller asked for.
+import type { Knex } from 'knex';
+import type { AuthContext } from '../../http/request-context.ts';
+import { convertResult, reportingDecimals } from '../chemistry/result-units.ts';
+import { fromPercent, type OutputUnit } from '../chemistry/units.ts';
+import { findImportMeta } from '../imports/imports.repository.ts';
+import { loadSample } from './samples.service.ts';
+import { type BurnRow, findBurns, type RawCell, type SampleRowWithRefs, type StoredCell, type StoredResult } from './samples.repository.ts';
+
+type Queryable = Knex | Knex.Transaction;
+
+const toNumber = (value: string | null) => (value === null ? null : Number(value));
+
+export function toResultView(stored: StoredResult, unit: OutputUnit) {
+  const converted = convertResult(stored, unit, stored.decimals);
+  return {
+    element: stored.element,
+    mean: toNumber(converted.mean),
+    sd: converted.sd,
+    rsd: converted.rsd,
+    n: converted.n,
+    min: toNumber(converted.min),
+    max: toNumber(converted.max),
+    unit,
+    raw_mean: stored.raw_mean === null ? null : Number(fromPercent(stored.raw_mean, unit)),
+    reported: converted.reported,
+    qualifier: converted.qualifier,
+    decimals: reportingDecimals(stored.decimals, unit),
+    flags: converted.flags,
+    repeatability: converted.repeatability
+      ? { range: Number(converted.repeatability.range), critical_range: Number(converted.repeatability.critical_range), exceeded: converted.repeatability.exceeded }
+      : null,
+  };
+}
+
+export function toSampleSummary(row: SampleRowWithRefs, unit: OutputUnit) {
+  const results = JSON.parse(row.results_json) as StoredResult[];
+  return {
+    id: row.id,
+    sample_code: row.sample_code,
+    heat: row.heat,
+    grade: row.grade,
+    kind: row.kind as 'preliminary' | 'final' | 'ladle' | 'incoming' | 'control' | null,
+    status: row.status,
+    instrument: { id: row.instrument_id, code: row.instrument_code },
+    method: { id: row.method_id, code: row.method_code },
+    fields: JSON.parse(row.fields_json) as Record<string, string>,
+    source: row.source,
+    import_id: row.import_id,
+    burn_count: Number(row.burn_count),
+    flags: JSON.parse(row.flags_json) as string[],
+    results: results.map((r) => toResultView(r, unit)),
+    created_by: row.created_by_label,
+    created_at: row.created_at,
+    updated_at: row.updated_at,
+  };
+}
+
+export function toBurnView(burn: BurnRow, unit: OutputUnit) {
+  const values = JSON.parse(burn.values_json) as Record<string, StoredCell>;
+  const raw = JSON.parse(burn.raw_json) as Record<string, RawCell>;
+  return {
+    number: burn.burn_number,
+    measured_at: burn.measured_at,
+    excluded: Boolean(burn.excluded),
+    exclusion: burn.exclusion_reason ? { reason: burn.exclusion_reason, by: burn.excluded_by ?? '', at: burn.excluded_at ?? '' } : null,
+    source_line: burn.source_line,
+    values: Object.fromEntries(
+      Object.entries(values).map(([element, cell]) => [
+        element,
+        { value: cell.v === null ? null : Number(fromPercent(cell.v, unit)), qualifier: cell.q, raw: raw[element]?.raw ?? '', raw_unit: raw[element]?.unit ?? '%' },
+      ]),
+    ),
+  };
+}
+
+export async function loadSampleDetail(db: Queryable, auth: AuthContext, id: string, unit: OutputUnit) {
+  const row = await loadSample(db, auth, id);
+  const burns = await findBurns(db, id);
+  const importMeta = row.import_id ? await findImportMeta(db, row.import_id) : undefined;
+  return {
+    ...toSampleSummary(row, unit),
+    burns: burns.map((b) => toBurnView(b, unit)),
+    provenance: {
+      source: row.source,
+      import_id: row.import_id,
+      file_sha256: importMeta?.sha256 ?? null,
+      file_name: importMeta?.file_name ?? null,
+      lines: burns.map((b) => b.source_line).filter((line): line is number => line !== null),
+    },
+  };
+}

@@ -1,0 +1,150 @@
+// The only code that touches the samples and burns tables.
+import type { Knex } from 'knex';
+import type { ElementResult } from '../chemistry/element-result.ts';
+import type { Unit } from '../chemistry/units.ts';
+
+type Queryable = Knex | Knex.Transaction;
+
+/** A canonical burn value: exact % decimal string and qualifier. */
+export interface StoredCell {
+  v: string | null;
+  q: '<' | '>' | 'nd' | null;
+}
+
+/** The value as received, kept for traceability. */
+export interface RawCell {
+  raw: string;
+  unit: Unit;
+}
+
+/** One element's result as stored: the computed result (mass fractions in %), the mean before
+ * drift correction, and the reporting decimals it was computed with. */
+export interface StoredResult extends ElementResult {
+  raw_mean: string | null;
+  decimals: number;
+}
+
+export interface SampleRow {
+  id: string;
+  sample_code: string;
+  heat: string | null;
+  grade: string | null;
+  kind: string | null;
+  instrument_id: string;
+  method_id: string;
+  fields_json: string;
+  status: 'draft' | 'released';
+  source: 'push' | 'import';
+  import_id: string | null;
+  first_line: number | null;
+  results_json: string;
+  flags_json: string;
+  created_by_label: string;
+  created_at: string;
+  updated_at: string;
+}
+
+export interface SampleRowWithRefs extends SampleRow {
+  instrument_code: string;
+  method_code: string;
+  burn_count: number | string;
+}
+
+export interface BurnRow {
+  id: string;
+  sample_id: string;
+  burn_number: number;
+  measured_at: string | null;
+  values_json: string;
+  raw_json: string;
+  excluded: boolean | number;
+  exclusion_reason: string | null;
+  excluded_by: string | null;
+  excluded_at: string | null;
+  source_line: number | null;
+}
+
+const INSERT_CHUNK = 200;
+
+export async function insertSamples(db: Queryable, samples: SampleRow[], burns: BurnRow[]): Promise<void> {
+  for (let i = 0; i < samples.length; i += INSERT_CHUNK) await db<SampleRow>('samples').insert(samples.slice(i, i + INSERT_CHUNK));
+  for (let i = 0; i < burns.length; i += INSERT_CHUNK) await db<BurnRow>('burns').insert(burns.slice(i, i + INSERT_CHUNK));
+}
+
+function withRefs(db: Queryable) {
+  return db<SampleRow>('samples')
+    .join('instruments', 'instruments.id', 'samples.instrument_id')
+    .join('methods', 'methods.id', 'samples.method_id')
+    .select<SampleRowWithRefs[]>(
+      'samples.*',
+      'instruments.code as instrument_code',
+      'methods.code as method_code',
+      db.raw('(select count(*) from burns where burns.sample_id = samples.id) as burn_count'),
+    );
+}
+
+export function findSample(db: Queryable, id: string): Promise<SampleRowWithRefs | undefined> {
+  return withRefs(db).where('samples.id', id).first();
+}
+
+export function findBurns(db: Queryable, sampleId: string): Promise<BurnRow[]> {
+  return db<BurnRow>('burns').where({ sample_id: sampleId }).orderBy('burn_number');
+}
+
+export async function updateBurn(db: Queryable, id: string, changes: Partial<BurnRow>): Promise<void> {
+  await db<BurnRow>('burns').where({ id }).update(changes);
+}
+
+export async function updateSampleResults(db: Queryable, id: string, changes: Pick<SampleRow, 'results_json' | 'flags_json' | 'updated_at'>): Promise<void> {
+  await db<SampleRow>('samples').where({ id }).update(changes);
+}
+
+export interface SampleFilters {
+  heat?: string;
+  grade?: string;
+  sample_code?: string;
+  instrument_id?: string;
+  method_id?: string;
+  import_id?: string;
+  status?: string;
+  kind?: string;
+  flag?: string;
+  created_from?: string;
+  created_to?: string;
+  updated_since?: string;
+  onlyInstrumentIds?: string[] | null;
+}
+
+export type SampleOrder = { by: 'created_desc'; after?: { t: string; id: string } } | { by: 'updated_asc'; after?: { t: string; id: string } };
+
+/** Filtered samples in a stable order; fetches limit + 1 rows so the caller can tell whether there is more. */
+export function listSampleRows(db: Queryable, filters: SampleFilters, order: SampleOrder, limit: number): Promise<SampleRowWithRefs[]> {
+  const query = withRefs(db);
+  if (filters.heat) query.where('samples.heat', filters.heat);
+  if (filters.grade) query.where('samples.grade', filters.grade);
+  if (filters.sample_code) query.where('samples.sample_code', filters.sample_code);
+  if (filters.instrument_id) query.where('samples.instrument_id', filters.instrument_id);
+  if (filters.method_id) query.where('samples.method_id', filters.method_id);
+  if (filters.import_id) query.where('samples.import_id', filters.import_id);
+  if (filters.status) query.where('samples.status', filters.status);
+  if (filters.kind) query.where('samples.kind', filters.kind);
+  if (filters.flag) query.where('samples.flags_json', 'like', `%${JSON.stringify(filters.flag)}%`);
+  if (filters.created_from) query.where('samples.created_at', '>=', filters.created_from);
+  if (filters.created_to) query.where('samples.created_at', '<', filters.created_to);
+  if (filters.updated_since) query.where('samples.updated_at', '>=', filters.updated_since);
+  if (filters.onlyInstrumentIds) query.whereIn('samples.instrument_id', filters.onlyInstrumentIds);
+  if (order.by === 'created_desc') {
+    query.orderBy([{ column: 'samples.created_at', order: 'desc' }, { column: 'samples.id', order: 'desc' }]);
+    if (order.after) {
+      const { t, id } = order.after;
+      query.where((w) => w.where('samples.created_at', '<', t).orWhere((x) => x.where('samples.created_at', t).andWhere('samples.id', '<', id)));
+    }
+  } else {
+    query.orderBy([{ column: 'samples.updated_at', order: 'asc' }, { column: 'samples.id', order: 'asc' }]);
+    if (order.after) {
+      const { t, id } = order.after;
+      query.where((w) => w.where('samples.updated_at', '>', t).orWhere((x) => x.where('samples.updated_at', t).andWhere('samples.id', '>', id)));
+    }
+  }
+  return query.limit(limit + 1);
+}

@@ -1,0 +1,150 @@
+import { listOf, paginationQuery } from '../../http/pagination.ts';
+import { z } from '../../openapi/zod.ts';
+import { OUTPUT_UNITS, UNITS } from '../chemistry/units.ts';
+
+export const SAMPLE_KINDS = ['preliminary', 'final', 'ladle', 'incoming', 'control'] as const;
+export const SampleKindSchema = z.enum(SAMPLE_KINDS).openapi('SampleKind');
+export const SampleStatusSchema = z.enum(['draft', 'released']).openapi('SampleStatus');
+export const OutputUnitSchema = z.enum(OUTPUT_UNITS).openapi('OutputUnit', { description: '`%` (mass fraction in percent, the default), `ppm` (mg/kg) or `ppb` (µg/kg).' });
+
+const text = (max: number) => z.string().trim().min(1).max(max);
+const fieldsSchema = z
+  .record(z.string().trim().min(1).max(60), z.string().max(500))
+  .refine((fields) => Object.keys(fields).length <= 30, 'at most 30 identification fields')
+  .openapi({ description: 'Further identification fields (furnace, customer order …).', example: { furnace: 'EAF-2' } });
+
+export const PushedValueSchema = z
+  .union([z.number(), z.string().max(40)])
+  .openapi({ description: 'A number, or a string: "0.75", "<0.0005" (below), ">1.5" (above), "n.d." (not detected).', example: 0.75 });
+
+export const PushedBurnSchema = z
+  .object({
+    measured_at: z.iso.datetime({ offset: true }).optional().openapi({ description: 'When the burn was sparked (ISO 8601).' }),
+    values: z.record(z.string().min(1).max(10), PushedValueSchema).openapi({ description: 'Element symbol → value. Symbols in any case (MN → Mn).', example: { C: 0.452, Mn: 0.71, S: '<0.002' } }),
+  })
+  .openapi('PushedBurn');
+
+export const PushSampleRequestSchema = z
+  .object({
+    sample_code: text(100).openapi({ example: 'K24-0412-F1' }),
+    heat: text(100).optional().openapi({ example: 'K24-0412' }),
+    grade: text(100).optional().openapi({ example: 'SAE 1045' }),
+    kind: SampleKindSchema.optional(),
+    instrument_id: z.string().min(1).max(40),
+    method_id: z.string().min(1).max(40),
+    fields: fieldsSchema.optional(),
+    unit: z.enum(UNITS).optional().openapi({ description: 'Unit of every value in `burns`; defaults to the method\'s default unit. `fraction` = plain mass fraction (0.01 = 1 %).' }),
+    burns: z.array(PushedBurnSchema).min(1).max(50),
+  })
+  .openapi('PushSampleRequest');
+
+export const PushSampleBatchRequestSchema = z
+  .object({ samples: z.array(PushSampleRequestSchema).min(1).max(500) })
+  .openapi('PushSampleBatchRequest', { description: 'Up to 500 samples, stored in one transaction: all or none.' });
+
+export const ResultSchema = z
+  .object({
+    element: z.string().openapi({ example: 'Mn' }),
+    mean: z.number().nullable().openapi({ description: 'Mean of the included burns after drift correction, in `unit`.' }),
+    sd: z.number().nullable().openapi({ description: 'Sample standard deviation (n − 1); null when n < 2.' }),
+    rsd: z.number().nullable().openapi({ description: 'Relative standard deviation, %; null when n < 2 or the mean is 0.' }),
+    n: z.number().int().openapi({ description: 'Number of numeric burn values averaged.' }),
+    min: z.number().nullable(),
+    max: z.number().nullable(),
+    unit: OutputUnitSchema,
+    raw_mean: z.number().nullable().openapi({ description: 'Mean before drift correction.' }),
+    reported: z.string().nullable().openapi({ description: 'The mean rounded half to even (ASTM E29) to the method\'s decimals, as a string; with `qualifier` when qualified.', example: '0.71' }),
+    qualifier: z.enum(['<', '>']).nullable().openapi({ description: '`<` below the detection limit or working range, `>` above the working range.' }),
+    decimals: z.number().int().openapi({ description: 'Decimal places of `reported` in this unit: the method\'s decimals in %, shifted for ppm (−4) and ppb (−7). Negative = rounded to tens, hundreds …' }),
+    flags: z.array(z.string()).openapi({ description: 'See the result flags in the operation description.' }),
+    repeatability: z
+      .object({ range: z.number(), critical_range: z.number(), exceeded: z.boolean() })
+      .nullable()
+      .openapi({ description: 'ISO 5725-6 check of the burns\' range against f(n)·σr, when the method sets σr and there are at least two burns.' }),
+  })
+  .openapi('ElementResult');
+
+export const BurnValueSchema = z
+  .object({
+    value: z.number().nullable().openapi({ description: 'Canonical value in the requested unit; null for "n.d.".' }),
+    qualifier: z.enum(['<', '>', 'nd']).nullable(),
+    raw: z.string().openapi({ description: 'The value exactly as received.' }),
+    raw_unit: z.string().openapi({ description: 'The unit it was received in.' }),
+  })
+  .openapi('BurnValue');
+
+export const BurnSchema = z
+  .object({
+    number: z.number().int(),
+    measured_at: z.string().nullable().openapi({ format: 'date-time' }),
+    excluded: z.boolean(),
+    exclusion: z.object({ reason: z.string(), by: z.string(), at: z.string() }).nullable(),
+    source_line: z.number().int().nullable().openapi({ description: 'Line of the imported file this burn came from.' }),
+    values: z.record(z.string(), BurnValueSchema),
+  })
+  .openapi('Burn');
+
+const ref = z.object({ id: z.string(), code: z.string() });
+
+export const SampleSummarySchema = z
+  .object({
+    id: z.string(),
+    sample_code: z.string(),
+    heat: z.string().nullable(),
+    grade: z.string().nullable(),
+    kind: SampleKindSchema.nullable(),
+    status: SampleStatusSchema,
+    instrument: ref,
+    method: ref,
+    fields: z.record(z.string(), z.string()),
+    source: z.enum(['push', 'import']),
+    import_id: z.string().nullable(),
+    burn_count: z.number().int(),
+    flags: z.array(z.string()).openapi({ description: 'Every flag raised on any element result.' }),
+    results: z.array(ResultSchema),
+    created_by: z.string(),
+    created_at: z.string().openapi({ format: 'date-time' }),
+    updated_at: z.string().openapi({ format: 'date-time' }),
+  })
+  .openapi('SampleSummary');
+
+export const SampleSchema = SampleSummarySchema.extend({
+  burns: z.array(BurnSchema),
+  provenance: z.object({
+    source: z.enum(['push', 'import']),
+    import_id: z.string().nullable(),
+    file_sha256: z.string().nullable(),
+    file_name: z.string().nullable(),
+    lines: z.array(z.number().int()).openapi({ description: 'File lines of the burns, for imported samples.' }),
+  }),
+}).openapi('Sample');
+
+export const SampleListSchema = listOf(SampleSummarySchema, 'SampleList');
+export const SampleBatchResponseSchema = z.object({ data: z.array(SampleSchema) }).openapi('SampleBatch');
+
+export const UnitQuerySchema = z.object({ unit: OutputUnitSchema.default('%') });
+export const SampleIdParams = z.object({ id: z.string().min(1).max(40) });
+export const BurnParams = z.object({ id: z.string().min(1).max(40), n: z.coerce.number().int().min(1).max(1000) });
+
+export const SetBurnExclusionRequestSchema = z
+  .object({
+    excluded: z.boolean(),
+    reason: z.string().trim().min(3, 'say why, in a few words').max(500),
+  })
+  .openapi('SetBurnExclusionRequest', { description: 'Exclude a burn from the statistics (it is never deleted), or include it again. The reason is recorded either way.' });
+
+export const SampleListQuerySchema = paginationQuery.extend({
+  heat: z.string().max(100).optional(),
+  grade: z.string().max(100).optional(),
+  sample_code: z.string().max(100).optional(),
+  instrument_id: z.string().max(40).optional(),
+  method_id: z.string().max(40).optional(),
+  import_id: z.string().max(40).optional(),
+  status: SampleStatusSchema.optional(),
+  kind: SampleKindSchema.optional(),
+  flag: z.string().max(60).optional().openapi({ description: 'Only samples with this flag on some element.' }),
+  created_from: z.iso.datetime({ offset: true }).optional(),
+  created_to: z.iso.datetime({ offset: true }).optional(),
+  updated_since: z.iso.datetime({ offset: true }).optional().openapi({ description: 'Samples changed at or after this time; the list is then ordered oldest change first, so a client can resume from its last `updated_at`.' }),
+  unit: OutputUnitSchema.default('%'),
+});

@@ -1,0 +1,136 @@
+// Samples: JSON push (one or a batch, all in one transaction), burn exclusion with a reason,
+// results recomputed whenever burns change. Every change is audited with before/after.
+import type { Knex } from 'knex';
+import type { AppContext } from '../../context.ts';
+import { ConflictProblem, type FieldError, NotFoundProblem, UnprocessableProblem, ValidationProblem } from '../../http/problem.ts';
+import type { AuthContext } from '../../http/request-context.ts';
+import { nowIso } from '../../lib/time.ts';
+import { type Actor, actorOf } from '../audit/actor.ts';
+import { recordAudit } from '../audit/audit.repository.ts';
+import type { Unit } from '../chemistry/units.ts';
+import { assertInstrumentAllowed } from '../instruments/instruments.service.ts';
+import { findInstrument } from '../instruments/instruments.repository.ts';
+import { findMethod, type Method } from '../methods/methods.repository.ts';
+import { normalisePushedBurns, type PushedBurn } from './pushed-sample.ts';
+import { buildSampleRows } from './sample-builder.ts';
+import { computeSampleResults } from './sample-results.ts';
+import { type BurnRow, findBurns, findSample, insertSamples, type SampleRow, updateBurn, updateSampleResults } from './samples.repository.ts';
+
+export interface PushedSample {
+  sample_code: string;
+  heat?: string;
+  grade?: string;
+  kind?: string;
+  instrument_id: string;
+  method_id: string;
+  fields?: Record<string, string>;
+  unit?: Unit;
+  burns: PushedBurn[];
+}
+
+type Queryable = Knex | Knex.Transaction;
+
+/** Loads each referenced method once; unknown or forbidden references become errors. */
+async function resolveReferences(db: Queryable, auth: AuthContext, samples: PushedSample[], location: (i: number) => string, errors: FieldError[]) {
+  const methods = new Map<string, Method | undefined>();
+  const instruments = new Map<string, boolean>();
+  for (const [i, sample] of samples.entries()) {
+    if (!instruments.has(sample.instrument_id)) instruments.set(sample.instrument_id, !!(await findInstrument(db, sample.instrument_id)));
+    if (!instruments.get(sample.instrument_id)) errors.push({ location: `${location(i)}.instrument_id`, message: `no instrument ${sample.instrument_id}`, code: 'unknown_reference' });
+    else assertInstrumentAllowed(auth, sample.instrument_id);
+    if (!methods.has(sample.method_id)) methods.set(sample.method_id, await findMethod(db, sample.method_id));
+    if (!methods.get(sample.method_id)) errors.push({ location: `${location(i)}.method_id`, message: `no method ${sample.method_id}`, code: 'unknown_reference' });
+  }
+  return methods;
+}
+
+/** Stores pushed samples in one transaction and returns their ids, in request order. */
+export async function pushSamples(ctx: AppContext, auth: AuthContext, samples: PushedSample[], batch: boolean, requestId?: string): Promise<string[]> {
+  const location = (i: number) => (batch ? `body.samples.${i}` : 'body');
+  const referenceErrors: FieldError[] = [];
+  const methods = await resolveReferences(ctx.db, auth, samples, location, referenceErrors);
+  if (referenceErrors.length) throw new UnprocessableProblem('A sample refers to an instrument or method that does not exist.', referenceErrors);
+
+  const errors: FieldError[] = [];
+  const now = nowIso();
+  const actor = actorOf(auth);
+  const built = samples.map((sample, i) => {
+    const method = methods.get(sample.method_id)!;
+    const burns = normalisePushedBurns(sample.burns, sample.unit ?? method.default_unit, `${location(i)}.burns`, errors);
+    return buildSampleRows({ ...sample, method, source: 'push', created_by_label: actor.label, burns }, now);
+  });
+  if (errors.length) throw new ValidationProblem(errors, 'Some values cannot be read; see errors[] for each one. Nothing was stored.');
+
+  await ctx.db.transaction((trx) => storeNewSamples(trx, built, actor, requestId));
+  return built.map((b) => b.sample.id);
+}
+
+/** Inserts built samples and audits each one; runs inside the caller's transaction. */
+export async function storeNewSamples(
+  trx: Knex.Transaction,
+  built: ReturnType<typeof buildSampleRows>[],
+  actor: Actor,
+  requestId?: string,
+  options: { auditEach: boolean } = { auditEach: true },
+): Promise<void> {
+  await insertSamples(trx, built.map((b) => b.sample), built.flatMap((b) => b.burns));
+  // A file import is audited once, as import.completed, naming the import that holds the samples.
+  if (!options.auditEach) return;
+  for (const { sample } of built) {
+    await recordAudit(trx, {
+      actor,
+      requestId,
+      action: 'sample.created',
+      targetType: 'sample',
+      targetId: sample.id,
+      after: { sample_code: sample.sample_code, heat: sample.heat, source: sample.source, import_id: sample.import_id, results: JSON.parse(sample.results_json) },
+    });
+  }
+}
+
+export async function loadSample(db: Queryable, auth: AuthContext, id: string) {
+  const sample = await findSample(db, id);
+  if (!sample || (auth.instrumentIds && !auth.instrumentIds.includes(sample.instrument_id))) throw new NotFoundProblem(`No sample ${id}.`);
+  return sample;
+}
+
+function burnState(burn: BurnRow) {
+  return { number: burn.burn_number, excluded: Boolean(burn.excluded), reason: burn.exclusion_reason };
+}
+
+/** Excludes or re-includes one burn, recomputes the results and records who, when and why. */
+export async function setBurnExclusion(ctx: AppContext, auth: AuthContext, sampleId: string, burnNumber: number, change: { excluded: boolean; reason: string }, requestId?: string): Promise<void> {
+  await ctx.db.transaction(async (trx) => {
+    const sample = await loadSample(trx, auth, sampleId);
+    if (sample.status === 'released') throw new ConflictProblem('This sample is released; amend it instead of changing its burns.');
+    const burns = await findBurns(trx, sampleId);
+    const burn = burns.find((b) => b.burn_number === burnNumber);
+    if (!burn) throw new NotFoundProblem(`Sample ${sampleId} has no burn ${burnNumber}.`);
+    if (Boolean(burn.excluded) === change.excluded) return;
+    if (change.excluded && burns.filter((b) => !b.excluded).length === 1) {
+      throw new ConflictProblem('This is the only included burn; include another one first, or measure the sample again.');
+    }
+    const method = await findMethod(trx, sample.method_id);
+    const now = nowIso();
+    const actor = actorOf(auth);
+    const updated: BurnRow = { ...burn, excluded: change.excluded, exclusion_reason: change.reason, excluded_by: actor.label, excluded_at: now };
+    const next = burns.map((b) => (b.id === burn.id ? updated : b));
+    const { results, flags } = computeSampleResults(
+      next.map((b) => ({ excluded: Boolean(b.excluded), values: JSON.parse(b.values_json) })),
+      method!,
+    );
+    await updateBurn(trx, burn.id, { excluded: change.excluded, exclusion_reason: change.reason, excluded_by: actor.label, excluded_at: now });
+    await updateSampleResults(trx, sampleId, { results_json: JSON.stringify(results), flags_json: JSON.stringify(flags), updated_at: now });
+    await recordAudit(trx, {
+      actor,
+      requestId,
+      action: change.excluded ? 'sample.burn_excluded' : 'sample.burn_included',
+      targetType: 'sample',
+      targetId: sampleId,
+      before: { burn: burnState(burn), results: JSON.parse(sample.results_json) },
+      after: { burn: burnState(updated), results, reason: change.reason },
+    });
+  });
+}
+
+export type { SampleRow };

@@ -1,0 +1,108 @@
+import { listImportRows, findImportFile, toImport } from '../../domain/imports/imports.repository.ts';
+import { ImportIdParams, ImportListQuerySchema, ImportListSchema, ImportPreviewRequestSchema, ImportPreviewSchema, ImportSchema, ImportUploadSchema } from '../../domain/imports/imports.schemas.ts';
+import { getImport, previewImport, uploadImport } from '../../domain/imports/imports.service.ts';
+import { AUTO_DETECTION_DESCRIPTION } from '../../domain/imports/import-profiles.schemas.ts';
+import { NotFoundProblem } from '../../http/problem.ts';
+import { decodeCursor, pageOf } from '../../http/pagination.ts';
+import { defineRoute } from '../../http/route.ts';
+import { z } from '../../openapi/zod.ts';
+import { singleFileUpload } from '../../http/upload.ts';
+
+export const importRoutes = [
+  defineRoute({
+    method: 'post',
+    path: '/imports',
+    operationId: 'uploadImport',
+    summary: 'Upload an instrument result file',
+    description:
+      'The raw bytes are kept with their SHA-256. Uploading the same bytes again returns the earlier import with 200 and creates nothing. By default a file is imported all or nothing: one unreadable value answers 422 with `errors[]` naming line and column (`file:line 12:Mn`), and the database is unchanged.\n\n' +
+      AUTO_DETECTION_DESCRIPTION,
+    tag: 'Imports',
+    access: { scope: 'imports:write' },
+    body: ImportUploadSchema,
+    bodyContentType: 'multipart/form-data',
+    before: (ctx) => [singleFileUpload('file', ctx.config.importMaxBytes)],
+    responses: {
+      200: { description: 'These bytes were imported before: the earlier import, unchanged.', schema: ImportSchema },
+      201: { description: 'Imported; the report lists what was created, warnings and rejected lines.', schema: ImportSchema, headers: { Location: 'The new import.' } },
+      413: { description: 'The file exceeds IMPORT_MAX_BYTES.' },
+      415: { description: 'Not a multipart/form-data request.' },
+      422: { description: 'The file cannot be read, a value is broken (all-or-nothing), or a referenced instrument, method or profile does not exist.' },
+    },
+    async handler({ body, auth, req, res, ctx }) {
+      const { created, record } = await uploadImport(ctx, auth, body, req.requestId);
+      if (created) res.status(201).location(`/api/v1/imports/${record.id}`);
+      res.json(record);
+    },
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/imports/preview',
+    operationId: 'previewImport',
+    summary: 'Read a result file without storing anything',
+    description: 'Shows how the file would be read: recognised columns, the first samples, warnings and rejected lines, and whether these bytes were imported before.',
+    tag: 'Imports',
+    access: { scope: 'imports:write' },
+    body: ImportPreviewRequestSchema,
+    bodyContentType: 'multipart/form-data',
+    before: (ctx) => [singleFileUpload('file', ctx.config.importMaxBytes)],
+    responses: {
+      200: { description: 'How the file reads.', schema: ImportPreviewSchema },
+      413: { description: 'The file exceeds IMPORT_MAX_BYTES.' },
+      415: { description: 'Not a multipart/form-data request.' },
+      422: { description: 'The file cannot be read as result data, or a reference does not exist.' },
+    },
+    async handler({ body, auth, res, ctx }) {
+      res.json(await previewImport(ctx, auth, body));
+    },
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/imports',
+    operationId: 'listImports',
+    summary: 'List imports, newest first',
+    tag: 'Imports',
+    access: { scope: 'samples:read' },
+    query: ImportListQuerySchema,
+    responses: { 200: { description: 'A page of imports.', schema: ImportListSchema } },
+    async handler({ query, auth, res, ctx }) {
+      const afterId = query.cursor ? decodeCursor<{ id: string }>(query.cursor, ['id']).id : undefined;
+      const rows = await listImportRows(ctx.db, { instrumentId: query.instrument_id, onlyInstrumentIds: auth.instrumentIds, afterId, limit: query.limit });
+      res.json(pageOf(rows, query.limit, toImport, (row) => ({ id: row.id })));
+    },
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/imports/{id}',
+    operationId: 'getImport',
+    summary: 'Get an import and its report',
+    tag: 'Imports',
+    access: { scope: 'samples:read' },
+    params: ImportIdParams,
+    responses: { 200: { description: 'The import.', schema: ImportSchema }, 404: { description: 'No such import.' } },
+    async handler({ params, auth, res, ctx }) {
+      res.json(await getImport(ctx, auth, params.id));
+    },
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/imports/{id}/file',
+    operationId: 'downloadImportFile',
+    summary: 'Download the raw file exactly as uploaded',
+    tag: 'Imports',
+    access: { scope: 'samples:read' },
+    params: ImportIdParams,
+    responses: {
+      200: { description: 'The bytes as uploaded, with their SHA-256 in the `x-content-sha256` header.', contentType: 'application/octet-stream', schema: z.string().openapi({ format: 'binary' }) },
+      404: { description: 'No such import.' },
+    },
+    async handler({ params, auth, res, ctx }) {
+      const file = await findImportFile(ctx.db, params.id);
+      if (!file || (auth.instrumentIds && !auth.instrumentIds.includes(file.instrument_id))) throw new NotFoundProblem(`No import ${params.id}.`);
+      res.setHeader('Content-Type', file.content_type);
+      res.setHeader('x-content-sha256', file.sha256);
+      res.attachment(file.file_name);
+      res.send(Buffer.from(file.content));
+    },
+  }),
+];

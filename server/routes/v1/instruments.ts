@@ -1,0 +1,79 @@
+import {
+  CreateInstrumentRequestSchema,
+  InstrumentIdParams,
+  InstrumentListQuerySchema,
+  InstrumentListSchema,
+  InstrumentSchema,
+  UpdateInstrumentRequestSchema,
+} from '../../domain/instruments/instruments.schemas.ts';
+import { listInstrumentRows } from '../../domain/instruments/instruments.repository.ts';
+import { createInstrument, getInstrument, updateInstrument } from '../../domain/instruments/instruments.service.ts';
+import { decodeCursor, pageOf } from '../../http/pagination.ts';
+import { defineRoute } from '../../http/route.ts';
+
+export const instrumentRoutes = [
+  defineRoute({
+    method: 'get',
+    path: '/instruments',
+    operationId: 'listInstruments',
+    summary: 'List instruments',
+    description: 'Ordered by code. A key restricted to some instruments sees only those.',
+    tag: 'Instruments',
+    access: { scope: 'samples:read' },
+    query: InstrumentListQuerySchema,
+    responses: { 200: { description: 'A page of instruments.', schema: InstrumentListSchema } },
+    async handler({ query, auth, res, ctx }) {
+      const afterCode = query.cursor ? decodeCursor<{ code: string }>(query.cursor, ['code']).code : undefined;
+      const rows = await listInstrumentRows(ctx.db, { afterCode, onlyIds: auth.instrumentIds, limit: query.limit });
+      res.json(pageOf(rows, query.limit, (row) => row, (row) => ({ code: row.code })));
+    },
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/instruments',
+    operationId: 'createInstrument',
+    summary: 'Register an instrument',
+    tag: 'Instruments',
+    access: { scope: 'instruments:write' },
+    body: CreateInstrumentRequestSchema,
+    responses: {
+      201: { description: 'Registered.', schema: InstrumentSchema, headers: { Location: 'The new instrument.' } },
+      409: { description: 'The code is taken (codes are compared ignoring case).' },
+    },
+    async handler({ body, auth, req, res, ctx }) {
+      const instrument = await createInstrument(ctx, auth, body, req.requestId);
+      res.status(201).location(`/api/v1/instruments/${instrument.id}`).json(instrument);
+    },
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/instruments/{id}',
+    operationId: 'getInstrument',
+    summary: 'Get an instrument',
+    tag: 'Instruments',
+    access: { scope: 'samples:read' },
+    params: InstrumentIdParams,
+    responses: { 200: { description: 'The instrument.', schema: InstrumentSchema }, 404: { description: 'No such instrument.' } },
+    async handler({ params, auth, res, ctx }) {
+      res.json(await getInstrument(ctx, auth, params.id));
+    },
+  }),
+  defineRoute({
+    method: 'patch',
+    path: '/instruments/{id}',
+    operationId: 'updateInstrument',
+    summary: 'Change an instrument\'s code, name or site',
+    tag: 'Instruments',
+    access: { scope: 'instruments:write' },
+    params: InstrumentIdParams,
+    body: UpdateInstrumentRequestSchema,
+    responses: {
+      200: { description: 'The updated instrument.', schema: InstrumentSchema },
+      404: { description: 'No such instrument.' },
+      409: { description: 'The new code is taken.' },
+    },
+    async handler({ params, body, auth, req, res, ctx }) {
+      res.json(await updateInstrument(ctx, auth, params.id, body, req.requestId));
+    },
+  }),
+];
