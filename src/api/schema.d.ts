@@ -358,6 +358,72 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/request-log": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Calls to the API, newest first
+         * @description Admins see every entry; everyone else sees their own calls and the calls made with keys they created. Bodies are cut at `REQUEST_LOG_BODY_LIMIT` bytes; Authorization, Cookie and Set-Cookie headers, fields named like password, secret or token, and anything shaped like an API key are redacted. Health checks and the OpenAPI document are not logged.
+         *
+         *     Requires the scope `request-log:read`.
+         */
+        get: operations["listRequestLog"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/request-log/{id}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * One call with its request and response
+         * @description Admins see every entry; everyone else sees their own calls and the calls made with keys they created. Bodies are cut at `REQUEST_LOG_BODY_LIMIT` bytes; Authorization, Cookie and Set-Cookie headers, fields named like password, secret or token, and anything shaped like an API key are redacted. Health checks and the OpenAPI document are not logged.
+         *
+         *     Requires the scope `request-log:read`.
+         */
+        get: operations["getRequestLogEntry"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/request-log/{id}/replay": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Send a logged call again, as you
+         * @description Sends the same method, path, query, body, Content-Type, Accept and Idempotency-Key again with **your** credentials (the Authorization header or session cookie of this request). The replayed call is checked like any other: a scope you lack gives it its own 403. The new entry records `replay_of`. Multipart uploads, bodies cut by the size limit, requests with redacted secrets and sign-in calls are not replayable (422).
+         *
+         *     Requires the scope `request-log:read`.
+         */
+        post: operations["replayRequestLogEntry"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/dev/outbox": {
         parameters: {
             query?: never;
@@ -590,6 +656,80 @@ export interface components {
             after?: unknown;
             request_id: string | null;
         };
+        RequestLogList: {
+            data: components["schemas"]["RequestLogSummary"][];
+            /** @description Pass as `cursor` to get the next page; null on the last page. */
+            next_cursor: string | null;
+        };
+        RequestLogSummary: {
+            id: string;
+            /** Format: date-time */
+            occurred_at: string;
+            /** @example GET */
+            method: string;
+            /** @example /api/v1/samples */
+            path: string;
+            /**
+             * @description The query string without `?`, secrets redacted.
+             * @example limit=50
+             */
+            query: string;
+            status: number;
+            duration_ms: number;
+            caller: components["schemas"]["RequestLogCaller"];
+            request_id: string;
+            /** @description The entry this call replayed. */
+            replay_of: string | null;
+        };
+        RequestLogCaller: {
+            /** @enum {string} */
+            type: "user" | "api_key" | "anonymous";
+            /** @description The user id or the API key id; null for anonymous calls. */
+            id: string | null;
+            /** @example MES melt shop (mw_live_7Qm2xP…) */
+            label: string | null;
+        };
+        RequestLogEntry: components["schemas"]["RequestLogSummary"] & {
+            request: components["schemas"]["RequestLogRequest"];
+            response: components["schemas"]["RequestLogResponse"];
+            replayable: boolean;
+            /** @description Why `replayable` is false. */
+            not_replayable_reason: string | null;
+        };
+        RequestLogRequest: {
+            /** @description Authorization, Cookie and Set-Cookie values are redacted. */
+            headers: {
+                [key: string]: string;
+            };
+            content_type: string | null;
+            /**
+             * @description `multipart` bodies are described (field, file name, size, type), not stored; `binary` bodies are not stored.
+             * @enum {string}
+             */
+            body_kind: "none" | "json" | "text" | "multipart" | "binary" | "unread";
+            /** @description The body as text with secrets redacted, cut at the configured limit. */
+            body: string | null;
+            /** @description Bytes of the original body. */
+            body_size: number;
+            body_truncated: boolean;
+        };
+        RequestLogResponse: {
+            /** @description Authorization, Cookie and Set-Cookie values are redacted. */
+            headers: {
+                [key: string]: string;
+            };
+            content_type: string | null;
+            /**
+             * @description `multipart` bodies are described (field, file name, size, type), not stored; `binary` bodies are not stored.
+             * @enum {string}
+             */
+            body_kind: "none" | "json" | "text" | "multipart" | "binary" | "unread";
+            /** @description The body as text with secrets redacted, cut at the configured limit. */
+            body: string | null;
+            /** @description Bytes of the original body. */
+            body_size: number;
+            body_truncated: boolean;
+        };
         Outbox: {
             data: components["schemas"]["CapturedMail"][];
         };
@@ -627,6 +767,15 @@ export interface operations {
                 };
                 content: {
                     "application/json": components["schemas"]["Health"];
+                };
+            };
+            /** @description An Authorization header was sent with a malformed, unknown, revoked or expired API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
                 };
             };
             /** @description Rate limit exceeded; see `Retry-After`. */
@@ -678,6 +827,15 @@ export interface operations {
                     };
                 };
             };
+            /** @description An Authorization header was sent with a malformed, unknown, revoked or expired API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description Rate limit exceeded; see `Retry-After`. */
             429: {
                 headers: {
@@ -701,7 +859,13 @@ export interface operations {
     login: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path?: never;
             cookie?: never;
         };
@@ -714,6 +878,8 @@ export interface operations {
             /** @description Signed in. */
             200: {
                 headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content: {
@@ -722,6 +888,42 @@ export interface operations {
             };
             /** @description The request is not valid; `errors[]` names each field. */
             400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The e-mail or password is not correct, or the account is disabled. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -752,7 +954,13 @@ export interface operations {
     logout: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path?: never;
             cookie?: never;
         };
@@ -761,9 +969,56 @@ export interface operations {
             /** @description Signed out (also when there was no session). */
             204: {
                 headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content?: never;
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description An Authorization header was sent with a malformed, unknown, revoked or expired API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
             };
             /** @description Rate limit exceeded; see `Retry-After`. */
             429: {
@@ -835,7 +1090,13 @@ export interface operations {
     acceptInvitation: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path?: never;
             cookie?: never;
         };
@@ -848,6 +1109,8 @@ export interface operations {
             /** @description The account is active; sign in with the new password. */
             200: {
                 headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content: {
@@ -856,6 +1119,33 @@ export interface operations {
             };
             /** @description The request is not valid; `errors[]` names each field. */
             400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description An Authorization header was sent with a malformed, unknown, revoked or expired API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -895,7 +1185,13 @@ export interface operations {
     requestPasswordReset: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path?: never;
             cookie?: never;
         };
@@ -908,12 +1204,50 @@ export interface operations {
             /** @description If the account exists and is active, a link is on its way. */
             202: {
                 headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content?: never;
             };
             /** @description The request is not valid; `errors[]` names each field. */
             400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description An Authorization header was sent with a malformed, unknown, revoked or expired API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -944,7 +1278,13 @@ export interface operations {
     confirmPasswordReset: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path?: never;
             cookie?: never;
         };
@@ -957,12 +1297,41 @@ export interface operations {
             /** @description The password is changed. */
             204: {
                 headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content?: never;
             };
             /** @description The request is not valid; `errors[]` names each field. */
             400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description An Authorization header was sent with a malformed, unknown, revoked or expired API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -1074,7 +1443,13 @@ export interface operations {
     inviteUser: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path?: never;
             cookie?: never;
         };
@@ -1089,6 +1464,8 @@ export interface operations {
                 headers: {
                     /** @description The new user. */
                     Location?: string;
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content: {
@@ -1124,6 +1501,24 @@ export interface operations {
             };
             /** @description A user with this e-mail exists (e-mails are compared ignoring case). */
             409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -1230,7 +1625,13 @@ export interface operations {
     updateUser: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path: {
                 id: string;
             };
@@ -1245,6 +1646,8 @@ export interface operations {
             /** @description The updated user. */
             200: {
                 headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content: {
@@ -1296,6 +1699,24 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description Rate limit exceeded; see `Retry-After`. */
             429: {
                 headers: {
@@ -1319,7 +1740,13 @@ export interface operations {
     resendInvitation: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path: {
                 id: string;
             };
@@ -1330,6 +1757,8 @@ export interface operations {
             /** @description Sent (see `delivered`). */
             202: {
                 headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content: {
@@ -1374,6 +1803,24 @@ export interface operations {
             };
             /** @description The user has already accepted. */
             409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -1476,7 +1923,13 @@ export interface operations {
     createApiKey: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path?: never;
             cookie?: never;
         };
@@ -1491,6 +1944,8 @@ export interface operations {
                 headers: {
                     /** @description The new key. */
                     Location?: string;
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content: {
@@ -1517,6 +1972,33 @@ export interface operations {
             };
             /** @description The caller lacks the scope `api-keys:write`. */
             403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A request with the same `Idempotency-Key` is still being processed, or already succeeded: its response carried a secret that is shown once, so it is not replayed (`resource` names what was created). */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -1623,7 +2105,13 @@ export interface operations {
     revokeApiKey: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path: {
                 id: string;
             };
@@ -1634,6 +2122,8 @@ export interface operations {
             /** @description Revoked (also when it already was). */
             204: {
                 headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content?: never;
@@ -1674,6 +2164,33 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description Rate limit exceeded; see `Retry-After`. */
             429: {
                 headers: {
@@ -1697,7 +2214,13 @@ export interface operations {
     rollApiKey: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path: {
                 id: string;
             };
@@ -1714,6 +2237,8 @@ export interface operations {
                 headers: {
                     /** @description The new key. */
                     Location?: string;
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content: {
@@ -1758,6 +2283,24 @@ export interface operations {
             };
             /** @description The key is revoked or expired. */
             409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -1906,6 +2449,277 @@ export interface operations {
             };
             /** @description The caller lacks the scope `audit:read`. */
             403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    listRequestLog: {
+        parameters: {
+            query?: {
+                /** @description Page size (1–200). */
+                limit?: number;
+                /** @description Opaque cursor from the previous page's `next_cursor`. */
+                cursor?: string;
+                /** @description Only calls with this HTTP method. */
+                method?: "GET" | "POST" | "PUT" | "PATCH" | "DELETE" | "HEAD" | "OPTIONS";
+                /** @description A status code (`404`) or a class (`4xx`). */
+                status?: string;
+                /** @description Paths starting with this text, e.g. `/api/v1/samples`. */
+                path_prefix?: string;
+                /** @description Calls by this user id or API key id. */
+                caller_id?: string;
+                /** @description Calls at or after this time (ISO 8601 UTC). */
+                since?: string;
+                /** @description Calls before this time (ISO 8601 UTC). */
+                until?: string;
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description A page of calls. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RequestLogList"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `request-log:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    getRequestLogEntry: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The call. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RequestLogEntry"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `request-log:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such entry, or not yours. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    replayRequestLogEntry: {
+        parameters: {
+            query?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Replayed; the body is the new entry, with the replayed call's status and response. */
+            201: {
+                headers: {
+                    /** @description The new entry. */
+                    Location?: string;
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RequestLogEntry"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `request-log:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such entry, or not yours. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description This entry cannot be replayed; `detail` says why. */
+            422: {
                 headers: {
                     [name: string]: unknown;
                 };

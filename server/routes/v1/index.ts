@@ -5,6 +5,7 @@ import { authRoutes } from './auth.ts';
 import { healthRoutes } from './health.ts';
 import { openApiRoutes } from './openapi.ts';
 import { outboxRoutes } from './outbox.ts';
+import { requestLogRoutes } from './request-log.ts';
 import { sampleRoutes } from './samples.ts';
 import { userRoutes } from './users.ts';
 
@@ -17,5 +18,6 @@ export const v1Routes: AnyRoute[] = [
   ...apiKeyRoutes,
   ...sampleRoutes,
   ...auditRoutes,
+  ...requestLogRoutes,
   ...outboxRoutes,
 ];
