@@ -1,11 +1,12 @@
 // Tests only: checks every JSON response (problems included) against the OpenAPI document with
-// express-openapi-validator. A mismatch becomes a 500 problem naming it, so the test that
-// produced the response fails. The package is a devDependency, so it is loaded only when asked.
+// express-openapi-validator. A mismatch is answered instead with a 500 problem naming it, so the
+// test that produced the response fails. The package is a devDependency, loaded only when asked.
 import { createRequire } from 'node:module';
 import type { RequestHandler } from 'express';
 import type * as OpenApiValidator from 'express-openapi-validator';
-import type { AnyRoute } from './route.ts';
 import { buildOpenApiDocument } from '../openapi/document.ts';
+import type { AnyRoute } from './route.ts';
+import { sendProblem } from './error-handler.ts';
 import { ProblemError } from './problem.ts';
 
 export class ResponseMismatchProblem extends ProblemError {
@@ -28,8 +29,11 @@ export function responseValidation(routes: AnyRoute[]): RequestHandler[] {
     fileUploader: false,
     ignoreUndocumented: true,
     validateResponses: {
+      // Called while the response is being sent (res.json is already the original again), also
+      // for problems sent by the error handler: answer with the mismatch right here.
       onError: (error, _body, req) => {
-        throw new ResponseMismatchProblem(`${req.method} ${req.originalUrl} answered ${req.res?.statusCode}: ${error.message}`);
+        const problem = new ResponseMismatchProblem(`${req.method} ${req.originalUrl} answered ${req.res?.statusCode}: ${error.message}`);
+        if (req.res) sendProblem(req.res, problem, req.originalUrl.split('?')[0], req.requestId);
       },
     },
   });
