@@ -1,7 +1,7 @@
 // Records every /api/v1 call in the request log (see the README for what is kept and redacted).
 // Mounted first on the API router, so calls refused by authentication, rate limits or body
 // parsing are recorded too. Health checks and the OpenAPI document are not recorded: monitors
-// poll them, they carry no caller data, and the access log has them.
+// poll them often and they carry no caller data.
 import type { Request, RequestHandler, Response } from 'express';
 import type { AppContext } from '../context.ts';
 import { type BodySnapshot, snapshotRequestBody, snapshotResponseBody } from '../domain/request-log/body-snapshot.ts';
