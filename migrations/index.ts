@@ -8,6 +8,7 @@ import * as createAuditEvents from './20261201000400_create_audit_events.ts';
 import * as createApiKeys from './20261201000500_create_api_keys.ts';
 import * as createIdempotencyKeys from './20261201100100_create_idempotency_keys.ts';
 import * as createRequestLog from './20261201100200_create_request_log.ts';
+import * as createImportProfiles from './20261201300100_create_import_profiles.ts';
 
 export interface Migration {
   up(knex: Knex): Promise<void>;
@@ -22,4 +23,5 @@ export const migrations: Record<string, Migration> = {
   '20261201000500_create_api_keys': createApiKeys,
   '20261201100100_create_idempotency_keys': createIdempotencyKeys,
   '20261201100200_create_request_log': createRequestLog,
+  '20261201300100_create_import_profiles': createImportProfiles,
 };

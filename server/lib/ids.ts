@@ -4,7 +4,7 @@ import { monotonicFactory } from 'ulid';
 
 const nextUlid = monotonicFactory();
 
-export type IdPrefix = 'usr' | 'ses' | 'tok' | 'aud' | 'key' | 'req';
+export type IdPrefix = 'usr' | 'ses' | 'tok' | 'aud' | 'key' | 'req' | 'ipr';
 
 export function newId(prefix: IdPrefix): string {
   return `${prefix}_${nextUlid().toLowerCase()}`;

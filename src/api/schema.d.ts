@@ -336,6 +336,60 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/import-profiles": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * List import profiles
+         * @description Oldest first.
+         *
+         *     Requires the scope `samples:read`.
+         */
+        get: operations["listImportProfiles"];
+        put?: never;
+        /**
+         * Describe how to read a family of result files
+         * @description Every field but `name` has a default; an empty profile detects everything. Without a profile (and for whatever a profile leaves open) the parser detects: the encoding (UTF-8 with or without BOM, else Windows-1252); the delimiter (`,` `;` or tab: the one that splits the header into most columns and the data lines into as many); the decimal separator (`.` in comma-delimited files; otherwise `,` when more element cells write a digit-comma-digit than a digit-dot-digit); the header (the first non-blank line); the layout (long when an element column and a value column are named and no header is an element, else wide); element columns (a real element symbol in any case with an optional unit: `Mn`, `Mn %`, `%Mn`, `Mn [%]`, `C [ppm]`, `Si(%)`, `Cu mg/kg`; unit from the header, else the profile's default unit, else the caller's, else %); identification headers, ignoring case and treating `_ - . / :` as spaces — sample code (required): `sample`, `sample code`, `sample id`, `sample no`, `sample number`, `sample name`, `specimen`, `specimen id`; heat or lot number: `heat`, `heat no`, `heat number`, `heat id`, `lot`, `lot no`, `lot number`, `batch`, `cast`, `cast no`, `melt`, `melt no`; grade: `grade`, `steel grade`, `alloy`, `alloy grade`, `material`; sample kind (preliminary, final, ladle, incoming, control …): `kind`, `sample kind`, `sample type`, `type`; burn (replicate) number; without it burns count 1, 2, 3 … within a sample: `burn`, `burn no`, `burn number`, `replicate`, `rep`, `spark`, `spark no`; time of the burn: `time`, `timestamp`, `date time`, `datetime`, `measured at`, `measurement time`, `analysed at`, `analyzed at`; long layout: the element symbol: `element`, `analyte`; long layout: the value: `value`, `result`, `concentration`, `conc`; long layout: the unit of the value: `unit`, `units`; ignored (row counter): `no`, `nr`, `row`, `line`, `index`, `#`. Any other header becomes an identification field in `fields`. A header with a unit whose symbol is no element (`Xx %`) rejects the file.
+         *
+         *     Requires the scope `imports:write`.
+         */
+        post: operations["createImportProfile"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/import-profiles/{id}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Get an import profile
+         * @description Requires the scope `samples:read`.
+         */
+        get: operations["getImportProfile"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        /**
+         * Change an import profile
+         * @description Top-level fields replace the stored ones (`columns` is replaced whole); the changed profile is validated as a whole and its `revision` goes up by one.
+         *
+         *     Requires the scope `imports:write`.
+         */
+        patch: operations["updateImportProfile"];
+        trace?: never;
+    };
     "/audit-events": {
         parameters: {
             query?: never;
@@ -628,6 +682,269 @@ export interface components {
         SampleSummary: {
             id: string;
             sample_code: string;
+        };
+        ImportProfileList: {
+            data: components["schemas"]["ImportProfile"][];
+            /** @description Pass as `cursor` to get the next page; null on the last page. */
+            next_cursor: string | null;
+        };
+        /** @description Without a profile (and for whatever a profile leaves open) the parser detects: the encoding (UTF-8 with or without BOM, else Windows-1252); the delimiter (`,` `;` or tab: the one that splits the header into most columns and the data lines into as many); the decimal separator (`.` in comma-delimited files; otherwise `,` when more element cells write a digit-comma-digit than a digit-dot-digit); the header (the first non-blank line); the layout (long when an element column and a value column are named and no header is an element, else wide); element columns (a real element symbol in any case with an optional unit: `Mn`, `Mn %`, `%Mn`, `Mn [%]`, `C [ppm]`, `Si(%)`, `Cu mg/kg`; unit from the header, else the profile's default unit, else the caller's, else %); identification headers, ignoring case and treating `_ - . / :` as spaces — sample code (required): `sample`, `sample code`, `sample id`, `sample no`, `sample number`, `sample name`, `specimen`, `specimen id`; heat or lot number: `heat`, `heat no`, `heat number`, `heat id`, `lot`, `lot no`, `lot number`, `batch`, `cast`, `cast no`, `melt`, `melt no`; grade: `grade`, `steel grade`, `alloy`, `alloy grade`, `material`; sample kind (preliminary, final, ladle, incoming, control …): `kind`, `sample kind`, `sample type`, `type`; burn (replicate) number; without it burns count 1, 2, 3 … within a sample: `burn`, `burn no`, `burn number`, `replicate`, `rep`, `spark`, `spark no`; time of the burn: `time`, `timestamp`, `date time`, `datetime`, `measured at`, `measurement time`, `analysed at`, `analyzed at`; long layout: the element symbol: `element`, `analyte`; long layout: the value: `value`, `result`, `concentration`, `conc`; long layout: the unit of the value: `unit`, `units`; ignored (row counter): `no`, `nr`, `row`, `line`, `index`, `#`. Any other header becomes an identification field in `fields`. A header with a unit whose symbol is no element (`Xx %`) rejects the file. */
+        ImportProfile: {
+            /** @example ipr_01jd9x4ck3m9y1n0qg7f2h6v5w */
+            id: string;
+            name: string;
+            description: string | null;
+            /** @enum {string} */
+            delimiter: "," | ";" | "tab" | "auto";
+            /** @enum {string} */
+            decimal_separator: "." | "," | "auto";
+            /**
+             * @description `auto`: UTF-8 with or without BOM, else Windows-1252.
+             * @enum {string}
+             */
+            encoding: "utf-8" | "windows-1252" | "auto";
+            header_row: number;
+            /**
+             * @description `wide`: a row per burn, a column per element. `long`: a row per element value.
+             * @enum {string}
+             */
+            layout: "wide" | "long";
+            columns: {
+                sample_code?: string;
+                heat?: string;
+                grade?: string;
+                kind?: string;
+                burn_number?: string;
+                measured_at?: string;
+                fields?: {
+                    [key: string]: string;
+                };
+            };
+            long_columns: {
+                element: string;
+                value: string;
+                unit?: string;
+            } | null;
+            element_columns: {
+                header: string;
+                element: string;
+                /** @enum {string} */
+                unit?: "%" | "ppm" | "ppb" | "fraction";
+            }[];
+            /** @enum {string|null} */
+            default_unit: "%" | "ppm" | "ppb" | "fraction" | null;
+            ignore_columns: string[];
+            time: {
+                /** @enum {string} */
+                format: "auto" | "iso8601" | "YYYY-MM-DD HH:mm[:ss]" | "DD.MM.YYYY HH:mm[:ss]";
+                utc_offset: string | null;
+            };
+            /** @description Starts at 1; each change adds 1. Imports record the revision they used. */
+            revision: number;
+            /** Format: date-time */
+            created_at: string;
+            /** Format: date-time */
+            updated_at: string;
+        };
+        /** @description Without a profile (and for whatever a profile leaves open) the parser detects: the encoding (UTF-8 with or without BOM, else Windows-1252); the delimiter (`,` `;` or tab: the one that splits the header into most columns and the data lines into as many); the decimal separator (`.` in comma-delimited files; otherwise `,` when more element cells write a digit-comma-digit than a digit-dot-digit); the header (the first non-blank line); the layout (long when an element column and a value column are named and no header is an element, else wide); element columns (a real element symbol in any case with an optional unit: `Mn`, `Mn %`, `%Mn`, `Mn [%]`, `C [ppm]`, `Si(%)`, `Cu mg/kg`; unit from the header, else the profile's default unit, else the caller's, else %); identification headers, ignoring case and treating `_ - . / :` as spaces — sample code (required): `sample`, `sample code`, `sample id`, `sample no`, `sample number`, `sample name`, `specimen`, `specimen id`; heat or lot number: `heat`, `heat no`, `heat number`, `heat id`, `lot`, `lot no`, `lot number`, `batch`, `cast`, `cast no`, `melt`, `melt no`; grade: `grade`, `steel grade`, `alloy`, `alloy grade`, `material`; sample kind (preliminary, final, ladle, incoming, control …): `kind`, `sample kind`, `sample type`, `type`; burn (replicate) number; without it burns count 1, 2, 3 … within a sample: `burn`, `burn no`, `burn number`, `replicate`, `rep`, `spark`, `spark no`; time of the burn: `time`, `timestamp`, `date time`, `datetime`, `measured at`, `measurement time`, `analysed at`, `analyzed at`; long layout: the element symbol: `element`, `analyte`; long layout: the value: `value`, `result`, `concentration`, `conc`; long layout: the unit of the value: `unit`, `units`; ignored (row counter): `no`, `nr`, `row`, `line`, `index`, `#`. Any other header becomes an identification field in `fields`. A header with a unit whose symbol is no element (`Xx %`) rejects the file. */
+        CreateImportProfileRequest: {
+            /** @example OES-1 nightly export */
+            name: string;
+            /** @default null */
+            description: string | null;
+            /**
+             * @default auto
+             * @enum {string}
+             */
+            delimiter: "," | ";" | "tab" | "auto";
+            /**
+             * @default auto
+             * @enum {string}
+             */
+            decimal_separator: "." | "," | "auto";
+            /**
+             * @description `auto`: UTF-8 with or without BOM, else Windows-1252.
+             * @default auto
+             * @enum {string}
+             */
+            encoding: "utf-8" | "windows-1252" | "auto";
+            /**
+             * @description 1-based line of the header; lines above it are skipped.
+             * @default 1
+             */
+            header_row: number;
+            /**
+             * @description `wide`: a row per burn, a column per element. `long`: a row per element value.
+             * @default wide
+             * @enum {string}
+             */
+            layout: "wide" | "long";
+            columns?: components["schemas"]["ImportProfileColumns"];
+            /**
+             * @description Long layout: the headers holding the element symbol, the value and (optionally) the unit; null for the wide layout.
+             * @default null
+             */
+            long_columns: {
+                /**
+                 * @description A header as written in the file; matched ignoring case and surrounding spaces.
+                 * @example Heat No.
+                 */
+                element: string;
+                /**
+                 * @description A header as written in the file; matched ignoring case and surrounding spaces.
+                 * @example Heat No.
+                 */
+                value: string;
+                /**
+                 * @description A header as written in the file; matched ignoring case and surrounding spaces.
+                 * @example Heat No.
+                 */
+                unit?: string;
+            } | null;
+            /** @default [] */
+            element_columns: components["schemas"]["ImportProfileElementColumn"][];
+            /**
+             * @description Unit of element columns whose header names none; null = the caller's default, else %.
+             * @default null
+             * @example ppm
+             */
+            default_unit: string | null;
+            /** @default [] */
+            ignore_columns: string[];
+            time?: components["schemas"]["ImportProfileTime"];
+        };
+        /**
+         * @description Which header holds what. Roles left out are recognised automatically.
+         * @default {}
+         */
+        ImportProfileColumns: {
+            /**
+             * @description A header as written in the file; matched ignoring case and surrounding spaces.
+             * @example Heat No.
+             */
+            sample_code?: string;
+            /**
+             * @description A header as written in the file; matched ignoring case and surrounding spaces.
+             * @example Heat No.
+             */
+            heat?: string;
+            /**
+             * @description A header as written in the file; matched ignoring case and surrounding spaces.
+             * @example Heat No.
+             */
+            grade?: string;
+            /**
+             * @description A header as written in the file; matched ignoring case and surrounding spaces.
+             * @example Heat No.
+             */
+            kind?: string;
+            /**
+             * @description A header as written in the file; matched ignoring case and surrounding spaces.
+             * @example Heat No.
+             */
+            burn_number?: string;
+            /**
+             * @description A header as written in the file; matched ignoring case and surrounding spaces.
+             * @example Heat No.
+             */
+            measured_at?: string;
+            /**
+             * @description Other identification fields: key → header.
+             * @example {
+             *       "furnace": "Furnace",
+             *       "customer_order": "Order"
+             *     }
+             */
+            fields?: {
+                [key: string]: string;
+            };
+        };
+        /** @description Wide layout: a header that holds one element, for headers that are not a plain symbol. */
+        ImportProfileElementColumn: {
+            /**
+             * @description A header as written in the file; matched ignoring case and surrounding spaces.
+             * @example Heat No.
+             */
+            header: string;
+            /**
+             * @description An element symbol in any case (`mn`, `MN` → `Mn`).
+             * @example Mn
+             */
+            element: string;
+            /**
+             * @description A mass-fraction unit: `%` (also `wt%`), `ppm` (`mg/kg`), `ppb` (`µg/kg`, `ug/kg`) or `mass fraction`. Stored as `%`, `ppm`, `ppb` or `fraction`.
+             * @example ppm
+             */
+            unit?: string;
+        };
+        /**
+         * @default {
+         *       "format": "auto",
+         *       "utc_offset": null
+         *     }
+         */
+        ImportProfileTime: {
+            /**
+             * @description `auto` accepts each of the others.
+             * @default auto
+             * @enum {string}
+             */
+            format: "auto" | "iso8601" | "YYYY-MM-DD HH:mm[:ss]" | "DD.MM.YYYY HH:mm[:ss]";
+            /**
+             * @description Offset for times written without one; null reads them as UTC (with a warning).
+             * @default null
+             * @example +01:00
+             */
+            utc_offset: string | null;
+        };
+        /** @description Top-level fields replace the stored ones; the result is validated as a whole. */
+        UpdateImportProfileRequest: {
+            /** @example OES-1 nightly export */
+            name?: string;
+            description?: string | null;
+            /** @enum {string} */
+            delimiter?: "," | ";" | "tab" | "auto";
+            /** @enum {string} */
+            decimal_separator?: "." | "," | "auto";
+            /**
+             * @description `auto`: UTF-8 with or without BOM, else Windows-1252.
+             * @enum {string}
+             */
+            encoding?: "utf-8" | "windows-1252" | "auto";
+            /** @description 1-based line of the header; lines above it are skipped. */
+            header_row?: number;
+            /**
+             * @description `wide`: a row per burn, a column per element. `long`: a row per element value.
+             * @enum {string}
+             */
+            layout?: "wide" | "long";
+            columns?: components["schemas"]["ImportProfileColumns"];
+            /** @description Long layout: the headers holding the element symbol, the value and (optionally) the unit; null for the wide layout. */
+            long_columns?: {
+                /**
+                 * @description A header as written in the file; matched ignoring case and surrounding spaces.
+                 * @example Heat No.
+                 */
+                element: string;
+                /**
+                 * @description A header as written in the file; matched ignoring case and surrounding spaces.
+                 * @example Heat No.
+                 */
+                value: string;
+                /**
+                 * @description A header as written in the file; matched ignoring case and surrounding spaces.
+                 * @example Heat No.
+                 */
+                unit?: string;
+            } | null;
+            element_columns?: components["schemas"]["ImportProfileElementColumn"][];
+            /**
+             * @description Unit of element columns whose header names none; null = the caller's default, else %.
+             * @example ppm
+             */
+            default_unit?: string | null;
+            ignore_columns?: string[];
+            time?: components["schemas"]["ImportProfileTime"];
         };
         AuditEventList: {
             data: components["schemas"]["AuditEvent"][];
@@ -2371,6 +2688,373 @@ export interface operations {
             };
             /** @description The caller lacks the scope `samples:read`. */
             403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    listImportProfiles: {
+        parameters: {
+            query?: {
+                /** @description Page size (1–200). */
+                limit?: number;
+                /** @description Opaque cursor from the previous page's `next_cursor`. */
+                cursor?: string;
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description A page of profiles. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ImportProfileList"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `samples:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    createImportProfile: {
+        parameters: {
+            query?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["CreateImportProfileRequest"];
+            };
+        };
+        responses: {
+            /** @description Created. */
+            201: {
+                headers: {
+                    /** @description The new profile. */
+                    Location?: string;
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ImportProfile"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `imports:write`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A profile with this name exists (names are compared ignoring case). */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    getImportProfile: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The profile. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ImportProfile"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `samples:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such profile. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    updateImportProfile: {
+        parameters: {
+            query?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["UpdateImportProfileRequest"];
+            };
+        };
+        responses: {
+            /** @description The changed profile. */
+            200: {
+                headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ImportProfile"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `imports:write`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such profile. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Another profile has this name. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
                 headers: {
                     [name: string]: unknown;
                 };

@@ -46,12 +46,15 @@ export function parseUnit(text: string): Unit | undefined {
   return ALIASES[text.trim().toLowerCase().replace(/\s+/g, ' ')];
 }
 
+// toFixed() without arguments prints every digit in plain notation: toString() would write
+// 5 µg/kg as "5e-7" %, which is not the decimal string callers store and compare.
+
 /** A decimal string in `unit` → the same quantity in percent, as an exact decimal string. */
 export function toPercent(value: string, unit: Unit): string {
-  return new Decimal(value).div(PER_PERCENT[unit]).toString();
+  return new Decimal(value).div(PER_PERCENT[unit]).toFixed();
 }
 
 /** A percent decimal string → the same quantity in `unit`, as an exact decimal string. */
 export function fromPercent(percent: string, unit: Unit): string {
-  return new Decimal(percent).mul(PER_PERCENT[unit]).toString();
+  return new Decimal(percent).mul(PER_PERCENT[unit]).toFixed();
 }

@@ -3,6 +3,7 @@ import { apiKeyRoutes } from './api-keys.ts';
 import { auditRoutes } from './audit-events.ts';
 import { authRoutes } from './auth.ts';
 import { healthRoutes } from './health.ts';
+import { importProfileRoutes } from './import-profiles.ts';
 import { openApiRoutes } from './openapi.ts';
 import { outboxRoutes } from './outbox.ts';
 import { requestLogRoutes } from './request-log.ts';
@@ -17,6 +18,7 @@ export const v1Routes: AnyRoute[] = [
   ...userRoutes,
   ...apiKeyRoutes,
   ...sampleRoutes,
+  ...importProfileRoutes,
   ...auditRoutes,
   ...requestLogRoutes,
   ...outboxRoutes,

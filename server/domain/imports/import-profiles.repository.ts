@@ -1,0 +1,58 @@
+// The only code that touches the import_profiles table.
+import type { Knex } from 'knex';
+import type { ImportProfileDefinition } from './import-profiles.schemas.ts';
+
+type Queryable = Knex | Knex.Transaction;
+
+export interface ImportProfileRow {
+  id: string;
+  name: string;
+  name_key: string;
+  description: string | null;
+  definition_json: string;
+  revision: number;
+  created_by: string | null;
+  created_at: string;
+  updated_at: string;
+}
+
+export function profileNameKey(name: string): string {
+  return name.trim().toLowerCase();
+}
+
+export function toImportProfile(row: ImportProfileRow) {
+  const definition = JSON.parse(row.definition_json) as ImportProfileDefinition;
+  return {
+    id: row.id,
+    name: row.name,
+    description: row.description,
+    ...definition,
+    revision: Number(row.revision),
+    created_at: row.created_at,
+    updated_at: row.updated_at,
+  };
+}
+
+export type ImportProfile = ReturnType<typeof toImportProfile>;
+
+export async function insertImportProfile(db: Queryable, row: ImportProfileRow): Promise<void> {
+  await db<ImportProfileRow>('import_profiles').insert(row);
+}
+
+export function findImportProfile(db: Queryable, id: string): Promise<ImportProfileRow | undefined> {
+  return db<ImportProfileRow>('import_profiles').where({ id }).first();
+}
+
+export function findImportProfileByName(db: Queryable, name: string): Promise<ImportProfileRow | undefined> {
+  return db<ImportProfileRow>('import_profiles').where({ name_key: profileNameKey(name) }).first();
+}
+
+export async function updateImportProfileRow(db: Queryable, id: string, changes: Partial<ImportProfileRow>): Promise<void> {
+  await db<ImportProfileRow>('import_profiles').where({ id }).update(changes);
+}
+
+export function listImportProfileRows(db: Queryable, filters: { afterId?: string; limit: number }) {
+  const query = db<ImportProfileRow>('import_profiles').orderBy('id', 'asc').limit(filters.limit + 1);
+  if (filters.afterId) query.where('id', '>', filters.afterId);
+  return query;
+}

@@ -1,0 +1,85 @@
+// parseResultFile: the bytes of an instrument result file → samples with burns and values in %.
+// Pure (no database, no clock). Whole-file problems throw FileLayoutError; problems on single
+// lines are returned in `rejected` (the line is not used) or `warnings` (the line is used).
+import type { Unit } from '../../chemistry/units.ts';
+import type { ImportProfileDefinition } from '../import-profiles.schemas.ts';
+import { analyseHeader } from './analyse-header.ts';
+import { decodeBytes } from './decode.ts';
+import { detectDecimalSeparator } from './detect-decimal.ts';
+import { detectDelimiter, firstNonBlankLine, physicalLines } from './detect-delimiter.ts';
+import { SampleGrouper } from './grouping.ts';
+import { readLongRow } from './long-rows.ts';
+import { isBlankRecord, normaliseLineEnds, readRecords } from './read-records.ts';
+import { rowColumns, type RowReading } from './row-cells.ts';
+import { type DecimalSeparator, type Delimiter, type Issue, layoutError, type ParsedFile } from './types.ts';
+import { readWideRow } from './wide-rows.ts';
+
+export interface ParseOptions {
+  /** How to read the file; without one everything is detected. */
+  profile?: ImportProfileDefinition;
+  /** Unit for element columns whose header names none and the profile sets none (e.g. the method's). */
+  defaultUnit?: Unit;
+}
+
+const DELIMITERS: Record<string, Delimiter> = { ',': ',', ';': ';', tab: '\t' };
+
+export function parseResultFile(bytes: Uint8Array, options: ParseOptions = {}): ParsedFile {
+  const { profile } = options;
+  const decoded = decodeBytes(bytes, profile?.encoding ?? 'auto');
+  const text = normaliseLineEnds(decoded.text);
+  const lines = physicalLines(text);
+  const headerRow = profile ? profile.header_row : firstNonBlankLine(lines);
+  if (headerRow === undefined) throw layoutError('empty_file', 'The file is empty.');
+  if (headerRow > lines.length || lines[headerRow - 1].trim() === '') {
+    throw layoutError('no_header', `Line ${headerRow} should hold the header but is ${headerRow > lines.length ? 'past the end of the file' : 'blank'}.`, { line: headerRow });
+  }
+  const delimiter = profile && profile.delimiter !== 'auto' ? DELIMITERS[profile.delimiter] : detectDelimiter(lines, headerRow);
+  const [headerRecord, ...records] = readRecords(text, delimiter, headerRow);
+  const header = headerRecord.cells.map((cell) => cell.trim());
+  const analysis = analyseHeader(headerRecord.cells, headerRow, profile, options.defaultUnit);
+  const dataRecords = records.filter((record) => !isBlankRecord(record.cells));
+  if (dataRecords.length === 0) throw layoutError('no_rows', `The file has a header on line ${headerRow} but no data lines.`, { line: headerRow });
+
+  const { columns, layout } = analysis;
+  const valueColumns = columns.filter((c) => c.role === (layout === 'wide' ? 'element' : 'value')).map((c) => c.index);
+  const decimal: DecimalSeparator =
+    profile && profile.decimal_separator !== 'auto' ? profile.decimal_separator : detectDecimalSeparator(dataRecords.map((r) => r.cells), valueColumns, delimiter);
+
+  const warnings: Issue[] = [...analysis.warnings];
+  const rejected: Issue[] = [];
+  const headerOf = (key: string) => columns.find((c) => (key.startsWith('fields.') ? c.role === 'field' && `fields.${c.field}` === key : c.role === key))?.header;
+  const reading: RowReading = {
+    columns: rowColumns(columns),
+    elements: columns.filter((c) => c.role === 'element'),
+    decimal,
+    time: { format: profile?.time.format ?? 'auto', utcOffset: profile?.time.utc_offset ?? null, assumedUtc: false },
+    grouper: new SampleGrouper(warnings, rejected, headerOf),
+    warnings,
+  };
+  if (layout === 'wide') {
+    for (const record of dataRecords) readWideRow(record, reading);
+  } else {
+    const long = { element: columns.find((c) => c.role === 'element_name')!, value: columns.find((c) => c.role === 'value')!, unit: columns.find((c) => c.role === 'unit') };
+    for (const record of dataRecords) readLongRow(record, reading, long);
+  }
+  if (reading.time.assumedUtc) {
+    warnings.push({ column: reading.columns.measuredAt?.header, code: 'time_without_offset', message: 'Times without a UTC offset were read as UTC; set the offset in an import profile if the instrument writes local time.' });
+  }
+  const samples = reading.grouper.finish();
+  const burns = samples.reduce((n, s) => n + s.burns.length, 0);
+  const values = samples.reduce((n, s) => s.burns.reduce((m, b) => m + Object.keys(b.values).length, n), 0);
+  return {
+    encoding: decoded.encoding,
+    bom: decoded.bom,
+    delimiter,
+    decimal_separator: decimal,
+    layout,
+    header_row: headerRow,
+    header,
+    columns,
+    samples,
+    warnings,
+    rejected,
+    counts: { rows: dataRecords.length, burns, values },
+  };
+}

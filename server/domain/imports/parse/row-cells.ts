@@ -1,0 +1,111 @@
+// Reading the non-chemistry cells of a data row: cell count, identification, burn number, time.
+// Shared by the wide and long row readers. Each reader returns an Issue instead of throwing,
+// so one row can report every broken cell at once.
+import type { RawRecord } from './read-records.ts';
+import { parseBurnTime, type TimeFormat } from './times.ts';
+import type { RowIdentity, SampleGrouper, SampleState } from './grouping.ts';
+import type { ColumnRole, DecimalSeparator, Issue } from './types.ts';
+
+export interface RowColumns {
+  width: number;
+  sampleCode: ColumnRole;
+  heat?: ColumnRole;
+  grade?: ColumnRole;
+  kind?: ColumnRole;
+  burnNumber?: ColumnRole;
+  measuredAt?: ColumnRole;
+  fields: ColumnRole[];
+}
+
+export function rowColumns(columns: ColumnRole[]): RowColumns {
+  const one = (role: ColumnRole['role']) => columns.find((c) => c.role === role);
+  return {
+    width: columns.length,
+    sampleCode: one('sample_code')!,
+    heat: one('heat'),
+    grade: one('grade'),
+    kind: one('kind'),
+    burnNumber: one('burn_number'),
+    measuredAt: one('measured_at'),
+    fields: columns.filter((c) => c.role === 'field'),
+  };
+}
+
+/** Too few cells, or extra cells that hold something: the row does not fit the header. */
+export function cellCountIssue(record: RawRecord, width: number): Issue | undefined {
+  const { cells, line } = record;
+  if (cells.length === width) return undefined;
+  if (cells.length > width && cells.slice(width).every((cell) => cell.trim() === '')) return undefined;
+  return { line, code: 'column_count', message: `Line ${line} has ${cells.length} cells where the header has ${width}.` };
+}
+
+function cell(cells: string[], column: ColumnRole | undefined): string | undefined {
+  const text = column ? cells[column.index]?.trim() : undefined;
+  return text ? text : undefined;
+}
+
+export function readIdentity(cells: string[], line: number, columns: RowColumns): RowIdentity | Issue {
+  const sampleCode = cell(cells, columns.sampleCode);
+  if (!sampleCode) return { line, column: columns.sampleCode.header, code: 'missing_sample_code', message: `Line ${line} has no sample code.` };
+  const fields: Record<string, string> = {};
+  for (const column of columns.fields) {
+    const value = cell(cells, column);
+    if (value) fields[column.field!] = value;
+  }
+  return { sample_code: sampleCode, heat: cell(cells, columns.heat), grade: cell(cells, columns.grade), kind: cell(cells, columns.kind), fields };
+}
+
+const BURN_NUMBER = /^\d{1,6}(\.0+)?$/;
+
+/** The written burn number, undefined when the row has none, or an issue. */
+export function readBurnNumber(cells: string[], line: number, columns: RowColumns): number | undefined | Issue {
+  const text = cell(cells, columns.burnNumber);
+  if (text === undefined) return undefined;
+  const number = BURN_NUMBER.test(text) ? Number.parseInt(text, 10) : 0;
+  if (number < 1) return { line, column: columns.burnNumber!.header, code: 'invalid_burn_number', message: `"${text}" on line ${line} is not a burn number (1, 2, 3 …).` };
+  return number;
+}
+
+export interface TimeSettings {
+  format: TimeFormat;
+  /** Offset for times written without one; null = UTC with a warning. */
+  utcOffset: string | null;
+  /** Set once a time without offset was read as UTC. */
+  assumedUtc: boolean;
+}
+
+export function readTime(cells: string[], line: number, columns: RowColumns, settings: TimeSettings): string | undefined | Issue {
+  const text = cell(cells, columns.measuredAt);
+  if (text === undefined) return undefined;
+  const parsed = parseBurnTime(text, settings.format, settings.utcOffset ?? 'Z');
+  if (!parsed) {
+    const expected = settings.format === 'auto' ? 'ISO 8601, YYYY-MM-DD HH:mm[:ss] or DD.MM.YYYY HH:mm[:ss]' : settings.format;
+    return { line, column: columns.measuredAt!.header, code: 'invalid_time', message: `"${text}" on line ${line} is not a valid time (${expected}).` };
+  }
+  if (!parsed.hadOffset && settings.utcOffset === null) settings.assumedUtc = true;
+  return parsed.iso;
+}
+
+export function isIssue(value: unknown): value is Issue {
+  return typeof value === 'object' && value !== null && 'code' in value && 'message' in value;
+}
+
+/** Everything a row reader needs, built once per file. */
+export interface RowReading {
+  columns: RowColumns;
+  elements: ColumnRole[];
+  decimal: DecimalSeparator;
+  time: TimeSettings;
+  grouper: SampleGrouper;
+  warnings: Issue[];
+}
+
+/** Checks the cell count and the sample code and puts the row into its sample; undefined when rejected. */
+export function enterRow(record: RawRecord, reading: RowReading): { identity: RowIdentity; state: SampleState } | undefined {
+  const { columns, grouper } = reading;
+  const countIssue = cellCountIssue(record, columns.width);
+  if (countIssue) return void grouper.reject([countIssue]);
+  const identity = readIdentity(record.cells, record.line, columns);
+  if (isIssue(identity)) return void grouper.reject([identity]);
+  return { identity, state: grouper.enter(identity, record.line) };
+}

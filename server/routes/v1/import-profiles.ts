@@ -1,0 +1,83 @@
+import { actorOf } from '../../domain/audit/actor.ts';
+import { listImportProfileRows, toImportProfile } from '../../domain/imports/import-profiles.repository.ts';
+import {
+  AUTO_DETECTION_DESCRIPTION,
+  CreateImportProfileRequestSchema,
+  ImportProfileIdParams,
+  ImportProfileListQuerySchema,
+  ImportProfileListSchema,
+  ImportProfileSchema,
+  UpdateImportProfileRequestSchema,
+} from '../../domain/imports/import-profiles.schemas.ts';
+import { createImportProfile, getImportProfile, updateImportProfile } from '../../domain/imports/import-profiles.service.ts';
+import { decodeCursor, pageOf } from '../../http/pagination.ts';
+import { defineRoute } from '../../http/route.ts';
+
+export const importProfileRoutes = [
+  defineRoute({
+    method: 'get',
+    path: '/import-profiles',
+    operationId: 'listImportProfiles',
+    summary: 'List import profiles',
+    description: 'Oldest first.',
+    tag: 'Import profiles',
+    access: { scope: 'samples:read' },
+    query: ImportProfileListQuerySchema,
+    responses: { 200: { description: 'A page of profiles.', schema: ImportProfileListSchema } },
+    async handler({ query, res, ctx }) {
+      const afterId = query.cursor ? decodeCursor<{ id: string }>(query.cursor, ['id']).id : undefined;
+      const rows = await listImportProfileRows(ctx.db, { afterId, limit: query.limit });
+      res.json(pageOf(rows, query.limit, toImportProfile, (row) => ({ id: row.id })));
+    },
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/import-profiles',
+    operationId: 'createImportProfile',
+    summary: 'Describe how to read a family of result files',
+    description: `Every field but \`name\` has a default; an empty profile detects everything. ${AUTO_DETECTION_DESCRIPTION}`,
+    tag: 'Import profiles',
+    access: { scope: 'imports:write' },
+    body: CreateImportProfileRequestSchema,
+    responses: {
+      201: { description: 'Created.', schema: ImportProfileSchema, headers: { Location: 'The new profile.' } },
+      409: { description: 'A profile with this name exists (names are compared ignoring case).' },
+    },
+    async handler({ body, auth, req, res, ctx }) {
+      const profile = await createImportProfile(ctx, body, { actor: actorOf(auth), userId: auth.userId, requestId: req.requestId });
+      res.status(201).location(`/api/v1/import-profiles/${profile.id}`).json(profile);
+    },
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/import-profiles/{id}',
+    operationId: 'getImportProfile',
+    summary: 'Get an import profile',
+    tag: 'Import profiles',
+    access: { scope: 'samples:read' },
+    params: ImportProfileIdParams,
+    responses: { 200: { description: 'The profile.', schema: ImportProfileSchema }, 404: { description: 'No such profile.' } },
+    async handler({ params, res, ctx }) {
+      res.json(await getImportProfile(ctx, params.id));
+    },
+  }),
+  defineRoute({
+    method: 'patch',
+    path: '/import-profiles/{id}',
+    operationId: 'updateImportProfile',
+    summary: 'Change an import profile',
+    description: 'Top-level fields replace the stored ones (`columns` is replaced whole); the changed profile is validated as a whole and its `revision` goes up by one.',
+    tag: 'Import profiles',
+    access: { scope: 'imports:write' },
+    params: ImportProfileIdParams,
+    body: UpdateImportProfileRequestSchema,
+    responses: {
+      200: { description: 'The changed profile.', schema: ImportProfileSchema },
+      404: { description: 'No such profile.' },
+      409: { description: 'Another profile has this name.' },
+    },
+    async handler({ params, body, auth, req, res, ctx }) {
+      res.json(await updateImportProfile(ctx, params.id, body, { actor: actorOf(auth), userId: auth.userId, requestId: req.requestId }));
+    },
+  }),
+];
