@@ -5,6 +5,7 @@ import { ConfigError, loadConfig } from './config.ts';
 import { buildConsole, consoleNeedsBuild } from './console-build.ts';
 import { createDb } from './db/knex.ts';
 import { migrateLatest } from './db/migrate.ts';
+import { recorderFor } from './domain/request-log/recorder.ts';
 import { startHousekeeping } from './housekeeping.ts';
 import { listen, stopOnSignals } from './index.ts';
 import { createLogger } from './logger.ts';
@@ -34,6 +35,8 @@ async function main(): Promise<void> {
   const housekeeping = startHousekeeping(app.locals.ctx);
   const running = await listen(app, db, logger, config.port, async () => {
     await housekeeping.stop();
+    // The last answered calls may still be writing their request log entries.
+    await recorderFor(app.locals.ctx).drain();
     await smtp?.close();
   });
   stopOnSignals(running, logger);

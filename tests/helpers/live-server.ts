@@ -23,7 +23,8 @@ export async function startLiveServer(options: { console?: boolean } = {}) {
   await migrateLatest(db);
   await seedDemoIfEmpty(db);
   const logger = createLogger('silent');
-  const app = createApp({ db, config, logger, outbox: smtp.outbox, ...(withConsole ? {} : { consoleDir: '/nonexistent' }) });
+  // Responses are checked against the OpenAPI document here too (see tests/helpers/test-app.ts).
+  const app = createApp({ db, config, logger, outbox: smtp.outbox, validateResponses: true, ...(withConsole ? {} : { consoleDir: '/nonexistent' }) });
   const running = await listen(app, db, logger, 0, () => smtp.close());
   return {
     url: running.url,
