@@ -3,7 +3,8 @@ import { defineConfig } from 'vitest/config';
 export default defineConfig({
   test: {
     projects: [
-      { test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node' } },
+      // tests/src holds unit tests of the console's plain logic (type-checked with the client config).
+      { test: { name: 'unit', include: ['tests/unit/**/*.test.ts', 'tests/src/**/*.test.ts'], environment: 'node' } },
       { test: { name: 'api', include: ['tests/api/**/*.test.ts'], environment: 'node', env: { NODE_ENV: 'test' }, testTimeout: 20_000 } },
       {
         test: {

@@ -6,6 +6,8 @@ import * as createSessions from './20261201000200_create_sessions.ts';
 import * as createUserTokens from './20261201000300_create_user_tokens.ts';
 import * as createAuditEvents from './20261201000400_create_audit_events.ts';
 import * as createApiKeys from './20261201000500_create_api_keys.ts';
+import * as createIdempotencyKeys from './20261201100100_create_idempotency_keys.ts';
+import * as createRequestLog from './20261201100200_create_request_log.ts';
 import * as createInstruments from './20261201200100_create_instruments.ts';
 import * as createMethods from './20261201200200_create_methods.ts';
 import * as createImportProfiles from './20261201300100_create_import_profiles.ts';
@@ -24,6 +26,8 @@ export const migrations: Record<string, Migration> = {
   '20261201000300_create_user_tokens': createUserTokens,
   '20261201000400_create_audit_events': createAuditEvents,
   '20261201000500_create_api_keys': createApiKeys,
+  '20261201100100_create_idempotency_keys': createIdempotencyKeys,
+  '20261201100200_create_request_log': createRequestLog,
   '20261201200100_create_instruments': createInstruments,
   '20261201200200_create_methods': createMethods,
   '20261201300100_create_import_profiles': createImportProfiles,

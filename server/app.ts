@@ -14,7 +14,9 @@ import { authenticate } from './http/authenticate.ts';
 import { errorHandler, notFoundHandler } from './http/error-handler.ts';
 import { apiLimiter } from './http/rate-limit.ts';
 import { requestId } from './http/request-id.ts';
-import { mountRoutes } from './http/route.ts';
+import { requestLog } from './http/request-log.ts';
+import { responseValidation } from './http/response-validation.ts';
+import { type AnyRoute, mountRoutes } from './http/route.ts';
 import { createLogger } from './logger.ts';
 import type { Outbox } from './mail/fake-smtp.ts';
 import { createMailer, type Mailer } from './mail/mailer.ts';
@@ -28,6 +30,13 @@ export interface AppOptions {
   outbox?: Outbox;
   /** Folder of the built console; served with a single-page fallback when it exists. */
   consoleDir?: string;
+  /**
+   * Tests only: check every JSON response against the OpenAPI document (express-openapi-validator,
+   * a devDependency); a mismatch answers 500 naming it.
+   */
+  validateResponses?: boolean;
+  /** Tests only: the /api/v1 operations to serve (default: all of them). */
+  routes?: AnyRoute[];
 }
 
 export const DEFAULT_CONSOLE_DIR = resolve(import.meta.dirname, '../dist');
@@ -63,12 +72,16 @@ export function createApp(options: AppOptions): Express & { locals: { ctx: AppCo
     }),
   );
 
+  const routes = options.routes ?? v1Routes;
   const api = express.Router();
+  // First, so that calls refused by body parsing, authentication or rate limits are logged too.
+  api.use(requestLog(ctx));
+  if (options.validateResponses) api.use(responseValidation(routes));
   api.use(express.json({ limit: config.bodyLimit }));
   api.use(cookieParser());
   api.use(authenticate(ctx));
   api.use(apiLimiter(ctx));
-  mountRoutes(api, v1Routes, ctx);
+  mountRoutes(api, routes, ctx);
   api.use(notFoundHandler());
   app.use('/api/v1', api);
   app.use('/api', notFoundHandler());

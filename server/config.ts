@@ -26,6 +26,8 @@ const envSchema = z.object({
   RATE_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).default(600),
   IMPORT_MAX_BYTES: z.coerce.number().int().min(1024).default(20 * 1024 * 1024),
   BODY_LIMIT: z.string().regex(/^\d+(b|kb|mb)$/i, 'must look like 512kb or 1mb').default('1mb'),
+  REQUEST_LOG_BODY_LIMIT: z.coerce.number().int().min(256).max(1024 * 1024).default(16384),
+  REQUEST_LOG_RETENTION_DAYS: z.coerce.number().int().min(1).max(3650).default(30),
 });
 
 export interface Config {
@@ -44,6 +46,9 @@ export interface Config {
   rateLimitPerMinute: number;
   bodyLimit: string;
   importMaxBytes: number;
+  /** Bytes of each request and response body kept in the request log. */
+  requestLogBodyLimit: number;
+  requestLogRetentionDays: number;
   version: string;
 }
 
@@ -85,6 +90,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     rateLimitPerMinute: e.RATE_LIMIT_PER_MINUTE,
     bodyLimit: e.BODY_LIMIT,
     importMaxBytes: e.IMPORT_MAX_BYTES,
+    requestLogBodyLimit: e.REQUEST_LOG_BODY_LIMIT,
+    requestLogRetentionDays: e.REQUEST_LOG_RETENTION_DAYS,
     version: APP_VERSION,
   };
 }

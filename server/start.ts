@@ -5,6 +5,8 @@ import { ConfigError, loadConfig } from './config.ts';
 import { buildConsole, consoleNeedsBuild } from './console-build.ts';
 import { createDb } from './db/knex.ts';
 import { migrateLatest } from './db/migrate.ts';
+import { recorderFor } from './domain/request-log/recorder.ts';
+import { startHousekeeping } from './housekeeping.ts';
 import { listen, stopOnSignals } from './index.ts';
 import { createLogger } from './logger.ts';
 import { startFakeSmtp, type FakeSmtp } from './mail/fake-smtp.ts';
@@ -30,7 +32,13 @@ async function main(): Promise<void> {
     logger.info({ smtp: smtp.url }, 'no SMTP_URL: e-mail is captured in-process and shown on the console\'s outbox page');
   }
   const app = createApp({ db, config, logger, outbox: smtp?.outbox });
-  const running = await listen(app, db, logger, config.port, async () => smtp?.close());
+  const housekeeping = startHousekeeping(app.locals.ctx);
+  const running = await listen(app, db, logger, config.port, async () => {
+    await housekeeping.stop();
+    // The last answered calls may still be writing their request log entries.
+    await recorderFor(app.locals.ctx).drain();
+    await smtp?.close();
+  });
   stopOnSignals(running, logger);
 
   const lines = [`Meltwire ${config.version} is serving API and console on ${config.publicUrl}`, `  API reference: ${config.publicUrl}/api/v1/openapi.json`];

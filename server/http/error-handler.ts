@@ -29,10 +29,11 @@ function toProblem(error: unknown, bodyLimit: string): ProblemError | undefined 
 
 export function sendProblem(res: Parameters<RequestHandler>[1], problem: ProblemError, instance: string, requestId?: string): void {
   if (problem.status === 429 && !res.getHeader('Retry-After')) res.setHeader('Retry-After', '60');
+  // res.json (with the problem type kept) so that response validation in tests sees problems too.
   res
     .status(problem.status)
     .type(PROBLEM_CONTENT_TYPE)
-    .send(JSON.stringify({ ...problem.toBody(instance), ...(requestId ? { request_id: requestId } : {}) }));
+    .json({ ...problem.toBody(instance), ...(requestId ? { request_id: requestId } : {}) });
 }
 
 export function notFoundHandler(): RequestHandler {

@@ -5,6 +5,7 @@ import type { Request, RequestHandler, Response, Router } from 'express';
 import type { ZodType } from 'zod';
 import type { AppContext } from '../context.ts';
 import type { Scope } from '../domain/auth/scopes.ts';
+import { idempotency } from './idempotency.ts';
 import { ForbiddenProblem, UnauthorizedProblem, ValidationProblem } from './problem.ts';
 import type { AuthContext } from './request-context.ts';
 
@@ -44,6 +45,11 @@ export interface RouteSpec<P extends ZodType = ZodType, Q extends ZodType = ZodT
   bodyContentType?: string;
   /** Middleware run after authorization and before parsing (uploads, route-specific limits). */
   before?: (ctx: AppContext) => RequestHandler[];
+  /**
+   * The success response carries a secret shown once (a new API key). An Idempotency-Key retry
+   * then gets a 409 naming the resource instead of a replay, so the secret is never stored.
+   */
+  secretInResponse?: boolean;
   responses: Record<number, ResponseSpec>;
   handler(input: HandlerInput<ZodOutput<P>, ZodOutput<Q>, ZodOutput<B>>): Promise<void> | void;
 }
@@ -56,6 +62,9 @@ export type AnyRoute = RouteSpec<ZodType, ZodType, ZodType>;
 export function defineRoute<P extends ZodType, Q extends ZodType, B extends ZodType>(spec: RouteSpec<P, Q, B>): AnyRoute {
   return spec as unknown as AnyRoute;
 }
+
+/** Methods that accept Idempotency-Key. */
+export const WRITE_METHODS: ReadonlySet<RouteSpec['method']> = new Set(['post', 'put', 'patch', 'delete']);
 
 export function toExpressPath(path: string): string {
   return path.replace(/\{(\w+)\}/g, ':$1');
@@ -110,6 +119,8 @@ export function mountRoutes(router: Router, routes: AnyRoute[], ctx: AppContext)
         },
       });
     };
-    router[spec.method](toExpressPath(spec.path), guard, ...(spec.before?.(ctx) ?? []), run);
+    // Idempotency comes after `before` so that files parsed there are part of the fingerprint.
+    const dedupe = WRITE_METHODS.has(spec.method) ? [idempotency(ctx, { secretInResponse: spec.secretInResponse })] : [];
+    router[spec.method](toExpressPath(spec.path), guard, ...(spec.before?.(ctx) ?? []), ...dedupe, run);
   }
 }

@@ -1,7 +1,8 @@
 // Builds the OpenAPI 3.1 document from the route declarations and their zod schemas.
 import { OpenAPIRegistry, OpenApiGeneratorV31, type ResponseConfig } from '@asteasolutions/zod-to-openapi';
 import { APP_VERSION } from '../config.ts';
-import { type AnyRoute, requiredScope } from '../http/route.ts';
+import { IDEMPOTENCY_HEADER, IDEMPOTENCY_KEY_MAX, REPLAYED_HEADER } from '../http/idempotency.ts';
+import { type AnyRoute, requiredScope, WRITE_METHODS } from '../http/route.ts';
 import { PROBLEM_CONTENT_TYPE } from '../http/problem.ts';
 import { ProblemSchema } from './problem.schemas.ts';
 import { z } from './zod.ts';
@@ -11,6 +12,27 @@ const BEARER = 'apiKey';
 
 function problemResponse(description: string): ResponseConfig {
   return { description, content: { [PROBLEM_CONTENT_TYPE]: { schema: ProblemSchema } } };
+}
+
+const IdempotencyKeyHeader = z
+  .string()
+  .min(1)
+  .max(IDEMPOTENCY_KEY_MAX)
+  .optional()
+  .openapi({
+    param: {
+      description:
+        `A unique key per logical write (e.g. a UUID), up to ${IDEMPOTENCY_KEY_MAX} characters. Retrying with the same key and the same request within 24 hours ` +
+        `returns the first response again with \`${REPLAYED_HEADER}: true\` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.`,
+      example: '7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10',
+    },
+  });
+
+function headersFor(route: AnyRoute, status: number, headers: Record<string, string> = {}) {
+  const all = { ...headers };
+  if (WRITE_METHODS.has(route.method) && status < 300) all[REPLAYED_HEADER] = `\`true\` when this response is a replay for a repeated \`${IDEMPOTENCY_HEADER}\`.`;
+  const entries = Object.entries(all);
+  return entries.length ? { headers: Object.fromEntries(entries.map(([name, description]) => [name, { description, schema: { type: 'string' as const } }])) } : {};
 }
 
 function responsesFor(route: AnyRoute): Record<number, ResponseConfig> {
@@ -24,16 +46,26 @@ function responsesFor(route: AnyRoute): Record<number, ResponseConfig> {
     responses[Number(status)] = {
       description: spec.description,
       ...(spec.schema ? { content: { [contentType]: { schema: spec.schema } } } : {}),
-      ...(spec.headers
-        ? { headers: Object.fromEntries(Object.entries(spec.headers).map(([name, description]) => [name, { description, schema: { type: 'string' } }])) }
-        : {}),
+      ...headersFor(route, Number(status), spec.headers),
     };
   }
   const add = (status: number, description: string) => {
     responses[status] ??= problemResponse(description);
   };
-  if (route.params || route.query || route.body) add(400, 'The request is not valid; `errors[]` names each field.');
-  if (route.access !== 'public') add(401, 'No valid session or API key.');
+  const write = WRITE_METHODS.has(route.method);
+  if (route.params || route.query || route.body || write) add(400, 'The request is not valid; `errors[]` names each field.');
+  if (route.body || write) add(413, 'The body is larger than the server accepts (`BODY_LIMIT`).');
+  if (write) {
+    add(
+      409,
+      route.secretInResponse
+        ? `A request with the same \`${IDEMPOTENCY_HEADER}\` is still being processed, or already succeeded: its response carried a secret that is shown once, so it is not replayed (\`resource\` names what was created).`
+        : `A request with the same \`${IDEMPOTENCY_HEADER}\` is still being processed.`,
+    );
+    add(422, `The \`${IDEMPOTENCY_HEADER}\` was already used for a different request.`);
+  }
+  // Credentials are checked before any route, so even public operations refuse a bad API key.
+  add(401, route.access === 'public' ? 'An Authorization header was sent with a malformed, unknown, revoked or expired API key.' : 'No valid session or API key.');
   if (requiredScope(route.access)) add(403, `The caller lacks the scope \`${requiredScope(route.access)}\`.`);
   add(429, 'Rate limit exceeded; see `Retry-After`.');
   add(500, 'Unexpected server error.');
@@ -75,6 +107,7 @@ export function buildOpenApiDocument(routes: AnyRoute[]) {
       ...(scope ? { 'x-required-scope': scope } : {}),
       security: route.access === 'public' ? [] : [{ [BEARER]: roles }, { [SESSION]: roles }],
       request: {
+        ...(WRITE_METHODS.has(route.method) ? { headers: z.object({ [IDEMPOTENCY_HEADER]: IdempotencyKeyHeader }) } : {}),
         ...(route.params ? { params: route.params as z.ZodObject } : {}),
         ...(route.query ? { query: route.query as z.ZodObject } : {}),
         ...(route.body

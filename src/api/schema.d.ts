@@ -760,6 +760,72 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/request-log": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Calls to the API, newest first
+         * @description Admins see every entry; everyone else sees their own calls and the calls made with keys they created. Bodies are cut at `REQUEST_LOG_BODY_LIMIT` bytes; Authorization, Cookie and Set-Cookie headers, fields named like password, secret or token, and anything shaped like an API key are redacted. Health checks and the OpenAPI document are not logged.
+         *
+         *     Requires the scope `request-log:read`.
+         */
+        get: operations["listRequestLog"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/request-log/{id}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * One call with its request and response
+         * @description Admins see every entry; everyone else sees their own calls and the calls made with keys they created. Bodies are cut at `REQUEST_LOG_BODY_LIMIT` bytes; Authorization, Cookie and Set-Cookie headers, fields named like password, secret or token, and anything shaped like an API key are redacted. Health checks and the OpenAPI document are not logged.
+         *
+         *     Requires the scope `request-log:read`.
+         */
+        get: operations["getRequestLogEntry"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/request-log/{id}/replay": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Send a logged call again, as you
+         * @description Sends the same method, path, query, body, Content-Type, Accept and Idempotency-Key again with **your** credentials (the Authorization header or session cookie of this request). The replayed call is checked like any other: a scope you lack gives it its own 403. The new entry records `replay_of`. Multipart uploads, bodies cut by the size limit, requests with redacted secrets and sign-in calls are not replayable (422).
+         *
+         *     Requires the scope `request-log:read`.
+         */
+        post: operations["replayRequestLogEntry"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/dev/outbox": {
         parameters: {
             query?: never;
@@ -1669,6 +1735,80 @@ export interface components {
             after?: unknown;
             request_id: string | null;
         };
+        RequestLogList: {
+            data: components["schemas"]["RequestLogSummary"][];
+            /** @description Pass as `cursor` to get the next page; null on the last page. */
+            next_cursor: string | null;
+        };
+        RequestLogSummary: {
+            id: string;
+            /** Format: date-time */
+            occurred_at: string;
+            /** @example GET */
+            method: string;
+            /** @example /api/v1/samples */
+            path: string;
+            /**
+             * @description The query string without `?`, secrets redacted.
+             * @example limit=50
+             */
+            query: string;
+            status: number;
+            duration_ms: number;
+            caller: components["schemas"]["RequestLogCaller"];
+            request_id: string;
+            /** @description The entry this call replayed. */
+            replay_of: string | null;
+        };
+        RequestLogCaller: {
+            /** @enum {string} */
+            type: "user" | "api_key" | "anonymous";
+            /** @description The user id or the API key id; null for anonymous calls. */
+            id: string | null;
+            /** @example MES melt shop (mw_live_7Qm2xP…) */
+            label: string | null;
+        };
+        RequestLogEntry: components["schemas"]["RequestLogSummary"] & {
+            request: components["schemas"]["RequestLogRequest"];
+            response: components["schemas"]["RequestLogResponse"];
+            replayable: boolean;
+            /** @description Why `replayable` is false. */
+            not_replayable_reason: string | null;
+        };
+        RequestLogRequest: {
+            /** @description Authorization, Cookie and Set-Cookie values are redacted. */
+            headers: {
+                [key: string]: string;
+            };
+            content_type: string | null;
+            /**
+             * @description `multipart` bodies are described (field, file name, size, type), not stored; `binary` bodies are not stored.
+             * @enum {string}
+             */
+            body_kind: "none" | "json" | "text" | "multipart" | "binary" | "unread";
+            /** @description The body as text with secrets redacted, cut at the configured limit. */
+            body: string | null;
+            /** @description Bytes of the original body. */
+            body_size: number;
+            body_truncated: boolean;
+        };
+        RequestLogResponse: {
+            /** @description Authorization, Cookie and Set-Cookie values are redacted. */
+            headers: {
+                [key: string]: string;
+            };
+            content_type: string | null;
+            /**
+             * @description `multipart` bodies are described (field, file name, size, type), not stored; `binary` bodies are not stored.
+             * @enum {string}
+             */
+            body_kind: "none" | "json" | "text" | "multipart" | "binary" | "unread";
+            /** @description The body as text with secrets redacted, cut at the configured limit. */
+            body: string | null;
+            /** @description Bytes of the original body. */
+            body_size: number;
+            body_truncated: boolean;
+        };
         Outbox: {
             data: components["schemas"]["CapturedMail"][];
         };
@@ -1706,6 +1846,15 @@ export interface operations {
                 };
                 content: {
                     "application/json": components["schemas"]["Health"];
+                };
+            };
+            /** @description An Authorization header was sent with a malformed, unknown, revoked or expired API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
                 };
             };
             /** @description Rate limit exceeded; see `Retry-After`. */
@@ -1757,6 +1906,15 @@ export interface operations {
                     };
                 };
             };
+            /** @description An Authorization header was sent with a malformed, unknown, revoked or expired API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description Rate limit exceeded; see `Retry-After`. */
             429: {
                 headers: {
@@ -1780,7 +1938,13 @@ export interface operations {
     login: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path?: never;
             cookie?: never;
         };
@@ -1793,6 +1957,8 @@ export interface operations {
             /** @description Signed in. */
             200: {
                 headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content: {
@@ -1801,6 +1967,42 @@ export interface operations {
             };
             /** @description The request is not valid; `errors[]` names each field. */
             400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The e-mail or password is not correct, or the account is disabled. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -1831,7 +2033,13 @@ export interface operations {
     logout: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path?: never;
             cookie?: never;
         };
@@ -1840,9 +2048,56 @@ export interface operations {
             /** @description Signed out (also when there was no session). */
             204: {
                 headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content?: never;
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description An Authorization header was sent with a malformed, unknown, revoked or expired API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
             };
             /** @description Rate limit exceeded; see `Retry-After`. */
             429: {
@@ -1914,7 +2169,13 @@ export interface operations {
     acceptInvitation: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path?: never;
             cookie?: never;
         };
@@ -1927,6 +2188,8 @@ export interface operations {
             /** @description The account is active; sign in with the new password. */
             200: {
                 headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content: {
@@ -1935,6 +2198,33 @@ export interface operations {
             };
             /** @description The request is not valid; `errors[]` names each field. */
             400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description An Authorization header was sent with a malformed, unknown, revoked or expired API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -1974,7 +2264,13 @@ export interface operations {
     requestPasswordReset: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path?: never;
             cookie?: never;
         };
@@ -1987,12 +2283,50 @@ export interface operations {
             /** @description If the account exists and is active, a link is on its way. */
             202: {
                 headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content?: never;
             };
             /** @description The request is not valid; `errors[]` names each field. */
             400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description An Authorization header was sent with a malformed, unknown, revoked or expired API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -2023,7 +2357,13 @@ export interface operations {
     confirmPasswordReset: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path?: never;
             cookie?: never;
         };
@@ -2036,12 +2376,41 @@ export interface operations {
             /** @description The password is changed. */
             204: {
                 headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content?: never;
             };
             /** @description The request is not valid; `errors[]` names each field. */
             400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description An Authorization header was sent with a malformed, unknown, revoked or expired API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -2153,7 +2522,13 @@ export interface operations {
     inviteUser: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path?: never;
             cookie?: never;
         };
@@ -2168,6 +2543,8 @@ export interface operations {
                 headers: {
                     /** @description The new user. */
                     Location?: string;
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content: {
@@ -2203,6 +2580,24 @@ export interface operations {
             };
             /** @description A user with this e-mail exists (e-mails are compared ignoring case). */
             409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -2309,7 +2704,13 @@ export interface operations {
     updateUser: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path: {
                 id: string;
             };
@@ -2324,6 +2725,8 @@ export interface operations {
             /** @description The updated user. */
             200: {
                 headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content: {
@@ -2375,6 +2778,24 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description Rate limit exceeded; see `Retry-After`. */
             429: {
                 headers: {
@@ -2398,7 +2819,13 @@ export interface operations {
     resendInvitation: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path: {
                 id: string;
             };
@@ -2409,6 +2836,8 @@ export interface operations {
             /** @description Sent (see `delivered`). */
             202: {
                 headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content: {
@@ -2453,6 +2882,24 @@ export interface operations {
             };
             /** @description The user has already accepted. */
             409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -2555,7 +3002,13 @@ export interface operations {
     createApiKey: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path?: never;
             cookie?: never;
         };
@@ -2570,6 +3023,8 @@ export interface operations {
                 headers: {
                     /** @description The new key. */
                     Location?: string;
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content: {
@@ -2596,6 +3051,33 @@ export interface operations {
             };
             /** @description The caller lacks the scope `api-keys:write`. */
             403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A request with the same `Idempotency-Key` is still being processed, or already succeeded: its response carried a secret that is shown once, so it is not replayed (`resource` names what was created). */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -2702,7 +3184,13 @@ export interface operations {
     revokeApiKey: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path: {
                 id: string;
             };
@@ -2713,6 +3201,8 @@ export interface operations {
             /** @description Revoked (also when it already was). */
             204: {
                 headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content?: never;
@@ -2753,6 +3243,33 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description Rate limit exceeded; see `Retry-After`. */
             429: {
                 headers: {
@@ -2776,7 +3293,13 @@ export interface operations {
     rollApiKey: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path: {
                 id: string;
             };
@@ -2793,6 +3316,8 @@ export interface operations {
                 headers: {
                     /** @description The new key. */
                     Location?: string;
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content: {
@@ -2837,6 +3362,24 @@ export interface operations {
             };
             /** @description The key is revoked or expired. */
             409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -2937,7 +3480,13 @@ export interface operations {
     createInstrument: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path?: never;
             cookie?: never;
         };
@@ -2952,6 +3501,8 @@ export interface operations {
                 headers: {
                     /** @description The new instrument. */
                     Location?: string;
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content: {
@@ -2987,6 +3538,24 @@ export interface operations {
             };
             /** @description The code is taken (codes are compared ignoring case). */
             409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -3093,7 +3662,13 @@ export interface operations {
     updateInstrument: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path: {
                 id: string;
             };
@@ -3108,6 +3683,8 @@ export interface operations {
             /** @description The updated instrument. */
             200: {
                 headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content: {
@@ -3152,6 +3729,24 @@ export interface operations {
             };
             /** @description The new code is taken. */
             409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -3254,7 +3849,13 @@ export interface operations {
     createMethod: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path?: never;
             cookie?: never;
         };
@@ -3269,6 +3870,8 @@ export interface operations {
                 headers: {
                     /** @description The new method. */
                     Location?: string;
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content: {
@@ -3304,6 +3907,24 @@ export interface operations {
             };
             /** @description The code is taken (codes are compared ignoring case). */
             409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -3410,7 +4031,13 @@ export interface operations {
     updateMethod: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path: {
                 id: string;
             };
@@ -3425,6 +4052,8 @@ export interface operations {
             /** @description The updated method. */
             200: {
                 headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content: {
@@ -3460,6 +4089,33 @@ export interface operations {
             };
             /** @description No such method. */
             404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -3576,7 +4232,13 @@ export interface operations {
     pushSample: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path?: never;
             cookie?: never;
         };
@@ -3591,6 +4253,8 @@ export interface operations {
                 headers: {
                     /** @description The new sample. */
                     Location?: string;
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content: {
@@ -3617,6 +4281,24 @@ export interface operations {
             };
             /** @description The caller lacks the scope `samples:write`. */
             403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -3747,7 +4429,13 @@ export interface operations {
     pushSampleBatch: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path?: never;
             cookie?: never;
         };
@@ -3760,6 +4448,8 @@ export interface operations {
             /** @description All stored, in request order. */
             201: {
                 headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content: {
@@ -3786,6 +4476,24 @@ export interface operations {
             };
             /** @description The caller lacks the scope `samples:write`. */
             403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -3904,7 +4612,13 @@ export interface operations {
     setBurnExclusion: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path: {
                 id: string;
                 n: number;
@@ -3920,6 +4634,8 @@ export interface operations {
             /** @description The sample with recomputed results. */
             200: {
                 headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content: {
@@ -3964,6 +4680,24 @@ export interface operations {
             };
             /** @description The sample is released, or this is its only included burn. */
             409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -4064,7 +4798,13 @@ export interface operations {
     createImportProfile: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path?: never;
             cookie?: never;
         };
@@ -4079,6 +4819,8 @@ export interface operations {
                 headers: {
                     /** @description The new profile. */
                     Location?: string;
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content: {
@@ -4114,6 +4856,24 @@ export interface operations {
             };
             /** @description A profile with this name exists (names are compared ignoring case). */
             409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -4220,7 +4980,13 @@ export interface operations {
     updateImportProfile: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path: {
                 id: string;
             };
@@ -4235,6 +5001,8 @@ export interface operations {
             /** @description The changed profile. */
             200: {
                 headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content: {
@@ -4279,6 +5047,24 @@ export interface operations {
             };
             /** @description Another profile has this name. */
             409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -4380,7 +5166,13 @@ export interface operations {
     uploadImport: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path?: never;
             cookie?: never;
         };
@@ -4393,6 +5185,8 @@ export interface operations {
             /** @description These bytes were imported before: the earlier import, unchanged. */
             200: {
                 headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content: {
@@ -4404,6 +5198,8 @@ export interface operations {
                 headers: {
                     /** @description The new import. */
                     Location?: string;
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content: {
@@ -4430,6 +5226,15 @@ export interface operations {
             };
             /** @description The caller lacks the scope `imports:write`. */
             403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            409: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -4487,7 +5292,13 @@ export interface operations {
     previewImport: {
         parameters: {
             query?: never;
-            header?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
             path?: never;
             cookie?: never;
         };
@@ -4500,6 +5311,8 @@ export interface operations {
             /** @description How the file reads. */
             200: {
                 headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
                     [name: string]: unknown;
                 };
                 content: {
@@ -4526,6 +5339,15 @@ export interface operations {
             };
             /** @description The caller lacks the scope `imports:write`. */
             403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            409: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -4783,6 +5605,277 @@ export interface operations {
             };
             /** @description The caller lacks the scope `audit:read`. */
             403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    listRequestLog: {
+        parameters: {
+            query?: {
+                /** @description Page size (1–200). */
+                limit?: number;
+                /** @description Opaque cursor from the previous page's `next_cursor`. */
+                cursor?: string;
+                /** @description Only calls with this HTTP method. */
+                method?: "GET" | "POST" | "PUT" | "PATCH" | "DELETE" | "HEAD" | "OPTIONS";
+                /** @description A status code (`404`) or a class (`4xx`). */
+                status?: string;
+                /** @description Paths starting with this text, e.g. `/api/v1/samples`. */
+                path_prefix?: string;
+                /** @description Calls by this user id or API key id. */
+                caller_id?: string;
+                /** @description Calls at or after this time (ISO 8601 UTC). */
+                since?: string;
+                /** @description Calls before this time (ISO 8601 UTC). */
+                until?: string;
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description A page of calls. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RequestLogList"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `request-log:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    getRequestLogEntry: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The call. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RequestLogEntry"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `request-log:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such entry, or not yours. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    replayRequestLogEntry: {
+        parameters: {
+            query?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Replayed; the body is the new entry, with the replayed call's status and response. */
+            201: {
+                headers: {
+                    /** @description The new entry. */
+                    Location?: string;
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["RequestLogEntry"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `request-log:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such entry, or not yours. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description This entry cannot be replayed; `detail` says why. */
+            422: {
                 headers: {
                     [name: string]: unknown;
                 };

@@ -9,6 +9,8 @@ import { AuditPage } from './routes/audit.tsx';
 import { HomePage } from './routes/home.tsx';
 import { NotFoundPage } from './routes/not-found.tsx';
 import { OutboxPage } from './routes/outbox.tsx';
+import { QuickStartPage } from './routes/quick-start.tsx';
+import { RequestLogPage } from './routes/request-log.tsx';
 import { ResetPasswordPage } from './routes/reset-password.tsx';
 import { RouteError } from './routes/route-error.tsx';
 import { SignInPage } from './routes/sign-in.tsx';
@@ -38,8 +40,10 @@ export function createRouter(queryClient: QueryClient) {
           element: <ConsoleLayout />,
           children: [
             { index: true, element: <HomePage /> },
+            { path: 'quick-start', element: <QuickStartPage /> },
             { path: 'api-keys', element: <ApiKeysPage /> },
             { path: 'reference', lazy: async () => ({ Component: (await import('./routes/reference.tsx')).ReferencePage }) },
+            { path: 'request-log', element: <RequestLogPage /> },
             { path: 'users', element: <UsersPage /> },
             { path: 'audit', element: <AuditPage /> },
             { path: 'outbox', element: <OutboxPage /> },

@@ -9,8 +9,10 @@ export interface NavItem {
 
 export const NAV_ITEMS: NavItem[] = [
   { to: '/', label: 'Overview' },
+  { to: '/quick-start', label: 'Quick start' },
   { to: '/api-keys', label: 'API keys', scope: 'api-keys:read' },
   { to: '/reference', label: 'API reference' },
+  { to: '/request-log', label: 'Request log', scope: 'request-log:read' },
   { to: '/users', label: 'Users', scope: 'users:read' },
   { to: '/audit', label: 'Audit trail', scope: 'audit:read' },
   { to: '/outbox', label: 'Outbox', scope: 'users:write' },

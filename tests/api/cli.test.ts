@@ -34,7 +34,7 @@ describe('npm run cli', () => {
 
     const db = createDb({ databaseFile });
     try {
-      const app = createApp({ db, config: testConfig({ databaseFile }), consoleDir: '/nonexistent' });
+      const app = createApp({ db, config: testConfig({ databaseFile }), consoleDir: '/nonexistent', validateResponses: true });
       const me = await request(app).get('/api/v1/auth/me').set('authorization', `Bearer ${secret}`);
       expect(me.status).toBe(200);
       expect(me.body.scopes.sort()).toEqual(['events:read', 'samples:read']);

@@ -1,5 +1,6 @@
 // The real app with the built console, listening on a free port, on a SQLite file seeded
-// with the demo scenario — what `npm start` serves, minus the build step.
+// with the demo scenario — what `npm start` serves, minus the build step. API-only callers
+// (the example scripts) pass { console: false } and need no build.
 import { existsSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -12,8 +13,9 @@ import { createLogger } from '../../server/logger.ts';
 import { startFakeSmtp } from '../../server/mail/fake-smtp.ts';
 import { seedDemoIfEmpty } from '../../server/seed/demo.ts';
 
-export async function startLiveServer() {
-  if (!existsSync(join(DEFAULT_CONSOLE_DIR, 'index.html'))) throw new Error('dist/ is missing: run `npm run build` first (npm test does)');
+export async function startLiveServer(options: { console?: boolean } = {}) {
+  const withConsole = options.console ?? true;
+  if (withConsole && !existsSync(join(DEFAULT_CONSOLE_DIR, 'index.html'))) throw new Error('dist/ is missing: run `npm run build` first (npm test does)');
   const dir = mkdtempSync(join(tmpdir(), 'meltwire-live-'));
   const smtp = await startFakeSmtp();
   const config = testConfig({ databaseFile: join(dir, 'live.db'), smtpUrl: smtp.url });
@@ -21,11 +23,13 @@ export async function startLiveServer() {
   await migrateLatest(db);
   await seedDemoIfEmpty(db);
   const logger = createLogger('silent');
-  const app = createApp({ db, config, logger, outbox: smtp.outbox });
+  // Responses are checked against the OpenAPI document here too (see tests/helpers/test-app.ts).
+  const app = createApp({ db, config, logger, outbox: smtp.outbox, validateResponses: true, ...(withConsole ? {} : { consoleDir: '/nonexistent' }) });
   const running = await listen(app, db, logger, 0, () => smtp.close());
   return {
     url: running.url,
     db,
+    ctx: app.locals.ctx,
     async stop() {
       await running.stop();
       rmSync(dir, { recursive: true, force: true });

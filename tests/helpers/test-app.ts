@@ -12,6 +12,7 @@ import { sessionAuthContext } from '../../server/domain/auth/auth.service.ts';
 import type { Role, Scope } from '../../server/domain/auth/scopes.ts';
 import { hashPassword } from '../../server/domain/users/passwords.ts';
 import { emailKey, insertUser, type UserRow } from '../../server/domain/users/users.repository.ts';
+import type { AnyRoute } from '../../server/http/route.ts';
 import { newId } from '../../server/lib/ids.ts';
 import { nowIso } from '../../server/lib/time.ts';
 import { startFakeSmtp, type FakeSmtp } from '../../server/mail/fake-smtp.ts';
@@ -27,12 +28,17 @@ export interface TestApp {
   close(): Promise<void>;
 }
 
-export async function createTestApp(overrides: Partial<Config> = {}): Promise<TestApp> {
+/**
+ * The app as served, except that every JSON response is checked against the OpenAPI document:
+ * a response that does not match answers 500, so the test that caused it fails.
+ * `routes` replaces the /api/v1 operations (tests that need an extra or a broken one).
+ */
+export async function createTestApp(overrides: Partial<Config> = {}, options: { routes?: AnyRoute[] } = {}): Promise<TestApp> {
   const smtp = await startFakeSmtp();
   const config = testConfig({ smtpUrl: smtp.url, ...overrides });
   const db = createDb(config);
   await migrateLatest(db);
-  const app = createApp({ db, config, outbox: smtp.outbox, consoleDir: '/nonexistent' });
+  const app = createApp({ db, config, outbox: smtp.outbox, consoleDir: '/nonexistent', validateResponses: true, routes: options.routes });
   return {
     app,
     db,

@@ -44,6 +44,7 @@ export const apiKeyRoutes = [
     tag: 'API keys',
     access: { scope: 'api-keys:write' },
     body: CreateApiKeyRequestSchema,
+    secretInResponse: true,
     responses: {
       201: { description: 'Issued; copy the secret now.', schema: ApiKeyWithSecretSchema, headers: { Location: 'The new key.' } },
     },
@@ -89,6 +90,7 @@ export const apiKeyRoutes = [
     access: { scope: 'api-keys:write' },
     params: ApiKeyIdParams,
     body: RollApiKeyRequestSchema,
+    secretInResponse: true,
     responses: {
       201: { description: 'The replacement, with its secret shown once.', schema: ApiKeyWithSecretSchema, headers: { Location: 'The new key.' } },
       404: { description: 'No such key, or not yours.' },

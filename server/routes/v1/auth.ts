@@ -26,7 +26,10 @@ export const authRoutes = [
     access: 'public',
     body: LoginRequestSchema,
     before: credentialLimiter,
-    responses: { 200: { description: 'Signed in.', schema: MeSchema } },
+    responses: {
+      200: { description: 'Signed in.', schema: MeSchema },
+      401: { description: 'The e-mail or password is not correct, or the account is disabled.' },
+    },
     async handler({ body, req, res, ctx }) {
       const { sessionId, user } = await login(ctx, { ...body, ip: req.ip, userAgent: req.get('user-agent'), requestId: req.requestId });
       const expiresAt = setSessionCookie(res, ctx.config, sessionId, user.id);

@@ -9,6 +9,7 @@ import { instrumentRoutes } from './instruments.ts';
 import { methodRoutes } from './methods.ts';
 import { openApiRoutes } from './openapi.ts';
 import { outboxRoutes } from './outbox.ts';
+import { requestLogRoutes } from './request-log.ts';
 import { sampleRoutes } from './samples.ts';
 import { userRoutes } from './users.ts';
 
@@ -25,5 +26,6 @@ export const v1Routes: AnyRoute[] = [
   ...importProfileRoutes,
   ...importRoutes,
   ...auditRoutes,
+  ...requestLogRoutes,
   ...outboxRoutes,
 ];

@@ -31,9 +31,12 @@ export function HomePage() {
               Issue a key with only the scopes your integration needs on <Link className="text-copper-700 underline" to="/api-keys">API keys</Link>.
             </li>
             <li>
-              Read the operations on <Link className="text-copper-700 underline" to="/reference">API reference</Link> and call them with <code>Authorization: Bearer mw_live_…</code>.
+              Make your first call with the copy-paste examples on <Link className="text-copper-700 underline" to="/quick-start">Quick start</Link>; every operation is on{' '}
+              <Link className="text-copper-700 underline" to="/reference">API reference</Link>.
             </li>
-            <li>Every error is an RFC 9457 problem (<code>application/problem+json</code>) with a request id to quote.</li>
+            <li>
+              Every error is an RFC 9457 problem (<code>application/problem+json</code>) with a request id to quote; the <Link className="text-copper-700 underline" to="/request-log">Request log</Link> shows each call and replays it.
+            </li>
           </ol>
         </Card>
       </div>

@@ -1,0 +1,78 @@
+// What the request log keeps of a body: redacted first, then cut at the configured number of
+// bytes. Multipart uploads are described (field, file name, size, type), never stored.
+import type { Request } from 'express';
+import type { CapturedBody } from '../../http/response-capture.ts';
+import { uploadedFiles } from '../../http/uploaded-files.ts';
+import { redactJson, redactText } from './redact.ts';
+
+export const BODY_KINDS = ['none', 'json', 'text', 'multipart', 'binary', 'unread'] as const;
+export type BodyKind = (typeof BODY_KINDS)[number];
+
+export interface BodySnapshot {
+  kind: BodyKind;
+  contentType: string | null;
+  body: string | null;
+  /** Bytes of the original body. */
+  size: number;
+  truncated: boolean;
+  /** Secrets were removed from the body. */
+  redacted: boolean;
+}
+
+const JSON_TYPE = /^application\/([\w.+-]+\+)?json\b/i;
+const TEXT_TYPE = /^(text\/|application\/(xml|x-www-form-urlencoded|csv)\b)/i;
+
+/** Cuts text to at most `limit` UTF-8 bytes without splitting a character. */
+export function truncateUtf8(text: string, limit: number): { text: string; truncated: boolean } {
+  if (Buffer.byteLength(text) <= limit) return { text, truncated: false };
+  const cut = new TextDecoder('utf-8', { fatal: false }).decode(Buffer.from(text).subarray(0, limit));
+  return { text: cut.replace(/\uFFFD+$/, ''), truncated: true };
+}
+
+function textSnapshot(kind: BodyKind, contentType: string | null, text: string, size: number, limit: number, cutBefore = false, redacted = false): BodySnapshot {
+  const r = redactText(text);
+  const { text: body, truncated } = truncateUtf8(r.value, limit);
+  return { kind, contentType, body, size, truncated: truncated || cutBefore, redacted: redacted || r.redacted };
+}
+
+function jsonSnapshot(kind: BodyKind, contentType: string | null, value: unknown, size: number, limit: number): BodySnapshot {
+  const r = redactJson(value);
+  return textSnapshot(kind, contentType, JSON.stringify(r.value), size, limit, false, r.redacted);
+}
+
+const none = (contentType: string | null): BodySnapshot => ({ kind: 'none', contentType, body: null, size: 0, truncated: false, redacted: false });
+
+export function snapshotRequestBody(req: Request, limit: number): BodySnapshot {
+  const contentType = req.get('content-type') ?? null;
+  const declared = Number(req.get('content-length') ?? 0) || 0;
+  const body: unknown = req.body;
+  if (contentType && /^multipart\//i.test(contentType)) {
+    const files = uploadedFiles(req).map((f) => ({ field: f.fieldname, name: f.originalname, size: f.size, content_type: f.mimetype }));
+    return jsonSnapshot('multipart', contentType, { fields: body ?? {}, files }, declared, limit);
+  }
+  if (body === undefined || body === null) {
+    return declared > 0 ? { ...none(contentType), kind: 'unread', size: declared } : none(contentType);
+  }
+  if (Buffer.isBuffer(body)) {
+    if (contentType && (TEXT_TYPE.test(contentType) || JSON_TYPE.test(contentType))) return textSnapshot('text', contentType, body.toString('utf8'), body.length, limit);
+    return { kind: 'binary', contentType, body: null, size: body.length, truncated: false, redacted: false };
+  }
+  if (typeof body === 'string') return textSnapshot('text', contentType, body, Buffer.byteLength(body), limit);
+  return jsonSnapshot('json', contentType, body, declared || Buffer.byteLength(JSON.stringify(body)), limit);
+}
+
+export function snapshotResponseBody(contentType: string | null, captured: CapturedBody, limit: number): BodySnapshot {
+  if (captured.size === 0) return none(contentType);
+  const isJson = !!contentType && JSON_TYPE.test(contentType);
+  if (isJson && captured.complete) {
+    try {
+      return jsonSnapshot('json', contentType, JSON.parse(captured.body.toString('utf8')), captured.size, limit);
+    } catch {
+      // Not valid JSON after all: keep it as text.
+    }
+  }
+  if (isJson || (contentType && TEXT_TYPE.test(contentType))) {
+    return textSnapshot(isJson ? 'json' : 'text', contentType, captured.body.toString('utf8'), captured.size, limit, !captured.complete);
+  }
+  return { kind: 'binary', contentType, body: null, size: captured.size, truncated: false, redacted: false };
+}

@@ -1,0 +1,40 @@
+// Ages out what is kept only for a while: request log entries (REQUEST_LOG_RETENTION_DAYS) and
+// Idempotency-Key records (24 hours). Runs once at start, then hourly on an unref'd timer so it
+// never keeps the process alive; stop() ends it on shutdown.
+import type { AppContext } from './context.ts';
+import { purgeExpiredIdempotencyKeys } from './domain/idempotency/idempotency.repository.ts';
+import { purgeRequestLog } from './domain/request-log/retention.ts';
+
+export const HOUSEKEEPING_INTERVAL_MS = 60 * 60_000;
+
+export interface Housekeeping {
+  /** The sweep started at start; resolves when it is done. */
+  firstRun: Promise<void>;
+  /** Stops the timer and waits for a sweep in progress, so the database can be closed after it. */
+  stop(): Promise<void>;
+}
+
+export async function sweepOnce(ctx: Pick<AppContext, 'db' | 'config' | 'logger'>, now = new Date()): Promise<{ requestLog: number; idempotencyKeys: number }> {
+  const requestLog = await purgeRequestLog(ctx.db, ctx.config.requestLogRetentionDays, now);
+  const idempotencyKeys = await purgeExpiredIdempotencyKeys(ctx.db, now);
+  if (requestLog || idempotencyKeys) ctx.logger.info({ requestLog, idempotencyKeys }, 'housekeeping removed expired records');
+  return { requestLog, idempotencyKeys };
+}
+
+export function startHousekeeping(ctx: Pick<AppContext, 'db' | 'config' | 'logger'>, intervalMs = HOUSEKEEPING_INTERVAL_MS): Housekeeping {
+  let running: Promise<unknown> = Promise.resolve();
+  const sweep = () => {
+    running = sweepOnce(ctx).catch((error: unknown) => ctx.logger.error({ err: error }, 'housekeeping failed'));
+    return running;
+  };
+  const firstRun = sweep().then(() => undefined);
+  const timer = setInterval(sweep, intervalMs);
+  timer.unref();
+  return {
+    firstRun,
+    async stop() {
+      clearInterval(timer);
+      await running;
+    },
+  };
+}

@@ -1,0 +1,86 @@
+// Copy-paste examples for the Quick start page, written for the server the console is served
+// from. Plain functions of the origin, so a test can run them against a live server.
+
+export interface QuickStartExample {
+  id: string;
+  title: string;
+  intro: string;
+  code: string;
+  /** What a successful run looks like (illustrative values). */
+  output?: string;
+}
+
+export function quickStartExamples(origin: string): QuickStartExample[] {
+  const api = `${origin}/api/v1`;
+  return [
+    {
+      id: 'key',
+      title: '1. Keep your key in the environment',
+      intro: 'Issue a key on the API keys page with only the scopes your integration needs (samples:read for these examples). It is shown once; keep it out of scripts and source control.',
+      code: `export MELTWIRE_KEY='mw_live_…'   # paste the key you copied`,
+    },
+    {
+      id: 'first-call',
+      title: '2. Your first call',
+      intro: 'Ask who the key belongs to and which scopes it carries. Every call sends the key as a Bearer token.',
+      code: `curl -sS ${api}/auth/me \\\n  -H "Authorization: Bearer $MELTWIRE_KEY"`,
+      output: `{"user":{"email":"mes-bridge@kestrelbend.test",…},"scopes":["samples:read"],"auth":"api_key",…}`,
+    },
+    {
+      id: 'list',
+      title: '3. List samples',
+      intro: 'Lists return a page of data and a cursor for the next page; next_cursor is null on the last page. limit is 1–200 (default 50).',
+      code: `curl -sS "${api}/samples?limit=50" \\\n  -H "Authorization: Bearer $MELTWIRE_KEY"`,
+      output: `{"data":[{"id":"…","sample_code":"K24-0412"},…],"next_cursor":"eyJpZCI6…"}`,
+    },
+    {
+      id: 'pages',
+      title: '4. Page through everything',
+      intro: 'Pass next_cursor back as cursor until it is null. Cursors are opaque: never build or edit one. (Needs jq.)',
+      code: [
+        `cursor=""`,
+        `while :; do`,
+        `  page=$(curl -sS -G ${api}/samples -H "Authorization: Bearer $MELTWIRE_KEY" \\`,
+        `    --data-urlencode limit=200 \${cursor:+--data-urlencode "cursor=$cursor"})`,
+        `  jq -c '.data[]' <<<"$page"`,
+        `  cursor=$(jq -r '.next_cursor // empty' <<<"$page")`,
+        `  [ -n "$cursor" ] || break`,
+        `done`,
+      ].join('\n'),
+    },
+    {
+      id: 'errors',
+      title: '5. Read errors',
+      intro: 'Every error is an RFC 9457 problem (application/problem+json). Validation errors list each field in errors[]; quote request_id when you ask for help — it finds the call in the Request log. A key without the scope gets 403 naming the scope it needs.',
+      code: `curl -sS -i ${api}/users \\\n  -H "Authorization: Bearer $MELTWIRE_KEY"`,
+      output: [
+        'HTTP/1.1 403 Forbidden',
+        'Content-Type: application/problem+json; charset=utf-8',
+        '',
+        '{"type":"/problems/forbidden","title":"Not allowed","status":403,',
+        ' "detail":"This action needs the scope \\"users:read\\".","instance":"/api/v1/users",',
+        ' "required_scope":"users:read","request_id":"…"}',
+      ].join('\n'),
+    },
+    {
+      id: 'typescript',
+      title: '6. A typed client in TypeScript',
+      intro: 'Generate types from this server\'s OpenAPI document with openapi-typescript, then call the API with openapi-fetch: paths, parameters and responses are checked by the compiler. examples/client.ts in the repository is a complete script.',
+      code: [
+        `npx openapi-typescript ${api}/openapi.json -o meltwire.d.ts`,
+        ``,
+        `// client.ts`,
+        `import createClient from 'openapi-fetch';`,
+        `import type { paths } from './meltwire.d.ts';`,
+        ``,
+        `const meltwire = createClient<paths>({`,
+        `  baseUrl: '${api}',`,
+        `  headers: { Authorization: \`Bearer \${process.env.MELTWIRE_KEY}\` },`,
+        `});`,
+        `const { data, error } = await meltwire.GET('/samples', { params: { query: { limit: 50 } } });`,
+        `if (error) throw new Error(\`\${error.title}: \${error.detail} (request \${error.request_id})\`);`,
+        `console.log(data.data, data.next_cursor);`,
+      ].join('\n'),
+    },
+  ];
+}

@@ -1,0 +1,57 @@
+import { useState, type FormEvent } from 'react';
+import { Button } from '../../../components/ui/button.tsx';
+import { SelectField, TextField } from '../../../components/ui/field.tsx';
+import type { RequestLogFilters } from '../api/request-log.ts';
+
+const METHODS = ['GET', 'POST', 'PUT', 'PATCH', 'DELETE'] as const;
+const EMPTY = { method: '', status: '', path_prefix: '', caller_id: '', since: '', until: '' };
+
+/** datetime-local gives local wall time without a zone; the API wants UTC. */
+function toIso(local: string): string | undefined {
+  return local ? new Date(local).toISOString() : undefined;
+}
+
+export function RequestLogFilterForm({ onApply }: { onApply: (filters: RequestLogFilters) => void }) {
+  const [form, setForm] = useState(EMPTY);
+  const set = (field: keyof typeof EMPTY) => (event: { target: { value: string } }) => setForm((f) => ({ ...f, [field]: event.target.value }));
+
+  function submit(event: FormEvent) {
+    event.preventDefault();
+    onApply({
+      method: (form.method || undefined) as RequestLogFilters['method'],
+      status: form.status.trim() || undefined,
+      path_prefix: form.path_prefix.trim() || undefined,
+      caller_id: form.caller_id.trim() || undefined,
+      since: toIso(form.since),
+      until: toIso(form.until),
+    });
+  }
+
+  return (
+    <form onSubmit={submit} className="grid grid-cols-2 items-end gap-3 rounded-lg border border-ash-200 bg-white p-4 md:grid-cols-4 xl:grid-cols-7" aria-label="Filters">
+      <SelectField label="Method" value={form.method} onChange={set('method')}>
+        <option value="">any</option>
+        {METHODS.map((m) => (
+          <option key={m}>{m}</option>
+        ))}
+      </SelectField>
+      <TextField label="Status" placeholder="404 or 4xx" value={form.status} onChange={set('status')} />
+      <TextField label="Path starts with" placeholder="/api/v1/samples" value={form.path_prefix} onChange={set('path_prefix')} />
+      <TextField label="Caller id" placeholder="key_… or usr_…" value={form.caller_id} onChange={set('caller_id')} />
+      <TextField label="Since" type="datetime-local" value={form.since} onChange={set('since')} />
+      <TextField label="Until" type="datetime-local" value={form.until} onChange={set('until')} />
+      <div className="flex gap-2">
+        <Button type="submit">Apply</Button>
+        <Button
+          variant="secondary"
+          onClick={() => {
+            setForm(EMPTY);
+            onApply({});
+          }}
+        >
+          Reset
+        </Button>
+      </div>
+    </form>
+  );
+}

@@ -1,0 +1,86 @@
+// The integrator examples run as an integrator would run them, against a live server seeded
+// with the demo scenario: the typed client (tsx) and the curl scripts (bash, curl, jq).
+import { execFile } from 'node:child_process';
+import { resolve } from 'node:path';
+import { promisify } from 'node:util';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { findUserByEmail } from '../../server/domain/users/users.repository.ts';
+import { createApiKey } from '../../server/domain/api-keys/api-keys.service.ts';
+import { sessionAuthContext } from '../../server/domain/auth/auth.service.ts';
+import type { Scope } from '../../server/domain/auth/scopes.ts';
+import { DEMO_USERS } from '../../server/seed/demo-users.ts';
+import { startLiveServer } from '../helpers/live-server.ts';
+
+const run = promisify(execFile);
+const ROOT = resolve(import.meta.dirname, '../..');
+let server: Awaited<ReturnType<typeof startLiveServer>>;
+
+beforeAll(async () => {
+  server = await startLiveServer({ console: false });
+});
+afterAll(() => server?.stop());
+
+async function demoAdminKey(scopes: Scope[]): Promise<string> {
+  const admin = await findUserByEmail(server.db, DEMO_USERS[0].email);
+  const key = await createApiKey(server.ctx, sessionAuthContext(admin!, 'examples-test'), { name: 'examples', scopes });
+  return key.secret;
+}
+
+function example(command: string, args: string[], env: Record<string, string>) {
+  return run(command, args, { cwd: ROOT, env: { ...process.env, MELTWIRE_URL: server.url, ...env } });
+}
+
+async function auditActionsNewestFirst(): Promise<{ id: string; action: string }[]> {
+  return server.db('audit_events').orderBy([{ column: 'occurred_at', order: 'desc' }, { column: 'id', order: 'desc' }]).select('id', 'action');
+}
+
+describe('examples/client.ts (openapi-fetch, generated types)', () => {
+  it('checks its key and pages through the whole audit trail with the cursor', async () => {
+    const key = await demoAdminKey(['audit:read']);
+    const { stdout } = await example(process.execPath, ['--import', 'tsx', 'examples/client.ts'], { MELTWIRE_KEY: key, PAGE_SIZE: '2' });
+    const lines = stdout.trim().split('\n');
+    expect(lines[0]).toBe('key of admin@kestrelbend.test, scopes: audit:read');
+    const expected = await auditActionsNewestFirst();
+    const events = lines.filter((line) => line.startsWith('event ')).map((line) => line.split(' '));
+    expect(events.map(([, id, , action]) => ({ id, action }))).toEqual(expected);
+    expect(lines.at(-1)).toBe(`pages=${Math.ceil(expected.length / 2)} events=${expected.length}`);
+  }, 30_000);
+
+  it('reports a problem with its status, title, detail and request id', async () => {
+    const key = await demoAdminKey(['samples:read']);
+    const failure = await example(process.execPath, ['--import', 'tsx', 'examples/client.ts'], { MELTWIRE_KEY: key }).catch((error: { code: number; stderr: string }) => error);
+    expect(failure).toMatchObject({ code: 1 });
+    expect((failure as { stderr: string }).stderr).toMatch(/^403 Not allowed: This action needs the scope "audit:read"\. \(request [0-9a-f-]{36}\)/);
+  }, 30_000);
+});
+
+describe('curl scripts', () => {
+  it('whoami.sh prints the key\'s owner and scopes', async () => {
+    const key = await demoAdminKey(['samples:read', 'events:read']);
+    const { stdout } = await example('bash', ['examples/whoami.sh'], { MELTWIRE_KEY: key });
+    expect(JSON.parse(stdout)).toMatchObject({ auth: 'api_key', user: { email: 'admin@kestrelbend.test' }, scopes: ['samples:read', 'events:read'] });
+  });
+
+  it('list-api-keys.sh lists keys by prefix, never by secret', async () => {
+    const key = await demoAdminKey(['api-keys:read']);
+    const { stdout } = await example('bash', ['examples/list-api-keys.sh'], { MELTWIRE_KEY: key });
+    expect(stdout).toContain(`${key.slice(0, 14)}…  active  examples  [api-keys:read]`);
+    expect(stdout).not.toContain(key);
+  });
+
+  it('audit-trail.sh follows next_cursor to the last page', async () => {
+    const key = await demoAdminKey(['audit:read']);
+    const { stdout, stderr } = await example('bash', ['examples/audit-trail.sh'], { MELTWIRE_KEY: key, PAGE_SIZE: '3' });
+    const expected = await auditActionsNewestFirst();
+    const lines = stdout.trim().split('\n');
+    expect(lines.map((line) => line.split('  ')[1])).toEqual(expected.map((e) => e.action));
+    expect(stderr.trim()).toBe(`pages: ${Math.ceil(expected.length / 3)}`);
+  });
+
+  it('fails loudly with the problem body when the key lacks the scope', async () => {
+    const key = await demoAdminKey(['samples:read']);
+    const failure = await example('bash', ['examples/list-api-keys.sh'], { MELTWIRE_KEY: key }).catch((error: { code: number; stdout: string; stderr: string }) => error);
+    expect(failure).toMatchObject({ code: expect.any(Number) });
+    expect((failure as { stderr: string }).stderr).toContain('403');
+  });
+});
