@@ -58,16 +58,21 @@ describe('integrator developer flow', () => {
   });
 
   it('calls the API with the key, from the test and with the Quick start\'s copied curl commands', async () => {
-    const res = await fetch(`${server.url}/api/v1/samples`, { headers: { authorization: `Bearer ${secret}`, 'x-request-id': 'e2e-first-call' } });
+    const res = await fetch(`${server.url}/api/v1/samples?heat=K24-0412`, { headers: { authorization: `Bearer ${secret}`, 'x-request-id': 'e2e-first-call' } });
     expect(res.status).toBe(200);
-    expect(await res.json()).toEqual({ data: [], next_cursor: null });
+    const body = await res.json();
+    expect(body.data.map((s: { sample_code: string }) => s.sample_code)).toEqual(['K24-0412-F1', 'K24-0412-P1']);
+    expect(body.next_cursor).toBeNull();
 
     await nav('Quick start').click();
     await page.getByRole('heading', { name: 'Quick start' }).waitFor();
     expect(JSON.parse(await runSnippet('quick-start-first-call'))).toMatchObject({ auth: 'api_key', scopes: ['samples:read'], user: { email: INTEGRATOR } });
-    expect(JSON.parse(await runSnippet('quick-start-list'))).toEqual({ data: [], next_cursor: null });
+    const list = JSON.parse(await runSnippet('quick-start-list'));
+    expect(list.data).toHaveLength(2);
+    expect(list.next_cursor).toEqual(expect.any(String));
     expect(await runSnippet('quick-start-errors')).toMatch(/^HTTP\/1\.1 403 Forbidden[\s\S]*"required_scope":"users:read"/);
-    expect(await runSnippet('quick-start-pages')).toBe('');
+    // Every demo sample, one JSON line each (the demo seeds 26).
+    expect((await runSnippet('quick-start-pages')).trim().split('\n')).toHaveLength(26);
   });
 
   it('finds the call in the Request log, with its curl equivalent, and replays it as the signed-in user', async () => {
@@ -77,13 +82,13 @@ describe('integrator developer flow', () => {
     await page.getByRole('button', { name: 'Apply' }).click();
     const row = page.getByTestId('request-log-row').filter({ hasText: 'MES melt shop (mw_live_' }).last();
     await row.waitFor();
-    expect(await row.innerText()).toMatch(/GET\s+\/api\/v1\/samples\s+200/);
+    expect(await row.innerText()).toMatch(/GET\s+\/api\/v1\/samples\S*\s[\s\S]*\b200\b/);
 
     await row.getByRole('button', { name: /^Details of GET \/api\/v1\/samples/ }).click();
     const drawer = page.getByRole('dialog');
     await drawer.getByRole('definition').filter({ hasText: 'e2e-first-call' }).waitFor();
     const curl = await drawer.getByTestId('curl-command').innerText();
-    expect(curl).toContain(`curl -sS '${server.url}/api/v1/samples'`);
+    expect(curl).toContain(`curl -sS '${server.url}/api/v1/samples?heat=K24-0412'`);
     expect(curl).toContain('Authorization: Bearer $MELTWIRE_KEY');
     expect(await drawer.getByTestId('response-body').innerText()).toContain('"next_cursor": null');
     expect(await drawer.getByTestId('request-body').innerText()).toBe('(no body)');

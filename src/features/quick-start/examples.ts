@@ -30,8 +30,8 @@ export function quickStartExamples(origin: string): QuickStartExample[] {
       id: 'list',
       title: '3. List samples',
       intro: 'Lists return a page of data and a cursor for the next page; next_cursor is null on the last page. limit is 1–200 (default 50).',
-      code: `curl -sS "${api}/samples?limit=50" \\\n  -H "Authorization: Bearer $MELTWIRE_KEY"`,
-      output: `{"data":[{"id":"…","sample_code":"K24-0412"},…],"next_cursor":"eyJpZCI6…"}`,
+      code: `curl -sS "${api}/samples?limit=2" \\\n  -H "Authorization: Bearer $MELTWIRE_KEY"`,
+      output: `{"data":[{"id":"smp_…","sample_code":"K24-0419-F1","heat":"K24-0419",…,"results":[{"element":"C","mean":0.4597,"reported":"0.460",…}]},…],"next_cursor":"eyJieSI6…"}`,
     },
     {
       id: 'pages',
