@@ -14,6 +14,12 @@ import * as createImportProfiles from './20261201300100_create_import_profiles.t
 import * as createImports from './20261201400100_create_imports.ts';
 import * as createSamples from './20261201400200_create_samples.ts';
 import * as createBurns from './20261201400300_create_burns.ts';
+import * as createEvents from './20261201500100_create_events.ts';
+import * as createReferenceMaterials from './20261201500200_create_reference_materials.ts';
+import * as createStandardizations from './20261201500300_create_standardizations.ts';
+import * as addMethodsDriftLimits from './20261201500400_add_methods_drift_limits.ts';
+import * as addSamplesCorrection from './20261201500500_add_samples_correction.ts';
+import * as addBurnsCorrection from './20261201500600_add_burns_correction.ts';
 
 export interface Migration {
   up(knex: Knex): Promise<void>;
@@ -34,4 +40,10 @@ export const migrations: Record<string, Migration> = {
   '20261201400100_create_imports': createImports,
   '20261201400200_create_samples': createSamples,
   '20261201400300_create_burns': createBurns,
+  '20261201500100_create_events': createEvents,
+  '20261201500200_create_reference_materials': createReferenceMaterials,
+  '20261201500300_create_standardizations': createStandardizations,
+  '20261201500400_add_methods_drift_limits': addMethodsDriftLimits,
+  '20261201500500_add_samples_correction': addSamplesCorrection,
+  '20261201500600_add_burns_correction': addBurnsCorrection,
 };

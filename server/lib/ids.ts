@@ -4,7 +4,7 @@ import { monotonicFactory } from 'ulid';
 
 const nextUlid = monotonicFactory();
 
-export type IdPrefix = 'usr' | 'ses' | 'tok' | 'aud' | 'key' | 'req' | 'ipr' | 'ins' | 'mth' | 'imp' | 'smp' | 'brn';
+export type IdPrefix = 'usr' | 'ses' | 'tok' | 'aud' | 'key' | 'req' | 'ipr' | 'ins' | 'mth' | 'imp' | 'smp' | 'brn' | 'evt' | 'rfm' | 'std';
 
 export function newId(prefix: IdPrefix): string {
   return `${prefix}_${nextUlid().toLowerCase()}`;

@@ -4,7 +4,7 @@ import type { Db } from '../db/knex.ts';
 import { SYSTEM_ACTOR } from '../domain/audit/actor.ts';
 import { recordAudit } from '../domain/audit/audit.repository.ts';
 import { insertInstrument, type InstrumentRow } from '../domain/instruments/instruments.repository.ts';
-import { insertMethod, type Method, type MethodElement } from '../domain/methods/methods.repository.ts';
+import { DEFAULT_DRIFT_LIMITS, insertMethod, type Method, type MethodElement } from '../domain/methods/methods.repository.ts';
 import { newId } from '../lib/ids.ts';
 import { nowIso } from '../lib/time.ts';
 
@@ -64,8 +64,8 @@ export async function seedDemoLab(db: Db): Promise<DemoLab> {
   const now = nowIso();
   const foundry: InstrumentRow = { id: newId('ins'), code: 'OES-1', name: 'Melt shop spark stand', site: 'Steel foundry, Kestrel Bend', created_at: now, updated_at: now };
   const castHouse: InstrumentRow = { id: newId('ins'), code: 'OES-2', name: 'Cast house spark stand', site: 'Billet cast house, Kestrel Bend', created_at: now, updated_at: now };
-  const feMethod: Method = { id: newId('mth'), code: 'FE-LA', name: 'Low-alloy steel (Fe base)', matrix: 'Fe', default_unit: '%', elements: elements(FE_LOW_ALLOY), created_at: now, updated_at: now };
-  const alMethod: Method = { id: newId('mth'), code: 'AL-WR', name: 'Wrought aluminium (Al base)', matrix: 'Al', default_unit: '%', elements: elements(AL_WROUGHT), created_at: now, updated_at: now };
+  const feMethod: Method = { id: newId('mth'), code: 'FE-LA', name: 'Low-alloy steel (Fe base)', matrix: 'Fe', default_unit: '%', elements: elements(FE_LOW_ALLOY), drift_limits: DEFAULT_DRIFT_LIMITS, created_at: now, updated_at: now };
+  const alMethod: Method = { id: newId('mth'), code: 'AL-WR', name: 'Wrought aluminium (Al base)', matrix: 'Al', default_unit: '%', elements: elements(AL_WROUGHT), drift_limits: DEFAULT_DRIFT_LIMITS, created_at: now, updated_at: now };
   await db.transaction(async (trx) => {
     for (const instrument of [foundry, castHouse]) {
       await insertInstrument(trx, instrument);

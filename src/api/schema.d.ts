@@ -455,6 +455,7 @@ export interface paths {
          *     - `not_detected`: At least one burn was reported as not detected (counted as "<" the detection limit).
          *     - `conflicting_qualified_burns`: Burns say both "<" and ">": no bound holds, nothing is reported.
          *     - `limit_missing`: A burn is qualified without a value (n.d., or "<"/">" alone) and the method sets no limit to bound it: nothing is reported.
+         *     - `negative_after_correction`: At least one burn is below 0 after drift correction. Corrected values are not clamped to 0 (that would bias the mean and break its linearity); a mean below the detection limit is reported as "<" the limit as usual.
          *     - `not_in_method`: The method does not list this element; it is averaged anyway, with 4 reporting decimals and no limits.
          *
          *     Results must be reviewed and authorised under the laboratory's own procedures before release.
@@ -557,6 +558,7 @@ export interface paths {
          *     - `not_detected`: At least one burn was reported as not detected (counted as "<" the detection limit).
          *     - `conflicting_qualified_burns`: Burns say both "<" and ">": no bound holds, nothing is reported.
          *     - `limit_missing`: A burn is qualified without a value (n.d., or "<"/">" alone) and the method sets no limit to bound it: nothing is reported.
+         *     - `negative_after_correction`: At least one burn is below 0 after drift correction. Corrected values are not clamped to 0 (that would bias the mean and break its linearity); a mean below the detection limit is reported as "<" the limit as usual.
          *     - `not_in_method`: The method does not list this element; it is averaged anyway, with 4 reporting decimals and no limits.
          *
          *     Results must be reviewed and authorised under the laboratory's own procedures before release.
@@ -592,6 +594,35 @@ export interface paths {
          *     Requires the scope `samples:write`.
          */
         patch: operations["setBurnExclusion"];
+        trace?: never;
+    };
+    "/samples/{id}/recompute": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Recompute a sample's results against another correction set, or none
+         * @description Every burn is corrected with the activated set named in `correction_set_id` (of the sample's instrument and method), or left uncorrected with `null`; the results are recomputed from the kept measured values. The reason, who and when are stored with the sample (`correction.selection = "requested"`) and the audit trail keeps the results before and after. Released samples cannot be recomputed (409).
+         *
+         *     **How a set is applied**
+         *     - Result files and JSON pushes carry concentrations, not intensity ratios, so α·x + β is applied to the concentration of each burn (`applied_to: "concentration"`), which is valid where the analytical curve is linear.
+         *     - Each burn stored after an activation gets the set in force for its instrument and method at its measurement time (`measured_at`, else the sample's creation time): the activated set with the latest `effective_from` at or before that time. Results stored before an activation are never changed by it; `POST /samples/{id}/recompute` applies another set (or none) on request, with a reason, audited.
+         *     - "<" and ">" bounds are corrected like values (α·bound + β; the qualifier flips if α < 0); n.d. stays n.d.
+         *     - A corrected value below 0 is kept, not clamped (clamping would bias the mean and break its linearity), and the result carries the flag `negative_after_correction`; a mean below the detection limit is reported as "<" the limit as usual.
+         *     - Elements the set does not correct keep their measured values. The measured values (`values`, `raw`) and `raw_mean` are always kept.
+         *
+         *     Requires the scope `samples:write`.
+         */
+        post: operations["recomputeSample"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
         trace?: never;
     };
     "/import-profiles": {
@@ -730,6 +761,188 @@ export interface paths {
          * @description Requires the scope `samples:read`.
          */
         get: operations["downloadImportFile"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/reference-materials": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * List reference materials
+         * @description Ordered by code (ignoring case).
+         *
+         *     Requires the scope `standardizations:read`.
+         */
+        get: operations["listReferenceMaterials"];
+        put?: never;
+        /**
+         * Register a reference material with its nominal values
+         * @description Nominal values are decimal strings in `unit` (default %), converted exactly to % and kept as given as well. A material is not edited afterwards: register a new one for a new certificate, so that past runs keep the values they used. Kinds `high`/`low` serve two-point standardizations, `type` type standardizations; `control` materials cannot standardize.
+         *
+         *     Requires the scope `standardizations:write`.
+         */
+        post: operations["createReferenceMaterial"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/reference-materials/{id}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Get a reference material
+         * @description Requires the scope `standardizations:read`.
+         */
+        get: operations["getReferenceMaterial"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/instruments/{id}/standardizations": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * List an instrument's standardization runs
+         * @description Newest measurement first.
+         *
+         *     Requires the scope `standardizations:read`.
+         */
+        get: operations["listStandardizations"];
+        put?: never;
+        /**
+         * Run a standardization: per-element corrections from reference burns
+         * @description Send the burns of each reference material as measured (uncorrected), in `unit` (default: the method's). The run is stored as a `draft` with a correction per element of the method, its flag and reasons, and the slope and offset of the set in force for comparison; it changes nothing until activated (`POST /standardizations/{id}/activate`). A run with any `warn` or `fail` element records the event `standardization.flagged`. Burns are entered as JSON; reading them from a result file is not offered yet.
+         *
+         *     **How a correction is computed** (per element of the method; values in %):
+         *     - `two_point`: slope α = (H⁰ − L⁰)/(H − L), offset β = L⁰ − α·L, with H⁰, L⁰ the nominal values of the `high` and `low` references and H, L the exact means of their burns. `one_point_factor`: α = N/M, β = 0. `one_point_offset`: α = 1, β = N − M. `type` (reference of kind `type`, similar composition; multiplicative): t = N/(α₀·M + β₀) on top of the set in force (α₀, β₀; identity when none), stored as α = t·α₀, β = t·β₀. (Math as practised; no readable standard gives it — from memory.)
+         *     - α is computed with decimal.js at 60 significant digits and stored as a decimal string rounded half-even to 20 significant digits; β is stored to 20 decimal places. corrected = α·x + β is computed exactly, so correcting each burn and then averaging equals averaging and then correcting.
+         *     - H = L (or equal nominal values, or a zero to divide by) → 422 naming the element; nothing is stored.
+         *     - Only numeric burns of a reference count; "<", ">" and n.d. cells of a reference are ignored.
+         *
+         *     **Flags per element** (`ok`, `warn`, `fail`; every reason is a sentence that explains itself):
+         *     - |α − 1| above the method's `drift_limits.warn` (default 0.2) → `warn`; above `drift_limits.fail` (default 0.5) → `fail`. A distance equal to a limit passes. For `one_point_offset` (α = 1) the offset is judged instead, as |β| / nominal. (Common practice, no source.)
+         *     - α < 0 → `fail` (the references look swapped).
+         *     - `two_point` with the measured levels closer than 10 % of the higher one (|H − L| < 0.1·max(|H|, |L|)) → `warn`: burn noise then moves the slope a lot. (Common practice, no source.)
+         *     - An element without a nominal value or without a numeric measurement in a reference → `warn`, and the set does not correct that element (slope and offset null): its results stay uncorrected while the set is in force.
+         *     - A reference's burns that disagree — range above the ISO 5725-6 critical range f(n)·σr with the method's σr — → `warn`. (ISO 5725-6:1994 §5.2.)
+         *
+         *     Requires the scope `standardizations:write`.
+         */
+        post: operations["createStandardization"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/standardizations/{id}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Get a standardization run with its per-element corrections
+         * @description Requires the scope `standardizations:read`.
+         */
+        get: operations["getStandardization"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/standardizations/{id}/activate": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Activate a run: it becomes the correction set in force
+         * @description Managers and admins only (scope `standardizations:activate`; analysts run standardizations but do not activate them). The set is in force for its instrument and method from `effective_from` (default: now; a later time schedules it; an earlier one is refused) until a later activation takes over. Every burn stored afterwards is corrected with the set in force at its measurement time; results stored before are untouched. Records an audit entry and the event `standardization.activated` in the same transaction.
+         *
+         *     When any element is flagged `fail`, the body must carry `override_reason` (recorded), else 409 with `failing_elements`.
+         *
+         *     Requires the scope `standardizations:activate`.
+         */
+        post: operations["activateStandardization"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/instruments/{id}/drift": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Slope and offset of one element over time
+         * @description One point per standardization run (drafts included, with their flag and activation state), oldest first: the latest `limit` runs in the time window. This is a series for charting, not a paged list. Slopes and offsets are decimal strings; null where the run did not correct the element.
+         *
+         *     Requires the scope `standardizations:read`.
+         */
+        get: operations["getDriftHistory"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/instruments/{id}/corrections": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * The correction sets in force, per method
+         * @description **How a set is applied**
+         *     - Result files and JSON pushes carry concentrations, not intensity ratios, so α·x + β is applied to the concentration of each burn (`applied_to: "concentration"`), which is valid where the analytical curve is linear.
+         *     - Each burn stored after an activation gets the set in force for its instrument and method at its measurement time (`measured_at`, else the sample's creation time): the activated set with the latest `effective_from` at or before that time. Results stored before an activation are never changed by it; `POST /samples/{id}/recompute` applies another set (or none) on request, with a reason, audited.
+         *     - "<" and ">" bounds are corrected like values (α·bound + β; the qualifier flips if α < 0); n.d. stays n.d.
+         *     - A corrected value below 0 is kept, not clamped (clamping would bias the mean and break its linearity), and the result carries the flag `negative_after_correction`; a mean below the detection limit is reported as "<" the limit as usual.
+         *     - Elements the set does not correct keep their measured values. The measured values (`values`, `raw`) and `raw_mean` are always kept.
+         *
+         *     Requires the scope `standardizations:read`.
+         */
+        get: operations["getCorrectionsInForce"];
         put?: never;
         post?: never;
         delete?: never;
@@ -911,7 +1124,7 @@ export interface components {
         /** @enum {string} */
         UserStatus: "invited" | "active" | "disabled";
         /** @enum {string} */
-        Scope: "samples:read" | "samples:write" | "samples:release" | "imports:write" | "instruments:write" | "methods:write" | "standardizations:read" | "standardizations:write" | "grades:read" | "grades:write" | "control:read" | "control:write" | "webhooks:read" | "webhooks:write" | "events:read" | "request-log:read" | "api-keys:read" | "api-keys:write" | "users:read" | "users:write" | "audit:read";
+        Scope: "samples:read" | "samples:write" | "samples:release" | "imports:write" | "instruments:write" | "methods:write" | "standardizations:read" | "standardizations:write" | "standardizations:activate" | "grades:read" | "grades:write" | "control:read" | "control:write" | "webhooks:read" | "webhooks:write" | "events:read" | "request-log:read" | "api-keys:read" | "api-keys:write" | "users:read" | "users:write" | "audit:read";
         LoginRequest: {
             email: string;
             password: string;
@@ -1075,6 +1288,7 @@ export interface components {
              */
             default_unit: "%" | "ppm" | "ppb";
             elements: components["schemas"]["MethodElement"][];
+            drift_limits: components["schemas"]["DriftLimits"];
             /** Format: date-time */
             created_at: string;
             /** Format: date-time */
@@ -1113,6 +1327,19 @@ export interface components {
              */
             repeatability_sd: string | null;
         };
+        /** @description Limits on the distance of a standardization slope from 1, as decimal strings. Defaults warn 0.2, fail 0.5 (a slope outside 0.8–1.2 deserves a look, outside 0.5–1.5 signals trouble): common practice, no source — set them from your own validation data. */
+        DriftLimits: {
+            /**
+             * @description Flag an element `warn` when |slope − 1| is above this.
+             * @example 0.2
+             */
+            warn: string;
+            /**
+             * @description Flag an element `fail` when |slope − 1| is above this; activation then needs an override reason.
+             * @example 0.5
+             */
+            fail: string;
+        };
         CreateMethodRequest: {
             /** @example FE-LA */
             code: string;
@@ -1128,6 +1355,7 @@ export interface components {
              */
             default_unit: "%" | "ppm" | "ppb";
             elements: components["schemas"]["MethodElement"][];
+            drift_limits?: components["schemas"]["DriftLimits"];
         };
         UpdateMethodRequest: {
             name?: string;
@@ -1135,6 +1363,7 @@ export interface components {
             default_unit?: "%" | "ppm" | "ppb";
             /** @description Replaces the element list. Stored results keep the settings they were computed with until recomputed. */
             elements?: components["schemas"]["MethodElement"][];
+            drift_limits?: components["schemas"]["DriftLimits"] & unknown;
         };
         SampleList: {
             data: components["schemas"]["SampleSummary"][];
@@ -1166,6 +1395,7 @@ export interface components {
             /** @description Every flag raised on any element result. */
             flags: string[];
             results: components["schemas"]["ElementResult"][];
+            correction: components["schemas"]["SampleCorrection"];
             created_by: string;
             /** Format: date-time */
             created_at: string;
@@ -1218,6 +1448,28 @@ export interface components {
          * @enum {string}
          */
         OutputUnit: "%" | "ppm" | "ppb";
+        /** @description The drift correction behind `results`; null when no correction set was in force for any burn. */
+        SampleCorrection: {
+            /** @description The correction set applied to every corrected burn; null when none was (recomputed without correction) or when burns measured across an activation used different sets (see `set_ids`). */
+            set_id: string | null;
+            /** @description Every correction set applied to the burns, in burn order. */
+            set_ids: string[];
+            /**
+             * @description Result files and pushes carry concentrations, not intensity ratios, so slope·x + offset is applied to the concentration of each burn (valid where the analytical curve is linear).
+             * @enum {string}
+             */
+            applied_to: "concentration";
+            /**
+             * @description `measurement_time`: at ingest, each burn got the set in force for the instrument and method at its measurement time (else the sample's creation time). `requested`: recomputed on request against the set named (or none), with a reason.
+             * @enum {string}
+             */
+            selection: "measurement_time" | "requested";
+            /** @description Why the sample was recomputed (selection `requested`). */
+            reason: string | null;
+            recomputed_by: string | null;
+            /** Format: date-time */
+            recomputed_at: string | null;
+        } | null;
         Sample: components["schemas"]["SampleSummary"] & {
             burns: components["schemas"]["Burn"][];
             provenance: {
@@ -1242,6 +1494,8 @@ export interface components {
             } | null;
             /** @description Line of the imported file this burn came from. */
             source_line: number | null;
+            /** @description The correction set (standardization) applied to this burn; null when none. */
+            correction_set_id: string | null;
             values: {
                 [key: string]: components["schemas"]["BurnValue"];
             };
@@ -1255,6 +1509,12 @@ export interface components {
             raw: string;
             /** @description The unit it was received in. */
             raw_unit: string;
+            /** @description The value after drift correction (slope·value + offset), in the requested unit; null when no correction set applied to this burn. */
+            corrected: {
+                value: number | null;
+                /** @enum {string|null} */
+                qualifier: "<" | ">" | "nd" | null;
+            } | null;
         };
         PushSampleRequest: {
             /** @example K24-0412-F1 */
@@ -1310,6 +1570,11 @@ export interface components {
         /** @description Exclude a burn from the statistics (it is never deleted), or include it again. The reason is recorded either way. */
         SetBurnExclusionRequest: {
             excluded: boolean;
+            reason: string;
+        };
+        RecomputeSampleRequest: {
+            /** @description An activated standardization of the sample's instrument and method, or null for no correction. */
+            correction_set_id: string | null;
             reason: string;
         };
         ImportProfileList: {
@@ -1707,6 +1972,280 @@ export interface components {
             data: components["schemas"]["Import"][];
             /** @description Pass as `cursor` to get the next page; null on the last page. */
             next_cursor: string | null;
+        };
+        ReferenceMaterialList: {
+            data: components["schemas"]["ReferenceMaterial"][];
+            /** @description Pass as `cursor` to get the next page; null on the last page. */
+            next_cursor: string | null;
+        };
+        /** @description A reference material with its nominal (certified) values, in %. Values are not edited once created: register a new material for a new certificate, so that runs keep the values they used. */
+        ReferenceMaterial: {
+            id: string;
+            code: string;
+            name: string;
+            /** @example Fe */
+            matrix: string;
+            kind: components["schemas"]["ReferenceKind"];
+            values: components["schemas"]["NominalValue"][];
+            certificate: string | null;
+            created_by: string;
+            /** Format: date-time */
+            created_at: string;
+        };
+        /**
+         * @description `high` and `low`: the two levels of a two-point standardization. `type`: a material of similar composition to the samples, for a type standardization. `control`: a control sample (not used to standardize).
+         * @enum {string}
+         */
+        ReferenceKind: "high" | "low" | "type" | "control";
+        NominalValue: {
+            /** @example Mn */
+            element: string;
+            /**
+             * @description Certified value in %, exact decimal string.
+             * @example 0.742
+             */
+            nominal: string;
+            /** @description The value as given. */
+            given: string;
+            /**
+             * @description The unit it was given in.
+             * @enum {string}
+             */
+            unit: "%" | "ppm" | "ppb" | "fraction";
+        };
+        CreateReferenceMaterialRequest: {
+            /** @example KB-FE-HI */
+            code: string;
+            /** @example Kestrel Bend high-level steel setting-up sample */
+            name: string;
+            /**
+             * @description Element symbol; any case is accepted and normalised (MN → Mn).
+             * @example Mn
+             */
+            matrix: string;
+            kind: components["schemas"]["ReferenceKind"];
+            values: components["schemas"]["NominalValueInput"][];
+            /**
+             * @description Certificate number, issuer or link.
+             * @default null
+             * @example In-house, lot 2026-03, see QA file RM-114
+             */
+            certificate: string | null;
+        };
+        NominalValueInput: {
+            /**
+             * @description Element symbol; any case is accepted and normalised (MN → Mn).
+             * @example Mn
+             */
+            element: string;
+            /**
+             * @description Certified value, written as a decimal string so every digit is kept.
+             * @example 0.742
+             */
+            nominal: string;
+            /**
+             * @description Unit of `nominal`; converted exactly to % (1 % = 10 000 ppm = 10 000 000 ppb).
+             * @default %
+             * @enum {string}
+             */
+            unit: "%" | "ppm" | "ppb" | "fraction";
+        };
+        /** @description A standardization run and the correction set it computed, element by element. */
+        Standardization: {
+            /** @description Also the id of the correction set once activated. */
+            id: string;
+            instrument: {
+                id: string;
+                code: string;
+            };
+            method: {
+                id: string;
+                code: string;
+            };
+            mode: components["schemas"]["CorrectionMode"];
+            status: components["schemas"]["StandardizationStatus"];
+            flag: components["schemas"]["CorrectionFlag"];
+            /** @description True when this is the set in force now for its instrument and method. */
+            in_force: boolean;
+            /** Format: date-time */
+            measured_at: string;
+            note: string | null;
+            /** @description For `type`: the set in force that this one was computed on top of. */
+            base_set_id: string | null;
+            activation: {
+                /** Format: date-time */
+                activated_at: string;
+                activated_by: string;
+                /** Format: date-time */
+                effective_from: string;
+                /** @description Given when an element was flagged `fail`. */
+                override_reason: string | null;
+            } | null;
+            measurements: components["schemas"]["StandardizationMeasurement"][];
+            corrections: components["schemas"]["ElementCorrection"][];
+            created_by: string;
+            /** Format: date-time */
+            created_at: string;
+        };
+        /**
+         * @description `two_point`: a `high` and a `low` reference; slope α = (H⁰ − L⁰)/(H − L), offset β = L⁰ − α·L. `one_point_factor`: one reference; α = N/M, β = 0. `one_point_offset`: one reference; α = 1, β = N − M. `type`: one reference of kind `type` (similar composition to the samples), multiplicative, on top of the set in force: t = N/(α₀·M + β₀), stored as α = t·α₀, β = t·β₀. (H⁰, L⁰, N nominal; H, L, M the mean of the reference's burns.)
+         * @enum {string}
+         */
+        CorrectionMode: "two_point" | "one_point_factor" | "one_point_offset" | "type";
+        /** @enum {string} */
+        StandardizationStatus: "draft" | "activated";
+        /**
+         * @description The worst element flag.
+         * @enum {string}
+         */
+        CorrectionFlag: "ok" | "warn" | "fail";
+        StandardizationMeasurement: {
+            reference_material: {
+                id: string;
+                code: string;
+                name: string;
+                kind: components["schemas"]["ReferenceKind"];
+            };
+            burns: {
+                values: {
+                    [key: string]: {
+                        /** @description Canonical value, %, exact decimal string; null for n.d. */
+                        value: string | null;
+                        /** @enum {string|null} */
+                        qualifier: "<" | ">" | "nd" | null;
+                        raw: string;
+                        raw_unit: string;
+                    };
+                };
+            }[];
+            /** @description Exact mean of the numeric burns per element, %. */
+            means: {
+                [key: string]: string;
+            };
+        };
+        ElementCorrection: {
+            /** @example Mn */
+            element: string;
+            /**
+             * @description α as a decimal string (20 significant digits); null when this set does not correct the element (see reasons).
+             * @example 1.0213
+             */
+            slope: string | null;
+            /**
+             * @description β in %, decimal string (20 decimal places at most).
+             * @example -0.0041
+             */
+            offset: string | null;
+            /** @description α of the set in force when the run was computed; null when none corrected the element. */
+            previous_slope: string | null;
+            previous_offset: string | null;
+            flag: components["schemas"]["CorrectionFlag"] & unknown;
+            /** @description One sentence per finding, each explaining itself; empty when `ok`. */
+            reasons: string[];
+            /** @description Nominal and measured value of each reference for this element. */
+            levels: components["schemas"]["ElementLevel"][];
+        };
+        ElementLevel: {
+            reference_material_id: string;
+            code: string;
+            kind: components["schemas"]["ReferenceKind"];
+            /** @description Certified value, %; null when the reference gives none. */
+            nominal: string | null;
+            /** @description Exact mean of the reference's numeric burns, %; null when none measured the element. */
+            measured: string | null;
+            /** @description Numeric burns behind `measured`. */
+            n: number;
+        };
+        CreateStandardizationRequest: {
+            method_id: string;
+            mode: components["schemas"]["CorrectionMode"];
+            /**
+             * Format: date-time
+             * @description When the references were sparked; defaults to now. Not in the future.
+             */
+            measured_at?: string;
+            /**
+             * @description Unit of every burn value; defaults to the method's default unit.
+             * @enum {string}
+             */
+            unit?: "%" | "ppm" | "ppb" | "fraction";
+            note?: string;
+            measurements: components["schemas"]["StandardizationMeasurementInput"][];
+        };
+        StandardizationMeasurementInput: {
+            reference_material_id: string;
+            /** @description The reference's burns, as measured (uncorrected). */
+            burns: {
+                /**
+                 * @example {
+                 *       "C": 0.452,
+                 *       "Mn": 1.498
+                 *     }
+                 */
+                values: {
+                    [key: string]: number | string;
+                };
+            }[];
+        };
+        StandardizationList: {
+            data: components["schemas"]["Standardization"][];
+            /** @description Pass as `cursor` to get the next page; null on the last page. */
+            next_cursor: string | null;
+        };
+        ActivateStandardizationRequest: {
+            /**
+             * Format: date-time
+             * @description When the set takes effect; defaults to the activation time. A later time schedules it; an earlier one is refused (422): results already stored are never changed by an activation.
+             */
+            effective_from?: string;
+            /** @description Required when an element is flagged `fail`; recorded with the activation and in the audit trail. */
+            override_reason?: string;
+        };
+        DriftHistory: {
+            instrument: {
+                id: string;
+                code: string;
+            };
+            element: string;
+            /** @description One point per standardization run, oldest first. */
+            points: components["schemas"]["DriftPoint"][];
+        };
+        DriftPoint: {
+            standardization_id: string;
+            method: {
+                id: string;
+                code: string;
+            };
+            mode: components["schemas"]["CorrectionMode"];
+            /** Format: date-time */
+            measured_at: string;
+            slope: string | null;
+            offset: string | null;
+            flag: components["schemas"]["CorrectionFlag"] & unknown;
+            reasons: string[];
+            status: components["schemas"]["StandardizationStatus"];
+            /** Format: date-time */
+            effective_from: string | null;
+            in_force: boolean;
+        };
+        CorrectionsInForce: {
+            instrument: {
+                id: string;
+                code: string;
+            };
+            /**
+             * Format: date-time
+             * @description The time the sets are in force at.
+             */
+            at: string;
+            /** @description One entry per method that has a set in force; methods without one are left out (their results are not corrected). */
+            data: {
+                method: {
+                    id: string;
+                    code: string;
+                };
+                set: components["schemas"]["Standardization"];
+            }[];
         };
         AuditEventList: {
             data: components["schemas"]["AuditEvent"][];
@@ -4725,6 +5264,121 @@ export interface operations {
             };
         };
     };
+    recomputeSample: {
+        parameters: {
+            query?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["RecomputeSampleRequest"];
+            };
+        };
+        responses: {
+            /** @description The sample with recomputed results. */
+            200: {
+                headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Sample"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `samples:write`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such sample. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The sample is released. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The set does not exist, is a draft, or belongs to another instrument or method. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
     listImportProfiles: {
         parameters: {
             query?: {
@@ -5526,6 +6180,819 @@ export interface operations {
                 };
             };
             /** @description No such import. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    listReferenceMaterials: {
+        parameters: {
+            query?: {
+                /** @description Page size (1–200). */
+                limit?: number;
+                /** @description Opaque cursor from the previous page's `next_cursor`. */
+                cursor?: string;
+                /** @description Element symbol; any case is accepted and normalised (MN → Mn). */
+                matrix?: string;
+                /** @description `high` and `low`: the two levels of a two-point standardization. `type`: a material of similar composition to the samples, for a type standardization. `control`: a control sample (not used to standardize). */
+                kind?: components["schemas"]["ReferenceKind"];
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description A page of reference materials. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ReferenceMaterialList"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `standardizations:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    createReferenceMaterial: {
+        parameters: {
+            query?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["CreateReferenceMaterialRequest"];
+            };
+        };
+        responses: {
+            /** @description Registered. */
+            201: {
+                headers: {
+                    /** @description The new reference material. */
+                    Location?: string;
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ReferenceMaterial"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `standardizations:write`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The code is taken (codes are compared ignoring case). */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    getReferenceMaterial: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The reference material. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ReferenceMaterial"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `standardizations:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such reference material. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    listStandardizations: {
+        parameters: {
+            query?: {
+                /** @description Page size (1–200). */
+                limit?: number;
+                /** @description Opaque cursor from the previous page's `next_cursor`. */
+                cursor?: string;
+                method_id?: string;
+                status?: components["schemas"]["StandardizationStatus"];
+                /** @description `ok`, `warn` (look before activating) or `fail` (activation needs an override reason). */
+                flag?: components["schemas"]["CorrectionFlag"] & unknown;
+            };
+            header?: never;
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description A page of runs. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["StandardizationList"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `standardizations:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such instrument. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    createStandardization: {
+        parameters: {
+            query?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["CreateStandardizationRequest"];
+            };
+        };
+        responses: {
+            /** @description Computed and stored as a draft. */
+            201: {
+                headers: {
+                    /** @description The new standardization. */
+                    Location?: string;
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Standardization"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `standardizations:write`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such instrument. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unknown method or reference material; references that do not fit the mode (e.g. two_point without a high and a low, a control sample, another matrix); or no correction can be computed for an element (H = L): `errors[]` names each. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    getStandardization: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The run. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Standardization"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `standardizations:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such standardization. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    activateStandardization: {
+        parameters: {
+            query?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["ActivateStandardizationRequest"];
+            };
+        };
+        responses: {
+            /** @description Activated. */
+            200: {
+                headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Standardization"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `standardizations:activate`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such standardization. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Already activated; a run measured later is already activated; or an element is flagged `fail` and no `override_reason` was given (`failing_elements` lists them). */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description `effective_from` is in the past. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    getDriftHistory: {
+        parameters: {
+            query: {
+                /** @description Element symbol; any case is accepted and normalised (MN → Mn). */
+                element: string;
+                /** @description Only runs of this method (recommended: slopes of different methods are not comparable). */
+                method_id?: string;
+                since?: string;
+                until?: string;
+                /** @description The latest runs, at most this many (1–1000). */
+                limit?: number;
+            };
+            header?: never;
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The series. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["DriftHistory"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `standardizations:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such instrument. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    getCorrectionsInForce: {
+        parameters: {
+            query?: {
+                /** @description Defaults to now. */
+                at?: string;
+            };
+            header?: never;
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The sets in force. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["CorrectionsInForce"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `standardizations:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such instrument. */
             404: {
                 headers: {
                     [name: string]: unknown;

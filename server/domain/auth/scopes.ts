@@ -9,6 +9,7 @@ export const SCOPES = [
   'methods:write',
   'standardizations:read',
   'standardizations:write',
+  'standardizations:activate',
   'grades:read',
   'grades:write',
   'control:read',
@@ -36,6 +37,8 @@ const ANALYST: Scope[] = [...VIEWER, 'samples:write', 'imports:write', 'standard
 const MANAGER: Scope[] = [
   ...ANALYST,
   'samples:release',
+  // Activating a correction set changes every result measured after it: managers and admins only.
+  'standardizations:activate',
   'instruments:write',
   'methods:write',
   'grades:write',
@@ -67,7 +70,7 @@ export const ROLE_SCOPES: Record<Role, ReadonlySet<Scope>> = {
 
 export const ROLE_DESCRIPTIONS: Record<Role, string> = {
   admin: 'Everything, including users, keys and the audit trail.',
-  manager: 'Lab manager: releases results, sets up instruments, methods and grades, reviews the audit trail.',
+  manager: 'Lab manager: releases results, activates drift corrections, sets up instruments, methods and grades, reviews the audit trail.',
   analyst: 'Imports results, excludes burns, runs standardizations.',
   integrator: 'Plant-system integration: pushes and pulls chemistry, manages webhooks and its keys.',
   viewer: 'Reads results, grades and control charts.',

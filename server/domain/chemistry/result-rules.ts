@@ -18,6 +18,7 @@ export const RESULT_FLAGS = {
   not_detected: 'At least one burn was reported as not detected (counted as "<" the detection limit).',
   conflicting_qualified_burns: 'Burns say both "<" and ">": no bound holds, nothing is reported.',
   limit_missing: 'A burn is qualified without a value (n.d., or "<"/">" alone) and the method sets no limit to bound it: nothing is reported.',
+  negative_after_correction: 'At least one burn is below 0 after drift correction. Corrected values are not clamped to 0 (that would bias the mean and break its linearity); a mean below the detection limit is reported as "<" the limit as usual.',
   not_in_method: 'The method does not list this element; it is averaged anyway, with 4 reporting decimals and no limits.',
 } as const;
 

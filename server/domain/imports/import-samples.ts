@@ -1,5 +1,6 @@
 // From a parsed file to new samples: kinds checked against the trade's list, values kept as
 // written (raw) and canonical (%), issues turned into the report's entries.
+import type { CorrectionTimeline } from '../drift/correction-timeline.ts';
 import type { Method } from '../methods/methods.repository.ts';
 import { SAMPLE_KINDS } from '../samples/samples.schemas.ts';
 import { buildSampleRows, type NewBurn } from '../samples/sample-builder.ts';
@@ -29,7 +30,7 @@ function splitKind(sample: ParsedSample, warnings: ImportIssue[]): { kind: strin
 
 export function buildImportedSamples(
   samples: ParsedSample[],
-  context: { instrumentId: string; method: Method; importId: string; createdBy: string; now: string },
+  context: { instrumentId: string; method: Method; importId: string; createdBy: string; now: string; corrections?: CorrectionTimeline },
   warnings: ImportIssue[],
 ) {
   return samples.map((sample) => {
@@ -48,6 +49,7 @@ export function buildImportedSamples(
         first_line: sample.first_line,
         created_by_label: context.createdBy,
         burns: toNewBurns(sample.burns),
+        corrections: context.corrections,
       },
       context.now,
     );

@@ -11,6 +11,7 @@ import { recordAudit } from '../audit/audit.repository.ts';
 import { findInstrument } from '../instruments/instruments.repository.ts';
 import { assertInstrumentAllowed } from '../instruments/instruments.service.ts';
 import { findMethod, type Method } from '../methods/methods.repository.ts';
+import { timelineLoader } from '../drift/correction-timeline.ts';
 import { storeNewSamples } from '../samples/samples.service.ts';
 import type { ImportIssue, ImportReport } from './import-report.ts';
 import { buildImportedSamples } from './import-samples.ts';
@@ -117,43 +118,46 @@ export async function uploadImport(ctx: AppContext, auth: AuthContext, input: Up
   const id = newId('imp');
   const actor = actorOf(auth);
   const now = nowIso();
-  const warnings: ImportIssue[] = [...parsed.warnings];
-  const built = buildImportedSamples(accepted, { instrumentId: input.instrument_id, method, importId: id, createdBy: actor.label, now }, warnings);
-  const report: ImportReport = {
-    layout: layoutOf(parsed),
-    counts: {
-      rows: parsed.counts.rows,
-      samples_created: built.length,
-      samples_rejected: parsed.samples.length - accepted.length,
-      lines_rejected: new Set(parsed.rejected.map((issue) => issue.line)).size,
-      burns: built.reduce((sum, b) => sum + b.burns.length, 0),
-      values: accepted.reduce((sum, s) => sum + s.burns.reduce((n, b) => n + Object.keys(b.values).length, 0), 0),
-    },
-    sample_ids: built.map((b) => b.sample.id),
-    warnings,
-    rejected: parsed.rejected,
-  };
-  const row = {
-    id,
-    instrument_id: input.instrument_id,
-    method_id: input.method_id,
-    profile_id: input.profile_id ?? null,
-    file_name: input.file.originalname.slice(0, 255) || 'upload',
-    content_type: (input.file.mimetype || 'application/octet-stream').slice(0, 100),
-    size_bytes: input.file.size,
-    sha256,
-    content: input.file.buffer,
-    mode: input.mode,
-    report_json: JSON.stringify(report),
-    created_by_type: actor.type,
-    created_by_id: actor.id,
-    created_by_label: actor.label,
-    created_at: now,
-  };
-  await ctx.db.transaction(async (trx) => {
+  const row = await ctx.db.transaction(async (trx) => {
+    // The correction sets are read in the storing transaction: an activation lands wholly before or after.
+    const corrections = await timelineLoader(trx)(input.instrument_id, method.id);
+    const warnings: ImportIssue[] = [...parsed.warnings];
+    const built = buildImportedSamples(accepted, { instrumentId: input.instrument_id, method, importId: id, createdBy: actor.label, now, corrections }, warnings);
+    const report: ImportReport = {
+      layout: layoutOf(parsed),
+      counts: {
+        rows: parsed.counts.rows,
+        samples_created: built.length,
+        samples_rejected: parsed.samples.length - accepted.length,
+        lines_rejected: new Set(parsed.rejected.map((issue) => issue.line)).size,
+        burns: built.reduce((sum, b) => sum + b.burns.length, 0),
+        values: accepted.reduce((sum, s) => sum + s.burns.reduce((n, b) => n + Object.keys(b.values).length, 0), 0),
+      },
+      sample_ids: built.map((b) => b.sample.id),
+      warnings,
+      rejected: parsed.rejected,
+    };
+    const row = {
+      id,
+      instrument_id: input.instrument_id,
+      method_id: input.method_id,
+      profile_id: input.profile_id ?? null,
+      file_name: input.file.originalname.slice(0, 255) || 'upload',
+      content_type: (input.file.mimetype || 'application/octet-stream').slice(0, 100),
+      size_bytes: input.file.size,
+      sha256,
+      content: input.file.buffer,
+      mode: input.mode,
+      report_json: JSON.stringify(report),
+      created_by_type: actor.type,
+      created_by_id: actor.id,
+      created_by_label: actor.label,
+      created_at: now,
+    };
     await insertImport(trx, row);
     await storeNewSamples(trx, built, actor, requestId, { auditEach: false });
     await recordAudit(trx, { actor, requestId, action: 'import.completed', targetType: 'import', targetId: id, after: { file_name: row.file_name, sha256, mode: input.mode, counts: report.counts } });
+    return row;
   });
   const { content: _content, ...meta } = row;
   return { created: true, record: toImport(meta) };

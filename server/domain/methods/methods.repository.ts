@@ -13,6 +13,15 @@ export interface MethodElement {
   repeatability_sd: string | null;
 }
 
+/** Limits on |slope − 1| of a standardization, as decimal strings. */
+export interface DriftLimits {
+  warn: string;
+  fail: string;
+}
+
+/** Common practice, no source: a slope more than 20 % from 1 deserves a look, more than 50 % is trouble. */
+export const DEFAULT_DRIFT_LIMITS: DriftLimits = { warn: '0.2', fail: '0.5' };
+
 export interface MethodRow {
   id: string;
   code: string;
@@ -20,22 +29,25 @@ export interface MethodRow {
   matrix: string;
   default_unit: OutputUnit;
   elements_json: string;
+  /** DriftLimits as JSON; null = DEFAULT_DRIFT_LIMITS. */
+  drift_limits_json?: string | null;
   created_at: string;
   updated_at: string;
 }
 
-export interface Method extends Omit<MethodRow, 'elements_json'> {
+export interface Method extends Omit<MethodRow, 'elements_json' | 'drift_limits_json'> {
   elements: MethodElement[];
+  drift_limits: DriftLimits;
 }
 
 export function toMethod(row: MethodRow): Method {
-  const { elements_json, ...rest } = row;
-  return { ...rest, elements: JSON.parse(elements_json) as MethodElement[] };
+  const { elements_json, drift_limits_json, ...rest } = row;
+  return { ...rest, elements: JSON.parse(elements_json) as MethodElement[], drift_limits: drift_limits_json ? (JSON.parse(drift_limits_json) as DriftLimits) : DEFAULT_DRIFT_LIMITS };
 }
 
 export function toMethodRow(method: Method): MethodRow {
-  const { elements, ...rest } = method;
-  return { ...rest, elements_json: JSON.stringify(elements) };
+  const { elements, drift_limits, ...rest } = method;
+  return { ...rest, elements_json: JSON.stringify(elements), drift_limits_json: JSON.stringify(drift_limits) };
 }
 
 export async function findMethod(db: Queryable, id: string): Promise<Method | undefined> {

@@ -34,6 +34,20 @@ export const MethodElementSchema = z
   })
   .openapi('MethodElement');
 
+export const DriftLimitsSchema = z
+  .object({
+    warn: DecimalString.openapi({ description: 'Flag an element `warn` when |slope − 1| is above this.', example: '0.2' }),
+    fail: DecimalString.openapi({ description: 'Flag an element `fail` when |slope − 1| is above this; activation then needs an override reason.', example: '0.5' }),
+  })
+  .refine((limits) => !/^\d+(\.\d+)?$/.test(limits.warn) || !/^\d+(\.\d+)?$/.test(limits.fail) || Number(limits.warn) <= Number(limits.fail), {
+    message: 'warn must not be above fail',
+    path: ['fail'],
+  })
+  .openapi('DriftLimits', {
+    description:
+      'Limits on the distance of a standardization slope from 1, as decimal strings. Defaults warn 0.2, fail 0.5 (a slope outside 0.8–1.2 deserves a look, outside 0.5–1.5 signals trouble): common practice, no source — set them from your own validation data.',
+  });
+
 const elementList = z
   .array(MethodElementSchema)
   .min(1)
@@ -59,6 +73,7 @@ export const MethodSchema = z
     matrix: z.string().openapi({ description: 'Base element of the alloys measured (Fe, Al, Cu, Ni, Zn …).', example: 'Fe' }),
     default_unit: z.enum(OUTPUT_UNITS).openapi({ description: 'Unit assumed for pushed values that do not say theirs.' }),
     elements: z.array(MethodElementSchema),
+    drift_limits: DriftLimitsSchema,
     created_at: z.string().openapi({ format: 'date-time' }),
     updated_at: z.string().openapi({ format: 'date-time' }),
   })
@@ -75,6 +90,7 @@ export const CreateMethodRequestSchema = z
     matrix: ElementSymbolSchema,
     default_unit: z.enum(OUTPUT_UNITS).default('%'),
     elements: elementList,
+    drift_limits: DriftLimitsSchema.default({ warn: '0.2', fail: '0.5' }),
   })
   .openapi('CreateMethodRequest');
 
@@ -83,6 +99,7 @@ export const UpdateMethodRequestSchema = z
     name: z.string().trim().min(1).max(200).optional(),
     default_unit: z.enum(OUTPUT_UNITS).optional(),
     elements: elementList.optional().openapi({ description: 'Replaces the element list. Stored results keep the settings they were computed with until recomputed.' }),
+    drift_limits: DriftLimitsSchema.optional().openapi({ description: 'Applies to standardizations run from now on; earlier runs keep their flags.' }),
   })
-  .refine((value) => Object.keys(value).length > 0, 'give at least one of name, default_unit, elements')
+  .refine((value) => Object.keys(value).length > 0, 'give at least one of name, default_unit, elements, drift_limits')
   .openapi('UpdateMethodRequest');

@@ -8,7 +8,7 @@ import { nowIso } from '../../lib/time.ts';
 import { actorOf } from '../audit/actor.ts';
 import { recordAudit } from '../audit/audit.repository.ts';
 import type { OutputUnit } from '../chemistry/units.ts';
-import { findMethod, findMethodByCode, insertMethod, type Method, type MethodElement, updateMethodRow } from './methods.repository.ts';
+import { type DriftLimits, findMethod, findMethodByCode, insertMethod, type Method, type MethodElement, updateMethodRow } from './methods.repository.ts';
 
 export interface MethodInput {
   code: string;
@@ -16,6 +16,7 @@ export interface MethodInput {
   matrix: string;
   default_unit: OutputUnit;
   elements: MethodElement[];
+  drift_limits: DriftLimits;
 }
 
 export async function getMethod(ctx: AppContext, id: string): Promise<Method> {
@@ -39,7 +40,7 @@ export async function updateMethod(
   ctx: AppContext,
   auth: AuthContext,
   id: string,
-  changes: Partial<Pick<Method, 'name' | 'default_unit' | 'elements'>>,
+  changes: Partial<Pick<Method, 'name' | 'default_unit' | 'elements' | 'drift_limits'>>,
   requestId?: string,
 ): Promise<Method> {
   return ctx.db.transaction(async (trx) => {

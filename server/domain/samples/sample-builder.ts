@@ -1,5 +1,8 @@
-// Builds the rows of a new sample (pushed or imported): burns as received, results computed.
+// Builds the rows of a new sample (pushed or imported): burns as received, corrected with the
+// correction set in force at each burn's measurement time (else the sample's creation time), and
+// results computed from the corrected values (raw_mean from the values as measured).
 import { newId } from '../../lib/ids.ts';
+import { correctBurn, type CorrectionTimeline, ingestCorrection } from '../drift/correction-timeline.ts';
 import type { Method } from '../methods/methods.repository.ts';
 import { computeSampleResults } from './sample-results.ts';
 import type { BurnRow, RawCell, SampleRow, StoredCell } from './samples.repository.ts';
@@ -25,14 +28,19 @@ export interface NewSample {
   first_line?: number | null;
   created_by_label: string;
   burns: NewBurn[];
+  /** The instrument's and method's activated correction sets; absent or empty = no correction. */
+  corrections?: CorrectionTimeline;
 }
 
 export function buildSampleRows(input: NewSample, now: string): { sample: SampleRow; burns: BurnRow[] } {
   const id = newId('smp');
+  const timeline = input.corrections;
+  const corrected = input.burns.map((b) => correctBurn(b.values, timeline ? timeline.at(b.measured_at ?? now) : null));
   const { results, flags } = computeSampleResults(
-    input.burns.map((b) => ({ excluded: false, values: b.values })),
+    input.burns.map((b, i) => ({ excluded: false, values: b.values, corrected: corrected[i].corrected })),
     input.method,
   );
+  const correction = ingestCorrection(corrected);
   return {
     sample: {
       id,
@@ -49,11 +57,12 @@ export function buildSampleRows(input: NewSample, now: string): { sample: Sample
       first_line: input.first_line ?? null,
       results_json: JSON.stringify(results),
       flags_json: JSON.stringify(flags),
+      correction_json: correction && JSON.stringify(correction),
       created_by_label: input.created_by_label,
       created_at: now,
       updated_at: now,
     },
-    burns: input.burns.map((burn) => ({
+    burns: input.burns.map((burn, i) => ({
       id: newId('brn'),
       sample_id: id,
       burn_number: burn.burn_number,
@@ -65,6 +74,8 @@ export function buildSampleRows(input: NewSample, now: string): { sample: Sample
       excluded_by: null,
       excluded_at: null,
       source_line: burn.source_line ?? null,
+      correction_set_id: corrected[i].correction_set_id,
+      corrected_json: corrected[i].corrected && JSON.stringify(corrected[i].corrected),
     })),
   };
 }

@@ -1,7 +1,7 @@
 // Turns a sample's included burns into per-element results, in the method's element order.
 // Elements the method does not list are still averaged (nothing measured is dropped) with
 // DEFAULT_DECIMALS and the flag `not_in_method`.
-import { type BurnCell, computeElementResult, type ResultFlag } from '../chemistry/element-result.ts';
+import { type BurnCell, computeElementResult, RESULT_FLAG_NAMES, type ResultFlag } from '../chemistry/element-result.ts';
 import type { Method, MethodElement } from '../methods/methods.repository.ts';
 import type { StoredCell, StoredResult } from './samples.repository.ts';
 
@@ -12,8 +12,8 @@ export interface BurnForResults {
   excluded: boolean;
   /** Canonical values as measured. */
   values: Record<string, StoredCell>;
-  /** Values after drift correction; absent when no correction applies. */
-  corrected?: Record<string, StoredCell>;
+  /** Values after drift correction; absent (or null) when no correction applies. */
+  corrected?: Record<string, StoredCell> | null;
 }
 
 function settingsFor(method: Method, element: string): { settings: MethodElement; inMethod: boolean } {
@@ -45,11 +45,15 @@ export function computeSampleResults(burns: BurnForResults[], method: Method): {
     const raw = included.some((b) => b.corrected)
       ? computeElementResult({ element, cells: included.map((b) => toCell(b.values[element])), settings }).mean
       : corrected.mean;
+    const extra: ResultFlag[] = [];
+    if (!inMethod) extra.push('not_in_method');
+    // Corrected values are kept below 0 rather than clamped (see RESULT_FLAGS); the flag says so.
+    if (included.some((b) => b.corrected?.[element]?.v?.startsWith('-'))) extra.push('negative_after_correction');
     results.push({
       ...corrected,
       raw_mean: raw,
       decimals: settings.decimals,
-      flags: inMethod ? corrected.flags : [...corrected.flags, 'not_in_method' satisfies ResultFlag],
+      flags: extra.length ? RESULT_FLAG_NAMES.filter((f) => corrected.flags.includes(f) || extra.includes(f)) : corrected.flags,
     });
   }
   const flags = [...new Set(results.flatMap((r) => r.flags))].sort();

@@ -3,6 +3,7 @@ import type { Knex } from 'knex';
 import type { AuthContext } from '../../http/request-context.ts';
 import { convertResult, reportingDecimals } from '../chemistry/result-units.ts';
 import { fromPercent, type OutputUnit } from '../chemistry/units.ts';
+import type { SampleCorrection } from '../drift/correction-timeline.ts';
 import { findImportMeta } from '../imports/imports.repository.ts';
 import { loadSample } from './samples.service.ts';
 import { type BurnRow, findBurns, type RawCell, type SampleRowWithRefs, type StoredCell, type StoredResult } from './samples.repository.ts';
@@ -33,6 +34,13 @@ export function toResultView(stored: StoredResult, unit: OutputUnit) {
   };
 }
 
+/** The stored correction record as the API shows it; set_id only when one set served every corrected burn. */
+export function toCorrectionView(json: string | null) {
+  if (!json) return null;
+  const stored = JSON.parse(json) as SampleCorrection;
+  return { set_id: stored.set_ids.length === 1 ? stored.set_ids[0] : null, ...stored };
+}
+
 export function toSampleSummary(row: SampleRowWithRefs, unit: OutputUnit) {
   const results = JSON.parse(row.results_json) as StoredResult[];
   return {
@@ -50,6 +58,7 @@ export function toSampleSummary(row: SampleRowWithRefs, unit: OutputUnit) {
     burn_count: Number(row.burn_count),
     flags: JSON.parse(row.flags_json) as string[],
     results: results.map((r) => toResultView(r, unit)),
+    correction: toCorrectionView(row.correction_json),
     created_by: row.created_by_label,
     created_at: row.created_at,
     updated_at: row.updated_at,
@@ -59,16 +68,25 @@ export function toSampleSummary(row: SampleRowWithRefs, unit: OutputUnit) {
 export function toBurnView(burn: BurnRow, unit: OutputUnit) {
   const values = JSON.parse(burn.values_json) as Record<string, StoredCell>;
   const raw = JSON.parse(burn.raw_json) as Record<string, RawCell>;
+  const corrected = burn.corrected_json ? (JSON.parse(burn.corrected_json) as Record<string, StoredCell>) : null;
+  const inUnit = (v: string | null) => (v === null ? null : Number(fromPercent(v, unit)));
   return {
     number: burn.burn_number,
     measured_at: burn.measured_at,
     excluded: Boolean(burn.excluded),
     exclusion: burn.exclusion_reason ? { reason: burn.exclusion_reason, by: burn.excluded_by ?? '', at: burn.excluded_at ?? '' } : null,
     source_line: burn.source_line,
+    correction_set_id: burn.correction_set_id ?? null,
     values: Object.fromEntries(
       Object.entries(values).map(([element, cell]) => [
         element,
-        { value: cell.v === null ? null : Number(fromPercent(cell.v, unit)), qualifier: cell.q, raw: raw[element]?.raw ?? '', raw_unit: raw[element]?.unit ?? '%' },
+        {
+          value: inUnit(cell.v),
+          qualifier: cell.q,
+          raw: raw[element]?.raw ?? '',
+          raw_unit: raw[element]?.unit ?? '%',
+          corrected: corrected?.[element] ? { value: inUnit(corrected[element].v), qualifier: corrected[element].q } : null,
+        },
       ]),
     ),
   };

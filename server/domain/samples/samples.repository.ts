@@ -39,6 +39,8 @@ export interface SampleRow {
   first_line: number | null;
   results_json: string;
   flags_json: string;
+  /** SampleCorrection as JSON (server/domain/drift/correction-timeline.ts); null = no correction applied. */
+  correction_json: string | null;
   created_by_label: string;
   created_at: string;
   updated_at: string;
@@ -62,6 +64,9 @@ export interface BurnRow {
   excluded_by: string | null;
   excluded_at: string | null;
   source_line: number | null;
+  /** The correction set applied to this burn, and its values after correction (values_json shape). */
+  correction_set_id: string | null;
+  corrected_json: string | null;
 }
 
 const INSERT_CHUNK = 200;
@@ -95,7 +100,7 @@ export async function updateBurn(db: Queryable, id: string, changes: Partial<Bur
   await db<BurnRow>('burns').where({ id }).update(changes);
 }
 
-export async function updateSampleResults(db: Queryable, id: string, changes: Pick<SampleRow, 'results_json' | 'flags_json' | 'updated_at'>): Promise<void> {
+export async function updateSampleResults(db: Queryable, id: string, changes: Pick<SampleRow, 'results_json' | 'flags_json' | 'updated_at'> & Partial<Pick<SampleRow, 'correction_json'>>): Promise<void> {
   await db<SampleRow>('samples').where({ id }).update(changes);
 }
 

@@ -70,6 +70,10 @@ export const BurnValueSchema = z
     qualifier: z.enum(['<', '>', 'nd']).nullable(),
     raw: z.string().openapi({ description: 'The value exactly as received.' }),
     raw_unit: z.string().openapi({ description: 'The unit it was received in.' }),
+    corrected: z
+      .object({ value: z.number().nullable(), qualifier: z.enum(['<', '>', 'nd']).nullable() })
+      .nullable()
+      .openapi({ description: 'The value after drift correction (slope·value + offset), in the requested unit; null when no correction set applied to this burn.' }),
   })
   .openapi('BurnValue');
 
@@ -80,11 +84,24 @@ export const BurnSchema = z
     excluded: z.boolean(),
     exclusion: z.object({ reason: z.string(), by: z.string(), at: z.string() }).nullable(),
     source_line: z.number().int().nullable().openapi({ description: 'Line of the imported file this burn came from.' }),
+    correction_set_id: z.string().nullable().openapi({ description: 'The correction set (standardization) applied to this burn; null when none.' }),
     values: z.record(z.string(), BurnValueSchema),
   })
   .openapi('Burn');
 
 const ref = z.object({ id: z.string(), code: z.string() });
+
+export const SampleCorrectionSchema = z
+  .object({
+    set_id: z.string().nullable().openapi({ description: 'The correction set applied to every corrected burn; null when none was (recomputed without correction) or when burns measured across an activation used different sets (see `set_ids`).' }),
+    set_ids: z.array(z.string()).openapi({ description: 'Every correction set applied to the burns, in burn order.' }),
+    applied_to: z.literal('concentration').openapi({ description: 'Result files and pushes carry concentrations, not intensity ratios, so slope·x + offset is applied to the concentration of each burn (valid where the analytical curve is linear).' }),
+    selection: z.enum(['measurement_time', 'requested']).openapi({ description: '`measurement_time`: at ingest, each burn got the set in force for the instrument and method at its measurement time (else the sample\'s creation time). `requested`: recomputed on request against the set named (or none), with a reason.' }),
+    reason: z.string().nullable().openapi({ description: 'Why the sample was recomputed (selection `requested`).' }),
+    recomputed_by: z.string().nullable(),
+    recomputed_at: z.string().nullable().openapi({ format: 'date-time' }),
+  })
+  .openapi('SampleCorrection', { description: 'Which drift correction produced the results. Raw values and `raw_mean` are always kept, so results can be recomputed.' });
 
 export const SampleSummarySchema = z
   .object({
@@ -102,6 +119,7 @@ export const SampleSummarySchema = z
     burn_count: z.number().int(),
     flags: z.array(z.string()).openapi({ description: 'Every flag raised on any element result.' }),
     results: z.array(ResultSchema),
+    correction: SampleCorrectionSchema.nullable().openapi({ description: 'The drift correction behind `results`; null when no correction set was in force for any burn.' }),
     created_by: z.string(),
     created_at: z.string().openapi({ format: 'date-time' }),
     updated_at: z.string().openapi({ format: 'date-time' }),

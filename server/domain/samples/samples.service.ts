@@ -4,6 +4,7 @@ import type { Knex } from 'knex';
 import type { AppContext } from '../../context.ts';
 import { ConflictProblem, type FieldError, NotFoundProblem, UnprocessableProblem, ValidationProblem } from '../../http/problem.ts';
 import type { AuthContext } from '../../http/request-context.ts';
+import { parseJsonColumn } from '../../lib/json.ts';
 import { nowIso } from '../../lib/time.ts';
 import { type Actor, actorOf } from '../audit/actor.ts';
 import { recordAudit } from '../audit/audit.repository.ts';
@@ -11,6 +12,7 @@ import type { Unit } from '../chemistry/units.ts';
 import { assertInstrumentAllowed } from '../instruments/instruments.service.ts';
 import { findInstrument } from '../instruments/instruments.repository.ts';
 import { findMethod, type Method } from '../methods/methods.repository.ts';
+import { timelineLoader } from '../drift/correction-timeline.ts';
 import { normalisePushedBurns, type PushedBurn } from './pushed-sample.ts';
 import { buildSampleRows } from './sample-builder.ts';
 import { computeSampleResults } from './sample-results.ts';
@@ -54,15 +56,23 @@ export async function pushSamples(ctx: AppContext, auth: AuthContext, samples: P
   const errors: FieldError[] = [];
   const now = nowIso();
   const actor = actorOf(auth);
-  const built = samples.map((sample, i) => {
+  const normalised = samples.map((sample, i) => {
     const method = methods.get(sample.method_id)!;
-    const burns = normalisePushedBurns(sample.burns, sample.unit ?? method.default_unit, `${location(i)}.burns`, errors);
-    return buildSampleRows({ ...sample, method, source: 'push', created_by_label: actor.label, burns }, now);
+    return { sample, method, burns: normalisePushedBurns(sample.burns, sample.unit ?? method.default_unit, `${location(i)}.burns`, errors) };
   });
   if (errors.length) throw new ValidationProblem(errors, 'Some values cannot be read; see errors[] for each one. Nothing was stored.');
 
-  await ctx.db.transaction((trx) => storeNewSamples(trx, built, actor, requestId));
-  return built.map((b) => b.sample.id);
+  return ctx.db.transaction(async (trx) => {
+    // The correction sets are read in the storing transaction: an activation lands wholly before or after.
+    const timelineOf = timelineLoader(trx);
+    const built = [];
+    for (const { sample, method, burns } of normalised) {
+      const corrections = await timelineOf(sample.instrument_id, method.id);
+      built.push(buildSampleRows({ ...sample, method, source: 'push', created_by_label: actor.label, burns, corrections }, now));
+    }
+    await storeNewSamples(trx, built, actor, requestId);
+    return built.map((b) => b.sample.id);
+  });
 }
 
 /** Inserts built samples and audits each one; runs inside the caller's transaction. */
@@ -115,8 +125,9 @@ export async function setBurnExclusion(ctx: AppContext, auth: AuthContext, sampl
     const actor = actorOf(auth);
     const updated: BurnRow = { ...burn, excluded: change.excluded, exclusion_reason: change.reason, excluded_by: actor.label, excluded_at: now };
     const next = burns.map((b) => (b.id === burn.id ? updated : b));
+    // The burns keep the correction they were stored with: excluding one never changes the set applied.
     const { results, flags } = computeSampleResults(
-      next.map((b) => ({ excluded: Boolean(b.excluded), values: JSON.parse(b.values_json) })),
+      next.map((b) => ({ excluded: Boolean(b.excluded), values: JSON.parse(b.values_json), corrected: parseJsonColumn(b.corrected_json) })),
       method!,
     );
     await updateBurn(trx, burn.id, { excluded: change.excluded, exclusion_reason: change.reason, excluded_by: actor.label, excluded_at: now });

@@ -2,6 +2,7 @@ import type { AnyRoute } from '../../http/route.ts';
 import { apiKeyRoutes } from './api-keys.ts';
 import { auditRoutes } from './audit-events.ts';
 import { authRoutes } from './auth.ts';
+import { driftRoutes } from './drift.ts';
 import { healthRoutes } from './health.ts';
 import { importProfileRoutes } from './import-profiles.ts';
 import { importRoutes } from './imports.ts';
@@ -9,8 +10,11 @@ import { instrumentRoutes } from './instruments.ts';
 import { methodRoutes } from './methods.ts';
 import { openApiRoutes } from './openapi.ts';
 import { outboxRoutes } from './outbox.ts';
+import { referenceMaterialRoutes } from './reference-materials.ts';
 import { requestLogRoutes } from './request-log.ts';
+import { sampleRecomputeRoutes } from './sample-recompute.ts';
 import { sampleRoutes } from './samples.ts';
+import { standardizationRoutes } from './standardizations.ts';
 import { userRoutes } from './users.ts';
 
 /** Every /api/v1 operation. The OpenAPI document and the Express router are both built from this list. */
@@ -23,8 +27,12 @@ export const v1Routes: AnyRoute[] = [
   ...instrumentRoutes,
   ...methodRoutes,
   ...sampleRoutes,
+  ...sampleRecomputeRoutes,
   ...importProfileRoutes,
   ...importRoutes,
+  ...referenceMaterialRoutes,
+  ...standardizationRoutes,
+  ...driftRoutes,
   ...auditRoutes,
   ...requestLogRoutes,
   ...outboxRoutes,

@@ -1,0 +1,55 @@
+// Stored standardization runs → API representations.
+import type { Knex } from 'knex';
+import { nowIso } from '../../lib/time.ts';
+import { findSetInForce, type ElementCorrection, type StandardizationRowWithRefs, type StoredMeasurement } from './standardizations.repository.ts';
+
+type Queryable = Knex | Knex.Transaction;
+
+export function toStandardizationView(row: StandardizationRowWithRefs, inForceId: string | null) {
+  const measurements = JSON.parse(row.measurements_json) as StoredMeasurement[];
+  return {
+    id: row.id,
+    instrument: { id: row.instrument_id, code: row.instrument_code },
+    method: { id: row.method_id, code: row.method_code },
+    mode: row.mode,
+    status: row.status,
+    flag: row.flag,
+    in_force: row.id === inForceId,
+    measured_at: row.measured_at,
+    note: row.note,
+    base_set_id: row.base_set_id,
+    activation:
+      row.status === 'activated'
+        ? { activated_at: row.activated_at as string, activated_by: row.activated_by_label ?? '', effective_from: row.effective_from as string, override_reason: row.override_reason }
+        : null,
+    measurements: measurements.map((m) => ({
+      reference_material: m.reference_material,
+      burns: m.burns.map((b) => ({
+        values: Object.fromEntries(
+          Object.entries(b.values).map(([element, cell]) => [element, { value: cell.v, qualifier: cell.q, raw: b.raw[element]?.raw ?? '', raw_unit: b.raw[element]?.unit ?? '%' }]),
+        ),
+      })),
+      means: m.means,
+    })),
+    corrections: JSON.parse(row.corrections_json) as ElementCorrection[],
+    created_by: row.created_by_label,
+    created_at: row.created_at,
+  };
+}
+
+export type StandardizationView = ReturnType<typeof toStandardizationView>;
+
+/** The id of the set in force now for each (instrument, method) pair among the rows, each looked up once. */
+export async function inForceIds(db: Queryable, rows: readonly StandardizationRowWithRefs[], at = nowIso()): Promise<Map<string, string | null>> {
+  const ids = new Map<string, string | null>();
+  for (const row of rows) {
+    const key = `${row.instrument_id}|${row.method_id}`;
+    if (!ids.has(key)) ids.set(key, (await findSetInForce(db, row.instrument_id, row.method_id, at))?.id ?? null);
+  }
+  return ids;
+}
+
+export async function toStandardizationViews(db: Queryable, rows: readonly StandardizationRowWithRefs[]) {
+  const ids = await inForceIds(db, rows);
+  return rows.map((row) => toStandardizationView(row, ids.get(`${row.instrument_id}|${row.method_id}`) ?? null));
+}

@@ -1,0 +1,59 @@
+// The only code that touches the events table: an append-only record of what happened, written in
+// the caller's transaction so that an event exists exactly when its change was committed. Any
+// feature records its events here; the change feed and webhook delivery will read them.
+import type { Knex } from 'knex';
+import { newId } from '../../lib/ids.ts';
+import { nowIso } from '../../lib/time.ts';
+
+type Queryable = Knex | Knex.Transaction;
+
+/** Event types (also the future webhook types), `resource.happening`. */
+export const EVENT_TYPES = [
+  'sample.created',
+  'sample.released',
+  'sample.amended',
+  'sample.out_of_spec',
+  'import.completed',
+  'import.failed',
+  'standardization.flagged',
+  'standardization.activated',
+  'control.out_of_control',
+] as const;
+
+export type EventType = (typeof EVENT_TYPES)[number];
+
+export interface EventRow {
+  id: string;
+  type: string;
+  occurred_at: string;
+  data_json: string;
+}
+
+export interface DomainEvent<T = unknown> {
+  id: string;
+  type: EventType;
+  occurred_at: string;
+  data: T;
+}
+
+/** Appends one event inside the caller's transaction and returns it. */
+export async function recordEvent<T>(trx: Knex.Transaction, type: EventType, data: T, occurredAt = nowIso()): Promise<DomainEvent<T>> {
+  const event = { id: newId('evt'), type, occurred_at: occurredAt, data };
+  await trx<EventRow>('events').insert({ id: event.id, type, occurred_at: occurredAt, data_json: JSON.stringify(data) });
+  return event;
+}
+
+/** Oldest first, after an optional (occurred_at, id) position; fetches limit + 1 rows. */
+export async function listEvents(db: Queryable, filters: { type?: EventType; after?: { occurred_at: string; id: string }; limit: number }): Promise<DomainEvent[]> {
+  const query = db<EventRow>('events').orderBy([
+    { column: 'occurred_at', order: 'asc' },
+    { column: 'id', order: 'asc' },
+  ]);
+  if (filters.type) query.where('type', filters.type);
+  if (filters.after) {
+    const { occurred_at, id } = filters.after;
+    query.where((w) => w.where('occurred_at', '>', occurred_at).orWhere((x) => x.where('occurred_at', occurred_at).andWhere('id', '>', id)));
+  }
+  const rows = await query.limit(filters.limit + 1);
+  return rows.map((row) => ({ id: row.id, type: row.type as EventType, occurred_at: row.occurred_at, data: JSON.parse(row.data_json) }));
+}

@@ -1,0 +1,97 @@
+import { activateStandardization } from '../../domain/drift/activation.service.ts';
+import { CORRECTION_FLAGS_DOC, CORRECTION_MATH_DOC } from '../../domain/drift/drift-docs.ts';
+import { toStandardizationViews } from '../../domain/drift/standardization-view.ts';
+import {
+  ActivateStandardizationRequestSchema,
+  CreateStandardizationRequestSchema,
+  InstrumentStandardizationParams,
+  StandardizationIdParams,
+  StandardizationListQuerySchema,
+  StandardizationListSchema,
+  StandardizationSchema,
+} from '../../domain/drift/standardizations.schemas.ts';
+import { listStandardizationRows } from '../../domain/drift/standardizations.repository.ts';
+import { createStandardization, getStandardization } from '../../domain/drift/standardizations.service.ts';
+import { getInstrument } from '../../domain/instruments/instruments.service.ts';
+import { decodeCursor, encodeCursor } from '../../http/pagination.ts';
+import { defineRoute } from '../../http/route.ts';
+
+export const standardizationRoutes = [
+  defineRoute({
+    method: 'post',
+    path: '/instruments/{id}/standardizations',
+    operationId: 'createStandardization',
+    summary: 'Run a standardization: per-element corrections from reference burns',
+    description:
+      'Send the burns of each reference material as measured (uncorrected), in `unit` (default: the method\'s). The run is stored as a `draft` with a correction per element of the method, its flag and reasons, and the slope and offset of the set in force for comparison; it changes nothing until activated (`POST /standardizations/{id}/activate`). A run with any `warn` or `fail` element records the event `standardization.flagged`. Burns are entered as JSON; reading them from a result file is not offered yet.\n\n' +
+      `${CORRECTION_MATH_DOC}\n\n${CORRECTION_FLAGS_DOC}`,
+    tag: 'Drift correction',
+    access: { scope: 'standardizations:write' },
+    params: InstrumentStandardizationParams,
+    body: CreateStandardizationRequestSchema,
+    responses: {
+      201: { description: 'Computed and stored as a draft.', schema: StandardizationSchema, headers: { Location: 'The new standardization.' } },
+      404: { description: 'No such instrument.' },
+      422: { description: 'Unknown method or reference material; references that do not fit the mode (e.g. two_point without a high and a low, a control sample, another matrix); or no correction can be computed for an element (H = L): `errors[]` names each.' },
+    },
+    async handler({ params, body, auth, req, res, ctx }) {
+      const run = await createStandardization(ctx, auth, params.id, body, req.requestId);
+      res.status(201).location(`/api/v1/standardizations/${run.id}`).json(run);
+    },
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/instruments/{id}/standardizations',
+    operationId: 'listStandardizations',
+    summary: 'List an instrument\'s standardization runs',
+    description: 'Newest measurement first.',
+    tag: 'Drift correction',
+    access: { scope: 'standardizations:read' },
+    params: InstrumentStandardizationParams,
+    query: StandardizationListQuerySchema,
+    responses: { 200: { description: 'A page of runs.', schema: StandardizationListSchema }, 404: { description: 'No such instrument.' } },
+    async handler({ params, query, auth, res, ctx }) {
+      await getInstrument(ctx, auth, params.id);
+      const after = query.cursor ? decodeCursor<{ t: string; id: string }>(query.cursor, ['t', 'id']) : undefined;
+      const rows = await listStandardizationRows(ctx.db, { instrumentId: params.id, methodId: query.method_id, status: query.status, flag: query.flag, after }, query.limit);
+      const page = rows.slice(0, query.limit);
+      const last = page[page.length - 1];
+      res.json({ data: await toStandardizationViews(ctx.db, page), next_cursor: rows.length > query.limit ? encodeCursor({ t: last.measured_at, id: last.id }) : null });
+    },
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/standardizations/{id}',
+    operationId: 'getStandardization',
+    summary: 'Get a standardization run with its per-element corrections',
+    tag: 'Drift correction',
+    access: { scope: 'standardizations:read' },
+    params: StandardizationIdParams,
+    responses: { 200: { description: 'The run.', schema: StandardizationSchema }, 404: { description: 'No such standardization.' } },
+    async handler({ params, auth, res, ctx }) {
+      res.json(await getStandardization(ctx, auth, params.id));
+    },
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/standardizations/{id}/activate',
+    operationId: 'activateStandardization',
+    summary: 'Activate a run: it becomes the correction set in force',
+    description:
+      'Managers and admins only (scope `standardizations:activate`; analysts run standardizations but do not activate them). The set is in force for its instrument and method from `effective_from` (default: now; a later time schedules it; an earlier one is refused) until a later activation takes over. Every burn stored afterwards is corrected with the set in force at its measurement time; results stored before are untouched. Records an audit entry and the event `standardization.activated` in the same transaction.\n\n' +
+      'When any element is flagged `fail`, the body must carry `override_reason` (recorded), else 409 with `failing_elements`.',
+    tag: 'Drift correction',
+    access: { scope: 'standardizations:activate' },
+    params: StandardizationIdParams,
+    body: ActivateStandardizationRequestSchema,
+    responses: {
+      200: { description: 'Activated.', schema: StandardizationSchema },
+      404: { description: 'No such standardization.' },
+      409: { description: 'Already activated; a run measured later is already activated; or an element is flagged `fail` and no `override_reason` was given (`failing_elements` lists them).' },
+      422: { description: '`effective_from` is in the past.' },
+    },
+    async handler({ params, body, auth, req, res, ctx }) {
+      res.json(await activateStandardization(ctx, auth, params.id, body ?? {}, req.requestId));
+    },
+  }),
+];
