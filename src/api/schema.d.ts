@@ -2136,7 +2136,7 @@ export interface components {
              * @example -0.0041
              */
             offset: string | null;
-            /** @description α of the set in force when the run was computed; null when none corrected the element. */
+            /** @description α of the set in force at the run's measurement time; null when none corrected the element. */
             previous_slope: string | null;
             previous_offset: string | null;
             flag: components["schemas"]["CorrectionFlag"] & unknown;

@@ -32,7 +32,7 @@ export const ElementCorrectionSchema = z
     element: z.string().openapi({ example: 'Mn' }),
     slope: z.string().nullable().openapi({ description: 'α as a decimal string (20 significant digits); null when this set does not correct the element (see reasons).', example: '1.0213' }),
     offset: z.string().nullable().openapi({ description: 'β in %, decimal string (20 decimal places at most).', example: '-0.0041' }),
-    previous_slope: z.string().nullable().openapi({ description: 'α of the set in force when the run was computed; null when none corrected the element.' }),
+    previous_slope: z.string().nullable().openapi({ description: 'α of the set in force at the run\'s measurement time; null when none corrected the element.' }),
     previous_offset: z.string().nullable(),
     flag: CorrectionFlagSchema,
     reasons: z.array(z.string()).openapi({ description: 'One sentence per finding, each explaining itself; empty when `ok`.' }),

@@ -73,7 +73,7 @@ describe('POST /api/v1/imports', () => {
     const sample = await analyst.get(`/api/v1/samples/${res.body.report.sample_ids[0]}`);
     expect(sample.body).toMatchObject({ sample_code: 'K24-0412-P1', heat: 'K24-0412', grade: 'SAE 1045', kind: 'preliminary', fields: { Furnace: 'EAF-2' } });
     const cr = sample.body.burns[0].values.Cr;
-    expect(cr).toEqual({ value: 0.125, qualifier: null, raw: '1250', raw_unit: 'ppm' });
+    expect(cr).toEqual({ value: 0.125, qualifier: null, raw: '1250', raw_unit: 'ppm', corrected: null });
   });
 
   it('rejects a broken value with 422 naming line and column, and leaves the database unchanged', async () => {

@@ -39,7 +39,7 @@ describe('POST /api/v1/samples', () => {
     expect(result).toMatchObject({ n: 3, unit: '%', raw_mean: result.mean, qualifier: null, decimals: 2, min: 0.744, max: 0.755 });
     expect(res.body.results.map((r: { element: string }) => r.element)).toEqual(['C', 'Mn']);
     expect(res.body.burns).toHaveLength(3);
-    expect(res.body.burns[1].values.Mn).toEqual({ value: 0.751, qualifier: null, raw: '0.751', raw_unit: '%' });
+    expect(res.body.burns[1].values.Mn).toEqual({ value: 0.751, qualifier: null, raw: '0.751', raw_unit: '%', corrected: null });
     expect(res.body).toMatchObject({ status: 'draft', source: 'push', instrument: { code: 'OES-1' }, method: { code: 'FE-LA' }, provenance: { source: 'push', import_id: null } });
   });
 
@@ -60,7 +60,7 @@ describe('POST /api/v1/samples', () => {
     expect(s).toMatchObject({ qualifier: '<', reported: '20', unit: 'ppm', flags: expect.arrayContaining(['all_burns_qualified']) });
     // 1 % = 10 000 mg/kg (NIST SP 811 §7.10): 0.00045 % = 4.5 ppm; B has 4 decimals in % → 0 in ppm, half-even → "4".
     expect(b).toMatchObject({ mean: 4.5, reported: '4', decimals: 0, unit: 'ppm' });
-    expect(ppm.body.burns[0].values.B).toEqual({ value: 4, qualifier: null, raw: '0.0004', raw_unit: '%' });
+    expect(ppm.body.burns[0].values.B).toEqual({ value: 4, qualifier: null, raw: '0.0004', raw_unit: '%', corrected: null });
   });
 
   it('accepts values pushed in ppm and stores them canonically in %', async () => {
@@ -68,7 +68,7 @@ describe('POST /api/v1/samples', () => {
     expect(res.status).toBe(201);
     const n = res.body.results.find((r: { element: string }) => r.element === 'N');
     expect(n.mean).toBe(0.009);
-    expect(res.body.burns[0].values.N).toEqual({ value: 0.0085, qualifier: null, raw: '85', raw_unit: 'ppm' });
+    expect(res.body.burns[0].values.N).toEqual({ value: 0.0085, qualifier: null, raw: '85', raw_unit: 'ppm', corrected: null });
     expect(n.flags).toContain('not_in_method');
   });
 
