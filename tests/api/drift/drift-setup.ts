@@ -74,7 +74,7 @@ export function burnsAt(kind: 'high' | 'low', factor: number, spread = [0, 0.001
 export async function createRun(s: DriftSetup, body: Record<string, unknown>, agent = s.analyst) {
   const res = await agent.post(`/api/v1/instruments/${s.lab.foundry.id}/standardizations`).send(body);
   if (res.status !== 201) throw new Error(`run: ${res.status} ${res.text}`);
-  return res.body as { id: string; flag: string; corrections: { element: string; slope: string; offset: string; flag: string; reasons: string[] }[] };
+  return res.body as { id: string; flag: string; corrections: { element: string; slope: string; offset: string; previous_slope: string | null; previous_offset: string | null; flag: string; reasons: string[] }[] };
 }
 
 export async function activate(s: DriftSetup, id: string, body: Record<string, unknown> = {}, agent = s.manager) {
