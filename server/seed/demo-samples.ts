@@ -1,10 +1,12 @@
 // Invented demo chemistry for Kestrel Bend Metals: foundry heats (preliminary and final samples)
 // and cast-house billet lots. Values are generated around invented nominal compositions with a
-// fixed pseudo-random sequence, so every fresh demo looks the same.
+// fixed pseudo-random sequence, so every fresh demo looks the same; burns are corrected with the
+// demo drift history's sets (seeded first), as ingest would.
 import type { Db } from '../db/knex.ts';
 import { SYSTEM_ACTOR } from '../domain/audit/actor.ts';
 import { toPercent } from '../domain/chemistry/units.ts';
-import { buildSampleRows, type NewBurn } from '../domain/samples/sample-builder.ts';
+import { timelineLoader } from '../domain/drift/correction-timeline.ts';
+import { buildSampleRows, type NewBurn, type NewSample } from '../domain/samples/sample-builder.ts';
 import { storeNewSamples } from '../domain/samples/samples.service.ts';
 import type { DemoLab } from './demo-lab.ts';
 
@@ -16,7 +18,7 @@ const AL_6063: Composition = { Si: 0.44, Fe: 0.19, Cu: 0.021, Mn: 0.032, Mg: 0.5
 const AL_6061: Composition = { ...AL_6063, Si: 0.62, Fe: 0.38, Cu: 0.27, Mg: 0.98, Cr: 0.19, Mn: 0.06 };
 
 /** Park–Miller minimal standard generator: deterministic and good enough for demo noise. */
-function generator(seed: number) {
+export function generator(seed: number) {
   let state = seed;
   return () => {
     state = (state * 48271) % 2147483647;
@@ -47,7 +49,7 @@ function burnsAround(nominal: Composition, count: number, random: () => number, 
 
 export async function seedDemoSamples(db: Db, lab: DemoLab, now = new Date()): Promise<number> {
   const random = generator(412);
-  const built: ReturnType<typeof buildSampleRows>[] = [];
+  const inputs: NewSample[] = [];
   const stamp = new Date(now.getTime() - 3 * 24 * 3600_000).toISOString();
   for (let h = 0; h < 10; h++) {
     const heat = `K24-${String(410 + h).padStart(4, '0')}`;
@@ -55,17 +57,23 @@ export async function seedDemoSamples(db: Db, lab: DemoLab, now = new Date()): P
     const nominal = grade === 'SAE 1018' ? STEEL_1018 : STEEL_1045;
     const tapped = new Date(now.getTime() - (10 - h) * 5 * 3600_000);
     const preliminary = { ...nominal, C: Number(nominal.C) - 0.05, Mn: Number(nominal.Mn) - 0.08 };
-    built.push(
-      buildSampleRows({ sample_code: `${heat}-P1`, heat, grade, kind: 'preliminary', fields: { furnace: 'EAF-2' }, instrument_id: lab.foundry.id, method: lab.feMethod, source: 'push', created_by_label: 'demo seed', burns: burnsAround(preliminary, 2, random, new Date(tapped.getTime() - 40 * 60_000)) }, stamp),
-      buildSampleRows({ sample_code: `${heat}-F1`, heat, grade, kind: 'final', fields: { furnace: 'EAF-2' }, instrument_id: lab.foundry.id, method: lab.feMethod, source: 'push', created_by_label: 'demo seed', burns: burnsAround(nominal, 3, random, tapped, h === 4 ? 'Mn' : undefined) }, stamp),
+    inputs.push(
+      { sample_code: `${heat}-P1`, heat, grade, kind: 'preliminary', fields: { furnace: 'EAF-2' }, instrument_id: lab.foundry.id, method: lab.feMethod, source: 'push', created_by_label: 'demo seed', burns: burnsAround(preliminary, 2, random, new Date(tapped.getTime() - 40 * 60_000)) },
+      { sample_code: `${heat}-F1`, heat, grade, kind: 'final', fields: { furnace: 'EAF-2' }, instrument_id: lab.foundry.id, method: lab.feMethod, source: 'push', created_by_label: 'demo seed', burns: burnsAround(nominal, 3, random, tapped, h === 4 ? 'Mn' : undefined) },
     );
   }
   for (let l = 0; l < 6; l++) {
     const lot = `B24-${String(118 + l).padStart(4, '0')}`;
     const grade = l % 2 ? 'AA 6061' : 'AA 6063';
     const cast = new Date(now.getTime() - (6 - l) * 8 * 3600_000);
-    built.push(buildSampleRows({ sample_code: `${lot}-S1`, heat: lot, grade, kind: 'final', fields: { cast_station: 'VDC-1' }, instrument_id: lab.castHouse.id, method: lab.alMethod, source: 'push', created_by_label: 'demo seed', burns: burnsAround(grade === 'AA 6061' ? AL_6061 : AL_6063, 3, random, cast) }, stamp));
+    inputs.push({ sample_code: `${lot}-S1`, heat: lot, grade, kind: 'final', fields: { cast_station: 'VDC-1' }, instrument_id: lab.castHouse.id, method: lab.alMethod, source: 'push', created_by_label: 'demo seed', burns: burnsAround(grade === 'AA 6061' ? AL_6061 : AL_6063, 3, random, cast) });
   }
-  await db.transaction((trx) => storeNewSamples(trx, built, { ...SYSTEM_ACTOR, label: 'demo seed' }));
-  return built.length;
+  await db.transaction(async (trx) => {
+    // Each burn is corrected with the set in force at its measurement time, as at ingest.
+    const timelineOf = timelineLoader(trx);
+    const built = [];
+    for (const input of inputs) built.push(buildSampleRows({ ...input, corrections: await timelineOf(input.instrument_id, input.method.id) }, stamp));
+    await storeNewSamples(trx, built, { ...SYSTEM_ACTOR, label: 'demo seed' });
+  });
+  return inputs.length;
 }

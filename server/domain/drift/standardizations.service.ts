@@ -1,12 +1,13 @@
 // Standardization runs: the references' burns are parsed like a pushed sample, checked against the
 // mode (which references it needs), turned into per-element corrections with flags, and stored as
 // a draft. A flagged run records the event standardization.flagged in the same transaction.
+import type { Knex } from 'knex';
 import type { AppContext } from '../../context.ts';
 import { type FieldError, NotFoundProblem, UnprocessableProblem, ValidationProblem } from '../../http/problem.ts';
 import type { AuthContext } from '../../http/request-context.ts';
 import { newId } from '../../lib/ids.ts';
 import { nowIso } from '../../lib/time.ts';
-import { actorOf } from '../audit/actor.ts';
+import { type Actor, actorOf } from '../audit/actor.ts';
 import { recordAudit } from '../audit/audit.repository.ts';
 import type { Unit } from '../chemistry/units.ts';
 import { recordEvent } from '../events/events.repository.ts';
@@ -73,8 +74,8 @@ async function resolve(ctx: AppContext, auth: AuthContext, instrumentId: string,
   return { method, references: references as ReferenceMaterial[] };
 }
 
-export async function createStandardization(ctx: AppContext, auth: AuthContext, instrumentId: string, input: StandardizationInput, requestId?: string, options: { now?: string } = {}) {
-  const now = options.now ?? nowIso();
+export async function createStandardization(ctx: AppContext, auth: AuthContext, instrumentId: string, input: StandardizationInput, requestId?: string) {
+  const now = nowIso();
   const measuredAt = input.measured_at ? new Date(input.measured_at).toISOString() : now;
   if (Date.parse(measuredAt) > Date.parse(now) + FUTURE_TOLERANCE_MS) {
     throw new ValidationProblem([{ location: 'body.measured_at', message: 'is in the future', code: 'future_time' }]);
@@ -87,40 +88,56 @@ export async function createStandardization(ctx: AppContext, auth: AuthContext, 
   }));
   if (parseErrors.length) throw new ValidationProblem(parseErrors, 'Some values cannot be read; see errors[] for each one. Nothing was stored.');
 
-  const actor = actorOf(auth);
-  const id = newId('std');
-  await ctx.db.transaction(async (trx) => {
-    const inForce = await findSetInForce(trx, instrumentId, method.id, measuredAt);
-    const run = computeRun({ mode: input.mode, method, measurements, inForce: inForce ? correctionSetOf(inForce).corrections : null });
-    if (run.errors.length) throw new UnprocessableProblem(`No correction can be computed for ${run.errors.map((e) => e.location.split('.').pop()).join(', ')}; see errors[].`, run.errors);
-    const row: StandardizationRow = {
-      id,
-      instrument_id: instrumentId,
-      method_id: method.id,
-      mode: input.mode,
-      status: 'draft',
-      flag: worstFlag(run.corrections.map((c) => c.flag)),
-      measured_at: measuredAt,
-      note: input.note ?? null,
-      measurements_json: JSON.stringify(run.measurements),
-      corrections_json: JSON.stringify(run.corrections),
-      base_set_id: input.mode === 'type' ? (inForce?.id ?? null) : null,
-      created_by_label: actor.label,
-      created_at: now,
-      activated_at: null,
-      activated_by_label: null,
-      effective_from: null,
-      override_reason: null,
-    };
-    await insertStandardization(trx, row);
-    const summary = { id, instrument_id: instrumentId, method_id: method.id, mode: row.mode, flag: row.flag, measured_at: measuredAt };
-    await recordAudit(trx, { actor, requestId, action: 'standardization.created', targetType: 'standardization', targetId: id, after: { ...summary, corrections: run.corrections.map(({ levels: _levels, ...c }) => c) } });
-    if (row.flag !== 'ok') {
-      const flagged = run.corrections.filter((c) => c.flag !== 'ok').map((c) => ({ element: c.element, flag: c.flag, reasons: c.reasons }));
-      await recordEvent(trx, 'standardization.flagged', { standardization: summary, elements: flagged }, now);
-    }
-  });
+  const id = await ctx.db.transaction((trx) => storeRun(trx, { instrumentId, method, mode: input.mode, measurements, measuredAt, note: input.note ?? null, actor: actorOf(auth), now, requestId }));
   return getStandardization(ctx, auth, id);
+}
+
+export interface StoreRunInput {
+  instrumentId: string;
+  method: Method;
+  mode: CorrectionMode;
+  measurements: RunMeasurement[];
+  measuredAt: string;
+  note: string | null;
+  actor: Actor;
+  now: string;
+  requestId?: string;
+}
+
+/** Computes and stores a run as a draft, with its audit entry and (when flagged) its event; returns its id. */
+export async function storeRun(trx: Knex.Transaction, input: StoreRunInput): Promise<string> {
+  const { instrumentId, method, measuredAt, actor, now } = input;
+  const id = newId('std');
+  const inForce = await findSetInForce(trx, instrumentId, method.id, measuredAt);
+  const run = computeRun({ mode: input.mode, method, measurements: input.measurements, inForce: inForce ? correctionSetOf(inForce).corrections : null });
+  if (run.errors.length) throw new UnprocessableProblem(`No correction can be computed for ${run.errors.map((e) => e.location.split('.').pop()).join(', ')}; see errors[].`, run.errors);
+  const row: StandardizationRow = {
+    id,
+    instrument_id: instrumentId,
+    method_id: method.id,
+    mode: input.mode,
+    status: 'draft',
+    flag: worstFlag(run.corrections.map((c) => c.flag)),
+    measured_at: measuredAt,
+    note: input.note,
+    measurements_json: JSON.stringify(run.measurements),
+    corrections_json: JSON.stringify(run.corrections),
+    base_set_id: input.mode === 'type' ? (inForce?.id ?? null) : null,
+    created_by_label: actor.label,
+    created_at: now,
+    activated_at: null,
+    activated_by_label: null,
+    effective_from: null,
+    override_reason: null,
+  };
+  await insertStandardization(trx, row);
+  const summary = { id, instrument_id: instrumentId, method_id: method.id, mode: row.mode, flag: row.flag, measured_at: measuredAt };
+  await recordAudit(trx, { actor, requestId: input.requestId, action: 'standardization.created', targetType: 'standardization', targetId: id, after: { ...summary, corrections: run.corrections.map(({ levels: _levels, ...c }) => c) } });
+  if (row.flag !== 'ok') {
+    const flagged = run.corrections.filter((c) => c.flag !== 'ok').map((c) => ({ element: c.element, flag: c.flag, reasons: c.reasons }));
+    await recordEvent(trx, 'standardization.flagged', { standardization: summary, elements: flagged }, now);
+  }
+  return id;
 }
 
 export async function getStandardization(ctx: AppContext, auth: AuthContext, id: string) {
