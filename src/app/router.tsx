@@ -6,6 +6,8 @@ import { ConsoleLayout } from './layout.tsx';
 import { AcceptInvitationPage } from './routes/accept-invitation.tsx';
 import { ApiKeysPage } from './routes/api-keys.tsx';
 import { AuditPage } from './routes/audit.tsx';
+import { DriftNewRunPage } from './routes/drift-new.tsx';
+import { DriftRunPage } from './routes/drift-run.tsx';
 import { HomePage } from './routes/home.tsx';
 import { NotFoundPage } from './routes/not-found.tsx';
 import { OutboxPage } from './routes/outbox.tsx';
@@ -44,6 +46,10 @@ export function createRouter(queryClient: QueryClient) {
             { path: 'api-keys', element: <ApiKeysPage /> },
             { path: 'reference', lazy: async () => ({ Component: (await import('./routes/reference.tsx')).ReferencePage }) },
             { path: 'request-log', element: <RequestLogPage /> },
+            // The chart library is loaded with the Drift page only.
+            { path: 'drift', lazy: async () => ({ Component: (await import('./routes/drift.tsx')).DriftPage }) },
+            { path: 'drift/new', element: <DriftNewRunPage /> },
+            { path: 'drift/runs/:id', element: <DriftRunPage /> },
             { path: 'users', element: <UsersPage /> },
             { path: 'audit', element: <AuditPage /> },
             { path: 'outbox', element: <OutboxPage /> },

@@ -10,6 +10,7 @@ export interface NavItem {
 export const NAV_ITEMS: NavItem[] = [
   { to: '/', label: 'Overview' },
   { to: '/quick-start', label: 'Quick start' },
+  { to: '/drift', label: 'Drift', scope: 'standardizations:read' },
   { to: '/api-keys', label: 'API keys', scope: 'api-keys:read' },
   { to: '/reference', label: 'API reference' },
   { to: '/request-log', label: 'Request log', scope: 'request-log:read' },
