@@ -20,6 +20,7 @@
  * 34-digit exact mean (exact-mean.ts) sums up to 50 of them without rounding.
  */
 import { Decimal } from 'decimal.js';
+import { formatScaled } from '../chemistry/exact-mean.ts';
 import type { StoredCell } from '../samples/samples.repository.ts';
 
 export const SLOPE_SIGNIFICANT_DIGITS = 20;
@@ -92,8 +93,58 @@ export function typeCorrection(reference: Level, base: Correction | null): Corre
   return { slope: roundSlope(factor.times(baseSlope)), offset: roundOffset(factor.times(baseOffset)) };
 }
 
-/** α·x + β, exactly, in plain notation. */
+/** A plain decimal as an exact integer and its scale: "-0.0125" → { digits: -125n, scale: 4 }. */
+interface Scaled {
+  digits: bigint;
+  scale: number;
+}
+
+const PLAIN = /^([+-]?)(\d+)(?:\.(\d+))?$/;
+
+function toScaled(value: string): Scaled | undefined {
+  const match = PLAIN.exec(value);
+  if (!match) return undefined;
+  const [, sign, integer, fraction = ''] = match;
+  const digits = BigInt(integer + fraction);
+  return { digits: sign === '-' ? -digits : digits, scale: fraction.length };
+}
+
+/** Parsed once per correction: the same set corrects every burn of an import. */
+const scaledCorrections = new WeakMap<Correction, { slope: Scaled; offset: Scaled } | null>();
+
+function scaledCorrection(correction: Correction) {
+  let scaled = scaledCorrections.get(correction);
+  if (scaled === undefined) {
+    const slope = toScaled(correction.slope);
+    const offset = toScaled(correction.offset);
+    scaled = slope && offset ? { slope, offset } : null;
+    scaledCorrections.set(correction, scaled);
+  }
+  return scaled;
+}
+
+const POWERS = Array.from({ length: 100 }, (_, i) => 10n ** BigInt(i));
+const power = (k: number) => POWERS[k] ?? 10n ** BigInt(k);
+
+/**
+ * α·x + β, exactly, in plain notation. On the ingest path: plain decimals are multiplied as
+ * BigInt integers at a common scale (≈ 4× faster than decimal.js); anything else goes through
+ * decimal.js. A property test checks that both give identical strings.
+ */
 export function correctValue(value: string, correction: Correction): string {
+  const c = scaledCorrection(correction);
+  const x = c && toScaled(value);
+  if (!c || !x) return correctValueWithDecimal(value, correction);
+  const productScale = c.slope.scale + x.scale;
+  const scale = Math.max(productScale, c.offset.scale);
+  const sum = c.slope.digits * x.digits * power(scale - productScale) + c.offset.digits * power(scale - c.offset.scale);
+  if (sum === 0n) return '0';
+  const negative = sum < 0n;
+  return formatScaled((negative ? -sum : sum).toString(), scale, negative);
+}
+
+/** The reference path: decimal.js at 200 digits (exact for these operands). */
+export function correctValueWithDecimal(value: string, correction: Correction): string {
   return plain(new Exact(correction.slope).times(value).plus(correction.offset));
 }
 

@@ -2,6 +2,7 @@
 // Elements the method does not list are still averaged (nothing measured is dropped) with
 // DEFAULT_DECIMALS and the flag `not_in_method`.
 import { type BurnCell, computeElementResult, RESULT_FLAG_NAMES, type ResultFlag } from '../chemistry/element-result.ts';
+import { exactMean } from '../chemistry/exact-mean.ts';
 import type { Method, MethodElement } from '../methods/methods.repository.ts';
 import type { StoredCell, StoredResult } from './samples.repository.ts';
 
@@ -29,6 +30,15 @@ function toCell(cell: StoredCell | undefined): BurnCell | undefined {
   return cell && { value: cell.v, qualifier: cell.q };
 }
 
+/** The mean of the measured (uncorrected) numeric values — what computeElementResult reports as `mean`. */
+function rawMean(burns: BurnForResults[], element: string): string | null {
+  const numeric = burns.flatMap((b) => {
+    const cell = b.values[element];
+    return cell && cell.q === null && cell.v !== null ? [cell.v] : [];
+  });
+  return numeric.length ? exactMean(numeric) : null;
+}
+
 export function elementOrder(method: Method, burns: BurnForResults[]): string[] {
   const measured = new Set(burns.flatMap((b) => Object.keys(b.values)));
   const inMethod = method.elements.map((e) => e.element).filter((el) => measured.has(el));
@@ -42,9 +52,7 @@ export function computeSampleResults(burns: BurnForResults[], method: Method): {
   for (const element of elementOrder(method, burns)) {
     const { settings, inMethod } = settingsFor(method, element);
     const corrected = computeElementResult({ element, cells: included.map((b) => toCell((b.corrected ?? b.values)[element])), settings });
-    const raw = included.some((b) => b.corrected)
-      ? computeElementResult({ element, cells: included.map((b) => toCell(b.values[element])), settings }).mean
-      : corrected.mean;
+    const raw = included.some((b) => b.corrected) ? rawMean(included, element) : corrected.mean;
     const extra: ResultFlag[] = [];
     if (!inMethod) extra.push('not_in_method');
     // Corrected values are kept below 0 rather than clamped (see RESULT_FLAGS); the flag says so.

@@ -8,6 +8,7 @@ import { roundHalfEven } from '../../../server/domain/chemistry/rounding.ts';
 import {
   correctCell,
   correctValue,
+  correctValueWithDecimal,
   CorrectionMathError,
   onePointFactor,
   onePointOffset,
@@ -136,6 +137,22 @@ describe('correcting burns then averaging equals averaging then correcting', () 
       }),
       { numRuns: 1000 },
     );
+  });
+});
+
+describe('the BigInt path of α·x + β', () => {
+  it('gives exactly the strings decimal.js gives, signs and scales mixed (property)', () => {
+    const signed = (maxDigits: bigint, maxScale: number) => decimalString({ maxDigits, maxScale, signs: ['', '', '-', '+'] });
+    fc.assert(
+      fc.property(signed(10n ** 21n, 20), signed(10n ** 21n, 20), signed(10n ** 10n, 8), (slope, offset, x) => {
+        const c = { slope, offset };
+        expect(correctValue(x, c)).toBe(correctValueWithDecimal(x, c));
+        expect(correctValue(x, c)).toBe(plain(new D200(slope).times(x).plus(offset)));
+      }),
+      { numRuns: 3000 },
+    );
+    // Exponent notation takes the decimal.js path and still answers in plain notation.
+    expect(correctValue('5e-7', { slope: '2', offset: '0' })).toBe('0.000001');
   });
 });
 
