@@ -118,6 +118,17 @@ describe('bodies', () => {
     expect(detail.request.body).not.toContain('0.21');
     expect(detail.replayable).toBe(false);
   });
+
+  it('keeps the bytes of a file out of the log also when the upload route moves the file onto the body', async () => {
+    const { agent } = await signedInAgent(t, 'admin');
+    const content = 'Sample,C,Mn\nK24-0412,0.21,0.80\n';
+    // The import preview answers 422 here (the instrument and method do not exist): it is logged all the same.
+    await agent.post('/api/v1/imports/preview').set('x-request-id', 'upload-2').field('instrument_id', 'ins_none').field('method_id', 'mth_none').attach('file', Buffer.from(content), { filename: 'K24-0412.csv', contentType: 'text/csv' }).expect(422);
+    const [entry] = (await entries(agent)).filter((e) => e.request_id === 'upload-2');
+    const detail = (await agent.get(`/api/v1/request-log/${entry.id}`)).body;
+    expect(JSON.parse(detail.request.body)).toEqual({ fields: { instrument_id: 'ins_none', method_id: 'mth_none' }, files: [{ field: 'file', name: 'K24-0412.csv', size: content.length, content_type: 'text/csv' }] });
+    expect(detail.request.body_truncated).toBe(false);
+  });
 });
 
 describe('visibility, filters and pages', () => {

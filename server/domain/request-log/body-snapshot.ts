@@ -47,8 +47,12 @@ export function snapshotRequestBody(req: Request, limit: number): BodySnapshot {
   const declared = Number(req.get('content-length') ?? 0) || 0;
   const body: unknown = req.body;
   if (contentType && /^multipart\//i.test(contentType)) {
-    const files = uploadedFiles(req).map((f) => ({ field: f.fieldname, name: f.originalname, size: f.size, content_type: f.mimetype }));
-    return jsonSnapshot('multipart', contentType, { fields: body ?? {}, files }, declared, limit);
+    const uploaded = uploadedFiles(req);
+    const files = uploaded.map((f) => ({ field: f.fieldname, name: f.originalname, size: f.size, content_type: f.mimetype }));
+    // Upload routes move the file onto req.body (server/http/upload.ts): keep it out of `fields`,
+    // or its bytes would be logged and walked one by one (seconds for a file of a few MB).
+    const fields = Object.fromEntries(Object.entries((body ?? {}) as Record<string, unknown>).filter(([, value]) => !uploaded.includes(value as Express.Multer.File)));
+    return jsonSnapshot('multipart', contentType, { fields, files }, declared, limit);
   }
   if (body === undefined || body === null) {
     return declared > 0 ? { ...none(contentType), kind: 'unread', size: declared } : none(contentType);
