@@ -1,6 +1,6 @@
 import { Link } from 'react-router';
-import { Button } from '../../../components/ui/button.tsx';
 import { EmptyState, ProblemAlert, Spinner } from '../../../components/ui/feedback.tsx';
+import { LoadMore } from '../../../components/ui/load-more.tsx';
 import { Table } from '../../../components/ui/layout.tsx';
 import { utcMinute } from '../../../lib/utc-time.ts';
 import { useInstruments } from '../../lab/api/lab-lists.ts';
@@ -27,7 +27,7 @@ export function ImportsTable() {
           {rows.map((record) => (
             <tr key={record.id} className="align-top hover:bg-ash-50" data-testid="import-row">
               <td className="whitespace-nowrap px-3 py-2 font-mono text-xs">{utcMinute(record.created_at)}</td>
-              <td className="max-w-xs break-all px-3 py-2">{record.file.name}</td>
+              <td className="max-w-xs break-words px-3 py-2">{record.file.name}</td>
               <td className="px-3 py-2 font-mono">{instruments?.find((i) => i.id === record.instrument_id)?.code ?? record.instrument_id}</td>
               <td className={figure}>{record.report.counts.samples_created}</td>
               <td className={figure}>{record.report.counts.burns}</td>
@@ -43,11 +43,7 @@ export function ImportsTable() {
           ))}
         </Table>
       )}
-      {imports.hasNextPage && (
-        <Button variant="secondary" onClick={() => imports.fetchNextPage()} disabled={imports.isFetchingNextPage}>
-          {imports.isFetchingNextPage ? 'Loading…' : 'Load more'}
-        </Button>
-      )}
+      <LoadMore list={imports} />
     </div>
   );
 }

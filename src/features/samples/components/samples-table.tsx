@@ -1,6 +1,6 @@
 import { Link } from 'react-router';
-import { Button } from '../../../components/ui/button.tsx';
 import { EmptyState, ProblemAlert, Spinner } from '../../../components/ui/feedback.tsx';
+import { LoadMore } from '../../../components/ui/load-more.tsx';
 import { Table } from '../../../components/ui/layout.tsx';
 import { useSamples, type SampleSummary } from '../api/samples.ts';
 import { utcMinute } from '../../../lib/utc-time.ts';
@@ -10,7 +10,7 @@ import { FlagList } from './flag-badges.tsx';
 import { StatusBadge } from './status-badge.tsx';
 
 /** How many reported values the table previews per sample. */
-const PREVIEW_ELEMENTS = 4;
+const PREVIEW_ELEMENTS = 3;
 
 function ResultsPreview({ sample, unit }: { sample: SampleSummary; unit: OutputUnit }) {
   const shown = sample.results.filter((r) => r.reported !== null).slice(0, PREVIEW_ELEMENTS);
@@ -41,7 +41,7 @@ export function SamplesTable({ filters, unit, emptyHint }: { filters: SampleFilt
       {rows.length > 0 && (
         <Table
           caption="Samples, newest first"
-          head={['Sample code', 'Heat', 'Grade', 'Kind', 'Instrument', 'Status', <span key="b" className="block text-right">Burns</span>, `Reported (${unit})`, 'Flags', 'Created (UTC)']}
+          head={['Sample code', 'Heat', 'Grade', 'Kind', 'Instrument', 'Status', <span key="b" className="block text-right">Burns</span>, 'Flags', `Reported (${unit})`, 'Created (UTC)']}
         >
           {rows.map((s) => (
             <tr key={s.id} className="align-top hover:bg-ash-50" data-testid="sample-row">
@@ -58,22 +58,18 @@ export function SamplesTable({ filters, unit, emptyHint }: { filters: SampleFilt
                 <StatusBadge status={s.status} />
               </td>
               <td className={figure}>{s.burn_count}</td>
-              <td className={cell}>
-                <ResultsPreview sample={s} unit={unit} />
-              </td>
               <td className="min-w-48 px-3 py-2">
                 <FlagList flags={s.flags} empty="none" />
+              </td>
+              <td className={cell}>
+                <ResultsPreview sample={s} unit={unit} />
               </td>
               <td className={`${cell} whitespace-nowrap font-mono text-xs`}>{utcMinute(s.created_at)}</td>
             </tr>
           ))}
         </Table>
       )}
-      {samples.hasNextPage && (
-        <Button variant="secondary" onClick={() => samples.fetchNextPage()} disabled={samples.isFetchingNextPage}>
-          {samples.isFetchingNextPage ? 'Loading…' : 'Load more'}
-        </Button>
-      )}
+      <LoadMore list={samples} />
     </div>
   );
 }
