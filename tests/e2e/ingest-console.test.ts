@@ -150,6 +150,26 @@ describe('uploading results through the console', () => {
     expect(await dialog.innerText()).toContain('This is the only included burn; include another one first, or measure the sample again.');
     await dialog.getByRole('button', { name: 'Cancel' }).click();
     expect(await page.locator('[data-testid="burn-row"][data-burn="2"]').getAttribute('data-excluded')).toBe('false');
+
+    // Including a burn again asks for a reason too, and says so on the burn.
+    await page.getByRole('button', { name: 'Include burn 1' }).click();
+    await dialog.getByLabel('Reason (required)').fill('Checked the burn mark again: fine');
+    await dialog.getByRole('button', { name: 'Include burn' }).click();
+    await page.locator('[data-testid="burn-row"][data-burn="1"][data-excluded="false"]').waitFor();
+    expect(await page.locator('[data-testid="burn-row"][data-burn="1"]').innerText()).toContain('Included again: “Checked the burn mark again: fine”');
+  });
+
+  it('recognises the same bytes uploaded again and creates nothing', async () => {
+    await nav('Upload results').click();
+    await chooseLab();
+    await page.getByLabel('Result file').setInputFiles({ name: 'again.csv', mimeType: 'text/csv', buffer: Buffer.from(GOOD_CSV) });
+    await page.getByRole('button', { name: 'Preview' }).click();
+    await page.getByText('These bytes were imported before').waitFor();
+    const before = await count('samples');
+    await page.getByRole('button', { name: 'Show the earlier import' }).click();
+    await page.getByText('These bytes were imported before: nothing new was created').waitFor();
+    expect(await page.getByTestId('import-report').innerText()).toContain('k24-0950.csv');
+    expect(await count('samples')).toBe(before);
   });
 });
 
