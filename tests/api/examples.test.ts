@@ -84,3 +84,45 @@ describe('curl scripts', () => {
     expect((failure as { stderr: string }).stderr).toContain('403');
   });
 });
+
+describe('sample and import scripts', () => {
+  it('push-sample.sh stores the sample once, even when retried with the same Idempotency-Key', async () => {
+    const key = await demoAdminKey(['samples:write', 'samples:read']);
+    const env = { MELTWIRE_KEY: key, SAMPLE_CODE: 'K24-0999-F1', HEAT: 'K24-0999', IDEMPOTENCY_KEY: 'examples-push-1' };
+    const first = await example('bash', ['examples/push-sample.sh'], env);
+    const again = await example('bash', ['examples/push-sample.sh'], env);
+    expect(again.stdout).toBe(first.stdout);
+    const lines = first.stdout.trim().split('\n');
+    expect(lines[0]).toMatch(/^sample smp_\w+ K24-0999-F1 \(draft\)$/);
+    // Mn 0.74, 0.75, 0.75 → mean 0.7466…, 2 decimals in FE-LA → 0.75; S: two "<0.002" and 0.003 → "<" bound.
+    expect(lines).toContain('Mn 0.75 %  n=3  flags=');
+    expect(lines.find((l) => l.startsWith('S '))).toMatch(/^S <0\.00\d %/);
+    expect(await server.db('samples').where({ sample_code: 'K24-0999-F1' }).pluck('id')).toHaveLength(1);
+  }, 30_000);
+
+  it('upload-results.sh imports a file, then recognises the same bytes', async () => {
+    const key = await demoAdminKey(['imports:write', 'samples:read']);
+    const file = resolve(ROOT, 'tests/fixtures/imports/quirks-wide.utf8-bom.csv');
+    const first = await example('bash', ['examples/upload-results.sh', file], { MELTWIRE_KEY: key });
+    expect(first.stdout).toMatch(/^imported as imp_\w+\nsamples: \d+ created, 0 rejected; burns: \d+; values: \d+/);
+    const again = await example('bash', ['examples/upload-results.sh', file], { MELTWIRE_KEY: key });
+    expect(again.stdout).toMatch(/^already imported as imp_\w+ \(same bytes\): nothing created/);
+  }, 30_000);
+
+  it('upload-results.sh prints the problem and the broken lines, and fails', async () => {
+    const key = await demoAdminKey(['imports:write', 'samples:read']);
+    const broken = resolve(ROOT, 'tests/fixtures/imports/broken-value.csv');
+    const failure = await example('bash', ['examples/upload-results.sh', broken], { MELTWIRE_KEY: key }).catch((error: { code: number; stderr: string }) => error);
+    expect(failure).toMatchObject({ code: 1 });
+    expect((failure as { stderr: string }).stderr).toContain('file:line 3:Mn %');
+  }, 30_000);
+
+  it('samples-since.sh pages through changes in change order and says where to resume', async () => {
+    const key = await demoAdminKey(['samples:read']);
+    const since = '2000-01-01T00:00:00Z';
+    const { stdout, stderr } = await example('bash', ['examples/samples-since.sh', since], { MELTWIRE_KEY: key, PAGE_SIZE: '7' });
+    const expected = await server.db('samples').orderBy([{ column: 'updated_at' }, { column: 'id' }]).select('sample_code', 'updated_at');
+    expect(stdout.trim().split('\n').map((line) => line.split('  ')[1])).toEqual(expected.map((s) => s.sample_code));
+    expect(stderr.trim()).toBe(`next time: updated_since=${expected.at(-1)!.updated_at}`);
+  }, 30_000);
+});

@@ -2,6 +2,7 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { SESSION_COOKIE } from '../../server/domain/auth/session-token.ts';
+import { recorderFor } from '../../server/domain/request-log/recorder.ts';
 import { v1Routes } from '../../server/routes/v1/index.ts';
 import { createTestApp, createUser, expectProblem, issueKey, signedInAgent, TEST_PASSWORD, type TestApp } from '../helpers/test-app.ts';
 import { testRoutes } from '../helpers/test-routes.ts';
@@ -76,6 +77,7 @@ describe('redaction', () => {
     await request(t.app).get(`/api/v1/samples?note=${secret}`).set('authorization', `Bearer ${secret}`).expect(200);
     await agent.post('/api/v1/auth/password-reset/confirm').send({ token: 'some-reset-token-value', password: 'a new password here' });
 
+    await recorderFor(t.ctx).drain(); // entries are written after the response; read them once written
     const everything = JSON.stringify(await t.db('request_log').select());
     for (const leaked of [secret, secret.slice(8, 30), TEST_PASSWORD, cookie, 'some-reset-token-value', 'a new password here']) {
       expect(everything).not.toContain(leaked);

@@ -47,11 +47,9 @@ export function snapshotRequestBody(req: Request, limit: number): BodySnapshot {
   const declared = Number(req.get('content-length') ?? 0) || 0;
   const body: unknown = req.body;
   if (contentType && /^multipart\//i.test(contentType)) {
-    const uploaded = uploadedFiles(req);
-    const files = uploaded.map((f) => ({ field: f.fieldname, name: f.originalname, size: f.size, content_type: f.mimetype }));
-    // Upload routes move the file onto req.body (server/http/upload.ts): keep it out of `fields`,
-    // or its bytes would be logged and walked one by one (seconds for a file of a few MB).
-    const fields = Object.fromEntries(Object.entries((body ?? {}) as Record<string, unknown>).filter(([, value]) => !uploaded.includes(value as Express.Multer.File)));
+    const files = uploadedFiles(req).map((f) => ({ field: f.fieldname, name: f.originalname, size: f.size, content_type: f.mimetype }));
+    // Only the text fields: an upload route may have put the file object itself on the body.
+    const fields = Object.fromEntries(Object.entries((body ?? {}) as Record<string, unknown>).filter(([, value]) => typeof value !== 'object' || value === null));
     return jsonSnapshot('multipart', contentType, { fields, files }, declared, limit);
   }
   if (body === undefined || body === null) {

@@ -1,6 +1,7 @@
 // Turns a sample's included burns into per-element results, in the method's element order.
 // Elements the method does not list are still averaged (nothing measured is dropped) with
-// DEFAULT_DECIMALS and the flag `not_in_method`.
+// DEFAULT_DECIMALS and the flag `not_in_method`. Written with plain loops: a bulk import runs
+// this for every sample × element (hundreds of thousands of times).
 import { type BurnCell, computeElementResult, type ResultFlag } from '../chemistry/element-result.ts';
 import type { Method, MethodElement } from '../methods/methods.repository.ts';
 import type { StoredCell, StoredResult } from './samples.repository.ts';
@@ -16,42 +17,54 @@ export interface BurnForResults {
   corrected?: Record<string, StoredCell>;
 }
 
-function settingsFor(method: Method, element: string): { settings: MethodElement; inMethod: boolean } {
-  const found = method.elements.find((e) => e.element === element);
-  if (found) return { settings: found, inMethod: true };
-  return {
-    settings: { element, decimals: DEFAULT_DECIMALS, working_range_low: null, working_range_high: null, detection_limit: null, repeatability_sd: null },
-    inMethod: false,
-  };
+const settingsCache = new WeakMap<Method, Map<string, MethodElement>>();
+
+function settingsOf(method: Method): Map<string, MethodElement> {
+  let settings = settingsCache.get(method);
+  if (!settings) {
+    settings = new Map(method.elements.map((e) => [e.element, e]));
+    settingsCache.set(method, settings);
+  }
+  return settings;
 }
 
-function toCell(cell: StoredCell | undefined): BurnCell | undefined {
-  return cell && { value: cell.v, qualifier: cell.q };
+function defaultSettings(element: string): MethodElement {
+  return { element, decimals: DEFAULT_DECIMALS, working_range_low: null, working_range_high: null, detection_limit: null, repeatability_sd: null };
 }
 
+/** Method elements first (in the method's order), then any others alphabetically. */
 export function elementOrder(method: Method, burns: BurnForResults[]): string[] {
-  const measured = new Set(burns.flatMap((b) => Object.keys(b.values)));
-  const inMethod = method.elements.map((e) => e.element).filter((el) => measured.has(el));
-  const extra = [...measured].filter((el) => !method.elements.some((e) => e.element === el)).sort();
-  return [...inMethod, ...extra];
+  const measured = new Set<string>();
+  for (const burn of burns) for (const element in burn.values) measured.add(element);
+  const ordered: string[] = [];
+  for (const e of method.elements) if (measured.delete(e.element)) ordered.push(e.element);
+  return measured.size ? ordered.concat([...measured].sort()) : ordered;
+}
+
+function cellsOf(burns: BurnForResults[], element: string, corrected: boolean): (BurnCell | undefined)[] {
+  const cells = new Array<BurnCell | undefined>(burns.length);
+  for (let i = 0; i < burns.length; i++) {
+    const cell = (corrected ? (burns[i].corrected ?? burns[i].values) : burns[i].values)[element];
+    cells[i] = cell === undefined ? undefined : { value: cell.v, qualifier: cell.q };
+  }
+  return cells;
 }
 
 export function computeSampleResults(burns: BurnForResults[], method: Method): { results: StoredResult[]; flags: string[] } {
   const included = burns.filter((b) => !b.excluded);
+  const anyCorrected = included.some((b) => b.corrected !== undefined);
+  const settingsByElement = settingsOf(method);
   const results: StoredResult[] = [];
+  const flags = new Set<string>();
   for (const element of elementOrder(method, burns)) {
-    const { settings, inMethod } = settingsFor(method, element);
-    const corrected = computeElementResult({ element, cells: included.map((b) => toCell((b.corrected ?? b.values)[element])), settings });
-    const raw = included.some((b) => b.corrected)
-      ? computeElementResult({ element, cells: included.map((b) => toCell(b.values[element])), settings }).mean
-      : corrected.mean;
-    results.push({
-      ...corrected,
-      raw_mean: raw,
-      decimals: settings.decimals,
-      flags: inMethod ? corrected.flags : [...corrected.flags, 'not_in_method' satisfies ResultFlag],
-    });
+    const known = settingsByElement.get(element);
+    const settings = known ?? defaultSettings(element);
+    const result = computeElementResult({ element, cells: cellsOf(included, element, true), settings }) as StoredResult;
+    result.raw_mean = anyCorrected ? computeElementResult({ element, cells: cellsOf(included, element, false), settings }).mean : result.mean;
+    result.decimals = settings.decimals;
+    if (!known) result.flags.push('not_in_method' satisfies ResultFlag);
+    for (const flag of result.flags) flags.add(flag);
+    results.push(result);
   }
-  const flags = [...new Set(results.flatMap((r) => r.flags))].sort();
-  return { results, flags };
+  return { results, flags: [...flags].sort() };
 }

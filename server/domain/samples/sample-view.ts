@@ -68,7 +68,7 @@ export function toBurnView(burn: BurnRow, unit: OutputUnit) {
     values: Object.fromEntries(
       Object.entries(values).map(([element, cell]) => [
         element,
-        { value: cell.v === null ? null : Number(fromPercent(cell.v, unit)), qualifier: cell.q, raw: raw[element]?.raw ?? '', raw_unit: raw[element]?.unit ?? '%' },
+        { value: cell.v === null ? null : Number(fromPercent(cell.v, unit)), qualifier: cell.q, raw: raw[element]?.raw ?? cell.v ?? '', raw_unit: raw[element]?.unit ?? '%' },
       ]),
     ),
   };
