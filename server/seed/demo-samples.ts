@@ -10,7 +10,7 @@ import type { DemoLab } from './demo-lab.ts';
 
 type Composition = Record<string, number | string>;
 
-const STEEL_1045: Composition = { C: 0.46, Si: 0.24, Mn: 0.74, P: 0.012, S: 0.017, Cr: 0.11, Ni: 0.06, Mo: 0.02, Cu: 0.13, Al: 0.026, V: 0.004, Ti: 0.002, Nb: '<0.003', B: 0.0004, Sn: 0.009 };
+const STEEL_1045: Composition = { C: 0.46, Si: 0.24, Mn: 0.74, P: 0.012, S: 0.017, Cr: 0.11, Ni: 0.06, Mo: 0.02, Cu: 0.13, Al: 0.026, V: 0.005, Ti: 0.0035, Nb: '<0.003', B: 0.0004, Sn: 0.009 };
 const STEEL_1018: Composition = { ...STEEL_1045, C: 0.17, Mn: 0.76, Si: 0.21 };
 const AL_6063: Composition = { Si: 0.44, Fe: 0.19, Cu: 0.021, Mn: 0.032, Mg: 0.56, Cr: 0.008, Zn: 0.018, Ti: 0.014, Ni: 0.004, Pb: '<0.002' };
 const AL_6061: Composition = { ...AL_6063, Si: 0.62, Fe: 0.38, Cu: 0.27, Mg: 0.98, Cr: 0.19, Mn: 0.06 };
@@ -48,7 +48,8 @@ function burnsAround(nominal: Composition, count: number, random: () => number, 
 export async function seedDemoSamples(db: Db, lab: DemoLab, now = new Date()): Promise<number> {
   const random = generator(412);
   const built: ReturnType<typeof buildSampleRows>[] = [];
-  const stamp = new Date(now.getTime() - 3 * 24 * 3600_000).toISOString();
+  // Each sample is stored a few minutes after its last burn, as an instrument push would be.
+  const storedAfter = (sparked: Date) => new Date(sparked.getTime() + 4 * 60_000).toISOString();
   for (let h = 0; h < 10; h++) {
     const heat = `K24-${String(410 + h).padStart(4, '0')}`;
     const grade = h % 3 === 2 ? 'SAE 1018' : 'SAE 1045';
@@ -56,15 +57,15 @@ export async function seedDemoSamples(db: Db, lab: DemoLab, now = new Date()): P
     const tapped = new Date(now.getTime() - (10 - h) * 5 * 3600_000);
     const preliminary = { ...nominal, C: Number(nominal.C) - 0.05, Mn: Number(nominal.Mn) - 0.08 };
     built.push(
-      buildSampleRows({ sample_code: `${heat}-P1`, heat, grade, kind: 'preliminary', fields: { furnace: 'EAF-2' }, instrument_id: lab.foundry.id, method: lab.feMethod, source: 'push', created_by_label: 'demo seed', burns: burnsAround(preliminary, 2, random, new Date(tapped.getTime() - 40 * 60_000)) }, stamp),
-      buildSampleRows({ sample_code: `${heat}-F1`, heat, grade, kind: 'final', fields: { furnace: 'EAF-2' }, instrument_id: lab.foundry.id, method: lab.feMethod, source: 'push', created_by_label: 'demo seed', burns: burnsAround(nominal, 3, random, tapped, h === 4 ? 'Mn' : undefined) }, stamp),
+      buildSampleRows({ sample_code: `${heat}-P1`, heat, grade, kind: 'preliminary', fields: { furnace: 'EAF-2' }, instrument_id: lab.foundry.id, method: lab.feMethod, source: 'push', created_by_label: 'demo seed', burns: burnsAround(preliminary, 2, random, new Date(tapped.getTime() - 40 * 60_000)) }, storedAfter(new Date(tapped.getTime() - 40 * 60_000))),
+      buildSampleRows({ sample_code: `${heat}-F1`, heat, grade, kind: 'final', fields: { furnace: 'EAF-2' }, instrument_id: lab.foundry.id, method: lab.feMethod, source: 'push', created_by_label: 'demo seed', burns: burnsAround(nominal, 3, random, tapped, h === 4 ? 'Mn' : undefined) }, storedAfter(tapped)),
     );
   }
   for (let l = 0; l < 6; l++) {
     const lot = `B24-${String(118 + l).padStart(4, '0')}`;
     const grade = l % 2 ? 'AA 6061' : 'AA 6063';
     const cast = new Date(now.getTime() - (6 - l) * 8 * 3600_000);
-    built.push(buildSampleRows({ sample_code: `${lot}-S1`, heat: lot, grade, kind: 'final', fields: { cast_station: 'VDC-1' }, instrument_id: lab.castHouse.id, method: lab.alMethod, source: 'push', created_by_label: 'demo seed', burns: burnsAround(grade === 'AA 6061' ? AL_6061 : AL_6063, 3, random, cast) }, stamp));
+    built.push(buildSampleRows({ sample_code: `${lot}-S1`, heat: lot, grade, kind: 'final', fields: { cast_station: 'VDC-1' }, instrument_id: lab.castHouse.id, method: lab.alMethod, source: 'push', created_by_label: 'demo seed', burns: burnsAround(grade === 'AA 6061' ? AL_6061 : AL_6063, 3, random, cast) }, storedAfter(cast)));
   }
   await db.transaction((trx) => storeNewSamples(trx, built, { ...SYSTEM_ACTOR, label: 'demo seed' }));
   return built.length;
