@@ -21,10 +21,16 @@ export async function listen(app: Express, db: Db, logger: Logger, port: number,
     (stopping ??= (async () => {
       logger.info('shutting down: finishing in-flight requests');
       await new Promise<void>((resolve) => {
-        server.close(() => resolve());
-        server.closeIdleConnections();
+        // Connections whose response has just finished become idle: close them as they do.
+        const sweep = setInterval(() => server.closeIdleConnections(), 100);
         // Keep-alive clients that never go idle must not hold the shutdown forever.
-        setTimeout(() => server.closeAllConnections(), 10_000).unref();
+        const deadline = setTimeout(() => server.closeAllConnections(), 10_000);
+        server.close(() => {
+          clearInterval(sweep);
+          clearTimeout(deadline);
+          resolve();
+        });
+        server.closeIdleConnections();
       });
       await onStop?.();
       await db.destroy();

@@ -10,12 +10,14 @@ interface SqliteConnection {
   pragma(source: string): unknown;
 }
 
-export function createDb(config: Pick<Config, 'databaseFile' | 'databaseUrl'>): Db {
+/** `schema` (PostgreSQL only) isolates a database in its own schema: the tests use it. */
+export function createDb(config: Pick<Config, 'databaseFile' | 'databaseUrl'>, options: { schema?: string } = {}): Db {
   if (config.databaseUrl) {
     return knexFactory({
       client: 'pg',
       connection: config.databaseUrl,
       pool: { min: 0, max: 10 },
+      ...(options.schema ? { searchPath: [options.schema] } : {}),
     });
   }
   const filename = config.databaseFile;

@@ -11,7 +11,8 @@ export function singleFileUpload(field: string, maxBytes: number): RequestHandle
     upload(req, res, (error: unknown) => {
       if (error instanceof multer.MulterError) {
         if (error.code === 'LIMIT_FILE_SIZE') {
-          return next(new ProblemError(413, 'payload-too-large', 'File too large', `The file exceeds the limit of ${maxBytes} bytes (IMPORT_MAX_BYTES).`));
+          // limit_bytes lets a client state the limit in its own words without parsing the detail.
+          return next(new ProblemError(413, 'payload-too-large', 'File too large', `The file exceeds the limit of ${maxBytes} bytes (IMPORT_MAX_BYTES).`, { limit_bytes: maxBytes }));
         }
         return next(new ValidationProblem([{ location: `body.${error.field ?? field}`, message: error.message, code: error.code.toLowerCase() }]));
       }

@@ -6,10 +6,13 @@ export type ProblemBody = Pick<components['schemas']['Problem'], 'type' | 'title
 /** A failed API call, carrying the RFC 9457 problem the server sent. */
 export class ApiProblem extends Error {
   readonly problem: ProblemBody;
+  /** Members beyond the standard ones (e.g. `issues` of a rejected file, `limit_bytes` of a 413). */
+  readonly extensions: Record<string, unknown>;
 
-  constructor(problem: ProblemBody) {
+  constructor(problem: ProblemBody, extensions: Record<string, unknown> = {}) {
     super(problem.detail ?? problem.title);
     this.problem = problem;
+    this.extensions = extensions;
   }
 
   get status(): number {
@@ -30,3 +33,14 @@ export class ApiProblem extends Error {
 export function isProblem(error: unknown, status?: number): error is ApiProblem {
   return error instanceof ApiProblem && (status === undefined || error.status === status);
 }
+
+/** The problem of a failed response, from its (possibly missing or non-problem) JSON body. */
+export function problemFromResponse(status: number, statusText: string, body: unknown): ApiProblem {
+  const { type, title, status: _status, detail, errors, ...extensions } = (body !== null && typeof body === 'object' ? body : {}) as Partial<ProblemBody> & Record<string, unknown>;
+  return new ApiProblem(
+    { type: typeof type === 'string' ? type : 'about:blank', title: typeof title === 'string' ? title : statusText || 'Request failed', status, detail, errors },
+    extensions,
+  );
+}
+
+export const NETWORK_PROBLEM: ProblemBody = { type: 'network', title: 'The server cannot be reached', status: 0, detail: 'Check the connection and try again.' };

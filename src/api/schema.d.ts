@@ -5896,7 +5896,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The file exceeds IMPORT_MAX_BYTES. */
+            /** @description The file exceeds IMPORT_MAX_BYTES; the problem's `limit_bytes` gives the limit. */
             413: {
                 headers: {
                     [name: string]: unknown;
@@ -5914,7 +5914,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The file cannot be read, a value is broken (all-or-nothing), or a referenced instrument, method or profile does not exist. */
+            /** @description The file cannot be read, a value is broken (all-or-nothing), or a referenced instrument, method or profile does not exist. For a file problem, `errors[]` locates each issue as `file:line 12:Mn`; the same issues come structured in `issues[]` (`line`, `column`, `message`, `code`), at most 200, with their full number in `errors_total`. */
             422: {
                 headers: {
                     [name: string]: unknown;
@@ -6009,7 +6009,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The file exceeds IMPORT_MAX_BYTES. */
+            /** @description The file exceeds IMPORT_MAX_BYTES; the problem's `limit_bytes` gives the limit. */
             413: {
                 headers: {
                     [name: string]: unknown;
@@ -6027,7 +6027,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The file cannot be read as result data, or a reference does not exist. */
+            /** @description The file cannot be read as result data, or a reference does not exist. For a file problem, `errors[]` locates each issue as `file:line 12:Mn`; the same issues come structured in `issues[]` (`line`, `column`, `message`, `code`), at most 200, with their full number in `errors_total`. */
             422: {
                 headers: {
                     [name: string]: unknown;

@@ -27,7 +27,7 @@ export function ConsoleLayout() {
               <li key={item.to}>
                 <NavLink
                   to={item.to}
-                  end={item.to === '/'}
+                  end={item.end}
                   className={({ isActive }) =>
                     `block rounded-md px-3 py-2 text-sm ${isActive ? 'bg-slag-800 font-medium text-white shadow-[inset_3px_0_0_var(--color-ember-500)]' : 'text-slag-300 hover:bg-slag-800 hover:text-white'}`
                   }

@@ -9,13 +9,18 @@ import { AuditPage } from './routes/audit.tsx';
 import { DriftNewRunPage } from './routes/drift-new.tsx';
 import { DriftRunPage } from './routes/drift-run.tsx';
 import { HomePage } from './routes/home.tsx';
+import { ImportPage } from './routes/import.tsx';
+import { ImportsPage } from './routes/imports.tsx';
 import { NotFoundPage } from './routes/not-found.tsx';
 import { OutboxPage } from './routes/outbox.tsx';
 import { QuickStartPage } from './routes/quick-start.tsx';
 import { RequestLogPage } from './routes/request-log.tsx';
 import { ResetPasswordPage } from './routes/reset-password.tsx';
 import { RouteError } from './routes/route-error.tsx';
+import { SamplePage } from './routes/sample.tsx';
+import { SamplesPage } from './routes/samples.tsx';
 import { SignInPage } from './routes/sign-in.tsx';
+import { UploadPage } from './routes/upload.tsx';
 import { UsersPage } from './routes/users.tsx';
 
 export function createRouter(queryClient: QueryClient) {
@@ -42,6 +47,11 @@ export function createRouter(queryClient: QueryClient) {
           element: <ConsoleLayout />,
           children: [
             { index: true, element: <HomePage /> },
+            { path: 'samples', element: <SamplesPage /> },
+            { path: 'samples/:id', element: <SamplePage /> },
+            { path: 'imports', element: <ImportsPage /> },
+            { path: 'imports/new', element: <UploadPage /> },
+            { path: 'imports/:id', element: <ImportPage /> },
             { path: 'quick-start', element: <QuickStartPage /> },
             { path: 'api-keys', element: <ApiKeysPage /> },
             { path: 'reference', lazy: async () => ({ Component: (await import('./routes/reference.tsx')).ReferencePage }) },

@@ -1,6 +1,7 @@
 // The integrator examples run as an integrator would run them, against a live server seeded
 // with the demo scenario: the typed client (tsx) and the curl scripts (bash, curl, jq).
 import { execFile } from 'node:child_process';
+import { Decimal } from 'decimal.js';
 import { resolve } from 'node:path';
 import { promisify } from 'node:util';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -83,4 +84,53 @@ describe('curl scripts', () => {
     expect(failure).toMatchObject({ code: expect.any(Number) });
     expect((failure as { stderr: string }).stderr).toContain('403');
   });
+});
+
+describe('sample and import scripts', () => {
+  it('push-sample.sh stores the sample once, even when retried with the same Idempotency-Key', async () => {
+    const key = await demoAdminKey(['samples:write', 'samples:read']);
+    const env = { MELTWIRE_KEY: key, SAMPLE_CODE: 'K24-0999-F1', HEAT: 'K24-0999', IDEMPOTENCY_KEY: 'examples-push-1' };
+    const first = await example('bash', ['examples/push-sample.sh'], env);
+    const again = await example('bash', ['examples/push-sample.sh'], env);
+    expect(again.stdout).toBe(first.stdout);
+    const lines = first.stdout.trim().split('\n');
+    expect(lines[0]).toMatch(/^sample smp_\w+ K24-0999-F1 \(draft\)$/);
+    // The demo's correction set in force on OES-1 applies: Mn 0.74, 0.75, 0.75 each corrected to α·x + β,
+    // then averaged and rounded half-even to FE-LA's 2 decimals (decimal.js as the independent reference).
+    const sample = await server.db('samples').where({ sample_code: 'K24-0999-F1' }).first();
+    const [setId] = JSON.parse(sample.correction_json).set_ids;
+    const mn = JSON.parse((await server.db('standardizations').where({ id: setId }).first()).corrections_json).find((c: { element: string }) => c.element === 'Mn');
+    const D100 = Decimal.clone({ precision: 100 });
+    const mean = ['0.74', '0.75', '0.75'].reduce((sum, x) => sum.plus(new D100(mn.slope).times(x).plus(mn.offset)), new D100(0)).div(3);
+    expect(lines).toContain(`Mn ${mean.toDecimalPlaces(2, Decimal.ROUND_HALF_EVEN).toFixed(2)} %  n=3  flags=`);
+    // S: two "<0.002" and 0.003 → a "<" bound.
+    expect(lines.find((l) => l.startsWith('S '))).toMatch(/^S <0\.00\d %/);
+    expect(await server.db('samples').where({ sample_code: 'K24-0999-F1' }).pluck('id')).toHaveLength(1);
+  }, 30_000);
+
+  it('upload-results.sh imports a file, then recognises the same bytes', async () => {
+    const key = await demoAdminKey(['imports:write', 'samples:read']);
+    const file = resolve(ROOT, 'tests/fixtures/imports/quirks-wide.utf8-bom.csv');
+    const first = await example('bash', ['examples/upload-results.sh', file], { MELTWIRE_KEY: key });
+    expect(first.stdout).toMatch(/^imported as imp_\w+\nsamples: \d+ created, 0 rejected; burns: \d+; values: \d+/);
+    const again = await example('bash', ['examples/upload-results.sh', file], { MELTWIRE_KEY: key });
+    expect(again.stdout).toMatch(/^already imported as imp_\w+ \(same bytes\): nothing created/);
+  }, 30_000);
+
+  it('upload-results.sh prints the problem and the broken lines, and fails', async () => {
+    const key = await demoAdminKey(['imports:write', 'samples:read']);
+    const broken = resolve(ROOT, 'tests/fixtures/imports/broken-value.csv');
+    const failure = await example('bash', ['examples/upload-results.sh', broken], { MELTWIRE_KEY: key }).catch((error: { code: number; stderr: string }) => error);
+    expect(failure).toMatchObject({ code: 1 });
+    expect((failure as { stderr: string }).stderr).toContain('file:line 3:Mn %');
+  }, 30_000);
+
+  it('samples-since.sh pages through changes in change order and says where to resume', async () => {
+    const key = await demoAdminKey(['samples:read']);
+    const since = '2000-01-01T00:00:00Z';
+    const { stdout, stderr } = await example('bash', ['examples/samples-since.sh', since], { MELTWIRE_KEY: key, PAGE_SIZE: '7' });
+    const expected = await server.db('samples').orderBy([{ column: 'updated_at' }, { column: 'id' }]).select('sample_code', 'updated_at');
+    expect(stdout.trim().split('\n').map((line) => line.split('  ')[1])).toEqual(expected.map((s) => s.sample_code));
+    expect(stderr.trim()).toBe(`next time: updated_since=${expected.at(-1)!.updated_at}`);
+  }, 30_000);
 });

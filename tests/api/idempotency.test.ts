@@ -5,7 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { IDEMPOTENCY_TTL_MS } from '../../server/http/idempotency.ts';
 import { OPENAPI_FILE } from '../../server/openapi/write.ts';
 import { v1Routes } from '../../server/routes/v1/index.ts';
-import { createTestApp, expectProblem, issueKey, problemBody, signedInAgent, type TestApp } from '../helpers/test-app.ts';
+import { countRows, createTestApp, expectProblem, issueKey, problemBody, signedInAgent, type TestApp } from '../helpers/test-app.ts';
 import { testRoutes } from '../helpers/test-routes.ts';
 
 let t: TestApp;
@@ -36,8 +36,8 @@ describe('Idempotency-Key', () => {
     expect(again.headers.location).toBe(first.headers.location);
     expect(again.headers['content-type']).toBe(first.headers['content-type']);
     expect(again.body).toEqual(first.body);
-    expect(await t.db('users').where({ email: invite.email }).count({ n: '*' })).toEqual([{ n: 1 }]);
-    expect(await t.db('audit_events').where({ action: 'user.invited', target_id: first.body.user.id }).count({ n: '*' })).toEqual([{ n: 1 }]);
+    expect(await countRows(t.db('users').where({ email: invite.email }))).toBe(1);
+    expect(await countRows(t.db('audit_events').where({ action: 'user.invited', target_id: first.body.user.id }))).toBe(1);
   });
 
   it('answers 422 when the key comes back with a different body or for another operation', async () => {
@@ -100,7 +100,7 @@ describe('Idempotency-Key', () => {
     expect((await patch()).status).toBe(200);
     const replayed = await patch();
     expect(replayed.headers['idempotent-replayed']).toBe('true');
-    expect(await t.db('audit_events').where({ target_id: user.id, action: 'user.updated' }).count({ n: '*' })).toEqual([{ n: 1 }]);
+    expect(await countRows(t.db('audit_events').where({ target_id: user.id, action: 'user.updated' }))).toBe(1);
 
     const key = (await agent.post('/api/v1/api-keys').send({ name: 'to revoke', scopes: ['samples:read'] })).body;
     const revoke = () => agent.delete(`/api/v1/api-keys/${key.id}`).set('idempotency-key', 'revoke-1');
@@ -123,7 +123,7 @@ describe('Idempotency-Key', () => {
       expect(res.status).toBe(202);
       expect(res.headers['idempotent-replayed']).toBeUndefined();
     }
-    expect(await t.db('idempotency_keys').where({ idempotency_key: 'anon-1' }).count({ n: '*' })).toEqual([{ n: 0 }]);
+    expect(await countRows(t.db('idempotency_keys').where({ idempotency_key: 'anon-1' }))).toBe(0);
   });
 
   it('forgets a key after 24 hours', async () => {
@@ -146,7 +146,7 @@ describe('Idempotency-Key', () => {
     expect(problemBody(retry)).toMatchObject({ resource: first.headers.location });
     const stored = JSON.stringify(await t.db('idempotency_keys').select());
     expect(stored).not.toContain(first.body.secret);
-    expect(await t.db('api_keys').where({ name: 'MES' }).count({ n: '*' })).toEqual([{ n: 1 }]);
+    expect(await countRows(t.db('api_keys').where({ name: 'MES' }))).toBe(1);
   });
 
   it('fingerprints uploaded files: the same file replays, another file with the same name is a 422', async () => {

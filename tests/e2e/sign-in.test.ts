@@ -45,7 +45,7 @@ describe('console sign-in', () => {
     await signIn(page, 'admin@kestrelbend.test');
     await page.getByRole('heading', { name: /Welcome, Ines Okafor/ }).waitFor();
     await expect(page.getByTestId('server-version').innerText()).resolves.toMatch(/^\d+\.\d+\.\d+$/);
-    expect(await navLabels(page)).toEqual(['Overview', 'Quick start', 'Drift', 'API keys', 'API reference', 'Request log', 'Users', 'Audit trail', 'Outbox']);
+    expect(await navLabels(page)).toEqual(['Overview', 'Samples', 'Imports', 'Upload results', 'Drift', 'Quick start', 'API keys', 'API reference', 'Request log', 'Users', 'Audit trail', 'Outbox']);
 
     await page.getByRole('link', { name: 'Users' }).click();
     await page.getByRole('cell', { name: 'qa.viewer@kestrelbend.test' }).waitFor();
@@ -62,7 +62,7 @@ describe('console sign-in', () => {
     const page = await browser.context.newPage();
     await signIn(page, 'qa.viewer@kestrelbend.test');
     await page.getByTestId('current-role').filter({ hasText: 'viewer' }).waitFor();
-    expect(await navLabels(page)).toEqual(['Overview', 'Quick start', 'Drift', 'API reference']);
+    expect(await navLabels(page)).toEqual(['Overview', 'Samples', 'Imports', 'Drift', 'Quick start', 'API reference']);
     await page.goto(`${server.url}/users`);
     await page.getByText('Not available for your role').waitFor();
     await page.close();

@@ -5,7 +5,7 @@ import { existsSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { createApp, DEFAULT_CONSOLE_DIR } from '../../server/app.ts';
-import { testConfig } from '../../server/config.ts';
+import { testConfig, type Config } from '../../server/config.ts';
 import { createDb } from '../../server/db/knex.ts';
 import { migrateLatest } from '../../server/db/migrate.ts';
 import { listen } from '../../server/index.ts';
@@ -13,12 +13,12 @@ import { createLogger } from '../../server/logger.ts';
 import { startFakeSmtp } from '../../server/mail/fake-smtp.ts';
 import { seedDemoIfEmpty } from '../../server/seed/demo.ts';
 
-export async function startLiveServer(options: { console?: boolean } = {}) {
+export async function startLiveServer(options: { console?: boolean; config?: Partial<Config> } = {}) {
   const withConsole = options.console ?? true;
   if (withConsole && !existsSync(join(DEFAULT_CONSOLE_DIR, 'index.html'))) throw new Error('dist/ is missing: run `npm run build` first (npm test does)');
   const dir = mkdtempSync(join(tmpdir(), 'meltwire-live-'));
   const smtp = await startFakeSmtp();
-  const config = testConfig({ databaseFile: join(dir, 'live.db'), smtpUrl: smtp.url });
+  const config = testConfig({ databaseFile: join(dir, 'live.db'), smtpUrl: smtp.url, ...options.config });
   const db = createDb(config);
   await migrateLatest(db);
   await seedDemoIfEmpty(db);

@@ -1,5 +1,8 @@
 // Builds the real app on a real SQLite database (in memory by default) with an in-process
-// SMTP server standing in for the hosted mail service.
+// SMTP server standing in for the hosted mail service. With TEST_DATABASE_URL set (postgres://…),
+// every test app gets its own fresh PostgreSQL schema instead, so the same suite proves the
+// migrations and queries on PostgreSQL.
+import { randomBytes } from 'node:crypto';
 import type { Express } from 'express';
 import request from 'supertest';
 import { createApp } from '../../server/app.ts';
@@ -36,7 +39,8 @@ export interface TestApp {
 export async function createTestApp(overrides: Partial<Config> = {}, options: { routes?: AnyRoute[] } = {}): Promise<TestApp> {
   const smtp = await startFakeSmtp();
   const config = testConfig({ smtpUrl: smtp.url, ...overrides });
-  const db = createDb(config);
+  const pg = process.env.TEST_DATABASE_URL && !overrides.databaseFile ? await createPostgresSchema(process.env.TEST_DATABASE_URL) : undefined;
+  const db = pg ? createDb({ ...config, databaseUrl: pg.url }, { schema: pg.schema }) : createDb(config);
   await migrateLatest(db);
   const app = createApp({ db, config, outbox: smtp.outbox, consoleDir: '/nonexistent', validateResponses: true, routes: options.routes });
   return {
@@ -49,6 +53,23 @@ export async function createTestApp(overrides: Partial<Config> = {}, options: { 
       app.locals.ctx.mailer.close();
       await smtp.close();
       await db.destroy();
+      await pg?.drop();
+    },
+  };
+}
+
+async function createPostgresSchema(url: string) {
+  const schema = `test_${randomBytes(6).toString('hex')}`;
+  const admin = createDb({ databaseFile: '', databaseUrl: url });
+  await admin.raw(`create schema "${schema}"`);
+  await admin.destroy();
+  return {
+    url,
+    schema,
+    async drop() {
+      const cleanup = createDb({ databaseFile: '', databaseUrl: url });
+      await cleanup.raw(`drop schema "${schema}" cascade`);
+      await cleanup.destroy();
     },
   };
 }
@@ -120,3 +141,9 @@ export function problemBody(res: request.Response): { type: string; title: strin
 
 /** The demo lab's instruments and methods (invented settings), for ingest tests. */
 export { seedDemoLab } from '../../server/seed/demo-lab.ts';
+
+/** Row count as a number (PostgreSQL returns counts as strings). */
+export async function countRows(query: { count(arg: Record<string, string>): PromiseLike<Record<string, unknown>[]> }): Promise<number> {
+  const [row] = await query.count({ n: '*' });
+  return Number(row.n);
+}

@@ -26,7 +26,7 @@ export function toStandardizationView(row: StandardizationRowWithRefs, inForceId
       reference_material: m.reference_material,
       burns: m.burns.map((b) => ({
         values: Object.fromEntries(
-          Object.entries(b.values).map(([element, cell]) => [element, { value: cell.v, qualifier: cell.q, raw: b.raw[element]?.raw ?? '', raw_unit: b.raw[element]?.unit ?? '%' }]),
+          Object.entries(b.values).map(([element, cell]) => [element, { value: cell.v, qualifier: cell.q, raw: b.raw[element]?.raw ?? cell.v ?? '', raw_unit: b.raw[element]?.unit ?? '%' }]),
         ),
       })),
       means: m.means,

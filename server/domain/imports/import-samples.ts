@@ -11,9 +11,10 @@ export function toNewBurns(burns: ParsedBurn[]): NewBurn[] {
   return burns.map((burn) => {
     const values: NewBurn['values'] = {};
     const raw: NewBurn['raw'] = {};
-    for (const [element, cell] of Object.entries(burn.values)) {
+    for (const element in burn.values) {
+      const cell = burn.values[element];
       values[element] = { v: cell.value, q: cell.qualifier };
-      raw[element] = { raw: cell.raw, unit: cell.unit };
+      if (cell.raw !== cell.value || cell.unit !== '%') raw[element] = { raw: cell.raw, unit: cell.unit };
     }
     return { burn_number: burn.burn_number, measured_at: burn.measured_at ?? null, values, raw, source_line: burn.line };
   });
@@ -30,7 +31,7 @@ function splitKind(sample: ParsedSample, warnings: ImportIssue[]): { kind: strin
 
 export function buildImportedSamples(
   samples: ParsedSample[],
-  context: { instrumentId: string; method: Method; importId: string; createdBy: string; now: string; corrections?: CorrectionTimeline },
+  context: { instrumentId: string; method: Method; importId: string | null; createdBy: string; now: string; corrections?: CorrectionTimeline },
   warnings: ImportIssue[],
 ) {
   return samples.map((sample) => {

@@ -48,7 +48,9 @@ export function snapshotRequestBody(req: Request, limit: number): BodySnapshot {
   const body: unknown = req.body;
   if (contentType && /^multipart\//i.test(contentType)) {
     const files = uploadedFiles(req).map((f) => ({ field: f.fieldname, name: f.originalname, size: f.size, content_type: f.mimetype }));
-    return jsonSnapshot('multipart', contentType, { fields: body ?? {}, files }, declared, limit);
+    // Only the text fields: an upload route may have put the file object itself on the body.
+    const fields = Object.fromEntries(Object.entries((body ?? {}) as Record<string, unknown>).filter(([, value]) => typeof value !== 'object' || value === null));
+    return jsonSnapshot('multipart', contentType, { fields, files }, declared, limit);
   }
   if (body === undefined || body === null) {
     return declared > 0 ? { ...none(contentType), kind: 'unread', size: declared } : none(contentType);

@@ -30,8 +30,9 @@ export function normalisePushedBurns(burns: PushedBurn[], unit: Unit, location: 
       try {
         const parsed = parseMeasuredValue(cell);
         if (parsed.kind === 'blank') continue;
-        values[element] = { v: parsed.value === null ? null : toPercent(parsed.value, unit), q: parsed.qualifier };
-        raw[element] = { raw: String(cell), unit };
+        const value = parsed.value === null ? null : toPercent(parsed.value, unit);
+        values[element] = { v: value, q: parsed.qualifier };
+        if (String(cell) !== value || unit !== '%') raw[element] = { raw: String(cell), unit };
       } catch (error) {
         if (!(error instanceof MeasuredValueError)) throw error;
         errors.push({ location: `${at}.values.${key}`, message: error.message, code: 'bad_value' });

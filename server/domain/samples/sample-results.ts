@@ -1,7 +1,8 @@
 // Turns a sample's included burns into per-element results, in the method's element order.
 // Elements the method does not list are still averaged (nothing measured is dropped) with
-// DEFAULT_DECIMALS and the flag `not_in_method`.
-import { type BurnCell, computeElementResult, RESULT_FLAG_NAMES, type ResultFlag } from '../chemistry/element-result.ts';
+// DEFAULT_DECIMALS and the flag `not_in_method`. Written with plain loops: a bulk import runs
+// this for every sample × element (hundreds of thousands of times).
+import { type BurnCell, computeElementResult, type ResultFlag } from '../chemistry/element-result.ts';
 import { exactMean } from '../chemistry/exact-mean.ts';
 import type { Method, MethodElement } from '../methods/methods.repository.ts';
 import type { StoredCell, StoredResult } from './samples.repository.ts';
@@ -17,53 +18,72 @@ export interface BurnForResults {
   corrected?: Record<string, StoredCell> | null;
 }
 
-function settingsFor(method: Method, element: string): { settings: MethodElement; inMethod: boolean } {
-  const found = method.elements.find((e) => e.element === element);
-  if (found) return { settings: found, inMethod: true };
-  return {
-    settings: { element, decimals: DEFAULT_DECIMALS, working_range_low: null, working_range_high: null, detection_limit: null, repeatability_sd: null },
-    inMethod: false,
-  };
+const settingsCache = new WeakMap<Method, Map<string, MethodElement>>();
+
+function settingsOf(method: Method): Map<string, MethodElement> {
+  let settings = settingsCache.get(method);
+  if (!settings) {
+    settings = new Map(method.elements.map((e) => [e.element, e]));
+    settingsCache.set(method, settings);
+  }
+  return settings;
 }
 
-function toCell(cell: StoredCell | undefined): BurnCell | undefined {
-  return cell && { value: cell.v, qualifier: cell.q };
+function defaultSettings(element: string): MethodElement {
+  return { element, decimals: DEFAULT_DECIMALS, working_range_low: null, working_range_high: null, detection_limit: null, repeatability_sd: null };
+}
+
+/** Method elements first (in the method's order), then any others alphabetically. */
+export function elementOrder(method: Method, burns: BurnForResults[]): string[] {
+  const measured = new Set<string>();
+  for (const burn of burns) for (const element in burn.values) measured.add(element);
+  const ordered: string[] = [];
+  for (const e of method.elements) if (measured.delete(e.element)) ordered.push(e.element);
+  return measured.size ? ordered.concat([...measured].sort()) : ordered;
+}
+
+function cellsOf(burns: BurnForResults[], element: string): (BurnCell | undefined)[] {
+  const cells = new Array<BurnCell | undefined>(burns.length);
+  for (let i = 0; i < burns.length; i++) {
+    const cell = (burns[i].corrected ?? burns[i].values)[element];
+    cells[i] = cell === undefined ? undefined : { value: cell.v, qualifier: cell.q };
+  }
+  return cells;
 }
 
 /** The mean of the measured (uncorrected) numeric values — what computeElementResult reports as `mean`. */
 function rawMean(burns: BurnForResults[], element: string): string | null {
-  const numeric = burns.flatMap((b) => {
-    const cell = b.values[element];
-    return cell && cell.q === null && cell.v !== null ? [cell.v] : [];
-  });
+  const numeric: string[] = [];
+  for (const burn of burns) {
+    const cell = burn.values[element];
+    if (cell && cell.q === null && cell.v !== null) numeric.push(cell.v);
+  }
   return numeric.length ? exactMean(numeric) : null;
 }
 
-export function elementOrder(method: Method, burns: BurnForResults[]): string[] {
-  const measured = new Set(burns.flatMap((b) => Object.keys(b.values)));
-  const inMethod = method.elements.map((e) => e.element).filter((el) => measured.has(el));
-  const extra = [...measured].filter((el) => !method.elements.some((e) => e.element === el)).sort();
-  return [...inMethod, ...extra];
+/** A corrected value (or bound) below 0 — kept, not clamped (see RESULT_FLAGS), and flagged. */
+function negativeAfterCorrection(burns: BurnForResults[], element: string): boolean {
+  for (const burn of burns) if (burn.corrected?.[element]?.v?.startsWith('-')) return true;
+  return false;
 }
 
 export function computeSampleResults(burns: BurnForResults[], method: Method): { results: StoredResult[]; flags: string[] } {
   const included = burns.filter((b) => !b.excluded);
+  const anyCorrected = included.some((b) => b.corrected != null);
+  const settingsByElement = settingsOf(method);
   const results: StoredResult[] = [];
+  const flags = new Set<string>();
   for (const element of elementOrder(method, burns)) {
-    const { settings, inMethod } = settingsFor(method, element);
-    const corrected = computeElementResult({ element, cells: included.map((b) => toCell((b.corrected ?? b.values)[element])), settings });
-    const raw = included.some((b) => b.corrected) ? rawMean(included, element) : corrected.mean;
-    const extra: ResultFlag[] = [];
-    if (!inMethod) extra.push('not_in_method');
-    // Corrected values are kept below 0 rather than clamped (see RESULT_FLAGS); the flag says so.
-    if (included.some((b) => b.corrected?.[element]?.v?.startsWith('-'))) extra.push('negative_after_correction');
-    results.push({
-      ...corrected,
-      raw_mean: raw,
-      decimals: settings.decimals,
-      flags: extra.length ? RESULT_FLAG_NAMES.filter((f) => corrected.flags.includes(f) || extra.includes(f)) : corrected.flags,
-    });
+    const known = settingsByElement.get(element);
+    const settings = known ?? defaultSettings(element);
+    const result = computeElementResult({ element, cells: cellsOf(included, element), settings }) as StoredResult;
+    result.raw_mean = anyCorrected ? rawMean(included, element) : result.mean;
+    result.decimals = settings.decimals;
+    // In RESULT_FLAGS order: negative_after_correction comes just before not_in_method, the last.
+    if (anyCorrected && negativeAfterCorrection(included, element)) result.flags.push('negative_after_correction' satisfies ResultFlag);
+    if (!known) result.flags.push('not_in_method' satisfies ResultFlag);
+    for (const flag of result.flags) flags.add(flag);
+    results.push(result);
   }
-  const flags = [...new Set(results.flatMap((r) => r.flags))].sort();
-  return { results, flags };
+  return { results, flags: [...flags].sort() };
 }

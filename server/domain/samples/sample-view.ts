@@ -83,7 +83,7 @@ export function toBurnView(burn: BurnRow, unit: OutputUnit) {
         {
           value: inUnit(cell.v),
           qualifier: cell.q,
-          raw: raw[element]?.raw ?? '',
+          raw: raw[element]?.raw ?? cell.v ?? '',
           raw_unit: raw[element]?.unit ?? '%',
           corrected: corrected?.[element] ? { value: inUnit(corrected[element].v), qualifier: corrected[element].q } : null,
         },

@@ -1,5 +1,6 @@
 // The only code that touches the samples and burns tables.
 import type { Knex } from 'knex';
+import { bulkInsert } from '../../db/bulk-insert.ts';
 import type { ElementResult } from '../chemistry/element-result.ts';
 import type { Unit } from '../chemistry/units.ts';
 
@@ -11,7 +12,9 @@ export interface StoredCell {
   q: '<' | '>' | 'nd' | null;
 }
 
-/** The value as received, kept for traceability. */
+/** The value as received, kept for traceability. Stored only where it differs from the
+ * canonical value (another unit, another spelling such as "0,75" or "n.d."): otherwise the
+ * canonical % string is the received text. */
 export interface RawCell {
   raw: string;
   unit: Unit;
@@ -69,11 +72,9 @@ export interface BurnRow {
   corrected_json: string | null;
 }
 
-const INSERT_CHUNK = 200;
-
 export async function insertSamples(db: Queryable, samples: SampleRow[], burns: BurnRow[]): Promise<void> {
-  for (let i = 0; i < samples.length; i += INSERT_CHUNK) await db<SampleRow>('samples').insert(samples.slice(i, i + INSERT_CHUNK));
-  for (let i = 0; i < burns.length; i += INSERT_CHUNK) await db<BurnRow>('burns').insert(burns.slice(i, i + INSERT_CHUNK));
+  await bulkInsert(db, 'samples', samples as unknown as Record<string, unknown>[]);
+  await bulkInsert(db, 'burns', burns as unknown as Record<string, unknown>[]);
 }
 
 function withRefs(db: Queryable) {

@@ -151,6 +151,12 @@ export const SetBurnExclusionRequestSchema = z
   })
   .openapi('SetBurnExclusionRequest', { description: 'Exclude a burn from the statistics (it is never deleted), or include it again. The reason is recorded either way.' });
 
+/** A time with any offset, turned into the stored form (ISO 8601 UTC) so text comparison is time comparison. */
+const utcTime = z.iso
+  .datetime({ offset: true })
+  .transform((value) => new Date(value).toISOString())
+  .openapi({ type: 'string', format: 'date-time' });
+
 export const SampleListQuerySchema = paginationQuery.extend({
   heat: z.string().max(100).optional(),
   grade: z.string().max(100).optional(),
@@ -161,8 +167,8 @@ export const SampleListQuerySchema = paginationQuery.extend({
   status: SampleStatusSchema.optional(),
   kind: SampleKindSchema.optional(),
   flag: z.string().max(60).optional().openapi({ description: 'Only samples with this flag on some element.' }),
-  created_from: z.iso.datetime({ offset: true }).optional(),
-  created_to: z.iso.datetime({ offset: true }).optional(),
-  updated_since: z.iso.datetime({ offset: true }).optional().openapi({ description: 'Samples changed at or after this time; the list is then ordered oldest change first, so a client can resume from its last `updated_at`.' }),
+  created_from: utcTime.optional(),
+  created_to: utcTime.optional(),
+  updated_since: utcTime.optional().openapi({ description: 'Samples changed at or after this time; the list is then ordered oldest change first, so a client can resume from its last `updated_at`.' }),
   unit: OutputUnitSchema.default('%'),
 });

@@ -8,6 +8,10 @@ import { defineRoute } from '../../http/route.ts';
 import { z } from '../../openapi/zod.ts';
 import { singleFileUpload } from '../../http/upload.ts';
 
+// The extensions fileProblem() (imports.service.ts) adds, for clients that show the lines.
+const FILE_ISSUES_NOTE =
+  'For a file problem, `errors[]` locates each issue as `file:line 12:Mn`; the same issues come structured in `issues[]` (`line`, `column`, `message`, `code`), at most 200, with their full number in `errors_total`.';
+
 export const importRoutes = [
   defineRoute({
     method: 'post',
@@ -25,9 +29,9 @@ export const importRoutes = [
     responses: {
       200: { description: 'These bytes were imported before: the earlier import, unchanged.', schema: ImportSchema },
       201: { description: 'Imported; the report lists what was created, warnings and rejected lines.', schema: ImportSchema, headers: { Location: 'The new import.' } },
-      413: { description: 'The file exceeds IMPORT_MAX_BYTES.' },
+      413: { description: 'The file exceeds IMPORT_MAX_BYTES; the problem\'s `limit_bytes` gives the limit.' },
       415: { description: 'Not a multipart/form-data request.' },
-      422: { description: 'The file cannot be read, a value is broken (all-or-nothing), or a referenced instrument, method or profile does not exist.' },
+      422: { description: `The file cannot be read, a value is broken (all-or-nothing), or a referenced instrument, method or profile does not exist. ${FILE_ISSUES_NOTE}` },
     },
     async handler({ body, auth, req, res, ctx }) {
       const { created, record } = await uploadImport(ctx, auth, body, req.requestId);
@@ -48,9 +52,9 @@ export const importRoutes = [
     before: (ctx) => [singleFileUpload('file', ctx.config.importMaxBytes)],
     responses: {
       200: { description: 'How the file reads.', schema: ImportPreviewSchema },
-      413: { description: 'The file exceeds IMPORT_MAX_BYTES.' },
+      413: { description: 'The file exceeds IMPORT_MAX_BYTES; the problem\'s `limit_bytes` gives the limit.' },
       415: { description: 'Not a multipart/form-data request.' },
-      422: { description: 'The file cannot be read as result data, or a reference does not exist.' },
+      422: { description: `The file cannot be read as result data, or a reference does not exist. ${FILE_ISSUES_NOTE}` },
     },
     async handler({ body, auth, res, ctx }) {
       res.json(await previewImport(ctx, auth, body));

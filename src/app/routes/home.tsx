@@ -1,8 +1,9 @@
 import { Link } from 'react-router';
 import { Alert } from '../../components/ui/feedback.tsx';
 import { Card, PageHeader } from '../../components/ui/layout.tsx';
-import { useMe } from '../../features/auth/api/me.ts';
+import { hasScope, useMe } from '../../features/auth/api/me.ts';
 import { HealthCard } from '../../features/health/health-card.tsx';
+import { RecentSamplesCard } from '../../features/samples/components/recent-samples-card.tsx';
 
 export function HomePage() {
   const { data: me } = useMe();
@@ -10,6 +11,7 @@ export function HomePage() {
     <>
       <PageHeader title={`Welcome, ${me?.user.name ?? ''}`} description="Meltwire is the results hub between the spark stand and everything else: ERP/MES, melt shop screens, quality and certificates." />
       <div className="grid gap-6 lg:grid-cols-2">
+        {hasScope(me, 'samples:read') && <RecentSamplesCard />}
         <HealthCard />
         <Card title="You">
           <dl className="grid grid-cols-[auto_1fr] gap-x-6 gap-y-2 text-sm">

@@ -1,4 +1,4 @@
-import { useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes } from 'react';
+import { useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes, type TextareaHTMLAttributes } from 'react';
 
 interface FieldProps {
   label: string;
@@ -47,6 +47,21 @@ export function SelectField({ label, error, hint, children, ...select }: FieldPr
       <select id={id} aria-invalid={error ? true : undefined} className={`${CONTROL} ${error ? 'border-oxide-600' : 'border-ash-200'}`} {...select}>
         {children}
       </select>
+    </FieldFrame>
+  );
+}
+
+export function TextAreaField({ label, error, hint, ...textarea }: FieldProps & TextareaHTMLAttributes<HTMLTextAreaElement>) {
+  const id = useId();
+  return (
+    <FieldFrame id={id} label={label} error={error} hint={hint}>
+      <textarea
+        id={id}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={error ? `${id}-error` : undefined}
+        className={`${CONTROL} ${error ? 'border-oxide-600' : 'border-ash-200'}`}
+        {...textarea}
+      />
     </FieldFrame>
   );
 }

@@ -82,6 +82,8 @@ describe('POST /api/v1/imports', () => {
     const res = await upload(broken);
     expectProblem(res, 422);
     expect(problemBody(res).errors).toEqual([expect.objectContaining({ location: 'file:line 3:Mn %' })]);
+    // The same issue, structured, for clients that show line and column apart (documented on the 422).
+    expect(problemBody(res)).toMatchObject({ errors_total: 1, issues: [{ line: 3, column: 'Mn %', code: 'invalid_value', message: expect.any(String) }] });
     expect(await counts()).toEqual(before);
   });
 
@@ -105,7 +107,12 @@ describe('POST /api/v1/imports', () => {
     expectProblem(noFile, 400);
     expect(problemBody(noFile).errors?.map((e) => e.location)).toEqual(['body.file']);
     expectProblem(await analyst.post('/api/v1/imports').send({ instrument_id: lab.foundry.id }), 415);
-    expectProblem(await upload(Buffer.alloc(300_000, 'a')), 413);
+    const tooLarge = await upload(Buffer.alloc(300_000, 'a'));
+    expectProblem(tooLarge, 413);
+    expect(problemBody(tooLarge)).toMatchObject({ limit_bytes: 200_000, detail: 'The file exceeds the limit of 200000 bytes (IMPORT_MAX_BYTES).' });
+    const previewTooLarge = await analyst.post('/api/v1/imports/preview').field('instrument_id', lab.foundry.id).field('method_id', lab.feMethod.id).attach('file', Buffer.alloc(300_000, 'a'), 'big.csv');
+    expectProblem(previewTooLarge, 413);
+    expect(problemBody(previewTooLarge).limit_bytes).toBe(200_000);
   });
 
   it('previews a file without storing anything', async () => {

@@ -176,3 +176,16 @@ describe('GET /api/v1/samples.csv', () => {
     expect(row.endsWith(',0.71,<0.002')).toBe(true);
   });
 });
+
+describe('time filters', () => {
+  it('compare times, not text, whatever offset the caller writes', async () => {
+    const created = await analyst.post('/api/v1/samples').send(steel('K24-0700-F9', [{ Mn: 0.7 }], { heat: 'K24-0700' }));
+    const at = new Date(created.body.created_at);
+    // The same instant written one hour ahead with +01:00: as text it sorts after the stored UTC time.
+    const sameInstant = new Date(at.getTime() + 3600_000).toISOString().replace('Z', '+01:00');
+    const since = await analyst.get('/api/v1/samples').query({ heat: 'K24-0700', updated_since: sameInstant });
+    expect(since.body.data.map((s: { id: string }) => s.id)).toEqual([created.body.id]);
+    const before = await analyst.get('/api/v1/samples').query({ heat: 'K24-0700', created_to: sameInstant });
+    expect(before.body.data).toEqual([]);
+  });
+});

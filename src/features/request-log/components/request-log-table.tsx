@@ -1,5 +1,6 @@
 import { Button } from '../../../components/ui/button.tsx';
 import { EmptyState, ProblemAlert, Spinner } from '../../../components/ui/feedback.tsx';
+import { LoadMore } from '../../../components/ui/load-more.tsx';
 import { Badge, Table } from '../../../components/ui/layout.tsx';
 import { useRequestLog, type RequestLogFilters } from '../api/request-log.ts';
 import { StatusBadge } from './status-badge.tsx';
@@ -45,11 +46,7 @@ export function RequestLogTable({ filters, onOpen }: { filters: RequestLogFilter
           ))}
         </Table>
       )}
-      {log.hasNextPage && (
-        <Button variant="secondary" onClick={() => log.fetchNextPage()} disabled={log.isFetchingNextPage}>
-          {log.isFetchingNextPage ? 'Loading…' : 'Load more'}
-        </Button>
-      )}
+      <LoadMore list={log} />
     </div>
   );
 }

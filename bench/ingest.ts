@@ -1,0 +1,103 @@
+// `npm run bench:ingest`: a generated 20,000-burn wide file (3 burns per sample, 25 elements)
+// uploaded through the real API over HTTP, against a floor measured in the same run:
+// csv-parse plus one better-sqlite3 transaction inserting the same values (one row per burn,
+// values as a JSON text column). Figures are medians; compare the ratio, not the seconds.
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import Database from 'better-sqlite3';
+import { parse } from 'csv-parse/sync';
+import { createApp } from '../server/app.ts';
+import { testConfig } from '../server/config.ts';
+import { createDb } from '../server/db/knex.ts';
+import { migrateLatest } from '../server/db/migrate.ts';
+import { createApiKey } from '../server/domain/api-keys/api-keys.service.ts';
+import { sessionAuthContext } from '../server/domain/auth/auth.service.ts';
+import { listen } from '../server/index.ts';
+import { createLogger } from '../server/logger.ts';
+import { seedDemoLab } from '../server/seed/demo-lab.ts';
+import { seedDemoUsers } from '../server/seed/demo-users.ts';
+import { insertMethod } from '../server/domain/methods/methods.repository.ts';
+import { newId } from '../server/lib/ids.ts';
+import { WIDE_FILE_ELEMENTS, wideCsv } from './generate-wide-file.ts';
+
+const BURNS = Number(process.env.BENCH_BURNS ?? 20_000);
+const RUNS = Number(process.env.BENCH_RUNS ?? 3);
+const VALUES = BURNS * WIDE_FILE_ELEMENTS.length;
+
+const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
+
+/** The floor: parse the same text and insert one row per burn in one prepared transaction. */
+function floorRun(text: string, dir: string, run: number): number {
+  const started = performance.now();
+  const db = new Database(join(dir, `floor-${run}.db`));
+  db.pragma('journal_mode = WAL');
+  db.exec('create table burns (id integer primary key, sample text, burn integer, measured_at text, values_json text)');
+  const rows = parse(text, { columns: true, skip_empty_lines: true }) as Record<string, string>[];
+  const insert = db.prepare('insert into burns (sample, burn, measured_at, values_json) values (?, ?, ?, ?)');
+  db.transaction(() => {
+    for (const row of rows) {
+      const values: Record<string, string> = {};
+      for (const element of WIDE_FILE_ELEMENTS) values[element] = row[`${element} %`];
+      insert.run(row.Sample, Number(row.Burn), row.Time, JSON.stringify(values));
+    }
+  })();
+  db.close();
+  return performance.now() - started;
+}
+
+/** The product: the same file uploaded to POST /api/v1/imports on a fresh database. */
+async function apiRun(text: string, dir: string, run: number): Promise<{ ms: number; samples: number }> {
+  const config = testConfig({ databaseFile: join(dir, `api-${run}.db`), rateLimitPerMinute: 1_000_000, importMaxBytes: 100 * 1024 * 1024 });
+  const db = createDb(config);
+  await migrateLatest(db);
+  await seedDemoUsers(db);
+  const lab = await seedDemoLab(db);
+  const method = { ...lab.feMethod, id: newId('mth'), code: 'FE-BENCH', elements: WIDE_FILE_ELEMENTS.map((element) => ({ element, decimals: 4, working_range_low: null, working_range_high: null, detection_limit: null, repeatability_sd: '0.01' })) };
+  await insertMethod(db, method);
+  const admin = await db('users').where({ role: 'admin' }).first();
+  const key = await createApiKey({ db, config, logger: createLogger('silent'), mailer: { send: async () => ({ delivered: false }), close() {} } }, sessionAuthContext(admin, 'bench'), { name: 'bench', scopes: ['imports:write'] });
+  const logger = createLogger('silent');
+  const running = await listen(createApp({ db, config, logger, consoleDir: '/nonexistent' }), db, logger, 0);
+  try {
+    const form = new FormData();
+    form.set('instrument_id', lab.foundry.id);
+    form.set('method_id', method.id);
+    form.set('file', new Blob([text], { type: 'text/csv' }), 'bench.csv');
+    const started = performance.now();
+    const res = await fetch(`${running.url}/api/v1/imports`, { method: 'POST', body: form, headers: { authorization: `Bearer ${key.secret}` } });
+    const body = (await res.json()) as { report?: { counts: { samples_created: number } }; detail?: string };
+    const ms = performance.now() - started;
+    if (res.status !== 201 || !body.report) throw new Error(`upload failed: ${res.status} ${JSON.stringify(body).slice(0, 500)}`);
+    return { ms, samples: body.report.counts.samples_created };
+  } finally {
+    await running.stop();
+  }
+}
+
+async function main(): Promise<void> {
+  const dir = mkdtempSync(join(tmpdir(), 'meltwire-bench-'));
+  try {
+    const text = wideCsv(BURNS);
+    console.log(`file: ${BURNS} burns × ${WIDE_FILE_ELEMENTS.length} elements = ${VALUES} values, ${(Buffer.byteLength(text) / 1e6).toFixed(1)} MB; ${RUNS} runs each, medians`);
+    const floor: number[] = [];
+    const api: number[] = [];
+    let samples = 0;
+    for (let run = 0; run < RUNS; run++) {
+      floor.push(floorRun(text, dir, run));
+      const result = await apiRun(text, dir, run);
+      api.push(result.ms);
+      samples = result.samples;
+    }
+    const floorMs = median(floor);
+    const apiMs = median(api);
+    const rate = (ms: number) => `${Math.round(VALUES / (ms / 1000)).toLocaleString('en')} values/s`;
+    console.log(`floor  csv-parse + one better-sqlite3 transaction: ${floorMs.toFixed(0)} ms  (${rate(floorMs)})`);
+    console.log(`api    POST /api/v1/imports (${samples} samples):    ${apiMs.toFixed(0)} ms  (${rate(apiMs)})`);
+    console.log(`ratio  api / floor = ${(apiMs / floorMs).toFixed(2)}  (target ≤ 2)`);
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+}
+
+await main();

@@ -1,0 +1,30 @@
+// Inserts many rows. Inside a SQLite transaction it runs one prepared better-sqlite3 statement
+// per row (a bulk import inserts tens of thousands of rows; Knex compiling multi-row SQL was
+// the slowest step). Elsewhere — PostgreSQL, or outside a transaction — it uses Knex in chunks.
+import type { Database } from 'better-sqlite3';
+import type { Knex } from 'knex';
+
+type Queryable = Knex | Knex.Transaction;
+type Row = Record<string, unknown>;
+
+const KNEX_CHUNK = 200;
+
+function bindable(value: unknown): unknown {
+  if (value === undefined) return null;
+  if (typeof value === 'boolean') return value ? 1 : 0;
+  return value;
+}
+
+export async function bulkInsert(db: Queryable, table: string, rows: Row[]): Promise<void> {
+  if (rows.length === 0) return;
+  const transaction = db as Knex.Transaction;
+  if (transaction.isTransaction && db.client.config.client === 'better-sqlite3') {
+    // A transaction's client hands out the transaction's own connection.
+    const connection = (await db.client.acquireConnection()) as Database;
+    const columns = Object.keys(rows[0]);
+    const statement = connection.prepare(`insert into "${table}" (${columns.map((c) => `"${c}"`).join(', ')}) values (${columns.map(() => '?').join(', ')})`);
+    for (const row of rows) statement.run(columns.map((column) => bindable(row[column])));
+    return;
+  }
+  for (let i = 0; i < rows.length; i += KNEX_CHUNK) await db(table).insert(rows.slice(i, i + KNEX_CHUNK));
+}

@@ -1,0 +1,43 @@
+// Multipart uploads with progress. openapi-fetch (fetch) cannot report upload progress, so file
+// uploads go through XMLHttpRequest, whose `upload.onprogress` can; answers and problems are
+// handled exactly as `unwrap` handles them.
+import { ApiProblem, NETWORK_PROBLEM, problemFromResponse } from './problem.ts';
+
+export interface UploadProgress {
+  /** Bytes of the request body sent so far. */
+  loaded: number;
+  /** Bytes of the whole body, when the browser knows it. */
+  total: number | null;
+}
+
+export interface UploadAnswer<T> {
+  status: number;
+  data: T;
+}
+
+function parseJson(text: string): unknown {
+  try {
+    return text ? JSON.parse(text) : undefined;
+  } catch {
+    return undefined;
+  }
+}
+
+/** POSTs `form` to `/api/v1<path>`; resolves with the status and JSON body, or rejects with an ApiProblem. */
+export function postMultipart<T>(path: string, form: FormData, onProgress?: (progress: UploadProgress) => void): Promise<UploadAnswer<T>> {
+  return new Promise((resolve, reject) => {
+    const xhr = new XMLHttpRequest();
+    xhr.open('POST', `/api/v1${path}`);
+    xhr.withCredentials = true;
+    xhr.setRequestHeader('Accept', 'application/json');
+    xhr.upload.onprogress = (event) => onProgress?.({ loaded: event.loaded, total: event.lengthComputable ? event.total : null });
+    xhr.onload = () => {
+      const body = parseJson(xhr.responseText);
+      if (xhr.status >= 200 && xhr.status < 300) resolve({ status: xhr.status, data: body as T });
+      else reject(problemFromResponse(xhr.status, xhr.statusText, body));
+    };
+    xhr.onerror = () => reject(new ApiProblem(NETWORK_PROBLEM));
+    xhr.onabort = () => reject(new ApiProblem({ ...NETWORK_PROBLEM, title: 'The upload was cancelled', detail: undefined }));
+    xhr.send(form);
+  });
+}

@@ -1,0 +1,84 @@
+import { useState } from 'react';
+import { Link, useParams, useSearchParams } from 'react-router';
+import { Alert, ProblemAlert, Spinner } from '../../components/ui/feedback.tsx';
+import { PageHeader } from '../../components/ui/layout.tsx';
+import { hasScope, useMe } from '../../features/auth/api/me.ts';
+import { RequireScope } from '../../features/auth/components/require-scope.tsx';
+import { useSample, type Burn } from '../../features/samples/api/samples.ts';
+import { BurnExclusionDialog } from '../../features/samples/components/burn-exclusion-dialog.tsx';
+import { burnElements, BurnsTable } from '../../features/samples/components/burns-table.tsx';
+import { FlagLegend } from '../../features/samples/components/flag-badges.tsx';
+import { ResultsTable } from '../../features/samples/components/results-table.tsx';
+import { SampleIdentity } from '../../features/samples/components/sample-identity.tsx';
+import { SampleProvenance } from '../../features/samples/components/sample-provenance.tsx';
+import { UnitSwitch } from '../../features/samples/components/unit-switch.tsx';
+import { readUnit, type OutputUnit } from '../../features/samples/filters.ts';
+
+export function SamplePage() {
+  const { id = '' } = useParams();
+  const [params, setParams] = useSearchParams();
+  const unit = readUnit(params);
+  const setUnit = (next: OutputUnit) => setParams(next === '%' ? {} : { unit: next }, { replace: true });
+  const sample = useSample(id, unit);
+  const { data: me } = useMe();
+  const [toggling, setToggling] = useState<Burn | null>(null);
+
+  const s = sample.data;
+  const canChangeBurns = hasScope(me, 'samples:write') && s?.status === 'draft';
+
+  return (
+    <RequireScope scope="samples:read">
+      <PageHeader
+        title={s ? `Sample ${s.sample_code}` : 'Sample'}
+        description={s ? [s.heat && `Heat ${s.heat}`, s.grade, s.kind].filter(Boolean).join(' · ') : undefined}
+        actions={
+          <Link to="/samples" className="text-sm text-copper-700 underline">
+            ← All samples
+          </Link>
+        }
+      />
+      {sample.isPending && <Spinner label="Loading the sample…" />}
+      <ProblemAlert error={sample.error} />
+      {s && (
+        <div className="space-y-6">
+          <Alert tone="caution" title="Review before release">
+            These results are computed from the burns as stored. They must be reviewed and authorised under your laboratory&apos;s own procedures before they are released or
+            reported.
+          </Alert>
+          <div className="grid gap-6 lg:grid-cols-2">
+            <SampleIdentity sample={s} />
+            <SampleProvenance sample={s} />
+          </div>
+
+          <section aria-labelledby="results-heading" className="space-y-3">
+            <div className="flex flex-wrap items-center justify-between gap-3">
+              <h2 id="results-heading" className="text-lg font-semibold">
+                Results
+              </h2>
+              <UnitSwitch value={unit} onChange={setUnit} />
+            </div>
+            <ResultsTable results={s.results} unit={unit} />
+            <p className="text-xs text-slag-500">
+              Reported: the mean rounded half to even to the method&apos;s decimals. Mean, SD, min and max show two more decimals (hover for the full value); raw mean is before drift
+              correction.
+            </p>
+            <FlagLegend flags={s.results.flatMap((r) => r.flags)} />
+          </section>
+
+          <section aria-labelledby="burns-heading" className="space-y-3">
+            <h2 id="burns-heading" className="text-lg font-semibold">
+              Burns
+            </h2>
+            {s.status === 'released' && hasScope(me, 'samples:write') && (
+              <Alert tone="info" title="Released: burns cannot be excluded or included">
+                A released result is never changed in place; it is amended with a new revision.
+              </Alert>
+            )}
+            <BurnsTable burns={s.burns} elements={burnElements(s.burns, s.results.map((r) => r.element))} unit={unit} onToggle={canChangeBurns ? setToggling : undefined} />
+          </section>
+          <BurnExclusionDialog sampleId={s.id} burn={toggling} onClose={() => setToggling(null)} />
+        </div>
+      )}
+    </RequireScope>
+  );
+}

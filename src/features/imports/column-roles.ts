@@ -1,0 +1,27 @@
+// What the server recognised a column as (ImportReport.layout.columns[].role), in words.
+const ROLE_WORDS: Record<string, string> = {
+  sample_code: 'Sample code',
+  heat: 'Heat / lot',
+  grade: 'Grade',
+  kind: 'Sample kind',
+  burn_number: 'Burn number',
+  measured_at: 'Time measured',
+  field: 'Identification field',
+  element: 'Element',
+  element_name: 'Element name',
+  value: 'Value',
+  unit: 'Unit',
+  ignored: 'Ignored',
+};
+
+export function roleInWords(role: string): string {
+  return ROLE_WORDS[role] ?? role.replaceAll('_', ' ');
+}
+
+/** Elements of a file in column order: the element columns of a wide file, else those the values name. */
+export function elementsOf(columns: { role: string; element?: string }[], valueRecords: Record<string, string>[]): string[] {
+  const elements = columns.filter((c) => c.role === 'element' && c.element).map((c) => c.element as string);
+  const seen = new Set(elements);
+  for (const record of valueRecords) for (const el of Object.keys(record)) if (!seen.has(el)) (seen.add(el), elements.push(el));
+  return elements;
+}

@@ -1,0 +1,61 @@
+// Flags are told by an icon AND words, never by colour alone; the meaning is on hover and in the legend.
+import { flagInfo, type FlagTone } from '../result-flags.ts';
+
+const TONE: Record<FlagTone, { icon: string; className: string }> = {
+  attention: { icon: '⚠', className: 'border-ember-500/40 bg-ember-500/10 text-ember-700' },
+  note: { icon: 'ℹ', className: 'border-ash-200 bg-ash-100 text-slag-700' },
+};
+
+export function FlagBadge({ name }: { name: string }) {
+  const info = flagInfo(name);
+  const tone = TONE[info.tone];
+  return (
+    <span
+      className={`inline-flex items-center gap-1 whitespace-nowrap rounded border px-1.5 py-0.5 text-xs font-medium ${tone.className}`}
+      title={info.description ?? `Flag ${info.name}`}
+      data-flag={info.name}
+    >
+      <span aria-hidden>{tone.icon}</span>
+      {info.label}
+    </span>
+  );
+}
+
+export function FlagList({ flags, empty = '' }: { flags: string[]; empty?: string }) {
+  if (flags.length === 0) return empty ? <span className="text-xs text-slag-500">{empty}</span> : null;
+  // Those that need attention first, so they are seen when the list wraps.
+  const ordered = [...flags].sort((a, b) => Number(flagInfo(a).tone === 'note') - Number(flagInfo(b).tone === 'note'));
+  return (
+    <span className="flex flex-wrap gap-1">
+      {ordered.map((flag) => (
+        <FlagBadge key={flag} name={flag} />
+      ))}
+    </span>
+  );
+}
+
+/** What each flag present on the page means, in full. */
+export function FlagLegend({ flags }: { flags: string[] }) {
+  const unique = [...new Set(flags)];
+  if (unique.length === 0) return null;
+  return (
+    <section aria-labelledby="flag-legend" className="rounded-lg border border-ash-200 bg-white p-4">
+      <h3 id="flag-legend" className="mb-2 text-sm font-semibold text-slag-800">
+        What the flags mean
+      </h3>
+      <dl className="space-y-1.5 text-sm">
+        {unique.map((name) => {
+          const info = flagInfo(name);
+          return (
+            <div key={name} className="grid gap-x-3 sm:grid-cols-[14rem_1fr]">
+              <dt>
+                <FlagBadge name={name} />
+              </dt>
+              <dd className="text-slag-700">{info.description ?? <>Not described in this console version (flag <code>{name}</code>); see the API reference.</>}</dd>
+            </div>
+          );
+        })}
+      </dl>
+    </section>
+  );
+}

@@ -1,0 +1,59 @@
+import { Table } from '../../../components/ui/layout.tsx';
+import type { ElementResult } from '../api/samples.ts';
+import { plain, reportedFigure, rsdFigure, statistic } from '../figures.ts';
+import { FlagList } from './flag-badges.tsx';
+
+const cell = 'px-3 py-2';
+const figure = `${cell} text-right font-mono tabular-nums whitespace-nowrap`;
+const right = (text: string) => (
+  <span key={text} className="block text-right">
+    {text}
+  </span>
+);
+
+/** A statistic with guard digits; the full value on hover. */
+function Stat({ value, decimals }: { value: number | null; decimals: number }) {
+  return <span title={value === null ? undefined : plain(value)}>{statistic(value, decimals)}</span>;
+}
+
+export function ResultsTable({ results, unit }: { results: ElementResult[]; unit: string }) {
+  return (
+    <Table
+      caption={`Results per element, in ${unit}`}
+      head={['Element', right(`Reported (${unit})`), right('Mean'), right('SD'), right('RSD %'), right('n'), right('Min'), right('Max'), right('Raw mean'), 'Flags']}
+    >
+      {results.map((r) => (
+        <tr key={r.element} className="align-top" data-testid="result-row" data-element={r.element}>
+          <th scope="row" className={`${cell} font-mono font-semibold`}>
+            {r.element}
+          </th>
+          <td className={`${figure} font-semibold`} data-testid="reported">
+            {reportedFigure(r)}
+          </td>
+          <td className={figure}>
+            <Stat value={r.mean} decimals={r.decimals} />
+          </td>
+          <td className={figure}>
+            <Stat value={r.sd} decimals={r.decimals} />
+          </td>
+          <td className={figure}>{rsdFigure(r.rsd)}</td>
+          <td className={figure} data-testid="n">
+            {r.n}
+          </td>
+          <td className={figure}>
+            <Stat value={r.min} decimals={r.decimals} />
+          </td>
+          <td className={figure}>
+            <Stat value={r.max} decimals={r.decimals} />
+          </td>
+          <td className={figure}>
+            <Stat value={r.raw_mean} decimals={r.decimals} />
+          </td>
+          <td className={cell}>
+            <FlagList flags={r.flags} />
+          </td>
+        </tr>
+      ))}
+    </Table>
+  );
+}

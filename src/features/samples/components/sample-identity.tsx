@@ -1,0 +1,54 @@
+import type { ReactNode } from 'react';
+import { Card } from '../../../components/ui/layout.tsx';
+import { useInstruments, useMethods } from '../../lab/api/lab-lists.ts';
+import type { Sample } from '../api/samples.ts';
+import { utcSecond } from '../../../lib/utc-time.ts';
+import { StatusBadge } from './status-badge.tsx';
+
+function Row({ label, children }: { label: string; children: ReactNode }) {
+  return (
+    <>
+      <dt className="text-slag-500">{label}</dt>
+      <dd className="min-w-0 break-words">{children}</dd>
+    </>
+  );
+}
+
+export function SampleIdentity({ sample }: { sample: Sample }) {
+  const instrument = useInstruments().data?.find((i) => i.id === sample.instrument.id);
+  const method = useMethods().data?.find((m) => m.id === sample.method.id);
+  return (
+    <Card title="Identification">
+      <dl className="grid grid-cols-[auto_1fr] gap-x-6 gap-y-1.5 text-sm" data-testid="sample-identity">
+        <Row label="Sample code">
+          <span className="font-mono font-semibold">{sample.sample_code}</span>
+        </Row>
+        <Row label="Heat / lot">{sample.heat ? <span className="font-mono">{sample.heat}</span> : '—'}</Row>
+        <Row label="Grade">{sample.grade ?? '—'}</Row>
+        <Row label="Kind">{sample.kind ?? '—'}</Row>
+        {Object.entries(sample.fields).map(([name, value]) => (
+          <Row key={name} label={name}>
+            {value}
+          </Row>
+        ))}
+        <Row label="Instrument">
+          <span className="font-mono">{sample.instrument.code}</span>
+          {instrument && <span className="text-slag-500"> — {instrument.name}</span>}
+        </Row>
+        <Row label="Method">
+          <span className="font-mono">{sample.method.code}</span>
+          {method && <span className="text-slag-500"> — {method.name}</span>}
+        </Row>
+        <Row label="Status">
+          <StatusBadge status={sample.status} />
+        </Row>
+        <Row label="Created (UTC)">
+          <span className="font-mono text-xs">{utcSecond(sample.created_at)}</span> by {sample.created_by}
+        </Row>
+        <Row label="Last change (UTC)">
+          <span className="font-mono text-xs">{utcSecond(sample.updated_at)}</span>
+        </Row>
+      </dl>
+    </Card>
+  );
+}

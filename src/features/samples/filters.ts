@@ -1,0 +1,112 @@
+// The samples table's filters live in the URL query, so a filtered table is a link to share.
+// URL form: the API's own names (heat, grade, …), dates as YYYY-MM-DD in the reader's time zone,
+// `unit` only when not %. The API wants instants, so a day becomes [its local start, the next
+// day's local start) — `created_to` is exclusive on the server.
+import type { components } from '../../api/schema';
+
+export type SampleKind = NonNullable<components['schemas']['SampleKind']>;
+export type SampleStatus = components['schemas']['SampleStatus'];
+export type OutputUnit = components['schemas']['OutputUnit'];
+
+export const SAMPLE_KINDS = ['preliminary', 'final', 'ladle', 'incoming', 'control'] as const satisfies readonly SampleKind[];
+export const SAMPLE_STATUSES = ['draft', 'released'] as const satisfies readonly SampleStatus[];
+export const OUTPUT_UNITS = ['%', 'ppm', 'ppb'] as const satisfies readonly OutputUnit[];
+// Compile-time guards: a kind, status or unit added to the API must be added here too.
+type Exhaustive<Listed, All> = [Exclude<All, Listed>] extends [never] ? true : never;
+const _kinds: Exhaustive<(typeof SAMPLE_KINDS)[number], SampleKind> = true;
+const _statuses: Exhaustive<(typeof SAMPLE_STATUSES)[number], SampleStatus> = true;
+const _units: Exhaustive<(typeof OUTPUT_UNITS)[number], OutputUnit> = true;
+void [_kinds, _statuses, _units];
+
+export const TEXT_FILTERS = ['sample_code', 'heat', 'grade', 'instrument_id', 'method_id', 'import_id', 'flag'] as const;
+export const FILTER_KEYS = [...TEXT_FILTERS, 'kind', 'status', 'created_from', 'created_to'] as const;
+export type FilterKey = (typeof FILTER_KEYS)[number];
+
+export interface SampleFilters {
+  sample_code?: string;
+  heat?: string;
+  grade?: string;
+  instrument_id?: string;
+  method_id?: string;
+  import_id?: string;
+  flag?: string;
+  kind?: SampleKind;
+  status?: SampleStatus;
+  /** YYYY-MM-DD, first day included. */
+  created_from?: string;
+  /** YYYY-MM-DD, last day included. */
+  created_to?: string;
+}
+
+const DAY = /^\d{4}-\d{2}-\d{2}$/;
+const isOneOf = <T extends string>(list: readonly T[], value: string): value is T => (list as readonly string[]).includes(value);
+
+function isDay(text: string): boolean {
+  if (!DAY.test(text)) return false;
+  const [y, m, d] = text.split('-').map(Number);
+  const date = new Date(y, m - 1, d);
+  return date.getFullYear() === y && date.getMonth() === m - 1 && date.getDate() === d;
+}
+
+/** Filters from a URL query; blank, unknown and malformed values are left out. */
+export function readFilters(params: URLSearchParams): SampleFilters {
+  const filters: SampleFilters = {};
+  for (const key of TEXT_FILTERS) {
+    const value = params.get(key)?.trim();
+    if (value) filters[key] = value;
+  }
+  const kind = params.get('kind') ?? '';
+  if (isOneOf(SAMPLE_KINDS, kind)) filters.kind = kind;
+  const status = params.get('status') ?? '';
+  if (isOneOf(SAMPLE_STATUSES, status)) filters.status = status;
+  for (const key of ['created_from', 'created_to'] as const) {
+    const value = params.get(key) ?? '';
+    if (isDay(value)) filters[key] = value;
+  }
+  return filters;
+}
+
+export function readUnit(params: URLSearchParams): OutputUnit {
+  const unit = params.get('unit') ?? '';
+  return isOneOf(OUTPUT_UNITS, unit) ? unit : '%';
+}
+
+/** The URL query for filters and unit, in a stable order, without empty values or the default unit. */
+export function writeFilters(filters: SampleFilters, unit: OutputUnit = '%'): URLSearchParams {
+  const params = new URLSearchParams();
+  for (const key of FILTER_KEYS) {
+    const value = filters[key]?.trim();
+    if (value) params.set(key, value);
+  }
+  if (unit !== '%') params.set('unit', unit);
+  return params;
+}
+
+/** Midnight starting the day, local time, as an ISO instant (UTC). `offsetDays` moves to a later day. */
+export function localDayStart(day: string, offsetDays = 0): string {
+  const [y, m, d] = day.split('-').map(Number);
+  return new Date(y, m - 1, d + offsetDays).toISOString();
+}
+
+export type SamplesApiQuery = Omit<SampleFilters, 'created_from' | 'created_to'> & { created_from?: string; created_to?: string; unit: OutputUnit };
+
+/** The query for GET /samples and /samples.csv. */
+export function toApiQuery(filters: SampleFilters, unit: OutputUnit): SamplesApiQuery {
+  const { created_from, created_to, ...rest } = filters;
+  return {
+    ...rest,
+    ...(created_from ? { created_from: localDayStart(created_from) } : {}),
+    ...(created_to ? { created_to: localDayStart(created_to, 1) } : {}),
+    unit,
+  };
+}
+
+/** The CSV export of exactly what the table shows. */
+export function csvHref(filters: SampleFilters, unit: OutputUnit): string {
+  const query = new URLSearchParams(Object.entries(toApiQuery(filters, unit)).filter((entry): entry is [string, string] => typeof entry[1] === 'string' && entry[1] !== ''));
+  return `/api/v1/samples.csv?${query.toString()}`;
+}
+
+export function hasFilters(filters: SampleFilters): boolean {
+  return Object.values(filters).some(Boolean);
+}

@@ -1,0 +1,89 @@
+// A quality viewer reads samples through the console: the table with its filters kept in the
+// address (so a reload or a shared link shows the same rows), a sample's results, burns and
+// flags — but no upload entry and no way to exclude a burn.
+import type { Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { consoleSession } from '../helpers/console-session.ts';
+
+let session: Awaited<ReturnType<typeof consoleSession>>;
+let server: typeof session.server;
+let page: Page;
+
+beforeAll(async () => {
+  session = await consoleSession('qa.viewer@kestrelbend.test');
+  ({ server, page } = session);
+});
+afterAll(() => session?.close());
+
+const codes = async () => (await page.getByTestId('sample-row').allInnerTexts()).map((text) => text.split(/\s/)[0]);
+
+describe('samples for a viewer', () => {
+  it('offers the samples and imports but no upload in the navigation, and lists recent samples on the overview', async () => {
+    const labels = await page.getByRole('navigation', { name: 'Main' }).getByRole('link').allInnerTexts();
+    expect(labels).toContain('Samples');
+    expect(labels).toContain('Imports');
+    expect(labels).not.toContain('Upload results');
+    await page.getByRole('heading', { name: 'Recent samples' }).waitFor();
+    await page.goto(`${server.url}/imports/new`);
+    await page.getByText('Not available for your role').waitFor();
+    expect(await page.getByLabel('Result file').count()).toBe(0);
+  });
+
+  it('filters the table by heat, keeps the filter in the address and across a reload', async () => {
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Samples', exact: true }).click();
+    await page.getByTestId('sample-row').first().waitFor();
+    expect(await page.getByTestId('sample-row').count()).toBe(26); // every demo sample fits the first page of 50
+
+    await page.getByLabel('Heat').fill('K24-0412');
+    await page.getByRole('button', { name: 'Apply filters' }).click();
+    await page.waitForURL(/\/samples\?heat=K24-0412$/);
+    await page.waitForFunction(() => document.querySelectorAll('[data-testid="sample-row"]').length === 2);
+    expect(await codes()).toEqual(['K24-0412-F1', 'K24-0412-P1']);
+
+    await page.reload();
+    await page.getByTestId('sample-row').first().waitFor();
+    expect(await codes()).toEqual(['K24-0412-F1', 'K24-0412-P1']);
+    expect(await page.getByLabel('Heat').inputValue()).toBe('K24-0412');
+
+    // The CSV link carries the same filter.
+    const href = await page.getByRole('link', { name: /Download CSV/ }).getAttribute('href');
+    expect(href).toBe('/api/v1/samples.csv?heat=K24-0412&unit=%25');
+    const csv = await page.request.get(`${server.url}${href}`);
+    expect(csv.status()).toBe(200);
+    const [header, ...rows] = (await csv.text()).trim().split('\n');
+    const codeColumn = header.split(',').indexOf('sample_code');
+    expect(rows.map((line) => line.split(',')[codeColumn])).toEqual(['K24-0412-F1', 'K24-0412-P1']);
+
+    await page.getByRole('button', { name: 'Reset' }).click();
+    await page.waitForURL(/\/samples$/);
+  });
+
+  it('shows flags with words and an icon, and an empty state when nothing matches', async () => {
+    await page.goto(`${server.url}/samples?flag=repeatability_exceeded`);
+    await page.getByTestId('sample-row').first().waitFor();
+    // Heat K24-0414's final sample has a Mn burn 10 % high in the demo data (server/seed/demo-samples.ts).
+    expect(await codes()).toEqual(['K24-0414-F1']);
+    const badge = page.getByTestId('sample-row').locator('[data-flag="repeatability_exceeded"]');
+    expect((await badge.innerText()).replace(/\s+/g, ' ')).toBe('⚠ Repeatability exceeded');
+    expect(await badge.getAttribute('title')).toContain('ISO 5725-6 critical range');
+
+    await page.goto(`${server.url}/samples?heat=K99-0000`);
+    await page.getByText('No samples match').waitFor();
+  });
+
+  it('opens a sample with results, burns and provenance, without exclude buttons', async () => {
+    await page.goto(`${server.url}/samples?heat=K24-0414&kind=final`);
+    await page.getByRole('link', { name: 'K24-0414-F1' }).click();
+    await page.getByRole('heading', { name: 'Sample K24-0414-F1' }).waitFor();
+    const mn = page.locator('[data-testid="result-row"][data-element="Mn"]');
+    expect(await mn.getByTestId('n').innerText()).toBe('3');
+    expect(await mn.innerText()).toContain('Repeatability exceeded');
+    await page.getByText('What the flags mean').waitFor();
+    expect(await page.getByTestId('burn-row').count()).toBe(3);
+    expect(await page.getByRole('button', { name: /Exclude burn/ }).count()).toBe(0);
+    expect(await page.getByText('Pushed as JSON through the API').count()).toBe(1);
+    const figureFont = await mn.getByTestId('reported').evaluate((el) => [getComputedStyle(el).fontFamily, getComputedStyle(el).textAlign]);
+    expect(figureFont[0]).toMatch(/^"?JetBrains Mono"?/);
+    expect(figureFont[1]).toBe('right');
+  });
+});
