@@ -2,6 +2,7 @@
 // read the import report, open a sample, exclude a burn with a reason and see the results change;
 // a broken file and an oversized file answer readably, and nothing is stored for them.
 import { createHash } from 'node:crypto';
+import { Decimal } from 'decimal.js';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { consoleSession } from '../helpers/console-session.ts';
@@ -9,8 +10,9 @@ import { consoleSession } from '../helpers/console-session.ts';
 const ANALYST = 'omar.reyes@kestrelbend.test';
 const LIMIT = 50_000; // a small IMPORT_MAX_BYTES, so the 413 needs only a small file
 
-// Invented values. Mn of K24-0950-F1: burns 0.75, 0.76, 0.71 → mean 0.74; without burn 3 the
-// mean is 0.755, which half-even rounding (ASTM E29) to the method's 2 decimals reports as 0.76.
+// Invented values. Mn of K24-0950-F1: burns 0.75, 0.76, 0.71; burn 3 is then excluded. The demo's
+// correction set in force on OES-1 applies to the uploaded burns (α·x + β per element), so the
+// expected results are computed here from that set with decimal.js, rounded half-even (ASTM E29).
 const GOOD_CSV = [
   'Sample,Heat,Grade,Kind,Burn,C %,Mn %,S %',
   'K24-0950-F1,K24-0950,SAE 1045,final,1,0.452,0.75,0.012',
@@ -35,6 +37,20 @@ const nav = (label: string) => page.getByRole('navigation', { name: 'Main' }).ge
 const count = async (table: string) => Number((await server.db(table).count({ n: '*' }))[0].n);
 const countFigure = (label: string) => page.locator(`[data-count="${label}"]`).innerText();
 const resultRow = (element: string) => page.locator(`[data-testid="result-row"][data-element="${element}"]`);
+
+const D100 = Decimal.clone({ precision: 100 });
+/** The reported mean of K24-0950-F1's corrected burns: α·x + β with the set the sample recorded, ×10^shift for ppm. */
+async function reportedAfterCorrection(element: string, measured: string[], decimals: number, shift = 0): Promise<string> {
+  const sample = await server.db('samples').where({ sample_code: 'K24-0950-F1' }).first();
+  const [setId] = JSON.parse(sample.correction_json).set_ids;
+  const sets = JSON.parse((await server.db('standardizations').where({ id: setId }).first()).corrections_json) as { element: string; slope: string; offset: string }[];
+  const c = sets.find((e) => e.element === element)!;
+  const mean = measured.reduce((sum, x) => sum.plus(new D100(c.slope).times(x).plus(c.offset)), new D100(0)).div(measured.length).times(new D100(10).pow(shift));
+  const places = decimals - shift;
+  if (places >= 0) return mean.toDecimalPlaces(places, Decimal.ROUND_HALF_EVEN).toFixed(places);
+  const step = new D100(10).pow(-places);
+  return mean.div(step).toDecimalPlaces(0, Decimal.ROUND_HALF_EVEN).times(step).toFixed(0);
+}
 
 async function chooseLab() {
   await page.getByLabel('Instrument').selectOption({ label: 'OES-1 — Melt shop spark stand' });
@@ -94,7 +110,7 @@ describe('uploading results through the console', () => {
     await page.getByRole('link', { name: 'K24-0950-F1' }).click();
     await page.getByRole('heading', { name: 'Sample K24-0950-F1' }).waitFor();
     await page.getByText('must be reviewed and authorised under your laboratory').waitFor();
-    expect(await resultRow('Mn').getByTestId('reported').innerText()).toBe('0.74');
+    expect(await resultRow('Mn').getByTestId('reported').innerText()).toBe(await reportedAfterCorrection('Mn', ['0.75', '0.76', '0.71'], 2));
     expect(await resultRow('Mn').getByTestId('n').innerText()).toBe('3');
     const provenance = await page.getByTestId('sample-provenance').innerText();
     expect(provenance).toContain('k24-0950.csv');
@@ -117,18 +133,19 @@ describe('uploading results through the console', () => {
     const struck = await burn3.locator('td', { hasText: '0.71' }).evaluate((el) => getComputedStyle(el).textDecorationLine);
     expect(struck).toBe('line-through');
     await page.waitForFunction(() => document.querySelector('[data-element="Mn"] [data-testid="n"]')?.textContent === '2');
-    expect(await resultRow('Mn').getByTestId('reported').innerText()).toBe('0.76');
-    expect(await resultRow('C').getByTestId('reported').innerText()).toBe('0.450');
+    expect(await resultRow('Mn').getByTestId('reported').innerText()).toBe(await reportedAfterCorrection('Mn', ['0.75', '0.76'], 2));
+    expect(await resultRow('C').getByTestId('reported').innerText()).toBe(await reportedAfterCorrection('C', ['0.452', '0.448'], 3));
 
     const audit = await server.db('audit_events').where({ action: 'sample.burn_excluded' }).first();
     expect(JSON.parse(audit.after_json)).toMatchObject({ reason: 'Spark on a pore' });
 
-    // 0.755 % = 7550 ppm, reported at the method's 2 decimals in % = hundreds of ppm → 7600.
+    // In ppm (1 % = 10 000 ppm, NIST SP 811), reported at the method's 2 decimals in % = hundreds of ppm.
     // The unit switch is a radio group: arrow keys move from % to ppm.
+    const ppm = await reportedAfterCorrection('Mn', ['0.75', '0.76'], 2, 4);
     await page.getByRole('radio', { name: '%' }).focus();
     await page.keyboard.press('ArrowRight');
     await page.waitForURL(/unit=ppm/);
-    await page.waitForFunction(() => document.querySelector('[data-element="Mn"] [data-testid="reported"]')?.textContent === '7600');
+    await page.waitForFunction((expected) => document.querySelector('[data-element="Mn"] [data-testid="reported"]')?.textContent === expected, ppm);
   });
 
   it('says readably why the only included burn cannot be excluded', async () => {
