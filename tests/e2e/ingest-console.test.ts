@@ -116,6 +116,9 @@ describe('uploading results through the console', () => {
     expect(provenance).toContain('k24-0950.csv');
     expect(provenance).toContain(createHash('sha256').update(GOOD_CSV).digest('hex'));
     expect(provenance).toMatch(/File lines\s+2–4/);
+    // The demo has a correction set in force on OES-1: the page names it and links its run.
+    const correction = page.getByTestId('sample-correction');
+    expect(await correction.innerText()).toMatch(/Drift correction: slope·x \+ offset applied to each burn's concentration, with std_\w+ — the set in force when each burn was measured\./);
     // The raw value as received is on hover.
     const burn3 = page.locator('[data-testid="burn-row"][data-burn="3"]');
     expect(await burn3.locator('td', { hasText: '0.71' }).getAttribute('title')).toBe('As received: 0.71 %');

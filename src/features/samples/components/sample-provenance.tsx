@@ -2,6 +2,7 @@ import { Link } from 'react-router';
 import { Card } from '../../../components/ui/layout.tsx';
 import type { Sample } from '../api/samples.ts';
 import { lineRanges } from '../figures.ts';
+import { SampleCorrection } from './sample-correction.tsx';
 
 export function SampleProvenance({ sample }: { sample: Sample }) {
   const p = sample.provenance;
@@ -25,6 +26,7 @@ export function SampleProvenance({ sample }: { sample: Sample }) {
           <dd className="font-mono text-xs">{p.lines.length ? lineRanges(p.lines) : '—'}</dd>
         </dl>
       )}
+      <SampleCorrection correction={sample.correction} />
       {p.import_id && (
         <a href={`/api/v1/imports/${encodeURIComponent(p.import_id)}/file`} download className="mt-3 inline-block text-sm text-copper-700 underline">
           ⤓ Download the raw file as uploaded
