@@ -14,6 +14,7 @@ import { loadSample } from '../samples/samples.service.ts';
 import { findBurns, type StoredCell, updateBurn, updateSampleResults } from '../samples/samples.repository.ts';
 import { correctBurn, correctionSetOf, type CorrectionSet, distinctSetIds, type SampleCorrection } from './correction-timeline.ts';
 import { findStandardization } from './standardizations.repository.ts';
+import { decodeResults, encodeResults } from '../samples/results-codec.ts';
 
 export interface RecomputeInput {
   correction_set_id: string | null;
@@ -46,14 +47,14 @@ export async function recomputeSample(ctx: AppContext, auth: AuthContext, sample
     for (const [i, burn] of burns.entries()) {
       await updateBurn(trx, burn.id, { correction_set_id: corrected[i].correction_set_id, corrected_json: corrected[i].corrected && JSON.stringify(corrected[i].corrected) });
     }
-    await updateSampleResults(trx, sampleId, { results_json: JSON.stringify(results), flags_json: JSON.stringify(flags), correction_json: JSON.stringify(correction), updated_at: now });
+    await updateSampleResults(trx, sampleId, { results_json: encodeResults(results), flags_json: JSON.stringify(flags), correction_json: JSON.stringify(correction), updated_at: now });
     await recordAudit(trx, {
       actor,
       requestId,
       action: 'sample.recomputed',
       targetType: 'sample',
       targetId: sampleId,
-      before: { correction: sample.correction_json ? JSON.parse(sample.correction_json) : null, results: JSON.parse(sample.results_json) },
+      before: { correction: sample.correction_json ? JSON.parse(sample.correction_json) : null, results: decodeResults(sample.results_json) },
       after: { correction, results, reason: input.reason },
     });
   });

@@ -6,6 +6,7 @@ import { correctBurn, type CorrectionTimeline, ingestCorrection } from '../drift
 import type { Method } from '../methods/methods.repository.ts';
 import { computeSampleResults } from './sample-results.ts';
 import type { BurnRow, RawCell, SampleRow, StoredCell } from './samples.repository.ts';
+import { encodeResults } from './results-codec.ts';
 
 export interface NewBurn {
   burn_number: number;
@@ -55,7 +56,7 @@ export function buildSampleRows(input: NewSample, now: string): { sample: Sample
       source: input.source,
       import_id: input.import_id ?? null,
       first_line: input.first_line ?? null,
-      results_json: JSON.stringify(results),
+      results_json: encodeResults(results),
       flags_json: JSON.stringify(flags),
       correction_json: correction && JSON.stringify(correction),
       created_by_label: input.created_by_label,

@@ -7,6 +7,7 @@ import type { SampleCorrection } from '../drift/correction-timeline.ts';
 import { findImportMeta } from '../imports/imports.repository.ts';
 import { loadSample } from './samples.service.ts';
 import { type BurnRow, findBurns, type RawCell, type SampleRowWithRefs, type StoredCell, type StoredResult } from './samples.repository.ts';
+import { decodeResults } from './results-codec.ts';
 
 type Queryable = Knex | Knex.Transaction;
 
@@ -42,7 +43,7 @@ export function toCorrectionView(json: string | null) {
 }
 
 export function toSampleSummary(row: SampleRowWithRefs, unit: OutputUnit) {
-  const results = JSON.parse(row.results_json) as StoredResult[];
+  const results = decodeResults(row.results_json);
   return {
     id: row.id,
     sample_code: row.sample_code,

@@ -17,6 +17,7 @@ import { normalisePushedBurns, type PushedBurn } from './pushed-sample.ts';
 import { buildSampleRows } from './sample-builder.ts';
 import { computeSampleResults } from './sample-results.ts';
 import { type BurnRow, findBurns, findSample, insertSamples, type SampleRow, updateBurn, updateSampleResults } from './samples.repository.ts';
+import { decodeResults, encodeResults } from './results-codec.ts';
 
 export interface PushedSample {
   sample_code: string;
@@ -93,7 +94,7 @@ export async function storeNewSamples(
       action: 'sample.created',
       targetType: 'sample',
       targetId: sample.id,
-      after: { sample_code: sample.sample_code, heat: sample.heat, source: sample.source, import_id: sample.import_id, results: JSON.parse(sample.results_json) },
+      after: { sample_code: sample.sample_code, heat: sample.heat, source: sample.source, import_id: sample.import_id, results: decodeResults(sample.results_json) },
     });
   }
 }
@@ -131,14 +132,14 @@ export async function setBurnExclusion(ctx: AppContext, auth: AuthContext, sampl
       method!,
     );
     await updateBurn(trx, burn.id, { excluded: change.excluded, exclusion_reason: change.reason, excluded_by: actor.label, excluded_at: now });
-    await updateSampleResults(trx, sampleId, { results_json: JSON.stringify(results), flags_json: JSON.stringify(flags), updated_at: now });
+    await updateSampleResults(trx, sampleId, { results_json: encodeResults(results), flags_json: JSON.stringify(flags), updated_at: now });
     await recordAudit(trx, {
       actor,
       requestId,
       action: change.excluded ? 'sample.burn_excluded' : 'sample.burn_included',
       targetType: 'sample',
       targetId: sampleId,
-      before: { burn: burnState(burn), results: JSON.parse(sample.results_json) },
+      before: { burn: burnState(burn), results: decodeResults(sample.results_json) },
       after: { burn: burnState(updated), results, reason: change.reason },
     });
   });
