@@ -7,6 +7,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import Database from 'better-sqlite3';
 import { parse } from 'csv-parse/sync';
+import { Decimal } from 'decimal.js';
 import { createApp } from '../server/app.ts';
 import { testConfig } from '../server/config.ts';
 import { createDb } from '../server/db/knex.ts';
@@ -47,7 +48,30 @@ function floorRun(text: string, dir: string, run: number): number {
 }
 
 /** The product: the same file uploaded to POST /api/v1/imports on a fresh database. */
-async function apiRun(text: string, dir: string, run: number): Promise<{ ms: number; samples: number }> {
+/** Independent check of a few stored samples: decimal.js means, half-even to 4 decimals, from the file text. */
+async function verify(url: string, secret: string, text: string, sampleIds: string[]): Promise<string> {
+  const lines = text.trim().split('\n').map((line) => line.split(','));
+  const header = lines[0];
+  const picks = [0, Math.floor(sampleIds.length / 2), sampleIds.length - 1];
+  let checked = 0;
+  for (const index of picks) {
+    const burns = lines.slice(1 + index * 3, 4 + index * 3);
+    const res = await fetch(`${url}/api/v1/samples/${sampleIds[index]}`, { headers: { authorization: `Bearer ${secret}` } });
+    const sample = (await res.json()) as { sample_code: string; results: { element: string; reported: string }[] };
+    if (sample.sample_code !== burns[0][0]) throw new Error(`sample ${index}: expected ${burns[0][0]}, got ${sample.sample_code}`);
+    for (const element of WIDE_FILE_ELEMENTS) {
+      const column = header.indexOf(`${element} %`);
+      const mean = burns.reduce((sum, cells) => sum.plus(cells[column]), new Decimal(0)).div(burns.length);
+      const expected = mean.toDecimalPlaces(4, Decimal.ROUND_HALF_EVEN).toFixed(4);
+      const got = sample.results.find((r) => r.element === element)?.reported;
+      if (got !== expected) throw new Error(`${sample.sample_code} ${element}: API ${got}, decimal.js ${expected}`);
+      checked += 1;
+    }
+  }
+  return `${checked} reported values in ${picks.length} samples agree with decimal.js`;
+}
+
+async function apiRun(text: string, dir: string, run: number): Promise<{ ms: number; samples: number; check?: string }> {
   const config = testConfig({ databaseFile: join(dir, `api-${run}.db`), rateLimitPerMinute: 1_000_000, importMaxBytes: 100 * 1024 * 1024 });
   const db = createDb(config);
   await migrateLatest(db);
@@ -56,7 +80,7 @@ async function apiRun(text: string, dir: string, run: number): Promise<{ ms: num
   const method = { ...lab.feMethod, id: newId('mth'), code: 'FE-BENCH', elements: WIDE_FILE_ELEMENTS.map((element) => ({ element, decimals: 4, working_range_low: null, working_range_high: null, detection_limit: null, repeatability_sd: '0.01' })) };
   await insertMethod(db, method);
   const admin = await db('users').where({ role: 'admin' }).first();
-  const key = await createApiKey({ db, config, logger: createLogger('silent'), mailer: { send: async () => ({ delivered: false }), close() {} } }, sessionAuthContext(admin, 'bench'), { name: 'bench', scopes: ['imports:write'] });
+  const key = await createApiKey({ db, config, logger: createLogger('silent'), mailer: { send: async () => ({ delivered: false }), close() {} } }, sessionAuthContext(admin, 'bench'), { name: 'bench', scopes: ['imports:write', 'samples:read'] });
   const logger = createLogger('silent');
   const running = await listen(createApp({ db, config, logger, consoleDir: '/nonexistent' }), db, logger, 0);
   try {
@@ -66,10 +90,11 @@ async function apiRun(text: string, dir: string, run: number): Promise<{ ms: num
     form.set('file', new Blob([text], { type: 'text/csv' }), 'bench.csv');
     const started = performance.now();
     const res = await fetch(`${running.url}/api/v1/imports`, { method: 'POST', body: form, headers: { authorization: `Bearer ${key.secret}` } });
-    const body = (await res.json()) as { report?: { counts: { samples_created: number } }; detail?: string };
+    const body = (await res.json()) as { report?: { counts: { samples_created: number }; sample_ids: string[] }; detail?: string };
     const ms = performance.now() - started;
     if (res.status !== 201 || !body.report) throw new Error(`upload failed: ${res.status} ${JSON.stringify(body).slice(0, 500)}`);
-    return { ms, samples: body.report.counts.samples_created };
+    const check = run === 0 ? await verify(running.url, key.secret, text, body.report.sample_ids) : undefined;
+    return { ms, samples: body.report.counts.samples_created, check };
   } finally {
     await running.stop();
   }
@@ -83,11 +108,13 @@ async function main(): Promise<void> {
     const floor: number[] = [];
     const api: number[] = [];
     let samples = 0;
+    let check = '';
     for (let run = 0; run < RUNS; run++) {
       floor.push(floorRun(text, dir, run));
       const result = await apiRun(text, dir, run);
       api.push(result.ms);
       samples = result.samples;
+      check ||= result.check ?? '';
     }
     const floorMs = median(floor);
     const apiMs = median(api);
@@ -95,6 +122,7 @@ async function main(): Promise<void> {
     console.log(`floor  csv-parse + one better-sqlite3 transaction: ${floorMs.toFixed(0)} ms  (${rate(floorMs)})`);
     console.log(`api    POST /api/v1/imports (${samples} samples):    ${apiMs.toFixed(0)} ms  (${rate(apiMs)})`);
     console.log(`ratio  api / floor = ${(apiMs / floorMs).toFixed(2)}  (target ≤ 2)`);
+    console.log(`check  ${check}`);
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }
