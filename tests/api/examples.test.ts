@@ -134,3 +134,18 @@ describe('sample and import scripts', () => {
     expect(stderr.trim()).toBe(`next time: updated_since=${expected.at(-1)!.updated_at}`);
   }, 30_000);
 });
+
+describe('standardization script', () => {
+  it('run-standardization.sh stores a draft run and prints each element\'s correction and flag', async () => {
+    const key = await demoAdminKey(['standardizations:write', 'standardizations:read', 'samples:read']);
+    const { stdout } = await example('bash', ['examples/run-standardization.sh'], { MELTWIRE_KEY: key, DRIFT: '1.03' });
+    const lines = stdout.trim().split('\n');
+    const [, runId] = /^run (std_\w+) \(draft\): overall (ok|warn|fail)$/.exec(lines[0]) ?? [];
+    expect(runId).toBeDefined();
+    // Every burn read 3 % high: a two-point slope of 1/1.03 (= 0.9709 …) and an offset near 0 for each element.
+    const mn = lines.find((line) => line.startsWith('Mn '));
+    expect(mn).toMatch(/^Mn {2}slope 0\.97087\d* {2}offset -?0(\.0*\d+)? {2}ok$/);
+    const stored = await server.db('standardizations').where({ id: runId }).first();
+    expect(stored.status).toBe('draft');
+  }, 30_000);
+});
