@@ -38,10 +38,6 @@ export function createDb(config: Pick<Config, 'databaseFile' | 'databaseUrl'>, o
   });
 }
 
-export function isPostgres(db: Db): boolean {
-  return db.client.config.client === 'pg';
-}
-
 /** True when the database answers a trivial query. */
 export async function pingDb(db: Db): Promise<boolean> {
   try {

@@ -20,7 +20,8 @@ function toProblem(error: unknown, bodyLimit: string): ProblemError | undefined 
   if (error instanceof ProblemError) return error;
   const e = (error ?? {}) as HttpishError;
   if (e.type === 'entity.parse.failed') return new MalformedJsonProblem();
-  if (e.type === 'entity.too.large' || e.code === 'LIMIT_FILE_SIZE') return new PayloadTooLargeProblem(bodyLimit);
+  // Upload size limits are turned into problems where uploads are parsed (http/upload.ts).
+  if (e.type === 'entity.too.large') return new PayloadTooLargeProblem(bodyLimit);
   if (e.type === 'encoding.unsupported' || e.type === 'charset.unsupported') {
     return new ProblemError(415, 'unsupported-media-type', 'Unsupported body encoding', 'Send the body as UTF-8.');
   }

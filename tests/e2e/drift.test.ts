@@ -3,25 +3,19 @@
 // and its activation with an override reason — recorded in the audit trail and the events table.
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_PASSWORD } from '../../server/seed/demo-users.ts';
-import { launchBrowser } from '../helpers/browser.ts';
-import { startLiveServer } from '../helpers/live-server.ts';
+import { consoleSession } from '../helpers/console-session.ts';
 
 const MANAGER = 'lena.marsh@kestrelbend.test';
 
-let server: Awaited<ReturnType<typeof startLiveServer>>;
-let browser: Awaited<ReturnType<typeof launchBrowser>>;
+let session: Awaited<ReturnType<typeof consoleSession>>;
+let server: typeof session.server;
 let page: Page;
 
 beforeAll(async () => {
-  server = await startLiveServer();
-  browser = await launchBrowser();
-  page = await browser.context.newPage();
+  session = await consoleSession(MANAGER);
+  ({ server, page } = session);
 });
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+afterAll(() => session?.close());
 
 /** Burns reading every nominal value of a reference 1 % high, except B at 2.2× (a slope near 0.45: fail). */
 function burnsFor(values: { element: string; nominal: string }[]): string {
@@ -33,10 +27,6 @@ function burnsFor(values: { element: string; nominal: string }[]): string {
 
 describe('Drift page', () => {
   it('shows the demo drift history as a chart with a data table, flagged runs told by icon and word', async () => {
-    await page.goto(`${server.url}/sign-in`);
-    await page.getByLabel('E-mail').fill(MANAGER);
-    await page.getByLabel('Password').fill(DEMO_PASSWORD);
-    await page.getByRole('button', { name: 'Sign in' }).click();
     await page.getByRole('heading', { name: /Welcome, Lena Marsh/ }).waitFor();
 
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Drift', exact: true }).click();

@@ -5,8 +5,6 @@ import type { Knex } from 'knex';
 import { newId } from '../../lib/ids.ts';
 import { nowIso } from '../../lib/time.ts';
 
-type Queryable = Knex | Knex.Transaction;
-
 /** Event types (also the future webhook types), `resource.happening`. */
 export const EVENT_TYPES = [
   'sample.created',
@@ -43,17 +41,3 @@ export async function recordEvent<T>(trx: Knex.Transaction, type: EventType, dat
   return event;
 }
 
-/** Oldest first, after an optional (occurred_at, id) position; fetches limit + 1 rows. */
-export async function listEvents(db: Queryable, filters: { type?: EventType; after?: { occurred_at: string; id: string }; limit: number }): Promise<DomainEvent[]> {
-  const query = db<EventRow>('events').orderBy([
-    { column: 'occurred_at', order: 'asc' },
-    { column: 'id', order: 'asc' },
-  ]);
-  if (filters.type) query.where('type', filters.type);
-  if (filters.after) {
-    const { occurred_at, id } = filters.after;
-    query.where((w) => w.where('occurred_at', '>', occurred_at).orWhere((x) => x.where('occurred_at', occurred_at).andWhere('id', '>', id)));
-  }
-  const rows = await query.limit(filters.limit + 1);
-  return rows.map((row) => ({ id: row.id, type: row.type as EventType, occurred_at: row.occurred_at, data: JSON.parse(row.data_json) }));
-}

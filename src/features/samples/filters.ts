@@ -106,7 +106,3 @@ export function csvHref(filters: SampleFilters, unit: OutputUnit): string {
   const query = new URLSearchParams(Object.entries(toApiQuery(filters, unit)).filter((entry): entry is [string, string] => typeof entry[1] === 'string' && entry[1] !== ''));
   return `/api/v1/samples.csv?${query.toString()}`;
 }
-
-export function hasFilters(filters: SampleFilters): boolean {
-  return Object.values(filters).some(Boolean);
-}
