@@ -19,7 +19,19 @@ const db = createDb({ databaseFile: join(dir, 'phases.db') });
 try {
   await migrateLatest(db);
   const lab = await seedDemoLab(db);
-  const method = { ...lab.feMethod, id: newId('mth'), code: 'FE-BENCH', elements: WIDE_FILE_ELEMENTS.map((element) => ({ element, decimals: 4, working_range_low: null, working_range_high: null, detection_limit: null, repeatability_sd: '0.01' })) };
+  const method = {
+    ...lab.feMethod,
+    id: newId('mth'),
+    code: 'FE-BENCH',
+    elements: WIDE_FILE_ELEMENTS.map((element) => ({
+      element,
+      decimals: 4,
+      working_range_low: null,
+      working_range_high: null,
+      detection_limit: null,
+      repeatability_sd: '0.01',
+    })),
+  };
   await insertMethod(db, method);
   const bytes = Buffer.from(wideCsv(20_000));
   let mark = performance.now();
@@ -30,9 +42,19 @@ try {
   };
   const parsed = parseResultFile(bytes, {});
   lap('parse');
-  const built = buildImportedSamples(parsed.samples, { instrumentId: lab.foundry.id, method, importId: null, createdBy: 'bench', now: new Date().toISOString() }, []);
+  const built = buildImportedSamples(
+    parsed.samples,
+    { instrumentId: lab.foundry.id, method, importId: null, createdBy: 'bench', now: new Date().toISOString() },
+    [],
+  );
   lap('build');
-  await db.transaction((trx) => insertSamples(trx, built.map((b) => b.sample), built.flatMap((b) => b.burns)));
+  await db.transaction((trx) =>
+    insertSamples(
+      trx,
+      built.map((b) => b.sample),
+      built.flatMap((b) => b.burns),
+    ),
+  );
   lap('insert');
 } finally {
   await db.destroy();

@@ -50,7 +50,10 @@ function floorRun(text: string, dir: string, run: number): number {
 /** The product: the same file uploaded to POST /api/v1/imports on a fresh database. */
 /** Independent check of a few stored samples: decimal.js means, half-even to 4 decimals, from the file text. */
 async function verify(url: string, secret: string, text: string, sampleIds: string[]): Promise<string> {
-  const lines = text.trim().split('\n').map((line) => line.split(','));
+  const lines = text
+    .trim()
+    .split('\n')
+    .map((line) => line.split(','));
   const header = lines[0];
   const picks = [0, Math.floor(sampleIds.length / 2), sampleIds.length - 1];
   let checked = 0;
@@ -77,10 +80,26 @@ async function apiRun(text: string, dir: string, run: number): Promise<{ ms: num
   await migrateLatest(db);
   await seedDemoUsers(db);
   const lab = await seedDemoLab(db);
-  const method = { ...lab.feMethod, id: newId('mth'), code: 'FE-BENCH', elements: WIDE_FILE_ELEMENTS.map((element) => ({ element, decimals: 4, working_range_low: null, working_range_high: null, detection_limit: null, repeatability_sd: '0.01' })) };
+  const method = {
+    ...lab.feMethod,
+    id: newId('mth'),
+    code: 'FE-BENCH',
+    elements: WIDE_FILE_ELEMENTS.map((element) => ({
+      element,
+      decimals: 4,
+      working_range_low: null,
+      working_range_high: null,
+      detection_limit: null,
+      repeatability_sd: '0.01',
+    })),
+  };
   await insertMethod(db, method);
   const admin = await db('users').where({ role: 'admin' }).first();
-  const key = await createApiKey({ db, config, logger: createLogger('silent'), mailer: { send: async () => ({ delivered: false }), close() {} } }, sessionAuthContext(admin, 'bench'), { name: 'bench', scopes: ['imports:write', 'samples:read'] });
+  const key = await createApiKey(
+    { db, config, logger: createLogger('silent'), mailer: { send: async () => ({ delivered: false }), close() {} } },
+    sessionAuthContext(admin, 'bench'),
+    { name: 'bench', scopes: ['imports:write', 'samples:read'] },
+  );
   const logger = createLogger('silent');
   const running = await listen(createApp({ db, config, logger, consoleDir: '/nonexistent' }), db, logger, 0);
   try {
@@ -89,7 +108,11 @@ async function apiRun(text: string, dir: string, run: number): Promise<{ ms: num
     form.set('method_id', method.id);
     form.set('file', new Blob([text], { type: 'text/csv' }), 'bench.csv');
     const started = performance.now();
-    const res = await fetch(`${running.url}/api/v1/imports`, { method: 'POST', body: form, headers: { authorization: `Bearer ${key.secret}` } });
+    const res = await fetch(`${running.url}/api/v1/imports`, {
+      method: 'POST',
+      body: form,
+      headers: { authorization: `Bearer ${key.secret}` },
+    });
     const body = (await res.json()) as { report?: { counts: { samples_created: number }; sample_ids: string[] }; detail?: string };
     const ms = performance.now() - started;
     if (res.status !== 201 || !body.report) throw new Error(`upload failed: ${res.status} ${JSON.stringify(body).slice(0, 500)}`);
@@ -104,7 +127,9 @@ async function main(): Promise<void> {
   const dir = mkdtempSync(join(tmpdir(), 'meltwire-bench-'));
   try {
     const text = wideCsv(BURNS);
-    console.log(`file: ${BURNS} burns × ${WIDE_FILE_ELEMENTS.length} elements = ${VALUES} values, ${(Buffer.byteLength(text) / 1e6).toFixed(1)} MB; ${RUNS} runs each, medians`);
+    console.log(
+      `file: ${BURNS} burns × ${WIDE_FILE_ELEMENTS.length} elements = ${VALUES} values, ${(Buffer.byteLength(text) / 1e6).toFixed(1)} MB; ${RUNS} runs each, medians`,
+    );
     const floor: number[] = [];
     const api: number[] = [];
     let samples = 0;

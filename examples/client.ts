@@ -21,7 +21,9 @@ const meltwire = createClient<paths>({ baseUrl, headers: { Authorization: `Beare
 
 /** Every error is an RFC 9457 problem: say what went wrong and which request it was. */
 function fail(problem: Problem | undefined, response: Response): never {
-  console.error(`${response.status} ${problem?.title ?? response.statusText}: ${problem?.detail ?? ''} (request ${problem?.request_id ?? response.headers.get('x-request-id')})`);
+  console.error(
+    `${response.status} ${problem?.title ?? response.statusText}: ${problem?.detail ?? ''} (request ${problem?.request_id ?? response.headers.get('x-request-id')})`,
+  );
   for (const error of problem?.errors ?? []) console.error(`  ${error.location}: ${error.message}`);
   process.exit(1);
 }

@@ -52,7 +52,13 @@ export function createApp(options: AppOptions): Express & { locals: { ctx: AppCo
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
   app.use(requestId());
-  app.use(pinoHttp({ logger, genReqId: (req) => (req as express.Request).requestId, autoLogging: { ignore: (req) => req.url === '/api/v1/health' } }));
+  app.use(
+    pinoHttp({
+      logger,
+      genReqId: (req) => (req as express.Request).requestId,
+      autoLogging: { ignore: (req) => req.url === '/api/v1/health' },
+    }),
+  );
   const https = config.publicUrl.startsWith('https://');
   app.use(
     helmet({

@@ -34,7 +34,8 @@ async function findOwner(db: Db, email?: string): Promise<UserRow> {
   const owner = email
     ? await findUserByEmail(db, email)
     : await db<UserRow>('users').where({ role: 'admin', status: 'active' }).orderBy('id').first();
-  if (!owner || owner.status !== 'active') throw new UsageError(email ? `no active user ${email}` : 'no active admin yet: run create-admin first');
+  if (!owner || owner.status !== 'active')
+    throw new UsageError(email ? `no active user ${email}` : 'no active admin yet: run create-admin first');
   return owner;
 }
 
@@ -42,7 +43,14 @@ async function run(argv: string[]): Promise<void> {
   const [command, ...rest] = argv;
   const { values } = parseArgs({
     args: rest,
-    options: { email: { type: 'string' }, password: { type: 'string' }, name: { type: 'string' }, scopes: { type: 'string' }, owner: { type: 'string' }, 'expires-at': { type: 'string' } },
+    options: {
+      email: { type: 'string' },
+      password: { type: 'string' },
+      name: { type: 'string' },
+      scopes: { type: 'string' },
+      owner: { type: 'string' },
+      'expires-at': { type: 'string' },
+    },
     strict: true,
   });
   if (!command || command === 'help' || command === '--help') {
@@ -63,13 +71,20 @@ async function run(argv: string[]): Promise<void> {
       console.log(`${created ? 'created' : 'updated'} admin ${user.email} (${user.id})`);
     } else if (command === 'create-key') {
       const name = required(values, 'name');
-      const scopes = required(values, 'scopes').split(',').map((s) => s.trim()).filter(Boolean);
+      const scopes = required(values, 'scopes')
+        .split(',')
+        .map((s) => s.trim())
+        .filter(Boolean);
       const unknown = scopes.filter((s) => !isScope(s));
       if (unknown.length) throw new UsageError(`unknown scopes: ${unknown.join(', ')}`);
       const owner = await findOwner(db, values.owner);
       const logger = createLogger('silent');
       const ctx = { db, config, logger, mailer: createMailer({ from: config.mailFrom, logger }) };
-      const key = await createApiKey(ctx, sessionAuthContext(owner, 'cli'), { name, scopes: scopes as Scope[], expires_at: values['expires-at'] });
+      const key = await createApiKey(ctx, sessionAuthContext(owner, 'cli'), {
+        name,
+        scopes: scopes as Scope[],
+        expires_at: values['expires-at'],
+      });
       console.log(`issued key ${key.id} (${key.prefix}…) for ${owner.email} with scopes ${key.scopes.join(',')}`);
       console.log(key.secret);
     } else {
@@ -83,7 +98,8 @@ async function run(argv: string[]): Promise<void> {
 run(process.argv.slice(2)).catch((error: unknown) => {
   if (error instanceof UsageError) console.error(`error: ${error.message}\n\n${USAGE}`);
   else if (error instanceof ConfigError) console.error(error.message);
-  else if (error instanceof Error && 'code' in error && error.code === 'ERR_PARSE_ARGS_UNKNOWN_OPTION') console.error(`error: ${error.message}\n\n${USAGE}`);
+  else if (error instanceof Error && 'code' in error && error.code === 'ERR_PARSE_ARGS_UNKNOWN_OPTION')
+    console.error(`error: ${error.message}\n\n${USAGE}`);
   else console.error(error);
   process.exit(1);
 });

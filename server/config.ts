@@ -16,17 +16,37 @@ const envSchema = z.object({
     .regex(/^postgres(ql)?:\/\//, 'must be a postgres:// or postgresql:// URL')
     .optional(),
   SESSION_SECRET: z.string().min(32, 'must be at least 32 characters').optional(),
-  SESSION_TTL_MINUTES: z.coerce.number().int().min(1).max(24 * 60).default(30),
-  SMTP_URL: z.string().regex(/^smtps?:\/\//, 'must be an smtp:// or smtps:// URL').optional(),
+  SESSION_TTL_MINUTES: z.coerce
+    .number()
+    .int()
+    .min(1)
+    .max(24 * 60)
+    .default(30),
+  SMTP_URL: z
+    .string()
+    .regex(/^smtps?:\/\//, 'must be an smtp:// or smtps:// URL')
+    .optional(),
   MAIL_FROM: z.string().min(3).default('Meltwire <no-reply@meltwire.test>'),
   PUBLIC_URL: z.url().optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   SEED_DEMO: booleanFlag.optional(),
   LOGIN_RATE_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).default(10),
   RATE_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).default(600),
-  IMPORT_MAX_BYTES: z.coerce.number().int().min(1024).default(20 * 1024 * 1024),
-  BODY_LIMIT: z.string().regex(/^\d+(b|kb|mb)$/i, 'must look like 512kb or 1mb').default('1mb'),
-  REQUEST_LOG_BODY_LIMIT: z.coerce.number().int().min(256).max(1024 * 1024).default(16384),
+  IMPORT_MAX_BYTES: z.coerce
+    .number()
+    .int()
+    .min(1024)
+    .default(20 * 1024 * 1024),
+  BODY_LIMIT: z
+    .string()
+    .regex(/^\d+(b|kb|mb)$/i, 'must look like 512kb or 1mb')
+    .default('1mb'),
+  REQUEST_LOG_BODY_LIMIT: z.coerce
+    .number()
+    .int()
+    .min(256)
+    .max(1024 * 1024)
+    .default(16384),
   REQUEST_LOG_RETENTION_DAYS: z.coerce.number().int().min(1).max(3650).default(30),
 });
 
@@ -65,9 +85,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   const present = Object.fromEntries(Object.entries(env).filter(([, value]) => value !== ''));
   const parsed = envSchema.safeParse(present);
   if (!parsed.success) {
-    throw new ConfigError(
-      parsed.error.issues.map((issue) => `${issue.path.join('.')}: ${issue.message}`),
-    );
+    throw new ConfigError(parsed.error.issues.map((issue) => `${issue.path.join('.')}: ${issue.message}`));
   }
   const e = parsed.data;
   if (e.NODE_ENV === 'production' && !e.SESSION_SECRET) {

@@ -14,7 +14,10 @@ export interface Housekeeping {
   stop(): Promise<void>;
 }
 
-export async function sweepOnce(ctx: Pick<AppContext, 'db' | 'config' | 'logger'>, now = new Date()): Promise<{ requestLog: number; idempotencyKeys: number }> {
+export async function sweepOnce(
+  ctx: Pick<AppContext, 'db' | 'config' | 'logger'>,
+  now = new Date(),
+): Promise<{ requestLog: number; idempotencyKeys: number }> {
   const requestLog = await purgeRequestLog(ctx.db, ctx.config.requestLogRetentionDays, now);
   const idempotencyKeys = await purgeExpiredIdempotencyKeys(ctx.db, now);
   if (requestLog || idempotencyKeys) ctx.logger.info({ requestLog, idempotencyKeys }, 'housekeeping removed expired records');

@@ -29,7 +29,7 @@ async function main(): Promise<void> {
   if (!config.smtpUrl && config.env !== 'production') {
     smtp = await startFakeSmtp();
     config.smtpUrl = smtp.url;
-    logger.info({ smtp: smtp.url }, 'no SMTP_URL: e-mail is captured in-process and shown on the console\'s outbox page');
+    logger.info({ smtp: smtp.url }, "no SMTP_URL: e-mail is captured in-process and shown on the console's outbox page");
   }
   const app = createApp({ db, config, logger, outbox: smtp?.outbox });
   const housekeeping = startHousekeeping(app.locals.ctx);
@@ -41,7 +41,10 @@ async function main(): Promise<void> {
   });
   stopOnSignals(running, logger);
 
-  const lines = [`Meltwire ${config.version} is serving API and console on ${config.publicUrl}`, `  API reference: ${config.publicUrl}/api/v1/openapi.json`];
+  const lines = [
+    `Meltwire ${config.version} is serving API and console on ${config.publicUrl}`,
+    `  API reference: ${config.publicUrl}/api/v1/openapi.json`,
+  ];
   if (config.seedDemo && (await demoAdminStillDefault(db))) {
     lines.push(`  Demo admin: ${DEMO_USERS[0].email} / ${DEMO_PASSWORD}  (demo data is invented; change this password before real use)`);
   }

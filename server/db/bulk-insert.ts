@@ -22,7 +22,9 @@ export async function bulkInsert(db: Queryable, table: string, rows: Row[]): Pro
     // A transaction's client hands out the transaction's own connection.
     const connection = (await db.client.acquireConnection()) as Database;
     const columns = Object.keys(rows[0]);
-    const statement = connection.prepare(`insert into "${table}" (${columns.map((c) => `"${c}"`).join(', ')}) values (${columns.map(() => '?').join(', ')})`);
+    const statement = connection.prepare(
+      `insert into "${table}" (${columns.map((c) => `"${c}"`).join(', ')}) values (${columns.map(() => '?').join(', ')})`,
+    );
     for (const row of rows) statement.run(columns.map((column) => bindable(row[column])));
     return;
   }

@@ -41,7 +41,11 @@ function readKey(req: Request): string | undefined {
   if (key === undefined) return undefined;
   if (key.length < 1 || key.length > IDEMPOTENCY_KEY_MAX) {
     throw new ValidationProblem([
-      { location: `header.${IDEMPOTENCY_HEADER}`, message: `must be 1 to ${IDEMPOTENCY_KEY_MAX} characters (got ${key.length})`, code: 'too_big' },
+      {
+        location: `header.${IDEMPOTENCY_HEADER}`,
+        message: `must be 1 to ${IDEMPOTENCY_KEY_MAX} characters (got ${key.length})`,
+        code: 'too_big',
+      },
     ]);
   }
   return key;

@@ -4,7 +4,7 @@ import { ValidationProblem } from './problem.ts';
 
 export const paginationQuery = z.object({
   limit: z.coerce.number().int().min(1).max(200).default(50).openapi({ description: 'Page size (1–200).' }),
-  cursor: z.string().max(500).optional().openapi({ description: 'Opaque cursor from the previous page\'s `next_cursor`.' }),
+  cursor: z.string().max(500).optional().openapi({ description: "Opaque cursor from the previous page's `next_cursor`." }),
 });
 
 export function listOf<T extends z.ZodType>(item: T, name: string) {
@@ -31,7 +31,12 @@ export function decodeCursor<T extends Record<string, string | number>>(cursor: 
 }
 
 /** Splits a page fetched with limit + 1 rows into the page and the cursor of the next one. */
-export function pageOf<Row, Item>(rows: Row[], limit: number, toItem: (row: Row) => Item, toCursor: (row: Row) => Record<string, string | number>) {
+export function pageOf<Row, Item>(
+  rows: Row[],
+  limit: number,
+  toItem: (row: Row) => Item,
+  toCursor: (row: Row) => Record<string, string | number>,
+) {
   const hasMore = rows.length > limit;
   const page = hasMore ? rows.slice(0, limit) : rows;
   return {

@@ -22,11 +22,19 @@ const MIN_CAPTURE_BYTES = 1024 * 1024;
 function caller(req: Request): Pick<RequestLogRow, 'caller_type' | 'caller_id' | 'caller_label' | 'owner_user_id'> {
   const auth = req.auth;
   if (!auth) return { caller_type: 'anonymous', caller_id: null, caller_label: null, owner_user_id: null };
-  if (auth.kind === 'api_key') return { caller_type: 'api_key', caller_id: auth.apiKeyId ?? null, caller_label: auth.label, owner_user_id: auth.userId };
+  if (auth.kind === 'api_key')
+    return { caller_type: 'api_key', caller_id: auth.apiKeyId ?? null, caller_label: auth.label, owner_user_id: auth.userId };
   return { caller_type: 'user', caller_id: auth.userId, caller_label: auth.email, owner_user_id: auth.userId };
 }
 
-function buildRow(req: Request, res: Response, base: Pick<RequestLogRow, 'id' | 'occurred_at' | 'replay_of'>, durationMs: number, response: BodySnapshot, limit: number): RequestLogRow {
+function buildRow(
+  req: Request,
+  res: Response,
+  base: Pick<RequestLogRow, 'id' | 'occurred_at' | 'replay_of'>,
+  durationMs: number,
+  response: BodySnapshot,
+  limit: number,
+): RequestLogRow {
   const [path, rawQuery = ''] = req.originalUrl.split(/\?(.*)/s, 2);
   const query = redactQuery(rawQuery);
   const request = snapshotRequestBody(req, limit);

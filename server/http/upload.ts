@@ -6,19 +6,39 @@ import multer from 'multer';
 import { ProblemError, ValidationProblem } from './problem.ts';
 
 export function singleFileUpload(field: string, maxBytes: number): RequestHandler {
-  const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: maxBytes, files: 1, fields: 20, fieldSize: 10_000 } }).single(field);
+  const upload = multer({
+    storage: multer.memoryStorage(),
+    limits: { fileSize: maxBytes, files: 1, fields: 20, fieldSize: 10_000 },
+  }).single(field);
   return (req, res, next) => {
     upload(req, res, (error: unknown) => {
       if (error instanceof multer.MulterError) {
         if (error.code === 'LIMIT_FILE_SIZE') {
           // limit_bytes lets a client state the limit in its own words without parsing the detail.
-          return next(new ProblemError(413, 'payload-too-large', 'File too large', `The file exceeds the limit of ${maxBytes} bytes (IMPORT_MAX_BYTES).`, { limit_bytes: maxBytes }));
+          return next(
+            new ProblemError(
+              413,
+              'payload-too-large',
+              'File too large',
+              `The file exceeds the limit of ${maxBytes} bytes (IMPORT_MAX_BYTES).`,
+              { limit_bytes: maxBytes },
+            ),
+          );
         }
-        return next(new ValidationProblem([{ location: `body.${error.field ?? field}`, message: error.message, code: error.code.toLowerCase() }]));
+        return next(
+          new ValidationProblem([{ location: `body.${error.field ?? field}`, message: error.message, code: error.code.toLowerCase() }]),
+        );
       }
       if (error) return next(error);
       if (!req.is('multipart/form-data')) {
-        return next(new ProblemError(415, 'unsupported-media-type', 'Unsupported media type', 'Send the file as multipart/form-data with the field "file".'));
+        return next(
+          new ProblemError(
+            415,
+            'unsupported-media-type',
+            'Unsupported media type',
+            'Send the file as multipart/form-data with the field "file".',
+          ),
+        );
       }
       req.body = { ...(req.body ?? {}), [field]: req.file };
       next();

@@ -17,7 +17,8 @@ function pooledRandom(): number {
 
 const nextUlid = monotonicFactory(pooledRandom);
 
-export type IdPrefix = 'usr' | 'ses' | 'tok' | 'aud' | 'key' | 'req' | 'ipr' | 'ins' | 'mth' | 'imp' | 'smp' | 'brn' | 'evt' | 'rfm' | 'std';
+export type IdPrefix =
+  'usr' | 'ses' | 'tok' | 'aud' | 'key' | 'req' | 'ipr' | 'ins' | 'mth' | 'imp' | 'smp' | 'brn' | 'evt' | 'rfm' | 'std';
 
 export function newId(prefix: IdPrefix): string {
   return `${prefix}_${nextUlid().toLowerCase()}`;

@@ -30,9 +30,12 @@ const IdempotencyKeyHeader = z
 
 function headersFor(route: AnyRoute, status: number, headers: Record<string, string> = {}) {
   const all = { ...headers };
-  if (WRITE_METHODS.has(route.method) && status < 300) all[REPLAYED_HEADER] = `\`true\` when this response is a replay for a repeated \`${IDEMPOTENCY_HEADER}\`.`;
+  if (WRITE_METHODS.has(route.method) && status < 300)
+    all[REPLAYED_HEADER] = `\`true\` when this response is a replay for a repeated \`${IDEMPOTENCY_HEADER}\`.`;
   const entries = Object.entries(all);
-  return entries.length ? { headers: Object.fromEntries(entries.map(([name, description]) => [name, { description, schema: { type: 'string' as const } }])) } : {};
+  return entries.length
+    ? { headers: Object.fromEntries(entries.map(([name, description]) => [name, { description, schema: { type: 'string' as const } }])) }
+    : {};
 }
 
 function responsesFor(route: AnyRoute): Record<number, ResponseConfig> {
@@ -65,7 +68,12 @@ function responsesFor(route: AnyRoute): Record<number, ResponseConfig> {
     add(422, `The \`${IDEMPOTENCY_HEADER}\` was already used for a different request.`);
   }
   // Credentials are checked before any route, so even public operations refuse a bad API key.
-  add(401, route.access === 'public' ? 'An Authorization header was sent with a malformed, unknown, revoked or expired API key.' : 'No valid session or API key.');
+  add(
+    401,
+    route.access === 'public'
+      ? 'An Authorization header was sent with a malformed, unknown, revoked or expired API key.'
+      : 'No valid session or API key.',
+  );
   if (requiredScope(route.access)) add(403, `The caller lacks the scope \`${requiredScope(route.access)}\`.`);
   add(429, 'Rate limit exceeded; see `Retry-After`.');
   add(500, 'Unexpected server error.');
@@ -75,7 +83,11 @@ function responsesFor(route: AnyRoute): Record<number, ResponseConfig> {
 function describe(route: AnyRoute): string | undefined {
   const scope = requiredScope(route.access);
   const access =
-    route.access === 'public' ? 'No authentication.' : scope ? `Requires the scope \`${scope}\`.` : 'Requires a signed-in user or an API key.';
+    route.access === 'public'
+      ? 'No authentication.'
+      : scope
+        ? `Requires the scope \`${scope}\`.`
+        : 'Requires a signed-in user or an API key.';
   return [route.description, access].filter(Boolean).join('\n\n');
 }
 
@@ -90,7 +102,7 @@ export function buildOpenApiDocument(routes: AnyRoute[]) {
     type: 'apiKey',
     in: 'cookie',
     name: 'mw_session',
-    description: 'The console\'s session cookie, set by `POST /auth/login`.',
+    description: "The console's session cookie, set by `POST /auth/login`.",
   });
   registry.register('Problem', ProblemSchema);
 
@@ -126,7 +138,7 @@ export function buildOpenApiDocument(routes: AnyRoute[]) {
       description:
         'Ingests spark OES results, averages burns, applies drift correction, checks grades and serves every result with its raw burns and audit trail.\n\n' +
         'Errors are RFC 9457 `application/problem+json`. Lists use cursor pagination (`{ data, next_cursor }`). Timestamps are ISO 8601 UTC.\n\n' +
-        '**Caution:** released results decide whether a heat ships. Review and authorise results under your laboratory\'s own accredited procedures.',
+        "**Caution:** released results decide whether a heat ships. Review and authorise results under your laboratory's own accredited procedures.",
     },
     servers: [{ url: '/api/v1', description: 'This server' }],
     tags: [],

@@ -83,7 +83,12 @@ function digitsFor(value: number): number {
   return value < 0.001 ? 6 : value < 0.01 ? 5 : 4;
 }
 
-function simulate(plan: Plan, run: PlannedRun, random: () => number, drift: Map<string, { rate: number; offset: number }>): RunMeasurement[] {
+function simulate(
+  plan: Plan,
+  run: PlannedRun,
+  random: () => number,
+  drift: Map<string, { rate: number; offset: number }>,
+): RunMeasurement[] {
   const age = Math.min(...plan.recalibrated.filter((d) => d >= run.daysAgo)) - run.daysAgo;
   const truth = new Map<string, { slope: number; offset: number }>();
   for (const { element } of plan.method.elements) {
@@ -114,15 +119,31 @@ export async function seedDemoDrift(db: Db, lab: DemoLab, refs: DemoReferences, 
   let count = 0;
   for (const plan of plans(lab, refs)) {
     const random = generator(plan.seed);
-    const drift = new Map(plan.method.elements.map(({ element }) => [element, { rate: (random() - 0.4) * 0.009, offset: (random() - 0.5) * 0.04 }]));
+    const drift = new Map(
+      plan.method.elements.map(({ element }) => [element, { rate: (random() - 0.4) * 0.009, offset: (random() - 0.5) * 0.04 }]),
+    );
     for (const run of plan.runs) {
       const measuredAt = new Date(now.getTime() - run.daysAgo * DAY - 2 * 3600_000);
       const measurements = simulate(plan, run, random, drift);
       await db.transaction(async (trx) => {
-        const id = await storeRun(trx, { instrumentId: plan.instrument.id, method: plan.method, mode: 'two_point', measurements, measuredAt: measuredAt.toISOString(), note: run.note ?? null, actor: ANALYST, now: new Date(measuredAt.getTime() + 5 * 60_000).toISOString() });
+        const id = await storeRun(trx, {
+          instrumentId: plan.instrument.id,
+          method: plan.method,
+          mode: 'two_point',
+          measurements,
+          measuredAt: measuredAt.toISOString(),
+          note: run.note ?? null,
+          actor: ANALYST,
+          now: new Date(measuredAt.getTime() + 5 * 60_000).toISOString(),
+        });
         if (run.activate) {
           const row = (await findStandardization(trx, id))!;
-          await applyActivation(trx, row, { override_reason: run.override }, { actor: MANAGER, now: new Date(measuredAt.getTime() + 25 * 60_000).toISOString() });
+          await applyActivation(
+            trx,
+            row,
+            { override_reason: run.override },
+            { actor: MANAGER, now: new Date(measuredAt.getTime() + 25 * 60_000).toISOString() },
+          );
         }
       });
       count += 1;

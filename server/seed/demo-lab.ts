@@ -62,18 +62,64 @@ export interface DemoLab {
 
 export async function seedDemoLab(db: Db): Promise<DemoLab> {
   const now = nowIso();
-  const foundry: InstrumentRow = { id: newId('ins'), code: 'OES-1', name: 'Melt shop spark stand', site: 'Steel foundry, Kestrel Bend', created_at: now, updated_at: now };
-  const castHouse: InstrumentRow = { id: newId('ins'), code: 'OES-2', name: 'Cast house spark stand', site: 'Billet cast house, Kestrel Bend', created_at: now, updated_at: now };
-  const feMethod: Method = { id: newId('mth'), code: 'FE-LA', name: 'Low-alloy steel (Fe base)', matrix: 'Fe', default_unit: '%', elements: elements(FE_LOW_ALLOY), drift_limits: DEFAULT_DRIFT_LIMITS, created_at: now, updated_at: now };
-  const alMethod: Method = { id: newId('mth'), code: 'AL-WR', name: 'Wrought aluminium (Al base)', matrix: 'Al', default_unit: '%', elements: elements(AL_WROUGHT), drift_limits: DEFAULT_DRIFT_LIMITS, created_at: now, updated_at: now };
+  const foundry: InstrumentRow = {
+    id: newId('ins'),
+    code: 'OES-1',
+    name: 'Melt shop spark stand',
+    site: 'Steel foundry, Kestrel Bend',
+    created_at: now,
+    updated_at: now,
+  };
+  const castHouse: InstrumentRow = {
+    id: newId('ins'),
+    code: 'OES-2',
+    name: 'Cast house spark stand',
+    site: 'Billet cast house, Kestrel Bend',
+    created_at: now,
+    updated_at: now,
+  };
+  const feMethod: Method = {
+    id: newId('mth'),
+    code: 'FE-LA',
+    name: 'Low-alloy steel (Fe base)',
+    matrix: 'Fe',
+    default_unit: '%',
+    elements: elements(FE_LOW_ALLOY),
+    drift_limits: DEFAULT_DRIFT_LIMITS,
+    created_at: now,
+    updated_at: now,
+  };
+  const alMethod: Method = {
+    id: newId('mth'),
+    code: 'AL-WR',
+    name: 'Wrought aluminium (Al base)',
+    matrix: 'Al',
+    default_unit: '%',
+    elements: elements(AL_WROUGHT),
+    drift_limits: DEFAULT_DRIFT_LIMITS,
+    created_at: now,
+    updated_at: now,
+  };
   await db.transaction(async (trx) => {
     for (const instrument of [foundry, castHouse]) {
       await insertInstrument(trx, instrument);
-      await recordAudit(trx, { actor: SYSTEM_ACTOR, action: 'instrument.demo_seeded', targetType: 'instrument', targetId: instrument.id, after: instrument });
+      await recordAudit(trx, {
+        actor: SYSTEM_ACTOR,
+        action: 'instrument.demo_seeded',
+        targetType: 'instrument',
+        targetId: instrument.id,
+        after: instrument,
+      });
     }
     for (const method of [feMethod, alMethod]) {
       await insertMethod(trx, method);
-      await recordAudit(trx, { actor: SYSTEM_ACTOR, action: 'method.demo_seeded', targetType: 'method', targetId: method.id, after: method });
+      await recordAudit(trx, {
+        actor: SYSTEM_ACTOR,
+        action: 'method.demo_seeded',
+        targetType: 'method',
+        targetId: method.id,
+        after: method,
+      });
     }
   });
   return { foundry, castHouse, feMethod, alMethod };

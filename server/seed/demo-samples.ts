@@ -12,9 +12,36 @@ import type { DemoLab } from './demo-lab.ts';
 
 type Composition = Record<string, number | string>;
 
-const STEEL_1045: Composition = { C: 0.46, Si: 0.24, Mn: 0.74, P: 0.012, S: 0.017, Cr: 0.11, Ni: 0.06, Mo: 0.02, Cu: 0.13, Al: 0.026, V: 0.005, Ti: 0.0035, Nb: '<0.003', B: 0.0004, Sn: 0.009 };
+const STEEL_1045: Composition = {
+  C: 0.46,
+  Si: 0.24,
+  Mn: 0.74,
+  P: 0.012,
+  S: 0.017,
+  Cr: 0.11,
+  Ni: 0.06,
+  Mo: 0.02,
+  Cu: 0.13,
+  Al: 0.026,
+  V: 0.005,
+  Ti: 0.0035,
+  Nb: '<0.003',
+  B: 0.0004,
+  Sn: 0.009,
+};
 const STEEL_1018: Composition = { ...STEEL_1045, C: 0.17, Mn: 0.76, Si: 0.21 };
-const AL_6063: Composition = { Si: 0.44, Fe: 0.19, Cu: 0.021, Mn: 0.032, Mg: 0.56, Cr: 0.008, Zn: 0.018, Ti: 0.014, Ni: 0.004, Pb: '<0.002' };
+const AL_6063: Composition = {
+  Si: 0.44,
+  Fe: 0.19,
+  Cu: 0.021,
+  Mn: 0.032,
+  Mg: 0.56,
+  Cr: 0.008,
+  Zn: 0.018,
+  Ti: 0.014,
+  Ni: 0.004,
+  Pb: '<0.002',
+};
 const AL_6061: Composition = { ...AL_6063, Si: 0.62, Fe: 0.38, Cu: 0.27, Mg: 0.98, Cr: 0.19, Mn: 0.06 };
 
 /** Park–Miller minimal standard generator: deterministic and good enough for demo noise. */
@@ -59,21 +86,64 @@ export async function seedDemoSamples(db: Db, lab: DemoLab, now = new Date()): P
     const tapped = new Date(now.getTime() - (10 - h) * 5 * 3600_000);
     const preliminary = { ...nominal, C: Number(nominal.C) - 0.05, Mn: Number(nominal.Mn) - 0.08 };
     inputs.push(
-      { sample: { sample_code: `${heat}-P1`, heat, grade, kind: 'preliminary', fields: { furnace: 'EAF-2' }, instrument_id: lab.foundry.id, method: lab.feMethod, source: 'push', created_by_label: 'demo seed', burns: burnsAround(preliminary, 2, random, new Date(tapped.getTime() - 40 * 60_000)) }, storedAt: storedAfter(new Date(tapped.getTime() - 40 * 60_000)) },
-      { sample: { sample_code: `${heat}-F1`, heat, grade, kind: 'final', fields: { furnace: 'EAF-2' }, instrument_id: lab.foundry.id, method: lab.feMethod, source: 'push', created_by_label: 'demo seed', burns: burnsAround(nominal, 3, random, tapped, h === 4 ? 'Mn' : undefined) }, storedAt: storedAfter(tapped) },
+      {
+        sample: {
+          sample_code: `${heat}-P1`,
+          heat,
+          grade,
+          kind: 'preliminary',
+          fields: { furnace: 'EAF-2' },
+          instrument_id: lab.foundry.id,
+          method: lab.feMethod,
+          source: 'push',
+          created_by_label: 'demo seed',
+          burns: burnsAround(preliminary, 2, random, new Date(tapped.getTime() - 40 * 60_000)),
+        },
+        storedAt: storedAfter(new Date(tapped.getTime() - 40 * 60_000)),
+      },
+      {
+        sample: {
+          sample_code: `${heat}-F1`,
+          heat,
+          grade,
+          kind: 'final',
+          fields: { furnace: 'EAF-2' },
+          instrument_id: lab.foundry.id,
+          method: lab.feMethod,
+          source: 'push',
+          created_by_label: 'demo seed',
+          burns: burnsAround(nominal, 3, random, tapped, h === 4 ? 'Mn' : undefined),
+        },
+        storedAt: storedAfter(tapped),
+      },
     );
   }
   for (let l = 0; l < 6; l++) {
     const lot = `B24-${String(118 + l).padStart(4, '0')}`;
     const grade = l % 2 ? 'AA 6061' : 'AA 6063';
     const cast = new Date(now.getTime() - (6 - l) * 8 * 3600_000);
-    inputs.push({ sample: { sample_code: `${lot}-S1`, heat: lot, grade, kind: 'final', fields: { cast_station: 'VDC-1' }, instrument_id: lab.castHouse.id, method: lab.alMethod, source: 'push', created_by_label: 'demo seed', burns: burnsAround(grade === 'AA 6061' ? AL_6061 : AL_6063, 3, random, cast) }, storedAt: storedAfter(cast) });
+    inputs.push({
+      sample: {
+        sample_code: `${lot}-S1`,
+        heat: lot,
+        grade,
+        kind: 'final',
+        fields: { cast_station: 'VDC-1' },
+        instrument_id: lab.castHouse.id,
+        method: lab.alMethod,
+        source: 'push',
+        created_by_label: 'demo seed',
+        burns: burnsAround(grade === 'AA 6061' ? AL_6061 : AL_6063, 3, random, cast),
+      },
+      storedAt: storedAfter(cast),
+    });
   }
   await db.transaction(async (trx) => {
     // Each burn is corrected with the set in force at its measurement time, as at ingest.
     const timelineOf = timelineLoader(trx);
     const built = [];
-    for (const { sample, storedAt } of inputs) built.push(buildSampleRows({ ...sample, corrections: await timelineOf(sample.instrument_id, sample.method.id) }, storedAt));
+    for (const { sample, storedAt } of inputs)
+      built.push(buildSampleRows({ ...sample, corrections: await timelineOf(sample.instrument_id, sample.method.id) }, storedAt));
     await storeNewSamples(trx, built, { ...SYSTEM_ACTOR, label: 'demo seed' });
   });
   return inputs.length;

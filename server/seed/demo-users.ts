@@ -24,7 +24,18 @@ export async function seedDemoUsers(db: Db): Promise<void> {
   await db.transaction(async (trx) => {
     for (const demo of DEMO_USERS) {
       const now = nowIso();
-      const row = { id: newId('usr'), email: demo.email, email_key: emailKey(demo.email), name: demo.name, role: demo.role, status: 'active' as const, password_hash: passwordHash, created_at: now, updated_at: now, last_login_at: null };
+      const row = {
+        id: newId('usr'),
+        email: demo.email,
+        email_key: emailKey(demo.email),
+        name: demo.name,
+        role: demo.role,
+        status: 'active' as const,
+        password_hash: passwordHash,
+        created_at: now,
+        updated_at: now,
+        last_login_at: null,
+      };
       await insertUser(trx, row);
       await recordAudit(trx, { actor: SYSTEM_ACTOR, action: 'user.demo_seeded', targetType: 'user', targetId: row.id, after: toUser(row) });
     }

@@ -26,7 +26,9 @@ export class ApiProblem extends Error {
 
   /** Errors that no named field claims, for a message above the form. */
   otherErrors(fields: string[]): FieldError[] {
-    return (this.problem.errors ?? []).filter((e) => !fields.some((f) => e.location === `body.${f}` || e.location.startsWith(`body.${f}.`)));
+    return (this.problem.errors ?? []).filter(
+      (e) => !fields.some((f) => e.location === `body.${f}` || e.location.startsWith(`body.${f}.`)),
+    );
   }
 }
 
@@ -36,11 +38,29 @@ export function isProblem(error: unknown, status?: number): error is ApiProblem 
 
 /** The problem of a failed response, from its (possibly missing or non-problem) JSON body. */
 export function problemFromResponse(status: number, statusText: string, body: unknown): ApiProblem {
-  const { type, title, status: _status, detail, errors, ...extensions } = (body !== null && typeof body === 'object' ? body : {}) as Partial<ProblemBody> & Record<string, unknown>;
+  const {
+    type,
+    title,
+    status: _status,
+    detail,
+    errors,
+    ...extensions
+  } = (body !== null && typeof body === 'object' ? body : {}) as Partial<ProblemBody> & Record<string, unknown>;
   return new ApiProblem(
-    { type: typeof type === 'string' ? type : 'about:blank', title: typeof title === 'string' ? title : statusText || 'Request failed', status, detail, errors },
+    {
+      type: typeof type === 'string' ? type : 'about:blank',
+      title: typeof title === 'string' ? title : statusText || 'Request failed',
+      status,
+      detail,
+      errors,
+    },
     extensions,
   );
 }
 
-export const NETWORK_PROBLEM: ProblemBody = { type: 'network', title: 'The server cannot be reached', status: 0, detail: 'Check the connection and try again.' };
+export const NETWORK_PROBLEM: ProblemBody = {
+  type: 'network',
+  title: 'The server cannot be reached',
+  status: 0,
+  detail: 'Check the connection and try again.',
+};

@@ -17,7 +17,13 @@ describe('API keys', () => {
     expect(created.headers.location).toBe(`/api/v1/api-keys/${created.body.id}`);
     const secret: string = created.body.secret;
     expect(secret).toMatch(/^mw_live_[0-9A-Za-z]{38}$/);
-    expect(created.body).toMatchObject({ name: 'MES melt shop', scopes: ['samples:read'], status: 'active', created_by: { id: user.id }, prefix: secret.slice(0, 14) });
+    expect(created.body).toMatchObject({
+      name: 'MES melt shop',
+      scopes: ['samples:read'],
+      status: 'active',
+      created_by: { id: user.id },
+      prefix: secret.slice(0, 14),
+    });
 
     const row = await t.db('api_keys').where({ id: created.body.id }).first();
     expect(row.secret_hash).toBe(sha256Hex(secret));
@@ -61,7 +67,11 @@ describe('API keys', () => {
     const { agent } = await signedInAgent(t, 'admin');
     const res = await agent.post('/api/v1/api-keys').send({ name: '', scopes: ['samples:eat'], expires_at: '2000-01-01T00:00:00Z' });
     expectProblem(res, 400);
-    expect(problemBody(res).errors?.map((e) => e.location).sort()).toEqual(['body.expires_at', 'body.name', 'body.scopes.0']);
+    expect(
+      problemBody(res)
+        .errors?.map((e) => e.location)
+        .sort(),
+    ).toEqual(['body.expires_at', 'body.name', 'body.scopes.0']);
   });
 
   it('rolls a key: the replacement works at once and the old one lives for the overlap', async () => {

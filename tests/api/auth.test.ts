@@ -88,7 +88,8 @@ describe('sign-in rate limit', () => {
   it('answers 429 problem+json with Retry-After and RateLimit headers after the limit', async () => {
     const limited = await createTestApp({ loginRateLimitPerMinute: 3 });
     try {
-      const attempt = () => request(limited.app).post('/api/v1/auth/login').send({ email: 'x@kestrelbend.test', password: 'nope-nope-nope' });
+      const attempt = () =>
+        request(limited.app).post('/api/v1/auth/login').send({ email: 'x@kestrelbend.test', password: 'nope-nope-nope' });
       for (let i = 0; i < 3; i++) expect((await attempt()).status).toBe(401);
       const res = await attempt();
       expectProblem(res, 429);

@@ -46,8 +46,13 @@ describe('npm run cli', () => {
   }, 60_000);
 
   it('explains bad input on stderr with a non-zero exit', async () => {
-    await expect(cli('create-key', '--name', 'x', '--scopes', 'samples:fly')).rejects.toMatchObject({ code: 1, stderr: expect.stringContaining('unknown scopes: samples:fly') });
-    await expect(cli('create-admin', '--email', 'a@kestrelbend.test', '--password', 'short')).rejects.toMatchObject({ stderr: expect.stringContaining('at least 10') });
+    await expect(cli('create-key', '--name', 'x', '--scopes', 'samples:fly')).rejects.toMatchObject({
+      code: 1,
+      stderr: expect.stringContaining('unknown scopes: samples:fly'),
+    });
+    await expect(cli('create-admin', '--email', 'a@kestrelbend.test', '--password', 'short')).rejects.toMatchObject({
+      stderr: expect.stringContaining('at least 10'),
+    });
     await expect(cli('melt')).rejects.toMatchObject({ stderr: expect.stringContaining('unknown command') });
   }, 60_000);
 });

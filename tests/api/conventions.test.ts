@@ -33,7 +33,9 @@ describe('problem responses (RFC 9457)', () => {
   });
 
   it('answers a body over the limit with 413', async () => {
-    const res = await request(t.app).post('/api/v1/auth/login').send({ email: 'a@b.test', password: 'x'.repeat(5000) });
+    const res = await request(t.app)
+      .post('/api/v1/auth/login')
+      .send({ email: 'a@b.test', password: 'x'.repeat(5000) });
     expectProblem(res, 413);
     expect(problemBody(res).detail).toContain('2kb');
   });
@@ -42,7 +44,9 @@ describe('problem responses (RFC 9457)', () => {
     const { agent } = await signedInAgent(t, 'admin');
     const res = await agent.post('/api/v1/users').send({ email: 'not-an-email', role: 'wizard' });
     expectProblem(res, 400);
-    const locations = problemBody(res).errors?.map((e) => e.location).sort();
+    const locations = problemBody(res)
+      .errors?.map((e) => e.location)
+      .sort();
     expect(locations).toEqual(['body.email', 'body.name', 'body.role']);
   });
 

@@ -32,7 +32,13 @@ function example(command: string, args: string[], env: Record<string, string>) {
 }
 
 async function auditActionsNewestFirst(): Promise<{ id: string; action: string }[]> {
-  return server.db('audit_events').orderBy([{ column: 'occurred_at', order: 'desc' }, { column: 'id', order: 'desc' }]).select('id', 'action');
+  return server
+    .db('audit_events')
+    .orderBy([
+      { column: 'occurred_at', order: 'desc' },
+      { column: 'id', order: 'desc' },
+    ])
+    .select('id', 'action');
 }
 
 describe('examples/client.ts (openapi-fetch, generated types)', () => {
@@ -49,17 +55,25 @@ describe('examples/client.ts (openapi-fetch, generated types)', () => {
 
   it('reports a problem with its status, title, detail and request id', async () => {
     const key = await demoAdminKey(['samples:read']);
-    const failure = await example(process.execPath, ['--import', 'tsx', 'examples/client.ts'], { MELTWIRE_KEY: key }).catch((error: { code: number; stderr: string }) => error);
+    const failure = await example(process.execPath, ['--import', 'tsx', 'examples/client.ts'], { MELTWIRE_KEY: key }).catch(
+      (error: { code: number; stderr: string }) => error,
+    );
     expect(failure).toMatchObject({ code: 1 });
-    expect((failure as { stderr: string }).stderr).toMatch(/^403 Not allowed: This action needs the scope "audit:read"\. \(request [0-9a-f-]{36}\)/);
+    expect((failure as { stderr: string }).stderr).toMatch(
+      /^403 Not allowed: This action needs the scope "audit:read"\. \(request [0-9a-f-]{36}\)/,
+    );
   }, 30_000);
 });
 
 describe('curl scripts', () => {
-  it('whoami.sh prints the key\'s owner and scopes', async () => {
+  it("whoami.sh prints the key's owner and scopes", async () => {
     const key = await demoAdminKey(['samples:read', 'events:read']);
     const { stdout } = await example('bash', ['examples/whoami.sh'], { MELTWIRE_KEY: key });
-    expect(JSON.parse(stdout)).toMatchObject({ auth: 'api_key', user: { email: 'admin@kestrelbend.test' }, scopes: ['samples:read', 'events:read'] });
+    expect(JSON.parse(stdout)).toMatchObject({
+      auth: 'api_key',
+      user: { email: 'admin@kestrelbend.test' },
+      scopes: ['samples:read', 'events:read'],
+    });
   });
 
   it('list-api-keys.sh lists keys by prefix, never by secret', async () => {
@@ -80,7 +94,9 @@ describe('curl scripts', () => {
 
   it('fails loudly with the problem body when the key lacks the scope', async () => {
     const key = await demoAdminKey(['samples:read']);
-    const failure = await example('bash', ['examples/list-api-keys.sh'], { MELTWIRE_KEY: key }).catch((error: { code: number; stdout: string; stderr: string }) => error);
+    const failure = await example('bash', ['examples/list-api-keys.sh'], { MELTWIRE_KEY: key }).catch(
+      (error: { code: number; stdout: string; stderr: string }) => error,
+    );
     expect(failure).toMatchObject({ code: expect.any(Number) });
     expect((failure as { stderr: string }).stderr).toContain('403');
   });
@@ -99,7 +115,9 @@ describe('sample and import scripts', () => {
     // then averaged and rounded half-even to FE-LA's 2 decimals (decimal.js as the independent reference).
     const sample = await server.db('samples').where({ sample_code: 'K24-0999-F1' }).first();
     const [setId] = JSON.parse(sample.correction_json).set_ids;
-    const mn = JSON.parse((await server.db('standardizations').where({ id: setId }).first()).corrections_json).find((c: { element: string }) => c.element === 'Mn');
+    const mn = JSON.parse((await server.db('standardizations').where({ id: setId }).first()).corrections_json).find(
+      (c: { element: string }) => c.element === 'Mn',
+    );
     const D100 = Decimal.clone({ precision: 100 });
     const mean = ['0.74', '0.75', '0.75'].reduce((sum, x) => sum.plus(new D100(mn.slope).times(x).plus(mn.offset)), new D100(0)).div(3);
     expect(lines).toContain(`Mn ${mean.toDecimalPlaces(2, Decimal.ROUND_HALF_EVEN).toFixed(2)} %  n=3  flags=`);
@@ -120,7 +138,9 @@ describe('sample and import scripts', () => {
   it('upload-results.sh prints the problem and the broken lines, and fails', async () => {
     const key = await demoAdminKey(['imports:write', 'samples:read']);
     const broken = resolve(ROOT, 'tests/fixtures/imports/broken-value.csv');
-    const failure = await example('bash', ['examples/upload-results.sh', broken], { MELTWIRE_KEY: key }).catch((error: { code: number; stderr: string }) => error);
+    const failure = await example('bash', ['examples/upload-results.sh', broken], { MELTWIRE_KEY: key }).catch(
+      (error: { code: number; stderr: string }) => error,
+    );
     expect(failure).toMatchObject({ code: 1 });
     expect((failure as { stderr: string }).stderr).toContain('file:line 3:Mn %');
   }, 30_000);
@@ -129,14 +149,22 @@ describe('sample and import scripts', () => {
     const key = await demoAdminKey(['samples:read']);
     const since = '2000-01-01T00:00:00Z';
     const { stdout, stderr } = await example('bash', ['examples/samples-since.sh', since], { MELTWIRE_KEY: key, PAGE_SIZE: '7' });
-    const expected = await server.db('samples').orderBy([{ column: 'updated_at' }, { column: 'id' }]).select('sample_code', 'updated_at');
-    expect(stdout.trim().split('\n').map((line) => line.split('  ')[1])).toEqual(expected.map((s) => s.sample_code));
+    const expected = await server
+      .db('samples')
+      .orderBy([{ column: 'updated_at' }, { column: 'id' }])
+      .select('sample_code', 'updated_at');
+    expect(
+      stdout
+        .trim()
+        .split('\n')
+        .map((line) => line.split('  ')[1]),
+    ).toEqual(expected.map((s) => s.sample_code));
     expect(stderr.trim()).toBe(`next time: updated_since=${expected.at(-1)!.updated_at}`);
   }, 30_000);
 });
 
 describe('standardization script', () => {
-  it('run-standardization.sh stores a draft run and prints each element\'s correction and flag', async () => {
+  it("run-standardization.sh stores a draft run and prints each element's correction and flag", async () => {
     const key = await demoAdminKey(['standardizations:write', 'standardizations:read', 'samples:read']);
     const { stdout } = await example('bash', ['examples/run-standardization.sh'], { MELTWIRE_KEY: key, DRIFT: '1.03' });
     const lines = stdout.trim().split('\n');

@@ -43,7 +43,18 @@ async function logEntryAged(days: number, db = t.db): Promise<string> {
 async function idempotencyKeyExpiring(inMs: number): Promise<string> {
   const key = newId('req');
   const now = new Date().toISOString();
-  await t.db('idempotency_keys').insert({ caller: 'user:usr_x', idempotency_key: key, fingerprint: 'f'.repeat(64), method: 'POST', path: '/api/v1/users', state: 'done', status: 201, created_at: now, locked_at: now, expires_at: new Date(Date.now() + inMs).toISOString() });
+  await t.db('idempotency_keys').insert({
+    caller: 'user:usr_x',
+    idempotency_key: key,
+    fingerprint: 'f'.repeat(64),
+    method: 'POST',
+    path: '/api/v1/users',
+    state: 'done',
+    status: 201,
+    created_at: now,
+    locked_at: now,
+    expires_at: new Date(Date.now() + inMs).toISOString(),
+  });
   return key;
 }
 
@@ -64,7 +75,7 @@ describe('housekeeping', () => {
     expect(keys).not.toContain(expiredKey);
   });
 
-  it('sweeps at start, then on every interval, on an unref\'d timer that stop() clears', async () => {
+  it("sweeps at start, then on every interval, on an unref'd timer that stop() clears", async () => {
     const setIntervalSpy = vi.spyOn(globalThis, 'setInterval');
     const atStart = await logEntryAged(40);
     const housekeeping = startHousekeeping(t.ctx, 50);

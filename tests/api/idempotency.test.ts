@@ -30,7 +30,10 @@ describe('Idempotency-Key', () => {
     expect(first.status).toBe(201);
     expect(first.headers['idempotent-replayed']).toBeUndefined();
 
-    const again = await agent.post('/api/v1/users').set('idempotency-key', 'invite-twice-1').send({ role: 'viewer', name: 'Twice', email: 'twice@kestrelbend.test' });
+    const again = await agent
+      .post('/api/v1/users')
+      .set('idempotency-key', 'invite-twice-1')
+      .send({ role: 'viewer', name: 'Twice', email: 'twice@kestrelbend.test' });
     expect(again.status).toBe(201);
     expect(again.headers['idempotent-replayed']).toBe('true');
     expect(again.headers.location).toBe(first.headers.location);
@@ -52,7 +55,9 @@ describe('Idempotency-Key', () => {
 
   it('answers 409 while the first request with the key is still running, then replays it', async () => {
     const held = extra.hold();
-    const first = post('/test/slow-write', 'slow-1').send({ value: 'x' }).then((res) => res);
+    const first = post('/test/slow-write', 'slow-1')
+      .send({ value: 'x' })
+      .then((res) => res);
     await held.inside;
     const during = await post('/test/slow-write', 'slow-1').send({ value: 'x' });
     expectProblem(during, 409);
@@ -119,7 +124,10 @@ describe('Idempotency-Key', () => {
 
   it('does not store anonymous calls', async () => {
     for (let i = 0; i < 2; i++) {
-      const res = await request(t.app).post('/api/v1/auth/password-reset').set('idempotency-key', 'anon-1').send({ email: 'nobody@kestrelbend.test' });
+      const res = await request(t.app)
+        .post('/api/v1/auth/password-reset')
+        .set('idempotency-key', 'anon-1')
+        .send({ email: 'nobody@kestrelbend.test' });
       expect(res.status).toBe(202);
       expect(res.headers['idempotent-replayed']).toBeUndefined();
     }
@@ -130,15 +138,22 @@ describe('Idempotency-Key', () => {
     expect((await post('/test/flaky-write', 'day-old').send({ value: 'first' })).status).toBe(201);
     const row = await t.db('idempotency_keys').where({ idempotency_key: 'day-old' }).first();
     expect(Date.parse(row.expires_at) - Date.parse(row.created_at)).toBe(IDEMPOTENCY_TTL_MS);
-    await t.db('idempotency_keys').where({ idempotency_key: 'day-old' }).update({ expires_at: new Date(Date.now() - 1000).toISOString() });
+    await t
+      .db('idempotency_keys')
+      .where({ idempotency_key: 'day-old' })
+      .update({ expires_at: new Date(Date.now() - 1000).toISOString() });
     const reused = await post('/test/flaky-write', 'day-old').send({ value: 'another request' });
     expect(reused.status).toBe(201);
     expect(reused.headers['idempotent-replayed']).toBeUndefined();
   });
 
-  it('never stores a new API key\'s secret: a retry gets 409 naming the key instead of a replay', async () => {
+  it("never stores a new API key's secret: a retry gets 409 naming the key instead of a replay", async () => {
     const { agent } = await signedInAgent(t, 'admin');
-    const create = () => agent.post('/api/v1/api-keys').set('idempotency-key', 'new-key-1').send({ name: 'MES', scopes: ['samples:read'] });
+    const create = () =>
+      agent
+        .post('/api/v1/api-keys')
+        .set('idempotency-key', 'new-key-1')
+        .send({ name: 'MES', scopes: ['samples:read'] });
     const first = await create();
     expect(first.status).toBe(201);
     const retry = await create();
@@ -160,7 +175,12 @@ describe('Idempotency-Key', () => {
   });
 
   it('is documented as an optional header on every POST, PATCH and DELETE', () => {
-    const document = JSON.parse(readFileSync(OPENAPI_FILE, 'utf8')) as { paths: Record<string, Record<string, { parameters?: { name: string; in: string; required?: boolean }[]; responses: Record<string, unknown> }>> };
+    const document = JSON.parse(readFileSync(OPENAPI_FILE, 'utf8')) as {
+      paths: Record<
+        string,
+        Record<string, { parameters?: { name: string; in: string; required?: boolean }[]; responses: Record<string, unknown> }>
+      >;
+    };
     let writes = 0;
     for (const [path, operations] of Object.entries(document.paths)) {
       for (const [method, operation] of Object.entries(operations)) {

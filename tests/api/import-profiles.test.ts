@@ -50,11 +50,17 @@ describe('POST /api/v1/import-profiles', () => {
     const { agent } = await signedInAgent(t, 'analyst');
     const res = await agent.post('/api/v1/import-profiles').send({
       name: 'Canonical forms',
-      element_columns: [{ header: 'Mn (line 2)', element: 'MN', unit: 'mg/kg' }, { header: 'B*', element: 'b', unit: 'µg/kg' }],
+      element_columns: [
+        { header: 'Mn (line 2)', element: 'MN', unit: 'mg/kg' },
+        { header: 'B*', element: 'b', unit: 'µg/kg' },
+      ],
       default_unit: 'wt%',
     });
     expect(res.status).toBe(201);
-    expect(res.body.element_columns).toEqual([{ header: 'Mn (line 2)', element: 'Mn', unit: 'ppm' }, { header: 'B*', element: 'B', unit: 'ppb' }]);
+    expect(res.body.element_columns).toEqual([
+      { header: 'Mn (line 2)', element: 'Mn', unit: 'ppm' },
+      { header: 'B*', element: 'B', unit: 'ppb' },
+    ]);
     expect(res.body.default_unit).toBe('%');
   });
 
@@ -66,20 +72,40 @@ describe('POST /api/v1/import-profiles', () => {
       [{ name: 'x', delimiter: '|', header_row: 0, encoding: 'utf-16' }, ['body.delimiter', 'body.encoding', 'body.header_row']],
       [{ name: 'x', layout: 'long' }, ['body.long_columns']],
       [{ name: 'x', long_columns: { element: 'E', value: 'V' } }, ['body.long_columns']],
-      [{ name: 'x', layout: 'long', long_columns: { element: 'E', value: 'V' }, element_columns: [{ header: 'Mn1', element: 'Mn' }] }, ['body.element_columns']],
+      [
+        { name: 'x', layout: 'long', long_columns: { element: 'E', value: 'V' }, element_columns: [{ header: 'Mn1', element: 'Mn' }] },
+        ['body.element_columns'],
+      ],
       [{ name: 'x', element_columns: [{ header: 'A', element: 'Xx' }] }, ['body.element_columns.0.element']],
-      [{ name: 'x', element_columns: [{ header: 'A', element: 'Mn' }, { header: 'B', element: 'mn' }] }, ['body.element_columns.1.element']],
+      [
+        {
+          name: 'x',
+          element_columns: [
+            { header: 'A', element: 'Mn' },
+            { header: 'B', element: 'mn' },
+          ],
+        },
+        ['body.element_columns.1.element'],
+      ],
       [{ name: 'x', default_unit: 'mol%' }, ['body.default_unit']],
       [{ name: 'x', columns: { sample_code: 'Sample', heat: ' sample ' } }, ['body.columns.heat']],
       [{ name: 'x', columns: { sample_code: 'Sample' }, ignore_columns: ['SAMPLE'] }, ['body.ignore_columns.0']],
-      [{ name: 'x', columns: { fields: { 'Bad Key': 'Furnace', heat: 'Heat' } } }, ['body.columns.fields.Bad Key', 'body.columns.fields.heat']],
+      [
+        { name: 'x', columns: { fields: { 'Bad Key': 'Furnace', heat: 'Heat' } } },
+        ['body.columns.fields.Bad Key', 'body.columns.fields.heat'],
+      ],
       [{ name: 'x', delimiter: ',', decimal_separator: ',' }, ['body.decimal_separator']],
       [{ name: 'x', time: { format: 'MM/DD/YYYY', utc_offset: '+25:00' } }, ['body.time.format', 'body.time.utc_offset']],
     ];
     for (const [body, locations] of cases) {
       const res = await agent.post('/api/v1/import-profiles').send(body);
       expectProblem(res, 400);
-      expect(problemBody(res).errors?.map((e) => e.location).sort(), JSON.stringify(body)).toEqual(locations);
+      expect(
+        problemBody(res)
+          .errors?.map((e) => e.location)
+          .sort(),
+        JSON.stringify(body),
+      ).toEqual(locations);
     }
   });
 
@@ -98,7 +124,12 @@ describe('POST /api/v1/import-profiles', () => {
     const { agent: admin } = await signedInAgent(t, 'admin');
     const audit = await admin.get('/api/v1/audit-events').query({ action: 'import_profile.created', target_id: created.body.id });
     expect(audit.body.data).toHaveLength(1);
-    expect(audit.body.data[0]).toMatchObject({ actor: { type: 'user', id: user.id }, target: { type: 'import_profile', id: created.body.id }, before: null, after: created.body });
+    expect(audit.body.data[0]).toMatchObject({
+      actor: { type: 'user', id: user.id },
+      target: { type: 'import_profile', id: created.body.id },
+      before: null,
+      after: created.body,
+    });
   });
 });
 
@@ -108,7 +139,13 @@ describe('PATCH /api/v1/import-profiles/{id}', () => {
     const created = (await agent.post('/api/v1/import-profiles').send({ ...LONG_PROFILE, name: 'To change' })).body;
     const res = await agent.patch(`/api/v1/import-profiles/${created.id}`).send({ header_row: 1, time: { format: 'iso8601' } });
     expect(res.status).toBe(200);
-    expect(res.body).toEqual({ ...created, header_row: 1, time: { format: 'iso8601', utc_offset: null }, revision: 2, updated_at: expect.any(String) });
+    expect(res.body).toEqual({
+      ...created,
+      header_row: 1,
+      time: { format: 'iso8601', utc_offset: null },
+      revision: 2,
+      updated_at: expect.any(String),
+    });
 
     const { agent: admin } = await signedInAgent(t, 'admin');
     const audit = await admin.get('/api/v1/audit-events').query({ action: 'import_profile.updated', target_id: created.id });
@@ -121,7 +158,9 @@ describe('PATCH /api/v1/import-profiles/{id}', () => {
     const created = (await agent.post('/api/v1/import-profiles').send({ ...LONG_PROFILE, name: 'Stays long' })).body;
     const res = await agent.patch(`/api/v1/import-profiles/${created.id}`).send({ long_columns: null });
     expectProblem(res, 400);
-    expect(problemBody(res).errors).toEqual([{ location: 'body.long_columns', message: expect.stringContaining('long layout'), code: 'custom' }]);
+    expect(problemBody(res).errors).toEqual([
+      { location: 'body.long_columns', message: expect.stringContaining('long layout'), code: 'custom' },
+    ]);
     expect((await agent.get(`/api/v1/import-profiles/${created.id}`)).body).toEqual(created);
     // Switching layout together with its columns is fine.
     const wide = await agent.patch(`/api/v1/import-profiles/${created.id}`).send({ layout: 'wide', long_columns: null });
@@ -167,9 +206,15 @@ describe('scopes', () => {
     expect(problemBody(denied).required_scope).toBe('imports:write');
 
     const readOnly = await issueKey(t, ['samples:read']);
-    expectProblem(await request(t.app).post('/api/v1/import-profiles').set('authorization', `Bearer ${readOnly.secret}`).send({ name: 'Key profile' }), 403);
+    expectProblem(
+      await request(t.app).post('/api/v1/import-profiles').set('authorization', `Bearer ${readOnly.secret}`).send({ name: 'Key profile' }),
+      403,
+    );
     const writer = await issueKey(t, ['imports:write']);
-    const created = await request(t.app).post('/api/v1/import-profiles').set('authorization', `Bearer ${writer.secret}`).send({ name: 'Key profile' });
+    const created = await request(t.app)
+      .post('/api/v1/import-profiles')
+      .set('authorization', `Bearer ${writer.secret}`)
+      .send({ name: 'Key profile' });
     expect(created.status).toBe(201);
     expectProblem(await request(t.app).get(created.headers.location).set('authorization', `Bearer ${writer.secret}`), 403);
   });
@@ -182,8 +227,18 @@ describe('a stored profile drives the parser', () => {
     // Typed: the stored profile as the service returns it is the parser's option.
     const profile = await getImportProfile(t.ctx, created.id);
     expect(profile).toEqual(created);
-    const file = ['preamble', '', 'Specimen Ref\tCast\tShift\tAnalysed\tAnalyte\tReading\tUnit', 'S1\tK24-0412\tA\t04.03.2024 06:00:00\tCr\t1250\t'].join('\n');
+    const file = [
+      'preamble',
+      '',
+      'Specimen Ref\tCast\tShift\tAnalysed\tAnalyte\tReading\tUnit',
+      'S1\tK24-0412\tA\t04.03.2024 06:00:00\tCr\t1250\t',
+    ].join('\n');
     const parsed = parseResultFile(Buffer.from(file), { profile });
-    expect(parsed.samples[0].burns[0]).toEqual({ line: 4, burn_number: 1, measured_at: '2024-03-04T05:00:00.000Z', values: { Cr: { value: '0.125', qualifier: null, raw: '1250', unit: 'ppm' } } });
+    expect(parsed.samples[0].burns[0]).toEqual({
+      line: 4,
+      burn_number: 1,
+      measured_at: '2024-03-04T05:00:00.000Z',
+      values: { Cr: { value: '0.125', qualifier: null, raw: '1250', unit: 'ppm' } },
+    });
   });
 });

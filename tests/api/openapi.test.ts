@@ -31,7 +31,9 @@ describe('the OpenAPI document', () => {
   });
 
   it('gives every operation an id, a tag and documented problem responses', () => {
-    const document = JSON.parse(readFileSync(OPENAPI_FILE, 'utf8')) as { paths: Record<string, Record<string, { operationId?: string; tags?: string[]; responses: Record<string, unknown> }>> };
+    const document = JSON.parse(readFileSync(OPENAPI_FILE, 'utf8')) as {
+      paths: Record<string, Record<string, { operationId?: string; tags?: string[]; responses: Record<string, unknown> }>>;
+    };
     const ids = new Set<string>();
     for (const [path, operations] of Object.entries(document.paths)) {
       for (const [method, operation] of Object.entries(operations)) {

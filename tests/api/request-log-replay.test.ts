@@ -19,10 +19,14 @@ async function entryId(agent: request.Agent, requestId: string): Promise<string>
 }
 
 describe('replay', () => {
-  it('sends a key\'s call again under the signed-in user and links the new entry', async () => {
+  it("sends a key's call again under the signed-in user and links the new entry", async () => {
     const { agent, user } = await signedInAgent(t, 'integrator');
     const key = await issueKey(t, ['samples:read'], { owner: user });
-    await request(t.app).get('/api/v1/samples?limit=3').set('authorization', `Bearer ${key.secret}`).set('x-request-id', 'to-replay').expect(200);
+    await request(t.app)
+      .get('/api/v1/samples?limit=3')
+      .set('authorization', `Bearer ${key.secret}`)
+      .set('x-request-id', 'to-replay')
+      .expect(200);
     const original = await entryId(agent, 'to-replay');
 
     const replay = await agent.post(`/api/v1/request-log/${original}/replay`);
@@ -41,9 +45,13 @@ describe('replay', () => {
     expect(listed.body.replay_of).toBe(original);
   });
 
-  it('uses the replaying request\'s own API key, so the key\'s scopes decide: a missing scope is the replay\'s own 403', async () => {
+  it("uses the replaying request's own API key, so the key's scopes decide: a missing scope is the replay's own 403", async () => {
     const { agent: admin, user } = await signedInAgent(t, 'admin');
-    await admin.post('/api/v1/users').set('x-request-id', 'admin-invite').send({ email: 'replayed@kestrelbend.test', name: 'Replayed', role: 'viewer' }).expect(201);
+    await admin
+      .post('/api/v1/users')
+      .set('x-request-id', 'admin-invite')
+      .send({ email: 'replayed@kestrelbend.test', name: 'Replayed', role: 'viewer' })
+      .expect(201);
     const original = await entryId(admin, 'admin-invite');
     const logReader = await issueKey(t, ['request-log:read'], { owner: user });
 
@@ -56,7 +64,12 @@ describe('replay', () => {
 
   it('replays a write with its JSON body and Idempotency-Key', async () => {
     const { agent } = await signedInAgent(t, 'admin');
-    await agent.post('/api/v1/users').set('x-request-id', 'keyed-invite').set('idempotency-key', 'invite-77').send({ email: 'keyed@kestrelbend.test', name: 'Keyed', role: 'viewer' }).expect(201);
+    await agent
+      .post('/api/v1/users')
+      .set('x-request-id', 'keyed-invite')
+      .set('idempotency-key', 'invite-77')
+      .send({ email: 'keyed@kestrelbend.test', name: 'Keyed', role: 'viewer' })
+      .expect(201);
     const replay = await agent.post(`/api/v1/request-log/${await entryId(agent, 'keyed-invite')}/replay`);
     expect(replay.body.status).toBe(201);
     expect(replay.body.response.headers['idempotent-replayed']).toBe('true');
@@ -67,9 +80,23 @@ describe('replay', () => {
   it('refuses entries it cannot send again as they were, with a clear 422', async () => {
     const { agent, user } = await signedInAgent(t, 'admin');
     const key = await issueKey(t, ['imports:write', 'api-keys:write'], { owner: user });
-    await request(t.app).post('/api/v1/test/upload').set('authorization', `Bearer ${key.secret}`).set('x-request-id', 'multipart').attach('file', Buffer.from('C\n0.2\n'), 'K24-0413.csv').expect(201);
-    await request(t.app).post('/api/v1/api-keys').set('authorization', `Bearer ${key.secret}`).set('x-request-id', 'long').send({ name: 'Ä'.repeat(200), scopes: ['imports:write', 'api-keys:write'] }).expect(201);
-    await request(t.app).post('/api/v1/auth/login').set('x-request-id', 'sign-in').send({ email: 'someone@kestrelbend.test', password: 'not the password' }).expect(401);
+    await request(t.app)
+      .post('/api/v1/test/upload')
+      .set('authorization', `Bearer ${key.secret}`)
+      .set('x-request-id', 'multipart')
+      .attach('file', Buffer.from('C\n0.2\n'), 'K24-0413.csv')
+      .expect(201);
+    await request(t.app)
+      .post('/api/v1/api-keys')
+      .set('authorization', `Bearer ${key.secret}`)
+      .set('x-request-id', 'long')
+      .send({ name: 'Ä'.repeat(200), scopes: ['imports:write', 'api-keys:write'] })
+      .expect(201);
+    await request(t.app)
+      .post('/api/v1/auth/login')
+      .set('x-request-id', 'sign-in')
+      .send({ email: 'someone@kestrelbend.test', password: 'not the password' })
+      .expect(401);
 
     const cases: [string, RegExp][] = [
       ['multipart', /Multipart uploads are not kept/],
@@ -78,7 +105,10 @@ describe('replay', () => {
     ];
     for (const [requestId, reason] of cases) {
       const id = await entryId(agent, requestId);
-      expect((await agent.get(`/api/v1/request-log/${id}`)).body).toMatchObject({ replayable: false, not_replayable_reason: expect.stringMatching(reason) });
+      expect((await agent.get(`/api/v1/request-log/${id}`)).body).toMatchObject({
+        replayable: false,
+        not_replayable_reason: expect.stringMatching(reason),
+      });
       const res = await agent.post(`/api/v1/request-log/${id}/replay`);
       expectProblem(res, 422);
       expect(problemBody(res).detail).toMatch(reason);

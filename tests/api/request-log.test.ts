@@ -34,10 +34,20 @@ describe('recording', () => {
   it('records method, path, query, status, duration, caller, request id and both bodies', async () => {
     const { agent, user } = await signedInAgent(t, 'integrator');
     const key = await issueKey(t, ['samples:read'], { owner: user });
-    await request(t.app).get('/api/v1/samples?limit=5').set('authorization', `Bearer ${key.secret}`).set('x-request-id', 'mes-poll-1').expect(200);
+    await request(t.app)
+      .get('/api/v1/samples?limit=5')
+      .set('authorization', `Bearer ${key.secret}`)
+      .set('x-request-id', 'mes-poll-1')
+      .expect(200);
 
     const [entry] = (await entries(agent)).filter((e) => e.request_id === 'mes-poll-1');
-    expect(entry).toMatchObject({ method: 'GET', path: '/api/v1/samples', query: 'limit=5', status: 200, caller: { type: 'api_key', id: key.id } });
+    expect(entry).toMatchObject({
+      method: 'GET',
+      path: '/api/v1/samples',
+      query: 'limit=5',
+      status: 200,
+      caller: { type: 'api_key', id: key.id },
+    });
     expect(entry.caller.label).toMatch(/\(mw_live_\w{6}…\)$/);
     expect(entry.duration_ms).toBeGreaterThanOrEqual(0);
 
@@ -51,7 +61,11 @@ describe('recording', () => {
 
   it('records refused calls too: a bad key is logged as anonymous, with its 401', async () => {
     const { agent } = await signedInAgent(t, 'admin');
-    await request(t.app).get('/api/v1/samples').set('authorization', 'Bearer mw_live_nonsense').set('x-request-id', 'bad-key-1').expect(401);
+    await request(t.app)
+      .get('/api/v1/samples')
+      .set('authorization', 'Bearer mw_live_nonsense')
+      .set('x-request-id', 'bad-key-1')
+      .expect(401);
     const [entry] = (await entries(agent)).filter((e) => e.request_id === 'bad-key-1');
     expect(entry).toMatchObject({ status: 401, caller: { type: 'anonymous', id: null } });
   });
@@ -72,7 +86,10 @@ describe('redaction', () => {
     const agent = request.agent(t.app);
     const login = await agent.post('/api/v1/auth/login').send({ email: admin.email, password: TEST_PASSWORD }).expect(200);
     const cookie = String(login.headers['set-cookie']).match(new RegExp(`${SESSION_COOKIE}=([^;]+)`))![1];
-    const created = await agent.post('/api/v1/api-keys').send({ name: 'leak check', scopes: ['samples:read'] }).expect(201);
+    const created = await agent
+      .post('/api/v1/api-keys')
+      .send({ name: 'leak check', scopes: ['samples:read'] })
+      .expect(201);
     const secret: string = created.body.secret;
     await request(t.app).get(`/api/v1/samples?note=${secret}`).set('authorization', `Bearer ${secret}`).expect(200);
     await agent.post('/api/v1/auth/password-reset/confirm').send({ token: 'some-reset-token-value', password: 'a new password here' });
@@ -97,7 +114,11 @@ describe('bodies', () => {
   it('cuts bodies at REQUEST_LOG_BODY_LIMIT bytes and says so', async () => {
     const { agent } = await signedInAgent(t, 'admin');
     const name = 'Ä'.repeat(200); // two bytes each in UTF-8: the cut must not split one
-    const res = await agent.post('/api/v1/api-keys').set('x-request-id', 'long-body').send({ name, scopes: ['samples:read'] }).expect(201);
+    const res = await agent
+      .post('/api/v1/api-keys')
+      .set('x-request-id', 'long-body')
+      .send({ name, scopes: ['samples:read'] })
+      .expect(201);
     const [entry] = (await entries(agent)).filter((e) => e.request_id === 'long-body');
     const detail = (await agent.get(`/api/v1/request-log/${entry.id}`)).body;
     expect(detail.response.body_truncated).toBe(true);
@@ -112,11 +133,20 @@ describe('bodies', () => {
     const { agent, user } = await signedInAgent(t, 'admin');
     const key = await issueKey(t, ['imports:write'], { owner: user });
     const content = 'Sample,C,Mn\nK24-0412,0.21,0.80\n';
-    await request(t.app).post('/api/v1/test/upload').set('authorization', `Bearer ${key.secret}`).set('x-request-id', 'upload-1').field('instrument', 'OES-1').attach('file', Buffer.from(content), { filename: 'K24-0412.csv', contentType: 'text/csv' }).expect(201);
+    await request(t.app)
+      .post('/api/v1/test/upload')
+      .set('authorization', `Bearer ${key.secret}`)
+      .set('x-request-id', 'upload-1')
+      .field('instrument', 'OES-1')
+      .attach('file', Buffer.from(content), { filename: 'K24-0412.csv', contentType: 'text/csv' })
+      .expect(201);
     const [entry] = (await entries(agent)).filter((e) => e.request_id === 'upload-1');
     const detail = (await agent.get(`/api/v1/request-log/${entry.id}`)).body;
     expect(detail.request.body_kind).toBe('multipart');
-    expect(JSON.parse(detail.request.body)).toEqual({ fields: { instrument: 'OES-1' }, files: [{ field: 'file', name: 'K24-0412.csv', size: content.length, content_type: 'text/csv' }] });
+    expect(JSON.parse(detail.request.body)).toEqual({
+      fields: { instrument: 'OES-1' },
+      files: [{ field: 'file', name: 'K24-0412.csv', size: content.length, content_type: 'text/csv' }],
+    });
     expect(detail.request.body).not.toContain('0.21');
     expect(detail.replayable).toBe(false);
   });
@@ -125,16 +155,25 @@ describe('bodies', () => {
     const { agent } = await signedInAgent(t, 'admin');
     const content = 'Sample,C,Mn\nK24-0412,0.21,0.80\n';
     // The import preview answers 422 here (the instrument and method do not exist): it is logged all the same.
-    await agent.post('/api/v1/imports/preview').set('x-request-id', 'upload-2').field('instrument_id', 'ins_none').field('method_id', 'mth_none').attach('file', Buffer.from(content), { filename: 'K24-0412.csv', contentType: 'text/csv' }).expect(422);
+    await agent
+      .post('/api/v1/imports/preview')
+      .set('x-request-id', 'upload-2')
+      .field('instrument_id', 'ins_none')
+      .field('method_id', 'mth_none')
+      .attach('file', Buffer.from(content), { filename: 'K24-0412.csv', contentType: 'text/csv' })
+      .expect(422);
     const [entry] = (await entries(agent)).filter((e) => e.request_id === 'upload-2');
     const detail = (await agent.get(`/api/v1/request-log/${entry.id}`)).body;
-    expect(JSON.parse(detail.request.body)).toEqual({ fields: { instrument_id: 'ins_none', method_id: 'mth_none' }, files: [{ field: 'file', name: 'K24-0412.csv', size: content.length, content_type: 'text/csv' }] });
+    expect(JSON.parse(detail.request.body)).toEqual({
+      fields: { instrument_id: 'ins_none', method_id: 'mth_none' },
+      files: [{ field: 'file', name: 'K24-0412.csv', size: content.length, content_type: 'text/csv' }],
+    });
     expect(detail.request.body_truncated).toBe(false);
   });
 });
 
 describe('visibility, filters and pages', () => {
-  it('shows admins every entry and others only their own calls and their keys\' calls', async () => {
+  it("shows admins every entry and others only their own calls and their keys' calls", async () => {
     const a = await signedInAgent(t, 'integrator');
     const b = await signedInAgent(t, 'integrator');
     const { agent: admin } = await signedInAgent(t, 'admin');
@@ -184,6 +223,10 @@ describe('visibility, filters and pages', () => {
     const { agent } = await signedInAgent(t, 'admin');
     const res = await agent.get('/api/v1/request-log?method=BREW&status=6xx&since=yesterday');
     expectProblem(res, 400);
-    expect(JSON.parse(res.text).errors.map((e: { location: string }) => e.location).sort()).toEqual(['query.method', 'query.since', 'query.status']);
+    expect(
+      JSON.parse(res.text)
+        .errors.map((e: { location: string }) => e.location)
+        .sort(),
+    ).toEqual(['query.method', 'query.since', 'query.status']);
   });
 });

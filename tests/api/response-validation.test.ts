@@ -17,11 +17,14 @@ beforeAll(async () => {
   // GET /health documents `status`, `version`, `database` and `time`; this one forgets most of them.
   wrongBody = await createTestApp({}, { routes: replaceHandler('getHealth', ({ res }) => void res.json({ status: 'melting' })) });
   // GET /health documents 200, 401, 429, 503 and 500; a 409 is not among them.
-  undocumentedProblem = await createTestApp({}, {
-    routes: replaceHandler('getHealth', () => {
-      throw new ConflictProblem('not a documented answer here');
-    }),
-  });
+  undocumentedProblem = await createTestApp(
+    {},
+    {
+      routes: replaceHandler('getHealth', () => {
+        throw new ConflictProblem('not a documented answer here');
+      }),
+    },
+  );
 });
 afterAll(async () => {
   await wrongBody.close();

@@ -27,7 +27,10 @@ describe('invitations', () => {
     const token = tokenFrom(mail.text, '/accept-invitation');
 
     // An invited user cannot sign in before accepting.
-    expectProblem(await request(t.app).post('/api/v1/auth/login').send({ email: 'nadia.park@kestrelbend.test', password: 'anything-at-all' }), 401);
+    expectProblem(
+      await request(t.app).post('/api/v1/auth/login').send({ email: 'nadia.park@kestrelbend.test', password: 'anything-at-all' }),
+      401,
+    );
 
     const weak = await request(t.app).post('/api/v1/auth/accept-invitation').send({ token, password: 'short' });
     expectProblem(weak, 400);
@@ -39,7 +42,9 @@ describe('invitations', () => {
     // The link works once.
     expectProblem(await request(t.app).post('/api/v1/auth/accept-invitation').send({ token, password: 'another long password' }), 422);
 
-    const login = await request(t.app).post('/api/v1/auth/login').send({ email: 'nadia.park@kestrelbend.test', password: 'a good long password' });
+    const login = await request(t.app)
+      .post('/api/v1/auth/login')
+      .send({ email: 'nadia.park@kestrelbend.test', password: 'a good long password' });
     expect(login.status).toBe(200);
     expect(login.body.user.role).toBe('analyst');
   });
@@ -59,13 +64,18 @@ describe('invitations', () => {
     expect(resend.status).toBe(202);
     const second = tokenFrom((await waitForMail(t.smtp, (m) => m.to.includes('resend@kestrelbend.test'))).text, '/accept-invitation');
     expect(second).not.toBe(first);
-    expectProblem(await request(t.app).post('/api/v1/auth/accept-invitation').send({ token: first, password: 'a good long password' }), 422);
-    expect((await request(t.app).post('/api/v1/auth/accept-invitation').send({ token: second, password: 'a good long password' })).status).toBe(200);
+    expectProblem(
+      await request(t.app).post('/api/v1/auth/accept-invitation').send({ token: first, password: 'a good long password' }),
+      422,
+    );
+    expect(
+      (await request(t.app).post('/api/v1/auth/accept-invitation').send({ token: second, password: 'a good long password' })).status,
+    ).toBe(200);
   });
 });
 
 describe('roles and status', () => {
-  it('changes a role, records before/after in the audit trail and ends the user\'s sessions', async () => {
+  it("changes a role, records before/after in the audit trail and ends the user's sessions", async () => {
     const { agent: admin } = await signedInAgent(t, 'admin');
     const { agent: target, user } = await signedInAgent(t, 'viewer');
     expect((await target.get('/api/v1/auth/me')).status).toBe(200);
@@ -79,7 +89,11 @@ describe('roles and status', () => {
     const audit = await admin.get('/api/v1/audit-events').query({ action: 'user.updated', target_id: user.id });
     expect(audit.status).toBe(200);
     expect(audit.body.data).toHaveLength(1);
-    expect(audit.body.data[0]).toMatchObject({ before: { role: 'viewer' }, after: { role: 'manager' }, target: { type: 'user', id: user.id } });
+    expect(audit.body.data[0]).toMatchObject({
+      before: { role: 'viewer' },
+      after: { role: 'manager' },
+      target: { type: 'user', id: user.id },
+    });
   });
 
   it('never leaves the lab without an active admin (409)', async () => {
@@ -131,9 +145,14 @@ describe('password reset', () => {
     const { agent, user } = await signedInAgent(t, 'analyst');
     const ask = await request(t.app).post('/api/v1/auth/password-reset').send({ email: user.email.toUpperCase() });
     expect(ask.status).toBe(202);
-    const token = tokenFrom((await waitForMail(t.smtp, (m) => m.to.includes(user.email) && /reset/i.test(m.subject))).text, '/reset-password');
+    const token = tokenFrom(
+      (await waitForMail(t.smtp, (m) => m.to.includes(user.email) && /reset/i.test(m.subject))).text,
+      '/reset-password',
+    );
 
-    expect((await request(t.app).post('/api/v1/auth/password-reset/confirm').send({ token, password: 'brand new password' })).status).toBe(204);
+    expect((await request(t.app).post('/api/v1/auth/password-reset/confirm').send({ token, password: 'brand new password' })).status).toBe(
+      204,
+    );
     expectProblem(await agent.get('/api/v1/auth/me'), 401);
     expectProblem(await request(t.app).post('/api/v1/auth/login').send({ email: user.email, password: TEST_PASSWORD }), 401);
     expect((await request(t.app).post('/api/v1/auth/login').send({ email: user.email, password: 'brand new password' })).status).toBe(200);

@@ -57,8 +57,10 @@ describe('integrator developer flow', () => {
     expect(await page.content()).not.toContain(secret);
   });
 
-  it('calls the API with the key, from the test and with the Quick start\'s copied curl commands', async () => {
-    const res = await fetch(`${server.url}/api/v1/samples?heat=K24-0412`, { headers: { authorization: `Bearer ${secret}`, 'x-request-id': 'e2e-first-call' } });
+  it("calls the API with the key, from the test and with the Quick start's copied curl commands", async () => {
+    const res = await fetch(`${server.url}/api/v1/samples?heat=K24-0412`, {
+      headers: { authorization: `Bearer ${secret}`, 'x-request-id': 'e2e-first-call' },
+    });
     expect(res.status).toBe(200);
     const body = await res.json();
     expect(body.data.map((s: { sample_code: string }) => s.sample_code)).toEqual(['K24-0412-F1', 'K24-0412-P1']);
@@ -66,7 +68,11 @@ describe('integrator developer flow', () => {
 
     await nav('Quick start').click();
     await page.getByRole('heading', { name: 'Quick start' }).waitFor();
-    expect(JSON.parse(await runSnippet('quick-start-first-call'))).toMatchObject({ auth: 'api_key', scopes: ['samples:read'], user: { email: INTEGRATOR } });
+    expect(JSON.parse(await runSnippet('quick-start-first-call'))).toMatchObject({
+      auth: 'api_key',
+      scopes: ['samples:read'],
+      user: { email: INTEGRATOR },
+    });
     const list = JSON.parse(await runSnippet('quick-start-list'));
     expect(list.data).toHaveLength(2);
     expect(list.next_cursor).toEqual(expect.any(String));
@@ -116,9 +122,15 @@ describe('integrator developer flow', () => {
     const reference = page.getByTestId('api-reference');
     const operation = reference.locator('#operations-Auth-getMe');
     await operation.waitFor();
-    const fonts = await reference.locator('.opblock-summary-path').first().evaluate((el) => getComputedStyle(el).fontFamily);
+    const fonts = await reference
+      .locator('.opblock-summary-path')
+      .first()
+      .evaluate((el) => getComputedStyle(el).fontFamily);
     expect(fonts).toMatch(/^"?JetBrains Mono"?/);
-    const getColour = await reference.locator('.opblock-get .opblock-summary-method').first().evaluate((el) => getComputedStyle(el).backgroundColor);
+    const getColour = await reference
+      .locator('.opblock-get .opblock-summary-method')
+      .first()
+      .evaluate((el) => getComputedStyle(el).backgroundColor);
     expect(getColour).toBe('rgb(47, 125, 109)'); // --color-verdigris-600 #2f7d6d in src/index.css
 
     await operation.locator('.opblock-summary').click();

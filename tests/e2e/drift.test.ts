@@ -20,7 +20,9 @@ afterAll(() => session?.close());
 /** Burns reading every nominal value of a reference 1 % high, except B at 2.2× (a slope near 0.45: fail). */
 function burnsFor(values: { element: string; nominal: string }[]): string {
   const burns = [0.999, 1.0, 1.001].map((spread) =>
-    Object.fromEntries(values.map(({ element, nominal }) => [element, Number((Number(nominal) * (element === 'B' ? 2.2 : 1.01) * spread).toPrecision(5))])),
+    Object.fromEntries(
+      values.map(({ element, nominal }) => [element, Number((Number(nominal) * (element === 'B' ? 2.2 : 1.01) * spread).toPrecision(5))]),
+    ),
   );
   return JSON.stringify(burns);
 }
@@ -51,7 +53,9 @@ describe('Drift page', () => {
     const bRow = page.getByTestId('correction-row').filter({ has: page.getByRole('rowheader', { name: 'B', exact: true }) });
     await bRow.waitFor();
     expect(await bRow.getAttribute('data-flag')).toBe('fail');
-    expect(await bRow.innerText()).toMatch(/✕\s*Fail[\s\S]*Slope 0\.\d+ is 0\.\d+ away from 1: more than the fail limit 0\.5 of method FE-LA\. Activating it needs an override reason\./);
+    expect(await bRow.innerText()).toMatch(
+      /✕\s*Fail[\s\S]*Slope 0\.\d+ is 0\.\d+ away from 1: more than the fail limit 0\.5 of method FE-LA\. Activating it needs an override reason\./,
+    );
     // A run older than the set in force cannot be activated: the page says so instead of offering it.
     await page.getByText('A draft that can no longer be activated').waitFor();
     expect(await page.getByRole('button', { name: 'Activate…' }).count()).toBe(0);
@@ -99,9 +103,14 @@ describe('Drift page', () => {
     const audit = await server.db('audit_events').where({ action: 'standardization.activated', target_id: runId });
     expect(audit).toHaveLength(1);
     expect(audit[0].actor_label).toBe(MANAGER);
-    const events = (await server.db('events').where({ type: 'standardization.activated' })).map((e: { data_json: string }) => JSON.parse(e.data_json));
+    const events = (await server.db('events').where({ type: 'standardization.activated' })).map((e: { data_json: string }) =>
+      JSON.parse(e.data_json),
+    );
     expect(events.filter((e: { standardization: { id: string } }) => e.standardization.id === runId)).toEqual([
-      expect.objectContaining({ standardization: expect.objectContaining({ override_reason: reason, flag: 'fail' }), activated_by: MANAGER }),
+      expect.objectContaining({
+        standardization: expect.objectContaining({ override_reason: reason, flag: 'fail' }),
+        activated_by: MANAGER,
+      }),
     ]);
   });
 });

@@ -43,9 +43,16 @@ const D100 = Decimal.clone({ precision: 100 });
 async function reportedAfterCorrection(element: string, measured: string[], decimals: number, shift = 0): Promise<string> {
   const sample = await server.db('samples').where({ sample_code: 'K24-0950-F1' }).first();
   const [setId] = JSON.parse(sample.correction_json).set_ids;
-  const sets = JSON.parse((await server.db('standardizations').where({ id: setId }).first()).corrections_json) as { element: string; slope: string; offset: string }[];
+  const sets = JSON.parse((await server.db('standardizations').where({ id: setId }).first()).corrections_json) as {
+    element: string;
+    slope: string;
+    offset: string;
+  }[];
   const c = sets.find((e) => e.element === element)!;
-  const mean = measured.reduce((sum, x) => sum.plus(new D100(c.slope).times(x).plus(c.offset)), new D100(0)).div(measured.length).times(new D100(10).pow(shift));
+  const mean = measured
+    .reduce((sum, x) => sum.plus(new D100(c.slope).times(x).plus(c.offset)), new D100(0))
+    .div(measured.length)
+    .times(new D100(10).pow(shift));
   const places = decimals - shift;
   if (places >= 0) return mean.toDecimalPlaces(places, Decimal.ROUND_HALF_EVEN).toFixed(places);
   const step = new D100(10).pow(-places);
@@ -110,7 +117,9 @@ describe('uploading results through the console', () => {
     await page.getByRole('link', { name: 'K24-0950-F1' }).click();
     await page.getByRole('heading', { name: 'Sample K24-0950-F1' }).waitFor();
     await page.getByText('must be reviewed and authorised under your laboratory').waitFor();
-    expect(await resultRow('Mn').getByTestId('reported').innerText()).toBe(await reportedAfterCorrection('Mn', ['0.75', '0.76', '0.71'], 2));
+    expect(await resultRow('Mn').getByTestId('reported').innerText()).toBe(
+      await reportedAfterCorrection('Mn', ['0.75', '0.76', '0.71'], 2),
+    );
     expect(await resultRow('Mn').getByTestId('n').innerText()).toBe('3');
     const provenance = await page.getByTestId('sample-provenance').innerText();
     expect(provenance).toContain('k24-0950.csv');
@@ -118,7 +127,9 @@ describe('uploading results through the console', () => {
     expect(provenance).toMatch(/File lines\s+2–4/);
     // The demo has a correction set in force on OES-1: the page names it and links its run.
     const correction = page.getByTestId('sample-correction');
-    expect(await correction.innerText()).toMatch(/Drift correction: slope·x \+ offset applied to each burn's concentration, with std_\w+ — the set in force when each burn was measured\./);
+    expect(await correction.innerText()).toMatch(
+      /Drift correction: slope·x \+ offset applied to each burn's concentration, with std_\w+ — the set in force when each burn was measured\./,
+    );
     // The raw value as received is on hover.
     const burn3 = page.locator('[data-testid="burn-row"][data-burn="3"]');
     expect(await burn3.locator('td', { hasText: '0.71' }).getAttribute('title')).toBe('As received: 0.71 %');
@@ -148,7 +159,10 @@ describe('uploading results through the console', () => {
     await page.getByRole('radio', { name: '%' }).focus();
     await page.keyboard.press('ArrowRight');
     await page.waitForURL(/unit=ppm/);
-    await page.waitForFunction((expected) => document.querySelector('[data-element="Mn"] [data-testid="reported"]')?.textContent === expected, ppm);
+    await page.waitForFunction(
+      (expected) => document.querySelector('[data-element="Mn"] [data-testid="reported"]')?.textContent === expected,
+      ppm,
+    );
   });
 
   it('says readably why the only included burn cannot be excluded', async () => {
@@ -176,7 +190,9 @@ describe('uploading results through the console', () => {
     await dialog.getByLabel('Reason (required)').fill('Checked the burn mark again: fine');
     await dialog.getByRole('button', { name: 'Include burn' }).click();
     await page.locator('[data-testid="burn-row"][data-burn="1"][data-excluded="false"]').waitFor();
-    expect(await page.locator('[data-testid="burn-row"][data-burn="1"]').innerText()).toContain('Included again: “Checked the burn mark again: fine”');
+    expect(await page.locator('[data-testid="burn-row"][data-burn="1"]').innerText()).toContain(
+      'Included again: “Checked the burn mark again: fine”',
+    );
   });
 
   it('recognises the same bytes uploaded again and creates nothing', async () => {
@@ -225,7 +241,9 @@ describe('files the console refuses', () => {
   it('says a file cannot be read at all when its columns make no sense', async () => {
     await page.getByRole('button', { name: 'Choose another file', exact: true }).click();
     await chooseLab();
-    await page.getByLabel('Result file').setInputFiles({ name: 'two-mn.csv', mimeType: 'text/csv', buffer: Buffer.from('Sample,Mn %,Mn %\nK24-0970-F1,0.75,0.76\n') });
+    await page
+      .getByLabel('Result file')
+      .setInputFiles({ name: 'two-mn.csv', mimeType: 'text/csv', buffer: Buffer.from('Sample,Mn %,Mn %\nK24-0970-F1,0.75,0.76\n') });
     await page.getByRole('button', { name: 'Preview' }).click();
     const problem = page.getByTestId('import-problem');
     await problem.waitFor();
@@ -249,7 +267,10 @@ describe('upload progress', () => {
     await nav('Imports').click();
     await page.getByRole('link', { name: 'Upload results' }).first().click();
     await chooseLab();
-    const lines = Array.from({ length: 700 }, (_, i) => `K24-0990-F${Math.floor(i / 3) + 1},K24-0990,SAE 1045,final,${(i % 3) + 1},0.452,0.75,0.012`);
+    const lines = Array.from(
+      { length: 700 },
+      (_, i) => `K24-0990-F${Math.floor(i / 3) + 1},K24-0990,SAE 1045,final,${(i % 3) + 1},0.452,0.75,0.012`,
+    );
     const file = ['Sample,Heat,Grade,Kind,Burn,C %,Mn %,S %', ...lines, ''].join('\n');
     expect(file.length).toBeLessThan(LIMIT);
     await page.getByLabel('Result file').setInputFiles({ name: 'k24-0990.csv', mimeType: 'text/csv', buffer: Buffer.from(file) });

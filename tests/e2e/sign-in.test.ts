@@ -45,7 +45,20 @@ describe('console sign-in', () => {
     await signIn(page, 'admin@kestrelbend.test');
     await page.getByRole('heading', { name: /Welcome, Ines Okafor/ }).waitFor();
     await expect(page.getByTestId('server-version').innerText()).resolves.toMatch(/^\d+\.\d+\.\d+$/);
-    expect(await navLabels(page)).toEqual(['Overview', 'Samples', 'Imports', 'Upload results', 'Drift', 'Quick start', 'API keys', 'API reference', 'Request log', 'Users', 'Audit trail', 'Outbox']);
+    expect(await navLabels(page)).toEqual([
+      'Overview',
+      'Samples',
+      'Imports',
+      'Upload results',
+      'Drift',
+      'Quick start',
+      'API keys',
+      'API reference',
+      'Request log',
+      'Users',
+      'Audit trail',
+      'Outbox',
+    ]);
 
     await page.getByRole('link', { name: 'Users' }).click();
     await page.getByRole('cell', { name: 'qa.viewer@kestrelbend.test' }).waitFor();

@@ -52,8 +52,14 @@ describe('a 20,000-burn file through the console', () => {
     expect(await countFigure('Lines rejected')).toBe('0');
     await page.getByTestId('sample-row').first().waitFor();
 
-    const stored = await server.db('burns').join('samples', 'samples.id', 'burns.sample_id').whereNotNull('samples.import_id').count({ n: '*' });
+    const stored = await server
+      .db('burns')
+      .join('samples', 'samples.id', 'burns.sample_id')
+      .whereNotNull('samples.import_id')
+      .count({ n: '*' });
     expect(Number(stored[0].n)).toBe(BURNS);
-    console.log(`20,000-burn console upload (${(Buffer.byteLength(text) / 1024 / 1024).toFixed(1)} MiB): preview ${seconds(previewMs)}, import ${seconds(importMs)} (upload, store, report shown)`);
+    console.log(
+      `20,000-burn console upload (${(Buffer.byteLength(text) / 1024 / 1024).toFixed(1)} MiB): preview ${seconds(previewMs)}, import ${seconds(importMs)} (upload, store, report shown)`,
+    );
   });
 });

@@ -12,7 +12,16 @@ export async function launchBrowser(): Promise<{ context: BrowserContext; close(
   const context = await chromium.launchPersistentContext(profile, {
     executablePath: CHROMIUM,
     viewport: { width: 1280, height: 800 },
-    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+    args: [
+      '--headless',
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+    ],
   });
   return {
     context,

@@ -15,7 +15,8 @@ import { seedDemoIfEmpty } from '../../server/seed/demo.ts';
 
 export async function startLiveServer(options: { console?: boolean; config?: Partial<Config> } = {}) {
   const withConsole = options.console ?? true;
-  if (withConsole && !existsSync(join(DEFAULT_CONSOLE_DIR, 'index.html'))) throw new Error('dist/ is missing: run `npm run build` first (npm test does)');
+  if (withConsole && !existsSync(join(DEFAULT_CONSOLE_DIR, 'index.html')))
+    throw new Error('dist/ is missing: run `npm run build` first (npm test does)');
   const dir = mkdtempSync(join(tmpdir(), 'meltwire-live-'));
   const smtp = await startFakeSmtp();
   const config = testConfig({ databaseFile: join(dir, 'live.db'), smtpUrl: smtp.url, ...options.config });
@@ -24,7 +25,14 @@ export async function startLiveServer(options: { console?: boolean; config?: Par
   await seedDemoIfEmpty(db);
   const logger = createLogger('silent');
   // Responses are checked against the OpenAPI document here too (see tests/helpers/test-app.ts).
-  const app = createApp({ db, config, logger, outbox: smtp.outbox, validateResponses: true, ...(withConsole ? {} : { consoleDir: '/nonexistent' }) });
+  const app = createApp({
+    db,
+    config,
+    logger,
+    outbox: smtp.outbox,
+    validateResponses: true,
+    ...(withConsole ? {} : { consoleDir: '/nonexistent' }),
+  });
   const running = await listen(app, db, logger, 0, () => smtp.close());
   return {
     url: running.url,

@@ -39,7 +39,8 @@ export interface TestApp {
 export async function createTestApp(overrides: Partial<Config> = {}, options: { routes?: AnyRoute[] } = {}): Promise<TestApp> {
   const smtp = await startFakeSmtp();
   const config = testConfig({ smtpUrl: smtp.url, ...overrides });
-  const pg = process.env.TEST_DATABASE_URL && !overrides.databaseFile ? await createPostgresSchema(process.env.TEST_DATABASE_URL) : undefined;
+  const pg =
+    process.env.TEST_DATABASE_URL && !overrides.databaseFile ? await createPostgresSchema(process.env.TEST_DATABASE_URL) : undefined;
   const db = pg ? createDb({ ...config, databaseUrl: pg.url }, { schema: pg.schema }) : createDb(config);
   await migrateLatest(db);
   const app = createApp({ db, config, outbox: smtp.outbox, consoleDir: '/nonexistent', validateResponses: true, routes: options.routes });
@@ -107,14 +108,26 @@ export async function signedInAgent(t: TestApp, role: Role): Promise<{ agent: re
 }
 
 /** Issues a key through the service, as an admin would, and returns its secret. */
-export async function issueKey(t: TestApp, scopes: Scope[], options: { expires_at?: string; owner?: UserRow } = {}): Promise<{ id: string; secret: string }> {
+export async function issueKey(
+  t: TestApp,
+  scopes: Scope[],
+  options: { expires_at?: string; owner?: UserRow } = {},
+): Promise<{ id: string; secret: string }> {
   const owner = options.owner ?? (await createUser(t.db, 'admin'));
-  const key = await createApiKey(t.ctx, sessionAuthContext(owner, 'test'), { name: `key ${++counter}`, scopes, expires_at: options.expires_at });
+  const key = await createApiKey(t.ctx, sessionAuthContext(owner, 'test'), {
+    name: `key ${++counter}`,
+    scopes,
+    expires_at: options.expires_at,
+  });
   return { id: key.id, secret: key.secret };
 }
 
 /** Waits until the in-process SMTP server has captured a message matching the predicate. */
-export async function waitForMail(smtp: FakeSmtp, predicate: (m: { to: string[]; subject: string; text: string }) => boolean, timeoutMs = 5000) {
+export async function waitForMail(
+  smtp: FakeSmtp,
+  predicate: (m: { to: string[]; subject: string; text: string }) => boolean,
+  timeoutMs = 5000,
+) {
   const deadline = Date.now() + timeoutMs;
   for (;;) {
     const found = smtp.outbox.messages().find(predicate);
@@ -135,7 +148,15 @@ export function expectProblem(res: request.Response, status: number): void {
   }
 }
 
-export function problemBody(res: request.Response): { type: string; title: string; status: number; detail?: string; request_id?: string; errors?: { location: string; message: string }[]; [extension: string]: unknown } {
+export function problemBody(res: request.Response): {
+  type: string;
+  title: string;
+  status: number;
+  detail?: string;
+  request_id?: string;
+  errors?: { location: string; message: string }[];
+  [extension: string]: unknown;
+} {
   return JSON.parse(res.text);
 }
 

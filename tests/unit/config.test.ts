@@ -4,13 +4,22 @@ import { ConfigError, loadConfig } from '../../server/config.ts';
 describe('loadConfig', () => {
   it('applies documented defaults', () => {
     const config = loadConfig({});
-    expect(config).toMatchObject({ env: 'development', port: 3000, databaseFile: './data/meltwire.db', publicUrl: 'http://localhost:3000', seedDemo: true });
+    expect(config).toMatchObject({
+      env: 'development',
+      port: 3000,
+      databaseFile: './data/meltwire.db',
+      publicUrl: 'http://localhost:3000',
+      seedDemo: true,
+    });
     expect(config.sessionSecret.length).toBeGreaterThanOrEqual(32);
     expect(config).toMatchObject({ requestLogBodyLimit: 16384, requestLogRetentionDays: 30 });
   });
 
   it('reads the request log settings and refuses nonsense', () => {
-    expect(loadConfig({ REQUEST_LOG_BODY_LIMIT: '4096', REQUEST_LOG_RETENTION_DAYS: '7' })).toMatchObject({ requestLogBodyLimit: 4096, requestLogRetentionDays: 7 });
+    expect(loadConfig({ REQUEST_LOG_BODY_LIMIT: '4096', REQUEST_LOG_RETENTION_DAYS: '7' })).toMatchObject({
+      requestLogBodyLimit: 4096,
+      requestLogRetentionDays: 7,
+    });
     expect(() => loadConfig({ REQUEST_LOG_BODY_LIMIT: 'lots' })).toThrow(/REQUEST_LOG_BODY_LIMIT/);
     expect(() => loadConfig({ REQUEST_LOG_RETENTION_DAYS: '0' })).toThrow(/REQUEST_LOG_RETENTION_DAYS/);
   });

@@ -16,12 +16,16 @@ describe('API key format', () => {
   it('detects any single-character change through the checksum (property)', () => {
     const alphabet = '0123456789ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz';
     fc.assert(
-      fc.property(fc.integer({ min: KEY_PREFIX.length, max: KEY_PREFIX.length + 37 }), fc.integer({ min: 1, max: 61 }), (position, shift) => {
-        const key = generateKeySecret();
-        const changed = alphabet[(alphabet.indexOf(key[position]) + shift) % 62];
-        const mutated = key.slice(0, position) + changed + key.slice(position + 1);
-        expect(isWellFormedKey(mutated)).toBe(false);
-      }),
+      fc.property(
+        fc.integer({ min: KEY_PREFIX.length, max: KEY_PREFIX.length + 37 }),
+        fc.integer({ min: 1, max: 61 }),
+        (position, shift) => {
+          const key = generateKeySecret();
+          const changed = alphabet[(alphabet.indexOf(key[position]) + shift) % 62];
+          const mutated = key.slice(0, position) + changed + key.slice(position + 1);
+          expect(isWellFormedKey(mutated)).toBe(false);
+        },
+      ),
       { numRuns: 300 },
     );
   });

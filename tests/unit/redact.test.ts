@@ -23,7 +23,10 @@ describe('redaction for the request log', () => {
   });
 
   it('reports nothing removed when there was nothing to remove, and keeps public key prefixes', () => {
-    expect(redactJson({ name: 'MES', prefix: 'mw_live_7Qm2xP', token_count: null })).toEqual({ value: { name: 'MES', prefix: 'mw_live_7Qm2xP', token_count: null }, redacted: false });
+    expect(redactJson({ name: 'MES', prefix: 'mw_live_7Qm2xP', token_count: null })).toEqual({
+      value: { name: 'MES', prefix: 'mw_live_7Qm2xP', token_count: null },
+      redacted: false,
+    });
   });
 
   it('redacts secret pairs in JSON that was cut and cannot be parsed', () => {
@@ -33,7 +36,16 @@ describe('redaction for the request log', () => {
   });
 
   it('keeps the Authorization scheme, blanks cookies and secret-named headers', () => {
-    expect(redactHeaders({ Authorization: `Bearer ${key}`, cookie: 'mw_session=abc', 'set-cookie': ['a=1', 'b=2'], 'x-api-key': 'x', 'x-request-id': 'r1', 'content-length': 12 })).toEqual({
+    expect(
+      redactHeaders({
+        Authorization: `Bearer ${key}`,
+        cookie: 'mw_session=abc',
+        'set-cookie': ['a=1', 'b=2'],
+        'x-api-key': 'x',
+        'x-request-id': 'r1',
+        'content-length': 12,
+      }),
+    ).toEqual({
       authorization: 'Bearer [redacted]',
       cookie: '[redacted]',
       'set-cookie': '[redacted]',

@@ -21,7 +21,8 @@ export async function authenticateApiKey(ctx: AppContext, secret: string): Promi
   if (row.revoked_at) throw new UnauthorizedProblem('This API key has been revoked.');
   if (row.expires_at && row.expires_at <= now.toISOString()) throw new UnauthorizedProblem('This API key has expired.');
   const owner = await findUserById(ctx.db, row.created_by);
-  if (!owner || owner.status !== 'active') throw new UnauthorizedProblem('The user who issued this API key is disabled; its keys are suspended.');
+  if (!owner || owner.status !== 'active')
+    throw new UnauthorizedProblem('The user who issued this API key is disabled; its keys are suspended.');
   if (!row.last_used_at || now.getTime() - Date.parse(row.last_used_at) > LAST_USED_RESOLUTION_MS) {
     await updateApiKey(ctx.db, row.id, { last_used_at: now.toISOString() });
   }

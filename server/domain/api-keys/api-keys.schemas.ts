@@ -36,7 +36,10 @@ export const ApiKeyListQuerySchema = paginationQuery.extend({
 export const CreateApiKeyRequestSchema = z
   .object({
     name: z.string().trim().min(1).max(200).openapi({ example: 'MES melt shop' }),
-    scopes: z.array(ScopeSchema).min(1).refine((s) => new Set(s).size === s.length, 'list each scope once'),
+    scopes: z
+      .array(ScopeSchema)
+      .min(1)
+      .refine((s) => new Set(s).size === s.length, 'list each scope once'),
     expires_at: z.iso
       .datetime({ offset: true })
       .optional()

@@ -60,12 +60,24 @@ function newKeyRow(input: NewKeyInput, createdBy: string, now: string): { row: A
   };
 }
 
-export async function createApiKey(ctx: AppContext, auth: AuthContext, input: NewKeyInput, requestId?: string): Promise<ApiKey & { secret: string }> {
+export async function createApiKey(
+  ctx: AppContext,
+  auth: AuthContext,
+  input: NewKeyInput,
+  requestId?: string,
+): Promise<ApiKey & { secret: string }> {
   assertGrantable(auth, input.scopes);
   const { row, secret } = newKeyRow(input, auth.userId, nowIso());
   await ctx.db.transaction(async (trx) => {
     await insertApiKey(trx, row);
-    await recordAudit(trx, { actor: actorOf(auth), requestId, action: 'api_key.created', targetType: 'api_key', targetId: row.id, after: toApiKey(row) });
+    await recordAudit(trx, {
+      actor: actorOf(auth),
+      requestId,
+      action: 'api_key.created',
+      targetType: 'api_key',
+      targetId: row.id,
+      after: toApiKey(row),
+    });
   });
   return { ...toApiKey({ ...row, created_by_email: auth.email }), secret };
 }
@@ -80,18 +92,37 @@ export async function revokeApiKey(ctx: AppContext, auth: AuthContext, id: strin
     if (row.revoked_at) return;
     const revoked_at = nowIso();
     await updateApiKey(trx, id, { revoked_at });
-    await recordAudit(trx, { actor: actorOf(auth), requestId, action: 'api_key.revoked', targetType: 'api_key', targetId: id, before: toApiKey(row), after: toApiKey({ ...row, revoked_at }) });
+    await recordAudit(trx, {
+      actor: actorOf(auth),
+      requestId,
+      action: 'api_key.revoked',
+      targetType: 'api_key',
+      targetId: id,
+      before: toApiKey(row),
+      after: toApiKey({ ...row, revoked_at }),
+    });
   });
 }
 
-export async function rollApiKey(ctx: AppContext, auth: AuthContext, id: string, overlapMinutes: number, requestId?: string): Promise<ApiKey & { secret: string }> {
+export async function rollApiKey(
+  ctx: AppContext,
+  auth: AuthContext,
+  id: string,
+  overlapMinutes: number,
+  requestId?: string,
+): Promise<ApiKey & { secret: string }> {
   const old = await loadManageable(ctx.db, auth, id);
   const current = toApiKey(old);
   if (current.status !== 'active') throw new ConflictProblem(`Only an active key can be rolled; this one is ${current.status}.`);
   assertGrantable(auth, current.scopes);
   const now = nowIso();
   const { row, secret } = newKeyRow(
-    { name: old.name, scopes: current.scopes, instrument_ids: current.instrument_ids ?? undefined, expires_at: old.expires_at ?? undefined },
+    {
+      name: old.name,
+      scopes: current.scopes,
+      instrument_ids: current.instrument_ids ?? undefined,
+      expires_at: old.expires_at ?? undefined,
+    },
     auth.userId,
     now,
   );
@@ -100,7 +131,15 @@ export async function rollApiKey(ctx: AppContext, auth: AuthContext, id: string,
   await ctx.db.transaction(async (trx) => {
     await insertApiKey(trx, row);
     await updateApiKey(trx, id, { expires_at: oldExpiry, replaced_by: row.id });
-    await recordAudit(trx, { actor: actorOf(auth), requestId, action: 'api_key.rolled', targetType: 'api_key', targetId: id, before: current, after: { ...current, expires_at: oldExpiry, replaced_by: row.id } });
+    await recordAudit(trx, {
+      actor: actorOf(auth),
+      requestId,
+      action: 'api_key.rolled',
+      targetType: 'api_key',
+      targetId: id,
+      before: current,
+      after: { ...current, expires_at: oldExpiry, replaced_by: row.id },
+    });
   });
   return { ...toApiKey({ ...row, created_by_email: auth.email }), secret };
 }

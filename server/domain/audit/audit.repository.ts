@@ -71,7 +71,9 @@ export async function listAudit(db: Knex, filters: AuditFilters) {
   if (filters.until) query.where('occurred_at', '<', filters.until);
   if (filters.after) {
     const { occurred_at, id } = filters.after;
-    query.where((w) => w.where('occurred_at', '<', occurred_at).orWhere((x) => x.where('occurred_at', occurred_at).andWhere('id', '<', id)));
+    query.where((w) =>
+      w.where('occurred_at', '<', occurred_at).orWhere((x) => x.where('occurred_at', occurred_at).andWhere('id', '<', id)),
+    );
   }
   const rows = await query.limit(filters.limit + 1);
   return rows.map((row) => ({

@@ -58,12 +58,26 @@ export async function logout(ctx: AppContext, auth: AuthContext, requestId?: str
   if (!auth.sessionId) return;
   await ctx.db.transaction(async (trx) => {
     await trx<SessionRow>('sessions').where({ id: auth.sessionId }).whereNull('revoked_at').update({ revoked_at: nowIso() });
-    await recordAudit(trx, { actor: { type: 'user', id: auth.userId, label: auth.email }, requestId, action: 'session.signed_out', targetType: 'session', targetId: auth.sessionId });
+    await recordAudit(trx, {
+      actor: { type: 'user', id: auth.userId, label: auth.email },
+      requestId,
+      action: 'session.signed_out',
+      targetType: 'session',
+      targetId: auth.sessionId,
+    });
   });
 }
 
 export function sessionAuthContext(user: Pick<UserRow, 'id' | 'email' | 'role'>, sessionId: string): AuthContext {
-  return { kind: 'session', userId: user.id, email: user.email, role: user.role, scopes: ROLE_SCOPES[user.role], sessionId, label: user.email };
+  return {
+    kind: 'session',
+    userId: user.id,
+    email: user.email,
+    role: user.role,
+    scopes: ROLE_SCOPES[user.role],
+    sessionId,
+    label: user.email,
+  };
 }
 
 /** The caller behind a session id, or undefined when the session or its user is no longer valid. */

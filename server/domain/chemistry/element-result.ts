@@ -109,7 +109,15 @@ export function computeElementResult(input: ElementResultInput): ElementResult {
   }
 
   const summary = summarise(numeric);
-  const result: ElementResult = { element, ...summary, reported: null, qualifier: null, flags: [], n_qualified: qualified, repeatability: null };
+  const result: ElementResult = {
+    element,
+    ...summary,
+    reported: null,
+    qualifier: null,
+    flags: [],
+    n_qualified: qualified,
+    repeatability: null,
+  };
   if (summary.n + qualified === 0) return finish(result, new Set(['not_measured']));
   if (summary.n === 1) flags.add('single_burn');
   if (qualified > 0) flags.add(summary.n === 0 ? 'all_burns_qualified' : 'mixed_qualified_burns');

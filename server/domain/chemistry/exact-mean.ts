@@ -74,7 +74,8 @@ function parsePlain(value: string, integers: number[], decimals: number[], i: nu
   let position = 0;
   let negative = false;
   const first = value.charCodeAt(0);
-  if (first === 45 || first === 43) { // "-" or "+"
+  if (first === 45 || first === 43) {
+    // "-" or "+"
     negative = first === 45;
     position = 1;
   }
@@ -83,7 +84,8 @@ function parsePlain(value: string, integers: number[], decimals: number[], i: nu
   let afterPoint = -1;
   for (; position < value.length; position++) {
     const code = value.charCodeAt(position);
-    if (code === 46) { // "."
+    if (code === 46) {
+      // "."
       if (afterPoint !== -1) return false;
       afterPoint = 0;
     } else if (code >= 48 && code <= 57) {

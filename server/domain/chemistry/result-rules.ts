@@ -14,11 +14,14 @@ export const RESULT_FLAGS = {
   above_working_range: "The mean (or its lower bound) is above the upper end of the method's working range.",
   burns_outside_working_range: 'At least one burn lies outside the working range although the result does not.',
   all_burns_qualified: 'Every burn was reported as "<", ">" or n.d.: the result is a bound, there is no mean.',
-  mixed_qualified_burns: 'Numeric burns and "<", ">" or n.d. burns together: the result is a bound; mean, SD and n describe the numeric burns only.',
+  mixed_qualified_burns:
+    'Numeric burns and "<", ">" or n.d. burns together: the result is a bound; mean, SD and n describe the numeric burns only.',
   not_detected: 'At least one burn was reported as not detected (counted as "<" the detection limit).',
   conflicting_qualified_burns: 'Burns say both "<" and ">": no bound holds, nothing is reported.',
-  limit_missing: 'A burn is qualified without a value (n.d., or "<"/">" alone) and the method sets no limit to bound it: nothing is reported.',
-  negative_after_correction: 'At least one burn is below 0 after drift correction. Corrected values are not clamped to 0 (that would bias the mean and break its linearity); a mean below the detection limit is reported as "<" the limit as usual.',
+  limit_missing:
+    'A burn is qualified without a value (n.d., or "<"/">" alone) and the method sets no limit to bound it: nothing is reported.',
+  negative_after_correction:
+    'At least one burn is below 0 after drift correction. Corrected values are not clamped to 0 (that would bias the mean and break its linearity); a mean below the detection limit is reported as "<" the limit as usual.',
   not_in_method: 'The method does not list this element; it is averaged anyway, with 4 reporting decimals and no limits.',
 } as const;
 
@@ -33,7 +36,8 @@ export interface ResultRule {
 export const RESULT_RULE_LIST: readonly ResultRule[] = [
   {
     rule: 'The mean, SD (n − 1), RSD % = 100·SD/|mean|, n, min and max are computed over the included burns that carry a numeric value. SD and RSD are null for one burn, RSD also when the mean is 0.',
-    basis: 'Averaging two or three burns: common practice, no source. SD and coefficient of variation as defined in ISO 3534-1 (from memory).',
+    basis:
+      'Averaging two or three burns: common practice, no source. SD and coefficient of variation as defined in ISO 3534-1 (from memory).',
   },
   {
     rule: 'reported = the mean rounded half to even, in one step from the full-precision mean, to the method\'s decimals for the element, written with trailing zeros ("0.70").',
@@ -45,11 +49,13 @@ export const RESULT_RULE_LIST: readonly ResultRule[] = [
   },
   {
     rule: 'A mean below the detection limit or below the lower end of the working range is reported as "<" the lowest reportable value, i.e. the larger of those two limits that the method sets. A mean above the upper end of the working range is reported as ">" that end. Limits are compared with the full-precision mean; a mean equal to a limit is inside.',
-    basis: 'Qualifiers "<"/">" for results outside what the method can quantify: product requirement; reporting "< limit" is common practice, no source.',
+    basis:
+      'Qualifiers "<"/">" for results outside what the method can quantify: product requirement; reporting "< limit" is common practice, no source.',
   },
   {
     rule: 'Burns reported as "<" (n.d. counts as "<" the detection limit): the result is "<" an upper bound — the mean of all burns with each "<" burn set to its limit — but never less than the lowest reportable value. Every burn "<" gives a "<" result (flag all_burns_qualified); "<" and numeric burns together also give a "<" result (flag mixed_qualified_burns).',
-    basis: 'Upper-bound substitution for left-censored data (WHO GEMS/Food 1995; EFSA 2010 — from memory); applying it to burns is our choice, no source.',
+    basis:
+      'Upper-bound substitution for left-censored data (WHO GEMS/Food 1995; EFSA 2010 — from memory); applying it to burns is our choice, no source.',
   },
   {
     rule: 'Burns reported as ">": the result is ">" a lower bound — the mean with each ">" burn set to its limit — capped at the upper end of the working range. Every burn ">" gives a ">" result.',
@@ -69,11 +75,10 @@ export const RESULT_RULE_LIST: readonly ResultRule[] = [
   },
   {
     rule: 'With at least two numeric burns and a repeatability SD σr set for the element, the range of the burns is compared with the critical range f(n)·σr (f(2) = 2.77, f(3) = 3.31 …, up to n = 20); a larger range sets repeatability_exceeded. The result is still the mean: the analyst excludes a burn or sparks again.',
-    basis: 'ISO 5725-6:1994 §5.2 and Table 1 (critical range factors). The standard itself would take further results and report the median; flagging instead is our choice.',
+    basis:
+      'ISO 5725-6:1994 §5.2 and Table 1 (critical range factors). The standard itself would take further results and report the median; flagging instead is our choice.',
   },
 ];
 
 /** The rules as one text for the API documentation. */
-export const RESULT_RULES: string = RESULT_RULE_LIST.map(
-  (item, index) => `${index + 1}. ${item.rule} (Basis: ${item.basis})`,
-).join('\n');
+export const RESULT_RULES: string = RESULT_RULE_LIST.map((item, index) => `${index + 1}. ${item.rule} (Basis: ${item.basis})`).join('\n');

@@ -33,9 +33,10 @@ export function convertResult(result: ElementResult, unit: OutputUnit, decimalsI
   const scale = (value: string | null) => (value === null ? null : fromPercent(value, unit));
   let reported: string | null = null;
   if (result.reported !== null) {
-    reported = result.qualifier === null && result.mean !== null
-      ? roundHalfEven(fromPercent(result.mean, unit), decimals)
-      : new Decimal(fromPercent(result.reported, unit)).toFixed(Math.max(0, decimals));
+    reported =
+      result.qualifier === null && result.mean !== null
+        ? roundHalfEven(fromPercent(result.mean, unit), decimals)
+        : new Decimal(fromPercent(result.reported, unit)).toFixed(Math.max(0, decimals));
   }
   const repeatability = result.repeatability && {
     ...result.repeatability,

@@ -16,7 +16,12 @@ import { recordAudit } from '../audit/audit.repository.ts';
 import { recordEvent } from '../events/events.repository.ts';
 import { assertInstrumentAllowed } from '../instruments/instruments.service.ts';
 import type { ElementCorrection, StandardizationRow } from './standardizations.repository.ts';
-import { findSetInForce, findStandardization, latestActivatedMeasuredAt, updateStandardizationActivation } from './standardizations.repository.ts';
+import {
+  findSetInForce,
+  findStandardization,
+  latestActivatedMeasuredAt,
+  updateStandardizationActivation,
+} from './standardizations.repository.ts';
 import { getStandardization } from './standardizations.service.ts';
 
 export interface ActivationInput {
@@ -27,7 +32,8 @@ export interface ActivationInput {
 export async function activateStandardization(ctx: AppContext, auth: AuthContext, id: string, input: ActivationInput, requestId?: string) {
   await ctx.db.transaction(async (trx) => {
     const row = await findStandardization(trx, id);
-    if (!row || (auth.instrumentIds && !auth.instrumentIds.includes(row.instrument_id))) throw new NotFoundProblem(`No standardization ${id}.`);
+    if (!row || (auth.instrumentIds && !auth.instrumentIds.includes(row.instrument_id)))
+      throw new NotFoundProblem(`No standardization ${id}.`);
     assertInstrumentAllowed(auth, row.instrument_id);
     await applyActivation(trx, row, input, { actor: actorOf(auth), now: nowIso(), requestId });
   });
@@ -35,13 +41,20 @@ export async function activateStandardization(ctx: AppContext, auth: AuthContext
 }
 
 /** The activation rules and records, inside the caller's transaction (also used by the demo seed). */
-export async function applyActivation(trx: Knex.Transaction, row: StandardizationRow, input: ActivationInput, context: { actor: Actor; now: string; requestId?: string }): Promise<void> {
+export async function applyActivation(
+  trx: Knex.Transaction,
+  row: StandardizationRow,
+  input: ActivationInput,
+  context: { actor: Actor; now: string; requestId?: string },
+): Promise<void> {
   const { actor, now, requestId } = context;
   const { id } = row;
   if (row.status !== 'draft') throw new ConflictProblem(`Standardization ${id} was already activated on ${row.activated_at}.`);
   const latest = await latestActivatedMeasuredAt(trx, row.instrument_id, row.method_id);
   if (latest && latest > row.measured_at) {
-    throw new ConflictProblem(`A standardization measured later (${latest}) is already activated for this instrument and method; activating this older one would roll the correction back. Run a new standardization instead.`);
+    throw new ConflictProblem(
+      `A standardization measured later (${latest}) is already activated for this instrument and method; activating this older one would roll the correction back. Run a new standardization instead.`,
+    );
   }
   const corrections = JSON.parse(row.corrections_json) as ElementCorrection[];
   const failing = corrections.filter((c) => c.flag === 'fail');
@@ -53,14 +66,30 @@ export async function applyActivation(trx: Knex.Transaction, row: Standardizatio
   }
   const effectiveFrom = input.effective_from ? new Date(input.effective_from).toISOString() : now;
   if (effectiveFrom < now) {
-    throw new UnprocessableProblem('effective_from is in the past. Activation never changes stored results: recompute those samples explicitly instead.', [
-      { location: 'body.effective_from', message: `must be ${now} or later`, code: 'backdated' },
-    ]);
+    throw new UnprocessableProblem(
+      'effective_from is in the past. Activation never changes stored results: recompute those samples explicitly instead.',
+      [{ location: 'body.effective_from', message: `must be ${now} or later`, code: 'backdated' }],
+    );
   }
   const previous = await findSetInForce(trx, row.instrument_id, row.method_id, effectiveFrom);
-  const changes = { status: 'activated' as const, activated_at: now, activated_by_label: actor.label, effective_from: effectiveFrom, override_reason: input.override_reason ?? null };
+  const changes = {
+    status: 'activated' as const,
+    activated_at: now,
+    activated_by_label: actor.label,
+    effective_from: effectiveFrom,
+    override_reason: input.override_reason ?? null,
+  };
   await updateStandardizationActivation(trx, id, changes);
-  const summary = { id, instrument_id: row.instrument_id, method_id: row.method_id, mode: row.mode, flag: row.flag, effective_from: effectiveFrom, override_reason: changes.override_reason, replaces: previous?.id ?? null };
+  const summary = {
+    id,
+    instrument_id: row.instrument_id,
+    method_id: row.method_id,
+    mode: row.mode,
+    flag: row.flag,
+    effective_from: effectiveFrom,
+    override_reason: changes.override_reason,
+    replaces: previous?.id ?? null,
+  };
   await recordAudit(trx, {
     actor,
     requestId,

@@ -70,9 +70,13 @@ function levelOf(m: RunMeasurement, summary: StoredMeasurement, element: string)
 function missingReasons(element: string, levels: ElementLevel[]): string[] {
   const reasons = levels.flatMap((level) => [
     ...(level.nominal === null ? [`${level.code} gives no nominal value for ${element}.`] : []),
-    ...(level.measured === null ? [`${level.code} has no numeric measurement of ${element} (not measured, or only "<", ">" or n.d.).`] : []),
+    ...(level.measured === null
+      ? [`${level.code} has no numeric measurement of ${element} (not measured, or only "<", ">" or n.d.).`]
+      : []),
   ]);
-  return reasons.length ? [...reasons, `${element} is therefore not corrected by this set: its results stay uncorrected while the set is in force.`] : [];
+  return reasons.length
+    ? [...reasons, `${element} is therefore not corrected by this set: its results stay uncorrected while the set is in force.`]
+    : [];
 }
 
 function compute(mode: CorrectionMode, levels: Level[], base: Correction | null): Correction {
@@ -130,7 +134,12 @@ export function computeRun(input: RunInput): RunOutput {
     if (settings.repeatability_sd) {
       measurements.forEach((m) => {
         const values = numericValues(m.burns, element);
-        const flag = agreementFlag(repeatabilityCheck(values, settings.repeatability_sd as string), values.length, settings.repeatability_sd as string, m.reference.code);
+        const flag = agreementFlag(
+          repeatabilityCheck(values, settings.repeatability_sd as string),
+          values.length,
+          settings.repeatability_sd as string,
+          m.reference.code,
+        );
         if (flag) found.push(flag);
       });
     }

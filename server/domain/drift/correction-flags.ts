@@ -33,7 +33,9 @@ export function worstFlag(flags: readonly CorrectionFlag[]): CorrectionFlag {
 
 /** A short human form of a long decimal for the reasons (4 decimals, half-even). */
 export function short(value: string): string {
-  return roundHalfEven(value, 4).replace(/(\.\d*?)0+$/, '$1').replace(/\.$/, '');
+  return roundHalfEven(value, 4)
+    .replace(/(\.\d*?)0+$/, '$1')
+    .replace(/\.$/, '');
 }
 
 export interface FlagResult {
@@ -42,11 +44,20 @@ export interface FlagResult {
 }
 
 /** Rules 1 and 2 for the correction of one element. */
-export function limitFlags(mode: CorrectionMode, correction: Correction, limits: DriftLimits, methodCode: string, reference?: Level): FlagResult[] {
+export function limitFlags(
+  mode: CorrectionMode,
+  correction: Correction,
+  limits: DriftLimits,
+  methodCode: string,
+  reference?: Level,
+): FlagResult[] {
   const found: FlagResult[] = [];
   const slope = new Exact(correction.slope);
   if (slope.isNegative()) {
-    found.push({ flag: 'fail', reason: `Slope ${short(correction.slope)} is negative: the reference meant to be high measured below the low one. Check that the references were not swapped.` });
+    found.push({
+      flag: 'fail',
+      reason: `Slope ${short(correction.slope)} is negative: the reference meant to be high measured below the low one. Check that the references were not swapped.`,
+    });
   }
   let distance: string;
   let what: string;
@@ -60,9 +71,15 @@ export function limitFlags(mode: CorrectionMode, correction: Correction, limits:
     what = `Slope ${short(correction.slope)} is ${short(distance)} away from 1`;
   }
   if (isAbove(distance, limits.fail)) {
-    found.push({ flag: 'fail', reason: `${what}: more than the fail limit ${limits.fail} of method ${methodCode}. Activating it needs an override reason.` });
+    found.push({
+      flag: 'fail',
+      reason: `${what}: more than the fail limit ${limits.fail} of method ${methodCode}. Activating it needs an override reason.`,
+    });
   } else if (isAbove(distance, limits.warn)) {
-    found.push({ flag: 'warn', reason: `${what}: more than the warn limit ${limits.warn} of method ${methodCode} (fail above ${limits.fail}).` });
+    found.push({
+      flag: 'warn',
+      reason: `${what}: more than the warn limit ${limits.warn} of method ${methodCode} (fail above ${limits.fail}).`,
+    });
   }
   return found;
 }

@@ -64,9 +64,15 @@ function roundOffset(value: Decimal): string {
 
 export function twoPoint(high: Level, low: Level): Correction {
   const span = new Exact(high.measured).minus(low.measured);
-  if (span.isZero()) throw new CorrectionMathError(`the high and low references measured the same value (H = L = ${low.measured} %), so no slope can be computed`);
+  if (span.isZero())
+    throw new CorrectionMathError(
+      `the high and low references measured the same value (H = L = ${low.measured} %), so no slope can be computed`,
+    );
   const nominalSpan = new Exact(high.nominal).minus(low.nominal);
-  if (nominalSpan.isZero()) throw new CorrectionMathError(`the high and low references have the same nominal value (${low.nominal} %): a two-point correction needs two different levels`);
+  if (nominalSpan.isZero())
+    throw new CorrectionMathError(
+      `the high and low references have the same nominal value (${low.nominal} %): a two-point correction needs two different levels`,
+    );
   const slope = roundSlope(new Work(nominalSpan).div(new Work(span)));
   const offset = roundOffset(new Exact(low.nominal).minus(new Exact(slope).times(low.measured)));
   return { slope, offset };
@@ -74,7 +80,8 @@ export function twoPoint(high: Level, low: Level): Correction {
 
 export function onePointFactor(reference: Level): Correction {
   if (new Exact(reference.measured).isZero()) throw new CorrectionMathError('the reference measured 0, so no factor can be computed');
-  if (new Exact(reference.nominal).isZero()) throw new CorrectionMathError('the nominal value is 0, which would multiply every result by 0');
+  if (new Exact(reference.nominal).isZero())
+    throw new CorrectionMathError('the nominal value is 0, which would multiply every result by 0');
   return { slope: roundSlope(new Work(reference.nominal).div(reference.measured)), offset: '0' };
 }
 
@@ -87,8 +94,10 @@ export function typeCorrection(reference: Level, base: Correction | null): Corre
   const baseSlope = base?.slope ?? '1';
   const baseOffset = base?.offset ?? '0';
   const measured = new Exact(baseSlope).times(reference.measured).plus(baseOffset);
-  if (measured.isZero()) throw new CorrectionMathError('the reference, corrected with the set in force, measures 0, so no factor can be computed');
-  if (new Exact(reference.nominal).isZero()) throw new CorrectionMathError('the nominal value is 0, which would multiply every result by 0');
+  if (measured.isZero())
+    throw new CorrectionMathError('the reference, corrected with the set in force, measures 0, so no factor can be computed');
+  if (new Exact(reference.nominal).isZero())
+    throw new CorrectionMathError('the nominal value is 0, which would multiply every result by 0');
   const factor = new Work(reference.nominal).div(new Work(measured));
   return { slope: roundSlope(factor.times(baseSlope)), offset: roundOffset(factor.times(baseOffset)) };
 }

@@ -65,7 +65,9 @@ export interface CorrectedBurn {
 }
 
 export function correctBurn(values: Record<string, StoredCell>, set: CorrectionSet | null): CorrectedBurn {
-  return set ? { correction_set_id: set.id, corrected: correctCells(values, set.corrections) } : { correction_set_id: null, corrected: null };
+  return set
+    ? { correction_set_id: set.id, corrected: correctCells(values, set.corrections) }
+    : { correction_set_id: null, corrected: null };
 }
 
 /** How a sample's correction was chosen, stored with the sample (samples.correction_json). */
@@ -83,7 +85,14 @@ export interface SampleCorrection {
 export function ingestCorrection(burns: readonly CorrectedBurn[]): SampleCorrection | null {
   const ids = distinctSetIds(burns);
   if (ids.length === 0) return null;
-  return { applied_to: 'concentration', set_ids: ids, selection: 'measurement_time', reason: null, recomputed_by: null, recomputed_at: null };
+  return {
+    applied_to: 'concentration',
+    set_ids: ids,
+    selection: 'measurement_time',
+    reason: null,
+    recomputed_by: null,
+    recomputed_at: null,
+  };
 }
 
 export function distinctSetIds(burns: readonly CorrectedBurn[]): string[] {

@@ -15,7 +15,13 @@ export async function driftHistory(
 ) {
   const instrument = await getInstrument(ctx, auth, instrumentId);
   const iso = (t?: string) => (t ? new Date(t).toISOString() : undefined);
-  const rows = await listDriftRows(ctx.db, { instrumentId, methodId: query.method_id, since: iso(query.since), until: iso(query.until), limit: query.limit });
+  const rows = await listDriftRows(ctx.db, {
+    instrumentId,
+    methodId: query.method_id,
+    since: iso(query.since),
+    until: iso(query.until),
+    limit: query.limit,
+  });
   const inForce = await inForceIds(ctx.db, rows);
   const points = rows.flatMap((row) => {
     const correction = (JSON.parse(row.corrections_json) as ElementCorrection[]).find((c) => c.element === query.element);

@@ -21,16 +21,26 @@ export interface RecomputeInput {
   reason: string;
 }
 
-export async function recomputeSample(ctx: AppContext, auth: AuthContext, sampleId: string, input: RecomputeInput, requestId?: string): Promise<void> {
+export async function recomputeSample(
+  ctx: AppContext,
+  auth: AuthContext,
+  sampleId: string,
+  input: RecomputeInput,
+  requestId?: string,
+): Promise<void> {
   await ctx.db.transaction(async (trx) => {
     const sample = await loadSample(trx, auth, sampleId);
     if (sample.status === 'released') throw new ConflictProblem('This sample is released; amend it instead of recomputing it.');
     let set: CorrectionSet | null = null;
     if (input.correction_set_id !== null) {
       const row = await findStandardization(trx, input.correction_set_id);
-      const problem = (message: string) => new UnprocessableProblem(message, [{ location: 'body.correction_set_id', message, code: 'unusable_set' }]);
+      const problem = (message: string) =>
+        new UnprocessableProblem(message, [{ location: 'body.correction_set_id', message, code: 'unusable_set' }]);
       if (!row) throw problem(`no correction set ${input.correction_set_id}`);
-      if (row.instrument_id !== sample.instrument_id || row.method_id !== sample.method_id) throw problem(`${row.id} belongs to another instrument or method than this sample (${sample.instrument_code}, ${sample.method_code})`);
+      if (row.instrument_id !== sample.instrument_id || row.method_id !== sample.method_id)
+        throw problem(
+          `${row.id} belongs to another instrument or method than this sample (${sample.instrument_code}, ${sample.method_code})`,
+        );
       if (row.status !== 'activated') throw problem(`${row.id} is a draft: only an activated (reviewed) correction set can be applied`);
       set = correctionSetOf(row);
     }
@@ -43,18 +53,36 @@ export async function recomputeSample(ctx: AppContext, auth: AuthContext, sample
     );
     const actor = actorOf(auth);
     const now = nowIso();
-    const correction: SampleCorrection = { applied_to: 'concentration', set_ids: distinctSetIds(corrected), selection: 'requested', reason: input.reason, recomputed_by: actor.label, recomputed_at: now };
+    const correction: SampleCorrection = {
+      applied_to: 'concentration',
+      set_ids: distinctSetIds(corrected),
+      selection: 'requested',
+      reason: input.reason,
+      recomputed_by: actor.label,
+      recomputed_at: now,
+    };
     for (const [i, burn] of burns.entries()) {
-      await updateBurn(trx, burn.id, { correction_set_id: corrected[i].correction_set_id, corrected_json: corrected[i].corrected && JSON.stringify(corrected[i].corrected) });
+      await updateBurn(trx, burn.id, {
+        correction_set_id: corrected[i].correction_set_id,
+        corrected_json: corrected[i].corrected && JSON.stringify(corrected[i].corrected),
+      });
     }
-    await updateSampleResults(trx, sampleId, { results_json: encodeResults(results), flags_json: JSON.stringify(flags), correction_json: JSON.stringify(correction), updated_at: now });
+    await updateSampleResults(trx, sampleId, {
+      results_json: encodeResults(results),
+      flags_json: JSON.stringify(flags),
+      correction_json: JSON.stringify(correction),
+      updated_at: now,
+    });
     await recordAudit(trx, {
       actor,
       requestId,
       action: 'sample.recomputed',
       targetType: 'sample',
       targetId: sampleId,
-      before: { correction: sample.correction_json ? JSON.parse(sample.correction_json) : null, results: decodeResults(sample.results_json) },
+      before: {
+        correction: sample.correction_json ? JSON.parse(sample.correction_json) : null,
+        results: decodeResults(sample.results_json),
+      },
       after: { correction, results, reason: input.reason },
     });
   });

@@ -51,7 +51,9 @@ export async function findReferenceMaterial(db: Queryable, id: string): Promise<
 }
 
 export function findReferenceMaterialByCode(db: Queryable, code: string): Promise<ReferenceMaterialRow | undefined> {
-  return db<ReferenceMaterialRow>('reference_materials').where({ code_key: codeKey(code) }).first();
+  return db<ReferenceMaterialRow>('reference_materials')
+    .where({ code_key: codeKey(code) })
+    .first();
 }
 
 export async function findReferenceMaterials(db: Queryable, ids: string[]): Promise<ReferenceMaterial[]> {
@@ -59,8 +61,13 @@ export async function findReferenceMaterials(db: Queryable, ids: string[]): Prom
   return (await db<ReferenceMaterialRow>('reference_materials').whereIn('id', ids)).map(toReferenceMaterial);
 }
 
-export async function listReferenceMaterials(db: Queryable, filters: { matrix?: string; kind?: ReferenceKind; afterCode?: string; limit: number }): Promise<ReferenceMaterial[]> {
-  const query = db<ReferenceMaterialRow>('reference_materials').orderBy('code_key').limit(filters.limit + 1);
+export async function listReferenceMaterials(
+  db: Queryable,
+  filters: { matrix?: string; kind?: ReferenceKind; afterCode?: string; limit: number },
+): Promise<ReferenceMaterial[]> {
+  const query = db<ReferenceMaterialRow>('reference_materials')
+    .orderBy('code_key')
+    .limit(filters.limit + 1);
   if (filters.matrix) query.where('matrix', filters.matrix);
   if (filters.kind) query.where('kind', filters.kind);
   if (filters.afterCode) query.where('code_key', '>', filters.afterCode);

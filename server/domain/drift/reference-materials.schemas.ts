@@ -6,14 +6,21 @@ import { DecimalString, ElementSymbolSchema } from '../methods/methods.schemas.t
 import { REFERENCE_KINDS } from './reference-materials.repository.ts';
 
 export const ReferenceKindSchema = z.enum(REFERENCE_KINDS).openapi('ReferenceKind', {
-  description: '`high` and `low`: the two levels of a two-point standardization. `type`: a material of similar composition to the samples, for a type standardization. `control`: a control sample (not used to standardize).',
+  description:
+    '`high` and `low`: the two levels of a two-point standardization. `type`: a material of similar composition to the samples, for a type standardization. `control`: a control sample (not used to standardize).',
 });
 
 const NominalValueInput = z
   .object({
     element: ElementSymbolSchema,
-    nominal: DecimalString.openapi({ description: 'Certified value, written as a decimal string so every digit is kept.', example: '0.742' }),
-    unit: z.enum(UNITS).default('%').openapi({ description: 'Unit of `nominal`; converted exactly to % (1 % = 10 000 ppm = 10 000 000 ppb).' }),
+    nominal: DecimalString.openapi({
+      description: 'Certified value, written as a decimal string so every digit is kept.',
+      example: '0.742',
+    }),
+    unit: z
+      .enum(UNITS)
+      .default('%')
+      .openapi({ description: 'Unit of `nominal`; converted exactly to % (1 % = 10 000 ppm = 10 000 000 ppb).' }),
   })
   .openapi('NominalValueInput');
 
@@ -28,7 +35,13 @@ export const NominalValueSchema = z
 
 export const CreateReferenceMaterialRequestSchema = z
   .object({
-    code: z.string().trim().min(1).max(60).regex(/^[A-Za-z0-9][A-Za-z0-9._/-]*$/, 'use letters, digits, ".", "_", "/" and "-"').openapi({ example: 'KB-FE-HI' }),
+    code: z
+      .string()
+      .trim()
+      .min(1)
+      .max(60)
+      .regex(/^[A-Za-z0-9][A-Za-z0-9._/-]*$/, 'use letters, digits, ".", "_", "/" and "-"')
+      .openapi({ example: 'KB-FE-HI' }),
     name: z.string().trim().min(1).max(200).openapi({ example: 'Kestrel Bend high-level steel setting-up sample' }),
     matrix: ElementSymbolSchema,
     kind: ReferenceKindSchema,
@@ -47,7 +60,13 @@ export const CreateReferenceMaterialRequestSchema = z
         },
         { when: (payload) => Array.isArray(payload.value) },
       ),
-    certificate: z.string().trim().max(500).nullable().default(null).openapi({ description: 'Certificate number, issuer or link.', example: 'In-house, lot 2026-03, see QA file RM-114' }),
+    certificate: z
+      .string()
+      .trim()
+      .max(500)
+      .nullable()
+      .default(null)
+      .openapi({ description: 'Certificate number, issuer or link.', example: 'In-house, lot 2026-03, see QA file RM-114' }),
   })
   .openapi('CreateReferenceMaterialRequest');
 
@@ -63,7 +82,10 @@ export const ReferenceMaterialSchema = z
     created_by: z.string(),
     created_at: z.string().openapi({ format: 'date-time' }),
   })
-  .openapi('ReferenceMaterial', { description: 'A reference material with its nominal (certified) values, in %. Values are not edited once created: register a new material for a new certificate, so that runs keep the values they used.' });
+  .openapi('ReferenceMaterial', {
+    description:
+      'A reference material with its nominal (certified) values, in %. Values are not edited once created: register a new material for a new certificate, so that runs keep the values they used.',
+  });
 
 export const ReferenceMaterialListSchema = listOf(ReferenceMaterialSchema, 'ReferenceMaterialList');
 export const ReferenceMaterialListQuerySchema = paginationQuery.extend({

@@ -57,7 +57,12 @@ export function referenceMaterialRow(input: ReferenceMaterialInput, createdBy: s
   };
 }
 
-export async function createReferenceMaterial(ctx: AppContext, auth: AuthContext, input: ReferenceMaterialInput, requestId?: string): Promise<ReferenceMaterial> {
+export async function createReferenceMaterial(
+  ctx: AppContext,
+  auth: AuthContext,
+  input: ReferenceMaterialInput,
+  requestId?: string,
+): Promise<ReferenceMaterial> {
   const actor = actorOf(auth);
   const row = referenceMaterialRow(input, actor.label);
   const conflict = () => new ConflictProblem(`A reference material with the code ${input.code} exists (codes are compared ignoring case).`);
@@ -65,7 +70,14 @@ export async function createReferenceMaterial(ctx: AppContext, auth: AuthContext
     await ctx.db.transaction(async (trx) => {
       if (await findReferenceMaterialByCode(trx, input.code)) throw conflict();
       await insertReferenceMaterial(trx, row);
-      await recordAudit(trx, { actor, requestId, action: 'reference_material.created', targetType: 'reference_material', targetId: row.id, after: toReferenceMaterial(row) });
+      await recordAudit(trx, {
+        actor,
+        requestId,
+        action: 'reference_material.created',
+        targetType: 'reference_material',
+        targetId: row.id,
+        after: toReferenceMaterial(row),
+      });
     });
   } catch (error) {
     if (isUniqueViolation(error)) throw conflict();

@@ -1,7 +1,12 @@
 // Stored standardization runs → API representations.
 import type { Knex } from 'knex';
 import { nowIso } from '../../lib/time.ts';
-import { findSetInForce, type ElementCorrection, type StandardizationRowWithRefs, type StoredMeasurement } from './standardizations.repository.ts';
+import {
+  findSetInForce,
+  type ElementCorrection,
+  type StandardizationRowWithRefs,
+  type StoredMeasurement,
+} from './standardizations.repository.ts';
 
 type Queryable = Knex | Knex.Transaction;
 
@@ -20,13 +25,21 @@ export function toStandardizationView(row: StandardizationRowWithRefs, inForceId
     base_set_id: row.base_set_id,
     activation:
       row.status === 'activated'
-        ? { activated_at: row.activated_at as string, activated_by: row.activated_by_label ?? '', effective_from: row.effective_from as string, override_reason: row.override_reason }
+        ? {
+            activated_at: row.activated_at as string,
+            activated_by: row.activated_by_label ?? '',
+            effective_from: row.effective_from as string,
+            override_reason: row.override_reason,
+          }
         : null,
     measurements: measurements.map((m) => ({
       reference_material: m.reference_material,
       burns: m.burns.map((b) => ({
         values: Object.fromEntries(
-          Object.entries(b.values).map(([element, cell]) => [element, { value: cell.v, qualifier: cell.q, raw: b.raw[element]?.raw ?? cell.v ?? '', raw_unit: b.raw[element]?.unit ?? '%' }]),
+          Object.entries(b.values).map(([element, cell]) => [
+            element,
+            { value: cell.v, qualifier: cell.q, raw: b.raw[element]?.raw ?? cell.v ?? '', raw_unit: b.raw[element]?.unit ?? '%' },
+          ]),
         ),
       })),
       means: m.means,
@@ -40,7 +53,11 @@ export function toStandardizationView(row: StandardizationRowWithRefs, inForceId
 export type StandardizationView = ReturnType<typeof toStandardizationView>;
 
 /** The id of the set in force now for each (instrument, method) pair among the rows, each looked up once. */
-export async function inForceIds(db: Queryable, rows: readonly StandardizationRowWithRefs[], at = nowIso()): Promise<Map<string, string | null>> {
+export async function inForceIds(
+  db: Queryable,
+  rows: readonly StandardizationRowWithRefs[],
+  at = nowIso(),
+): Promise<Map<string, string | null>> {
   const ids = new Map<string, string | null>();
   for (const row of rows) {
     const key = `${row.instrument_id}|${row.method_id}`;

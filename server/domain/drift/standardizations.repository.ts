@@ -105,7 +105,11 @@ export interface StandardizationFilters {
 }
 
 /** Newest measurement first; fetches limit + 1 rows so the caller can tell whether there is more. */
-export function listStandardizationRows(db: Queryable, filters: StandardizationFilters, limit: number): Promise<StandardizationRowWithRefs[]> {
+export function listStandardizationRows(
+  db: Queryable,
+  filters: StandardizationFilters,
+  limit: number,
+): Promise<StandardizationRowWithRefs[]> {
   const query = withRefs(db).orderBy([
     { column: 'standardizations.measured_at', order: 'desc' },
     { column: 'standardizations.id', order: 'desc' },
@@ -117,15 +121,28 @@ export function listStandardizationRows(db: Queryable, filters: StandardizationF
   if (filters.onlyInstrumentIds) query.whereIn('standardizations.instrument_id', filters.onlyInstrumentIds);
   if (filters.after) {
     const { t, id } = filters.after;
-    query.where((w) => w.where('standardizations.measured_at', '<', t).orWhere((x) => x.where('standardizations.measured_at', t).andWhere('standardizations.id', '<', id)));
+    query.where((w) =>
+      w
+        .where('standardizations.measured_at', '<', t)
+        .orWhere((x) => x.where('standardizations.measured_at', t).andWhere('standardizations.id', '<', id)),
+    );
   }
   return query.limit(limit + 1);
 }
 
 /** The activated set with the latest effective_from at or before `at` (the later activation on a tie). */
-export function findSetInForce(db: Queryable, instrumentId: string, methodId: string, at: string): Promise<StandardizationRowWithRefs | undefined> {
+export function findSetInForce(
+  db: Queryable,
+  instrumentId: string,
+  methodId: string,
+  at: string,
+): Promise<StandardizationRowWithRefs | undefined> {
   return withRefs(db)
-    .where({ 'standardizations.instrument_id': instrumentId, 'standardizations.method_id': methodId, 'standardizations.status': 'activated' })
+    .where({
+      'standardizations.instrument_id': instrumentId,
+      'standardizations.method_id': methodId,
+      'standardizations.status': 'activated',
+    })
     .where('standardizations.effective_from', '<=', at)
     .orderBy([
       { column: 'standardizations.effective_from', order: 'desc' },
@@ -155,12 +172,17 @@ export function listActivatedRows(db: Queryable, instrumentId: string, methodId:
 
 /** The methods an instrument has activated sets for. */
 export async function methodsWithActivatedSets(db: Queryable, instrumentId: string): Promise<string[]> {
-  const rows = await db<StandardizationRow>('standardizations').where({ instrument_id: instrumentId, status: 'activated' }).distinct('method_id');
+  const rows = await db<StandardizationRow>('standardizations')
+    .where({ instrument_id: instrumentId, status: 'activated' })
+    .distinct('method_id');
   return rows.map((r) => r.method_id);
 }
 
 /** The latest runs of an instrument (optionally one method), oldest first, for the drift chart. */
-export async function listDriftRows(db: Queryable, filters: { instrumentId: string; methodId?: string; since?: string; until?: string; limit: number }): Promise<StandardizationRowWithRefs[]> {
+export async function listDriftRows(
+  db: Queryable,
+  filters: { instrumentId: string; methodId?: string; since?: string; until?: string; limit: number },
+): Promise<StandardizationRowWithRefs[]> {
   const query = withRefs(db)
     .where('standardizations.instrument_id', filters.instrumentId)
     .orderBy([

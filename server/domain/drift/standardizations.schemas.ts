@@ -9,9 +9,11 @@ import { ReferenceKindSchema } from './reference-materials.schemas.ts';
 
 export const CorrectionModeSchema = z.enum(CORRECTION_MODES).openapi('CorrectionMode', {
   description:
-    '`two_point`: a `high` and a `low` reference; slope α = (H⁰ − L⁰)/(H − L), offset β = L⁰ − α·L. `one_point_factor`: one reference; α = N/M, β = 0. `one_point_offset`: one reference; α = 1, β = N − M. `type`: one reference of kind `type` (similar composition to the samples), multiplicative, on top of the set in force: t = N/(α₀·M + β₀), stored as α = t·α₀, β = t·β₀. (H⁰, L⁰, N nominal; H, L, M the mean of the reference\'s burns.)',
+    "`two_point`: a `high` and a `low` reference; slope α = (H⁰ − L⁰)/(H − L), offset β = L⁰ − α·L. `one_point_factor`: one reference; α = N/M, β = 0. `one_point_offset`: one reference; α = 1, β = N − M. `type`: one reference of kind `type` (similar composition to the samples), multiplicative, on top of the set in force: t = N/(α₀·M + β₀), stored as α = t·α₀, β = t·β₀. (H⁰, L⁰, N nominal; H, L, M the mean of the reference's burns.)",
 });
-export const CorrectionFlagSchema = z.enum(CORRECTION_FLAGS).openapi('CorrectionFlag', { description: '`ok`, `warn` (look before activating) or `fail` (activation needs an override reason).' });
+export const CorrectionFlagSchema = z
+  .enum(CORRECTION_FLAGS)
+  .openapi('CorrectionFlag', { description: '`ok`, `warn` (look before activating) or `fail` (activation needs an override reason).' });
 export const StandardizationStatusSchema = z.enum(['draft', 'activated']).openapi('StandardizationStatus');
 
 const ref = z.object({ id: z.string(), code: z.string() });
@@ -22,7 +24,10 @@ export const ElementLevelSchema = z
     code: z.string(),
     kind: ReferenceKindSchema,
     nominal: z.string().nullable().openapi({ description: 'Certified value, %; null when the reference gives none.' }),
-    measured: z.string().nullable().openapi({ description: 'Exact mean of the reference\'s numeric burns, %; null when none measured the element.' }),
+    measured: z
+      .string()
+      .nullable()
+      .openapi({ description: "Exact mean of the reference's numeric burns, %; null when none measured the element." }),
     n: z.number().int().openapi({ description: 'Numeric burns behind `measured`.' }),
   })
   .openapi('ElementLevel');
@@ -30,9 +35,15 @@ export const ElementLevelSchema = z
 export const ElementCorrectionSchema = z
   .object({
     element: z.string().openapi({ example: 'Mn' }),
-    slope: z.string().nullable().openapi({ description: 'α as a decimal string (20 significant digits); null when this set does not correct the element (see reasons).', example: '1.0213' }),
+    slope: z.string().nullable().openapi({
+      description: 'α as a decimal string (20 significant digits); null when this set does not correct the element (see reasons).',
+      example: '1.0213',
+    }),
     offset: z.string().nullable().openapi({ description: 'β in %, decimal string (20 decimal places at most).', example: '-0.0041' }),
-    previous_slope: z.string().nullable().openapi({ description: 'α of the set in force at the run\'s measurement time; null when none corrected the element.' }),
+    previous_slope: z
+      .string()
+      .nullable()
+      .openapi({ description: "α of the set in force at the run's measurement time; null when none corrected the element." }),
     previous_offset: z.string().nullable(),
     flag: CorrectionFlagSchema,
     reasons: z.array(z.string()).openapi({ description: 'One sentence per finding, each explaining itself; empty when `ok`.' }),
@@ -91,7 +102,7 @@ const MeasurementInput = z
       .array(z.object({ values: z.record(z.string().min(1).max(10), PushedValueSchema).openapi({ example: { C: 0.452, Mn: 1.498 } }) }))
       .min(1)
       .max(20)
-      .openapi({ description: 'The reference\'s burns, as measured (uncorrected).' }),
+      .openapi({ description: "The reference's burns, as measured (uncorrected)." }),
   })
   .openapi('StandardizationMeasurementInput');
 
@@ -99,8 +110,11 @@ export const CreateStandardizationRequestSchema = z
   .object({
     method_id: z.string().min(1).max(40),
     mode: CorrectionModeSchema,
-    measured_at: z.iso.datetime({ offset: true }).optional().openapi({ description: 'When the references were sparked; defaults to now. Not in the future.' }),
-    unit: z.enum(UNITS).optional().openapi({ description: 'Unit of every burn value; defaults to the method\'s default unit.' }),
+    measured_at: z.iso
+      .datetime({ offset: true })
+      .optional()
+      .openapi({ description: 'When the references were sparked; defaults to now. Not in the future.' }),
+    unit: z.enum(UNITS).optional().openapi({ description: "Unit of every burn value; defaults to the method's default unit." }),
     note: z.string().trim().max(500).optional(),
     measurements: z.array(MeasurementInput).min(1).max(2),
   })
@@ -108,8 +122,17 @@ export const CreateStandardizationRequestSchema = z
 
 export const ActivateStandardizationRequestSchema = z
   .object({
-    effective_from: z.iso.datetime({ offset: true }).optional().openapi({ description: 'When the set takes effect; defaults to the activation time. A later time schedules it; an earlier one is refused (422): results already stored are never changed by an activation.' }),
-    override_reason: z.string().trim().min(3, 'say why, in a few words').max(1000).optional().openapi({ description: 'Required when an element is flagged `fail`; recorded with the activation and in the audit trail.' }),
+    effective_from: z.iso.datetime({ offset: true }).optional().openapi({
+      description:
+        'When the set takes effect; defaults to the activation time. A later time schedules it; an earlier one is refused (422): results already stored are never changed by an activation.',
+    }),
+    override_reason: z
+      .string()
+      .trim()
+      .min(3, 'say why, in a few words')
+      .max(1000)
+      .optional()
+      .openapi({ description: 'Required when an element is flagged `fail`; recorded with the activation and in the audit trail.' }),
   })
   .openapi('ActivateStandardizationRequest');
 
@@ -147,7 +170,11 @@ export const DriftHistorySchema = z
 
 export const DriftQuerySchema = z.object({
   element: ElementSymbolSchema,
-  method_id: z.string().max(40).optional().openapi({ description: 'Only runs of this method (recommended: slopes of different methods are not comparable).' }),
+  method_id: z
+    .string()
+    .max(40)
+    .optional()
+    .openapi({ description: 'Only runs of this method (recommended: slopes of different methods are not comparable).' }),
   since: z.iso.datetime({ offset: true }).optional(),
   until: z.iso.datetime({ offset: true }).optional(),
   limit: z.coerce.number().int().min(1).max(1000).default(200).openapi({ description: 'The latest runs, at most this many (1–1000).' }),
@@ -157,7 +184,9 @@ export const CorrectionsInForceSchema = z
   .object({
     instrument: ref,
     at: z.string().openapi({ format: 'date-time', description: 'The time the sets are in force at.' }),
-    data: z.array(z.object({ method: ref, set: StandardizationSchema })).openapi({ description: 'One entry per method that has a set in force; methods without one are left out (their results are not corrected).' }),
+    data: z.array(z.object({ method: ref, set: StandardizationSchema })).openapi({
+      description: 'One entry per method that has a set in force; methods without one are left out (their results are not corrected).',
+    }),
   })
   .openapi('CorrectionsInForce');
 

@@ -21,7 +21,12 @@ import { computeRun, type RunMeasurement } from './compute-run.ts';
 import { worstFlag } from './correction-flags.ts';
 import { findReferenceMaterials, type ReferenceMaterial } from './reference-materials.repository.ts';
 import { toStandardizationView } from './standardization-view.ts';
-import { findSetInForce, findStandardizationWithRefs, insertStandardization, type StandardizationRow } from './standardizations.repository.ts';
+import {
+  findSetInForce,
+  findStandardizationWithRefs,
+  insertStandardization,
+  type StandardizationRow,
+} from './standardizations.repository.ts';
 
 export interface StandardizationInput {
   method_id: string;
@@ -40,18 +45,37 @@ function checkReferences(mode: CorrectionMode, method: Method, references: Refer
   const kinds = references.map((r) => r.kind);
   references.forEach((reference, i) => {
     const at = `body.measurements.${i}.reference_material_id`;
-    if (reference.matrix !== method.matrix) errors.push({ location: at, message: `${reference.code} is a ${reference.matrix}-base material; method ${method.code} measures ${method.matrix}-base alloys`, code: 'matrix_mismatch' });
-    if (reference.kind === 'control') errors.push({ location: at, message: `${reference.code} is a control sample: it checks the instrument, it does not standardize it`, code: 'wrong_kind' });
-    if (references.findIndex((r) => r.id === reference.id) !== i) errors.push({ location: at, message: `${reference.code} is listed twice`, code: 'duplicate_reference' });
+    if (reference.matrix !== method.matrix)
+      errors.push({
+        location: at,
+        message: `${reference.code} is a ${reference.matrix}-base material; method ${method.code} measures ${method.matrix}-base alloys`,
+        code: 'matrix_mismatch',
+      });
+    if (reference.kind === 'control')
+      errors.push({
+        location: at,
+        message: `${reference.code} is a control sample: it checks the instrument, it does not standardize it`,
+        code: 'wrong_kind',
+      });
+    if (references.findIndex((r) => r.id === reference.id) !== i)
+      errors.push({ location: at, message: `${reference.code} is listed twice`, code: 'duplicate_reference' });
   });
   if (mode === 'two_point') {
     if (references.length !== 2 || !kinds.includes('high') || !kinds.includes('low')) {
-      errors.push({ location: 'body.measurements', message: 'two_point needs exactly two references: one of kind "high" and one of kind "low"', code: 'wrong_references' });
+      errors.push({
+        location: 'body.measurements',
+        message: 'two_point needs exactly two references: one of kind "high" and one of kind "low"',
+        code: 'wrong_references',
+      });
     }
   } else if (references.length !== 1) {
     errors.push({ location: 'body.measurements', message: `${mode} needs exactly one reference`, code: 'wrong_references' });
   } else if (mode === 'type' && kinds[0] !== 'type') {
-    errors.push({ location: 'body.measurements.0.reference_material_id', message: `a type standardization needs a reference of kind "type" (similar composition to the samples); ${references[0].code} is "${kinds[0]}"`, code: 'wrong_kind' });
+    errors.push({
+      location: 'body.measurements.0.reference_material_id',
+      message: `a type standardization needs a reference of kind "type" (similar composition to the samples); ${references[0].code} is "${kinds[0]}"`,
+      code: 'wrong_kind',
+    });
   }
 }
 
@@ -60,12 +84,23 @@ async function resolve(ctx: AppContext, auth: AuthContext, instrumentId: string,
   if (!instrument) throw new NotFoundProblem(`No instrument ${instrumentId}.`);
   assertInstrumentAllowed(auth, instrumentId);
   const method = await findMethod(ctx.db, input.method_id);
-  if (!method) throw new UnprocessableProblem('The method does not exist.', [{ location: 'body.method_id', message: `no method ${input.method_id}`, code: 'unknown_reference' }]);
-  const found = await findReferenceMaterials(ctx.db, input.measurements.map((m) => m.reference_material_id));
+  if (!method)
+    throw new UnprocessableProblem('The method does not exist.', [
+      { location: 'body.method_id', message: `no method ${input.method_id}`, code: 'unknown_reference' },
+    ]);
+  const found = await findReferenceMaterials(
+    ctx.db,
+    input.measurements.map((m) => m.reference_material_id),
+  );
   const errors: FieldError[] = [];
   const references = input.measurements.map((m, i) => {
     const reference = found.find((r) => r.id === m.reference_material_id);
-    if (!reference) errors.push({ location: `body.measurements.${i}.reference_material_id`, message: `no reference material ${m.reference_material_id}`, code: 'unknown_reference' });
+    if (!reference)
+      errors.push({
+        location: `body.measurements.${i}.reference_material_id`,
+        message: `no reference material ${m.reference_material_id}`,
+        code: 'unknown_reference',
+      });
     return reference;
   });
   if (errors.length) throw new UnprocessableProblem('A measurement refers to a reference material that does not exist.', errors);
@@ -74,7 +109,13 @@ async function resolve(ctx: AppContext, auth: AuthContext, instrumentId: string,
   return { method, references: references as ReferenceMaterial[] };
 }
 
-export async function createStandardization(ctx: AppContext, auth: AuthContext, instrumentId: string, input: StandardizationInput, requestId?: string) {
+export async function createStandardization(
+  ctx: AppContext,
+  auth: AuthContext,
+  instrumentId: string,
+  input: StandardizationInput,
+  requestId?: string,
+) {
   const now = nowIso();
   const measuredAt = input.measured_at ? new Date(input.measured_at).toISOString() : now;
   if (Date.parse(measuredAt) > Date.parse(now) + FUTURE_TOLERANCE_MS) {
@@ -86,9 +127,22 @@ export async function createStandardization(ctx: AppContext, auth: AuthContext, 
     reference: references[i],
     burns: normalisePushedBurns(m.burns, input.unit ?? method.default_unit, `body.measurements.${i}.burns`, parseErrors),
   }));
-  if (parseErrors.length) throw new ValidationProblem(parseErrors, 'Some values cannot be read; see errors[] for each one. Nothing was stored.');
+  if (parseErrors.length)
+    throw new ValidationProblem(parseErrors, 'Some values cannot be read; see errors[] for each one. Nothing was stored.');
 
-  const id = await ctx.db.transaction((trx) => storeRun(trx, { instrumentId, method, mode: input.mode, measurements, measuredAt, note: input.note ?? null, actor: actorOf(auth), now, requestId }));
+  const id = await ctx.db.transaction((trx) =>
+    storeRun(trx, {
+      instrumentId,
+      method,
+      mode: input.mode,
+      measurements,
+      measuredAt,
+      note: input.note ?? null,
+      actor: actorOf(auth),
+      now,
+      requestId,
+    }),
+  );
   return getStandardization(ctx, auth, id);
 }
 
@@ -109,8 +163,17 @@ export async function storeRun(trx: Knex.Transaction, input: StoreRunInput): Pro
   const { instrumentId, method, measuredAt, actor, now } = input;
   const id = newId('std');
   const inForce = await findSetInForce(trx, instrumentId, method.id, measuredAt);
-  const run = computeRun({ mode: input.mode, method, measurements: input.measurements, inForce: inForce ? correctionSetOf(inForce).corrections : null });
-  if (run.errors.length) throw new UnprocessableProblem(`No correction can be computed for ${run.errors.map((e) => e.location.split('.').pop()).join(', ')}; see errors[].`, run.errors);
+  const run = computeRun({
+    mode: input.mode,
+    method,
+    measurements: input.measurements,
+    inForce: inForce ? correctionSetOf(inForce).corrections : null,
+  });
+  if (run.errors.length)
+    throw new UnprocessableProblem(
+      `No correction can be computed for ${run.errors.map((e) => e.location.split('.').pop()).join(', ')}; see errors[].`,
+      run.errors,
+    );
   const row: StandardizationRow = {
     id,
     instrument_id: instrumentId,
@@ -132,7 +195,14 @@ export async function storeRun(trx: Knex.Transaction, input: StoreRunInput): Pro
   };
   await insertStandardization(trx, row);
   const summary = { id, instrument_id: instrumentId, method_id: method.id, mode: row.mode, flag: row.flag, measured_at: measuredAt };
-  await recordAudit(trx, { actor, requestId: input.requestId, action: 'standardization.created', targetType: 'standardization', targetId: id, after: { ...summary, corrections: run.corrections.map(({ levels: _levels, ...c }) => c) } });
+  await recordAudit(trx, {
+    actor,
+    requestId: input.requestId,
+    action: 'standardization.created',
+    targetType: 'standardization',
+    targetId: id,
+    after: { ...summary, corrections: run.corrections.map(({ levels: _levels, ...c }) => c) },
+  });
   if (row.flag !== 'ok') {
     const flagged = run.corrections.filter((c) => c.flag !== 'ok').map((c) => ({ element: c.element, flag: c.flag, reasons: c.reasons }));
     await recordEvent(trx, 'standardization.flagged', { standardization: summary, elements: flagged }, now);
@@ -142,7 +212,8 @@ export async function storeRun(trx: Knex.Transaction, input: StoreRunInput): Pro
 
 export async function getStandardization(ctx: AppContext, auth: AuthContext, id: string) {
   const row = await findStandardizationWithRefs(ctx.db, id);
-  if (!row || (auth.instrumentIds && !auth.instrumentIds.includes(row.instrument_id))) throw new NotFoundProblem(`No standardization ${id}.`);
+  if (!row || (auth.instrumentIds && !auth.instrumentIds.includes(row.instrument_id)))
+    throw new NotFoundProblem(`No standardization ${id}.`);
   const inForce = await findSetInForce(ctx.db, row.instrument_id, row.method_id, nowIso());
   return toStandardizationView(row, inForce?.id ?? null);
 }

@@ -40,4 +40,3 @@ export async function recordEvent<T>(trx: Knex.Transaction, type: EventType, dat
   await trx<EventRow>('events').insert({ id: event.id, type, occurred_at: occurredAt, data_json: JSON.stringify(data) });
   return event;
 }
-

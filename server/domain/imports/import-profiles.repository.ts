@@ -44,7 +44,9 @@ export function findImportProfile(db: Queryable, id: string): Promise<ImportProf
 }
 
 export function findImportProfileByName(db: Queryable, name: string): Promise<ImportProfileRow | undefined> {
-  return db<ImportProfileRow>('import_profiles').where({ name_key: profileNameKey(name) }).first();
+  return db<ImportProfileRow>('import_profiles')
+    .where({ name_key: profileNameKey(name) })
+    .first();
 }
 
 export async function updateImportProfileRow(db: Queryable, id: string, changes: Partial<ImportProfileRow>): Promise<void> {
@@ -52,7 +54,9 @@ export async function updateImportProfileRow(db: Queryable, id: string, changes:
 }
 
 export function listImportProfileRows(db: Queryable, filters: { afterId?: string; limit: number }) {
-  const query = db<ImportProfileRow>('import_profiles').orderBy('id', 'asc').limit(filters.limit + 1);
+  const query = db<ImportProfileRow>('import_profiles')
+    .orderBy('id', 'asc')
+    .limit(filters.limit + 1);
   if (filters.afterId) query.where('id', '>', filters.afterId);
   return query;
 }

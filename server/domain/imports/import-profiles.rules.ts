@@ -7,7 +7,9 @@ interface ProfileShape {
   delimiter: string;
   decimal_separator: string;
   layout: 'wide' | 'long';
-  columns: Partial<Record<'sample_code' | 'heat' | 'grade' | 'kind' | 'burn_number' | 'measured_at', string>> & { fields?: Record<string, string> };
+  columns: Partial<Record<'sample_code' | 'heat' | 'grade' | 'kind' | 'burn_number' | 'measured_at', string>> & {
+    fields?: Record<string, string>;
+  };
   long_columns: { element: string; value: string; unit?: string } | null;
   element_columns: { header: string; element: string }[];
   ignore_columns: string[];
@@ -33,7 +35,8 @@ export function checkProfileRules(profile: ProfileShape, ctx: z.RefinementCtx): 
   const issue = (path: Path, message: string) => ctx.addIssue({ code: 'custom', path, message });
   if (profile.layout === 'long' && !profile.long_columns) issue(['long_columns'], 'the long layout needs the element and value columns');
   if (profile.layout === 'wide' && profile.long_columns) issue(['long_columns'], 'only the long layout uses long_columns; set it to null');
-  if (profile.layout === 'long' && profile.element_columns.length > 0) issue(['element_columns'], 'only the wide layout uses element_columns');
+  if (profile.layout === 'long' && profile.element_columns.length > 0)
+    issue(['element_columns'], 'only the wide layout uses element_columns');
   if (profile.delimiter === ',' && profile.decimal_separator === ',') {
     issue(['decimal_separator'], 'a comma-delimited file cannot also use the comma as decimal separator; choose `;` or tab as delimiter');
   }

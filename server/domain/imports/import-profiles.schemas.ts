@@ -13,23 +13,39 @@ export const AUTO_DETECTION_DESCRIPTION =
   'the delimiter (`,` `;` or tab: the one that splits the header into most columns and the data lines into as many); ' +
   'the decimal separator (`.` in comma-delimited files; otherwise `,` when more element cells write a digit-comma-digit than a digit-dot-digit); ' +
   'the header (the first non-blank line); the layout (long when an element column and a value column are named and no header is an element, else wide); ' +
-  'element columns (a real element symbol in any case with an optional unit: `Mn`, `Mn %`, `%Mn`, `Mn [%]`, `C [ppm]`, `Si(%)`, `Cu mg/kg`; unit from the header, else the profile\'s default unit, else the caller\'s, else %); ' +
+  "element columns (a real element symbol in any case with an optional unit: `Mn`, `Mn %`, `%Mn`, `Mn [%]`, `C [ppm]`, `Si(%)`, `Cu mg/kg`; unit from the header, else the profile's default unit, else the caller's, else %); " +
   `identification headers, ignoring case and treating \`_ - . / :\` as spaces — ${describeHeaderAliases()}. ` +
   'Any other header becomes an identification field in `fields`. A header with a unit whose symbol is no element (`Xx %`) rejects the file.';
 
-const HeaderName = z.string().trim().min(1).max(200).openapi({ description: 'A header as written in the file; matched ignoring case and surrounding spaces.', example: 'Heat No.' });
+const HeaderName = z
+  .string()
+  .trim()
+  .min(1)
+  .max(200)
+  .openapi({ description: 'A header as written in the file; matched ignoring case and surrounding spaces.', example: 'Heat No.' });
 
 const ElementInput = z
   .string()
   .max(3)
-  .transform((value, ctx) => normaliseElement(value) ?? (ctx.addIssue({ code: 'custom', message: `"${value}" is not an element symbol` }), z.NEVER))
+  .transform(
+    (value, ctx) => normaliseElement(value) ?? (ctx.addIssue({ code: 'custom', message: `"${value}" is not an element symbol` }), z.NEVER),
+  )
   .openapi({ description: 'An element symbol in any case (`mn`, `MN` → `Mn`).', example: 'Mn' });
 
 export const UnitInput = z
   .string()
   .max(30)
-  .transform((value, ctx) => parseUnit(value) ?? (ctx.addIssue({ code: 'custom', message: `"${value}" is not a mass-fraction unit (%, ppm, mg/kg, ppb, µg/kg, mass fraction …)` }), z.NEVER))
-  .openapi({ description: 'A mass-fraction unit: `%` (also `wt%`), `ppm` (`mg/kg`), `ppb` (`µg/kg`, `ug/kg`) or `mass fraction`. Stored as `%`, `ppm`, `ppb` or `fraction`.', example: 'ppm' });
+  .transform(
+    (value, ctx) =>
+      parseUnit(value) ??
+      (ctx.addIssue({ code: 'custom', message: `"${value}" is not a mass-fraction unit (%, ppm, mg/kg, ppb, µg/kg, mass fraction …)` }),
+      z.NEVER),
+  )
+  .openapi({
+    description:
+      'A mass-fraction unit: `%` (also `wt%`), `ppm` (`mg/kg`), `ppb` (`µg/kg`, `ug/kg`) or `mass fraction`. Stored as `%`, `ppm`, `ppb` or `fraction`.',
+    example: 'ppm',
+  });
 
 export const FIELD_KEY_PATTERN = /^[a-z][a-z0-9_]{0,39}$/;
 const RESERVED_FIELD_KEYS = ['sample_code', 'heat', 'grade', 'kind', 'burn_number', 'measured_at'];
@@ -46,18 +62,25 @@ const ColumnsSchema = z
     kind: HeaderName.optional(),
     burn_number: HeaderName.optional(),
     measured_at: HeaderName.optional(),
-    fields: z.record(FieldKey, HeaderName).optional().openapi({ description: 'Other identification fields: key → header.', example: { furnace: 'Furnace', customer_order: 'Order' } }),
+    fields: z
+      .record(FieldKey, HeaderName)
+      .optional()
+      .openapi({ description: 'Other identification fields: key → header.', example: { furnace: 'Furnace', customer_order: 'Order' } }),
   })
   .openapi('ImportProfileColumns', { description: 'Which header holds what. Roles left out are recognised automatically.' });
 
 const LongColumnsSchema = z
   .strictObject({ element: HeaderName, value: HeaderName, unit: HeaderName.optional() })
   // Left unnamed: zod-to-openapi drops `null` from a nullable reference to a named schema.
-  .openapi({ description: 'Long layout: the headers holding the element symbol, the value and (optionally) the unit; null for the wide layout.' });
+  .openapi({
+    description: 'Long layout: the headers holding the element symbol, the value and (optionally) the unit; null for the wide layout.',
+  });
 
 const ElementColumnSchema = z
   .strictObject({ header: HeaderName, element: ElementInput, unit: UnitInput.optional() })
-  .openapi('ImportProfileElementColumn', { description: 'Wide layout: a header that holds one element, for headers that are not a plain symbol.' });
+  .openapi('ImportProfileElementColumn', {
+    description: 'Wide layout: a header that holds one element, for headers that are not a plain symbol.',
+  });
 
 const TimeSchema = z
   .strictObject({
@@ -79,11 +102,15 @@ const fields = {
   decimal_separator: z.enum(['.', ',', 'auto']),
   encoding: z.enum(['utf-8', 'windows-1252', 'auto']).openapi({ description: '`auto`: UTF-8 with or without BOM, else Windows-1252.' }),
   header_row: z.number().int().min(1).max(100).openapi({ description: '1-based line of the header; lines above it are skipped.' }),
-  layout: z.enum(['wide', 'long']).openapi({ description: '`wide`: a row per burn, a column per element. `long`: a row per element value.' }),
+  layout: z
+    .enum(['wide', 'long'])
+    .openapi({ description: '`wide`: a row per burn, a column per element. `long`: a row per element value.' }),
   columns: ColumnsSchema,
   long_columns: LongColumnsSchema.nullable(),
   element_columns: z.array(ElementColumnSchema).max(200),
-  default_unit: UnitInput.nullable().openapi({ description: 'Unit of element columns whose header names none; null = the caller\'s default, else %.' }),
+  default_unit: UnitInput.nullable().openapi({
+    description: "Unit of element columns whose header names none; null = the caller's default, else %.",
+  }),
   ignore_columns: z.array(HeaderName).max(200),
   time: TimeSchema,
 };

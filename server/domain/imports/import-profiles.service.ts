@@ -17,7 +17,11 @@ import {
   toImportProfile,
   updateImportProfileRow,
 } from './import-profiles.repository.ts';
-import { CreateImportProfileRequestSchema, type ImportProfileInput, type UpdateImportProfileRequestSchema } from './import-profiles.schemas.ts';
+import {
+  CreateImportProfileRequestSchema,
+  type ImportProfileInput,
+  type UpdateImportProfileRequestSchema,
+} from './import-profiles.schemas.ts';
 import type { z } from '../../openapi/zod.ts';
 
 interface Audited {
@@ -63,7 +67,14 @@ export async function createImportProfile(ctx: AppContext, input: ImportProfileI
       if (await findImportProfileByName(trx, input.name)) throw duplicateName(input.name);
       await insertImportProfile(trx, row);
       const profile = toImportProfile(row);
-      await recordAudit(trx, { actor: by.actor, requestId: by.requestId, action: 'import_profile.created', targetType: 'import_profile', targetId: row.id, after: profile });
+      await recordAudit(trx, {
+        actor: by.actor,
+        requestId: by.requestId,
+        action: 'import_profile.created',
+        targetType: 'import_profile',
+        targetId: row.id,
+        after: profile,
+      });
       return profile;
     });
   } catch (error) {
@@ -85,15 +96,33 @@ export async function updateImportProfile(
     const merged = CreateImportProfileRequestSchema.safeParse({ ...stored, ...changes });
     if (!merged.success) {
       throw new ValidationProblem(
-        merged.error.issues.map((issue) => ({ location: ['body', ...issue.path.map(String)].join('.'), message: issue.message, code: issue.code })),
+        merged.error.issues.map((issue) => ({
+          location: ['body', ...issue.path.map(String)].join('.'),
+          message: issue.message,
+          code: issue.code,
+        })),
         'The profile would not be valid after this change; see errors[].',
       );
     }
-    if (profileNameKey(merged.data.name) !== row.name_key && (await findImportProfileByName(trx, merged.data.name))) throw duplicateName(merged.data.name);
-    const changed: Partial<ImportProfileRow> = { ...splitInput(merged.data), name_key: profileNameKey(merged.data.name), revision: Number(row.revision) + 1, updated_at: nowIso() };
+    if (profileNameKey(merged.data.name) !== row.name_key && (await findImportProfileByName(trx, merged.data.name)))
+      throw duplicateName(merged.data.name);
+    const changed: Partial<ImportProfileRow> = {
+      ...splitInput(merged.data),
+      name_key: profileNameKey(merged.data.name),
+      revision: Number(row.revision) + 1,
+      updated_at: nowIso(),
+    };
     await updateImportProfileRow(trx, id, changed);
     const after = toImportProfile({ ...row, ...changed });
-    await recordAudit(trx, { actor: by.actor, requestId: by.requestId, action: 'import_profile.updated', targetType: 'import_profile', targetId: id, before, after });
+    await recordAudit(trx, {
+      actor: by.actor,
+      requestId: by.requestId,
+      action: 'import_profile.updated',
+      targetType: 'import_profile',
+      targetId: id,
+      before,
+      after,
+    });
     return after;
   });
 }

@@ -23,14 +23,20 @@ export const ImportReportSchema = z
     counts: z.object({
       rows: z.number().int(),
       samples_created: z.number().int(),
-      samples_rejected: z.number().int().openapi({ description: 'Samples left out because a line of theirs was rejected (a sample whose every line was rejected counts in lines_rejected only).' }),
+      samples_rejected: z.number().int().openapi({
+        description:
+          'Samples left out because a line of theirs was rejected (a sample whose every line was rejected counts in lines_rejected only).',
+      }),
       lines_rejected: z.number().int(),
       burns: z.number().int(),
       values: z.number().int(),
     }),
     sample_ids: z.array(z.string()),
     warnings: z.array(ImportIssueSchema),
-    rejected: z.array(ImportIssueSchema).openapi({ description: 'Lines that were not imported, with the reason (per-sample mode only; in all-or-nothing mode any of them stops the import).' }),
+    rejected: z.array(ImportIssueSchema).openapi({
+      description:
+        'Lines that were not imported, with the reason (per-sample mode only; in all-or-nothing mode any of them stops the import).',
+    }),
   })
   .openapi('ImportReport');
 

@@ -25,13 +25,25 @@ function splitKind(sample: ParsedSample, warnings: ImportIssue[]): { kind: strin
   if (!sample.kind) return { kind: null, fields: sample.fields };
   const kind = sample.kind.trim().toLowerCase();
   if ((SAMPLE_KINDS as readonly string[]).includes(kind)) return { kind, fields: sample.fields };
-  warnings.push({ line: sample.first_line, column: 'kind', code: 'unknown_kind', message: `"${sample.kind}" is not one of ${SAMPLE_KINDS.join(', ')}; kept as the field "kind".` });
+  warnings.push({
+    line: sample.first_line,
+    column: 'kind',
+    code: 'unknown_kind',
+    message: `"${sample.kind}" is not one of ${SAMPLE_KINDS.join(', ')}; kept as the field "kind".`,
+  });
   return { kind: null, fields: { ...sample.fields, kind: sample.kind } };
 }
 
 export function buildImportedSamples(
   samples: ParsedSample[],
-  context: { instrumentId: string; method: Method; importId: string | null; createdBy: string; now: string; corrections?: CorrectionTimeline },
+  context: {
+    instrumentId: string;
+    method: Method;
+    importId: string | null;
+    createdBy: string;
+    now: string;
+    corrections?: CorrectionTimeline;
+  },
   warnings: ImportIssue[],
 ) {
   return samples.map((sample) => {

@@ -24,7 +24,22 @@ export interface ImportRow {
 
 export type ImportMeta = Omit<ImportRow, 'content'>;
 
-const META_COLUMNS = ['id', 'instrument_id', 'method_id', 'profile_id', 'file_name', 'content_type', 'size_bytes', 'sha256', 'mode', 'report_json', 'created_by_type', 'created_by_id', 'created_by_label', 'created_at'] as const;
+const META_COLUMNS = [
+  'id',
+  'instrument_id',
+  'method_id',
+  'profile_id',
+  'file_name',
+  'content_type',
+  'size_bytes',
+  'sha256',
+  'mode',
+  'report_json',
+  'created_by_type',
+  'created_by_id',
+  'created_by_label',
+  'created_at',
+] as const;
 
 export function toImport(row: ImportMeta) {
   return {
@@ -45,19 +60,34 @@ export async function insertImport(db: Queryable, row: ImportRow): Promise<void>
 }
 
 export function findImportMeta(db: Queryable, id: string): Promise<ImportMeta | undefined> {
-  return db<ImportRow>('imports').select(...META_COLUMNS).where({ id }).first();
+  return db<ImportRow>('imports')
+    .select(...META_COLUMNS)
+    .where({ id })
+    .first();
 }
 
 export function findImportBySha(db: Queryable, sha256: string): Promise<ImportMeta | undefined> {
-  return db<ImportRow>('imports').select(...META_COLUMNS).where({ sha256 }).first();
+  return db<ImportRow>('imports')
+    .select(...META_COLUMNS)
+    .where({ sha256 })
+    .first();
 }
 
-export function findImportFile(db: Queryable, id: string): Promise<Pick<ImportRow, 'instrument_id' | 'file_name' | 'content_type' | 'content' | 'sha256'> | undefined> {
+export function findImportFile(
+  db: Queryable,
+  id: string,
+): Promise<Pick<ImportRow, 'instrument_id' | 'file_name' | 'content_type' | 'content' | 'sha256'> | undefined> {
   return db<ImportRow>('imports').select('instrument_id', 'file_name', 'content_type', 'content', 'sha256').where({ id }).first();
 }
 
-export function listImportRows(db: Queryable, filters: { instrumentId?: string; onlyInstrumentIds?: string[] | null; afterId?: string; limit: number }): Promise<ImportMeta[]> {
-  const query = db<ImportRow>('imports').select(...META_COLUMNS).orderBy('id', 'desc').limit(filters.limit + 1);
+export function listImportRows(
+  db: Queryable,
+  filters: { instrumentId?: string; onlyInstrumentIds?: string[] | null; afterId?: string; limit: number },
+): Promise<ImportMeta[]> {
+  const query = db<ImportRow>('imports')
+    .select(...META_COLUMNS)
+    .orderBy('id', 'desc')
+    .limit(filters.limit + 1);
   if (filters.instrumentId) query.where('instrument_id', filters.instrumentId);
   if (filters.onlyInstrumentIds) query.whereIn('instrument_id', filters.onlyInstrumentIds);
   if (filters.afterId) query.where('id', '<', filters.afterId);

@@ -34,7 +34,9 @@ function issueLocation(issue: ImportIssue): string {
 }
 
 function fileProblem(detail: string, issues: ImportIssue[]): UnprocessableProblem {
-  const errors: FieldError[] = issues.slice(0, MAX_LISTED_ISSUES).map((issue) => ({ location: issueLocation(issue), message: issue.message, code: issue.code }));
+  const errors: FieldError[] = issues
+    .slice(0, MAX_LISTED_ISSUES)
+    .map((issue) => ({ location: issueLocation(issue), message: issue.message, code: issue.code }));
   const problem = new UnprocessableProblem(detail, errors);
   Object.assign(problem.extensions, { errors_total: issues.length, issues: issues.slice(0, MAX_LISTED_ISSUES) });
   return problem;
@@ -43,7 +45,8 @@ function fileProblem(detail: string, issues: ImportIssue[]): UnprocessableProble
 async function prepare(ctx: AppContext, auth: AuthContext, input: UploadInput): Promise<{ method: Method; parsed: ParsedFile }> {
   const errors: FieldError[] = [];
   const instrument = await findInstrument(ctx.db, input.instrument_id);
-  if (!instrument) errors.push({ location: 'body.instrument_id', message: `no instrument ${input.instrument_id}`, code: 'unknown_reference' });
+  if (!instrument)
+    errors.push({ location: 'body.instrument_id', message: `no instrument ${input.instrument_id}`, code: 'unknown_reference' });
   else assertInstrumentAllowed(auth, instrument.id);
   const method = await findMethod(ctx.db, input.method_id);
   if (!method) errors.push({ location: 'body.method_id', message: `no method ${input.method_id}`, code: 'unknown_reference' });
@@ -71,7 +74,12 @@ function layoutOf(parsed: ParsedFile): ImportReport['layout'] {
     delimiter: parsed.delimiter === '\t' ? 'tab' : parsed.delimiter,
     decimal_separator: parsed.decimal_separator,
     layout: parsed.layout,
-    columns: parsed.columns.map((c) => ({ header: c.header, role: c.role, ...(c.element ? { element: c.element } : {}), ...(c.unit ? { unit: c.unit } : {}) })),
+    columns: parsed.columns.map((c) => ({
+      header: c.header,
+      role: c.role,
+      ...(c.element ? { element: c.element } : {}),
+      ...(c.unit ? { unit: c.unit } : {}),
+    })),
   };
 }
 
@@ -101,7 +109,12 @@ export async function previewImport(ctx: AppContext, auth: AuthContext, input: U
 }
 
 /** Stores the file and its samples; an identical earlier upload is returned instead (created = false). */
-export async function uploadImport(ctx: AppContext, auth: AuthContext, input: UploadInput & { mode: 'all_or_nothing' | 'per_sample' }, requestId?: string) {
+export async function uploadImport(
+  ctx: AppContext,
+  auth: AuthContext,
+  input: UploadInput & { mode: 'all_or_nothing' | 'per_sample' },
+  requestId?: string,
+) {
   const sha256 = sha256Hex(input.file.buffer);
   const existing = await findImportBySha(ctx.db, sha256);
   if (existing) {
@@ -110,7 +123,10 @@ export async function uploadImport(ctx: AppContext, auth: AuthContext, input: Up
   }
   const { method, parsed } = await prepare(ctx, auth, input);
   if (input.mode === 'all_or_nothing' && parsed.rejected.length > 0) {
-    throw fileProblem(`${parsed.rejected.length} value(s) cannot be read, so nothing was imported. Fix the lines listed in errors[], or upload with mode=per_sample to import the other samples.`, parsed.rejected);
+    throw fileProblem(
+      `${parsed.rejected.length} value(s) cannot be read, so nothing was imported. Fix the lines listed in errors[], or upload with mode=per_sample to import the other samples.`,
+      parsed.rejected,
+    );
   }
   const accepted = parsed.samples.filter((s) => s.rejected.length === 0);
   if (accepted.length === 0) throw fileProblem('No sample in this file can be imported.', parsed.rejected);
@@ -122,7 +138,11 @@ export async function uploadImport(ctx: AppContext, auth: AuthContext, input: Up
     // The correction sets are read in the storing transaction: an activation lands wholly before or after.
     const corrections = await timelineLoader(trx)(input.instrument_id, method.id);
     const warnings: ImportIssue[] = [...parsed.warnings];
-    const built = buildImportedSamples(accepted, { instrumentId: input.instrument_id, method, importId: id, createdBy: actor.label, now, corrections }, warnings);
+    const built = buildImportedSamples(
+      accepted,
+      { instrumentId: input.instrument_id, method, importId: id, createdBy: actor.label, now, corrections },
+      warnings,
+    );
     const report: ImportReport = {
       layout: layoutOf(parsed),
       counts: {
@@ -156,7 +176,14 @@ export async function uploadImport(ctx: AppContext, auth: AuthContext, input: Up
     };
     await insertImport(trx, row);
     await storeNewSamples(trx, built, actor, requestId, { auditEach: false });
-    await recordAudit(trx, { actor, requestId, action: 'import.completed', targetType: 'import', targetId: id, after: { file_name: row.file_name, sha256, mode: input.mode, counts: report.counts } });
+    await recordAudit(trx, {
+      actor,
+      requestId,
+      action: 'import.completed',
+      targetType: 'import',
+      targetId: id,
+      after: { file_name: row.file_name, sha256, mode: input.mode, counts: report.counts },
+    });
     return row;
   });
   const { content: _content, ...meta } = row;

@@ -31,7 +31,9 @@ export async function updateInstrumentRow(db: Queryable, id: string, changes: Pa
 }
 
 export function listInstrumentRows(db: Queryable, filters: { afterCode?: string; onlyIds?: string[] | null; limit: number }) {
-  const query = db<InstrumentRow>('instruments').orderBy('code').limit(filters.limit + 1);
+  const query = db<InstrumentRow>('instruments')
+    .orderBy('code')
+    .limit(filters.limit + 1);
   if (filters.afterCode) query.where('code', '>', filters.afterCode);
   if (filters.onlyIds) query.whereIn('id', filters.onlyIds);
   return query;

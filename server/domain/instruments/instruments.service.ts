@@ -7,7 +7,14 @@ import { newId } from '../../lib/ids.ts';
 import { nowIso } from '../../lib/time.ts';
 import { actorOf } from '../audit/actor.ts';
 import { recordAudit } from '../audit/audit.repository.ts';
-import { findInstrument, findInstrumentByCode, insertInstrument, type Instrument, type InstrumentRow, updateInstrumentRow } from './instruments.repository.ts';
+import {
+  findInstrument,
+  findInstrumentByCode,
+  insertInstrument,
+  type Instrument,
+  type InstrumentRow,
+  updateInstrumentRow,
+} from './instruments.repository.ts';
 
 /** Throws 403 when the caller's key is restricted to other instruments. */
 export function assertInstrumentAllowed(auth: AuthContext, instrumentId: string): void {
@@ -22,18 +29,36 @@ export async function getInstrument(ctx: AppContext, auth: AuthContext, id: stri
   return row;
 }
 
-export async function createInstrument(ctx: AppContext, auth: AuthContext, input: { code: string; name: string; site: string }, requestId?: string): Promise<Instrument> {
+export async function createInstrument(
+  ctx: AppContext,
+  auth: AuthContext,
+  input: { code: string; name: string; site: string },
+  requestId?: string,
+): Promise<Instrument> {
   const now = nowIso();
   const row: InstrumentRow = { id: newId('ins'), ...input, created_at: now, updated_at: now };
   await ctx.db.transaction(async (trx) => {
     if (await findInstrumentByCode(trx, input.code)) throw new ConflictProblem(`An instrument with the code ${input.code} exists.`);
     await insertInstrument(trx, row);
-    await recordAudit(trx, { actor: actorOf(auth), requestId, action: 'instrument.created', targetType: 'instrument', targetId: row.id, after: row });
+    await recordAudit(trx, {
+      actor: actorOf(auth),
+      requestId,
+      action: 'instrument.created',
+      targetType: 'instrument',
+      targetId: row.id,
+      after: row,
+    });
   });
   return row;
 }
 
-export async function updateInstrument(ctx: AppContext, auth: AuthContext, id: string, changes: Partial<Pick<Instrument, 'code' | 'name' | 'site'>>, requestId?: string): Promise<Instrument> {
+export async function updateInstrument(
+  ctx: AppContext,
+  auth: AuthContext,
+  id: string,
+  changes: Partial<Pick<Instrument, 'code' | 'name' | 'site'>>,
+  requestId?: string,
+): Promise<Instrument> {
   return ctx.db.transaction(async (trx) => {
     const before = await findInstrument(trx, id);
     if (!before) throw new NotFoundProblem(`No instrument ${id}.`);
@@ -43,7 +68,15 @@ export async function updateInstrument(ctx: AppContext, auth: AuthContext, id: s
     }
     const after = { ...before, ...changes, updated_at: nowIso() };
     await updateInstrumentRow(trx, id, after);
-    await recordAudit(trx, { actor: actorOf(auth), requestId, action: 'instrument.updated', targetType: 'instrument', targetId: id, before, after });
+    await recordAudit(trx, {
+      actor: actorOf(auth),
+      requestId,
+      action: 'instrument.updated',
+      targetType: 'instrument',
+      targetId: id,
+      before,
+      after,
+    });
     return after;
   });
 }

@@ -42,7 +42,11 @@ export interface Method extends Omit<MethodRow, 'elements_json' | 'drift_limits_
 
 export function toMethod(row: MethodRow): Method {
   const { elements_json, drift_limits_json, ...rest } = row;
-  return { ...rest, elements: JSON.parse(elements_json) as MethodElement[], drift_limits: drift_limits_json ? (JSON.parse(drift_limits_json) as DriftLimits) : DEFAULT_DRIFT_LIMITS };
+  return {
+    ...rest,
+    elements: JSON.parse(elements_json) as MethodElement[],
+    drift_limits: drift_limits_json ? (JSON.parse(drift_limits_json) as DriftLimits) : DEFAULT_DRIFT_LIMITS,
+  };
 }
 
 export function toMethodRow(method: Method): MethodRow {
@@ -68,7 +72,9 @@ export async function updateMethodRow(db: Queryable, method: Method): Promise<vo
 }
 
 export async function listMethods(db: Queryable, filters: { matrix?: string; afterCode?: string; limit: number }): Promise<Method[]> {
-  const query = db<MethodRow>('methods').orderBy('code').limit(filters.limit + 1);
+  const query = db<MethodRow>('methods')
+    .orderBy('code')
+    .limit(filters.limit + 1);
   if (filters.matrix) query.where('matrix', filters.matrix);
   if (filters.afterCode) query.where('code', '>', filters.afterCode);
   return (await query).map(toMethod);

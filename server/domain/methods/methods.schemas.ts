@@ -26,7 +26,9 @@ export const MethodElementSchema = z
     working_range_low: DecimalString.nullable().default(null).openapi({ description: 'Lowest calibrated value, %.' }),
     working_range_high: DecimalString.nullable().default(null).openapi({ description: 'Highest calibrated value, %.' }),
     detection_limit: DecimalString.nullable().default(null).openapi({ description: 'Detection limit, %.' }),
-    repeatability_sd: DecimalString.nullable().default(null).openapi({ description: 'Repeatability standard deviation σr, % (ISO 5725); enables the burn agreement check.' }),
+    repeatability_sd: DecimalString.nullable()
+      .default(null)
+      .openapi({ description: 'Repeatability standard deviation σr, % (ISO 5725); enables the burn agreement check.' }),
   })
   .refine((e) => !e.working_range_low || !e.working_range_high || Number(e.working_range_low) < Number(e.working_range_high), {
     message: 'working_range_low must be below working_range_high',
@@ -37,12 +39,18 @@ export const MethodElementSchema = z
 export const DriftLimitsSchema = z
   .object({
     warn: DecimalString.openapi({ description: 'Flag an element `warn` when |slope − 1| is above this.', example: '0.2' }),
-    fail: DecimalString.openapi({ description: 'Flag an element `fail` when |slope − 1| is above this; activation then needs an override reason.', example: '0.5' }),
+    fail: DecimalString.openapi({
+      description: 'Flag an element `fail` when |slope − 1| is above this; activation then needs an override reason.',
+      example: '0.5',
+    }),
   })
-  .refine((limits) => !/^\d+(\.\d+)?$/.test(limits.warn) || !/^\d+(\.\d+)?$/.test(limits.fail) || Number(limits.warn) <= Number(limits.fail), {
-    message: 'warn must not be above fail',
-    path: ['fail'],
-  })
+  .refine(
+    (limits) => !/^\d+(\.\d+)?$/.test(limits.warn) || !/^\d+(\.\d+)?$/.test(limits.fail) || Number(limits.warn) <= Number(limits.fail),
+    {
+      message: 'warn must not be above fail',
+      path: ['fail'],
+    },
+  )
   .openapi('DriftLimits', {
     description:
       'Limits on the distance of a standardization slope from 1, as decimal strings. Defaults warn 0.2, fail 0.5 (a slope outside 0.8–1.2 deserves a look, outside 0.5–1.5 signals trouble): common practice, no source — set them from your own validation data.',
@@ -85,7 +93,13 @@ export const MethodIdParams = z.object({ id: z.string().min(1).max(40) });
 
 export const CreateMethodRequestSchema = z
   .object({
-    code: z.string().trim().min(1).max(40).regex(/^[A-Za-z0-9][A-Za-z0-9._-]*$/, 'use letters, digits, ".", "_" and "-"').openapi({ example: 'FE-LA' }),
+    code: z
+      .string()
+      .trim()
+      .min(1)
+      .max(40)
+      .regex(/^[A-Za-z0-9][A-Za-z0-9._-]*$/, 'use letters, digits, ".", "_" and "-"')
+      .openapi({ example: 'FE-LA' }),
     name: z.string().trim().min(1).max(200),
     matrix: ElementSymbolSchema,
     default_unit: z.enum(OUTPUT_UNITS).default('%'),
@@ -98,8 +112,12 @@ export const UpdateMethodRequestSchema = z
   .object({
     name: z.string().trim().min(1).max(200).optional(),
     default_unit: z.enum(OUTPUT_UNITS).optional(),
-    elements: elementList.optional().openapi({ description: 'Replaces the element list. Stored results keep the settings they were computed with until recomputed.' }),
-    drift_limits: DriftLimitsSchema.optional().openapi({ description: 'Applies to standardizations run from now on; earlier runs keep their flags.' }),
+    elements: elementList
+      .optional()
+      .openapi({ description: 'Replaces the element list. Stored results keep the settings they were computed with until recomputed.' }),
+    drift_limits: DriftLimitsSchema.optional().openapi({
+      description: 'Applies to standardizations run from now on; earlier runs keep their flags.',
+    }),
   })
   .refine((value) => Object.keys(value).length > 0, 'give at least one of name, default_unit, elements, drift_limits')
   .openapi('UpdateMethodRequest');

@@ -8,7 +8,15 @@ import { nowIso } from '../../lib/time.ts';
 import { actorOf } from '../audit/actor.ts';
 import { recordAudit } from '../audit/audit.repository.ts';
 import type { OutputUnit } from '../chemistry/units.ts';
-import { type DriftLimits, findMethod, findMethodByCode, insertMethod, type Method, type MethodElement, updateMethodRow } from './methods.repository.ts';
+import {
+  type DriftLimits,
+  findMethod,
+  findMethodByCode,
+  insertMethod,
+  type Method,
+  type MethodElement,
+  updateMethodRow,
+} from './methods.repository.ts';
 
 export interface MethodInput {
   code: string;
@@ -31,7 +39,14 @@ export async function createMethod(ctx: AppContext, auth: AuthContext, input: Me
   await ctx.db.transaction(async (trx) => {
     if (await findMethodByCode(trx, input.code)) throw new ConflictProblem(`A method with the code ${input.code} exists.`);
     await insertMethod(trx, method);
-    await recordAudit(trx, { actor: actorOf(auth), requestId, action: 'method.created', targetType: 'method', targetId: method.id, after: method });
+    await recordAudit(trx, {
+      actor: actorOf(auth),
+      requestId,
+      action: 'method.created',
+      targetType: 'method',
+      targetId: method.id,
+      after: method,
+    });
   });
   return method;
 }
@@ -48,7 +63,15 @@ export async function updateMethod(
     if (!before) throw new NotFoundProblem(`No method ${id}.`);
     const after: Method = { ...before, ...changes, updated_at: nowIso() };
     await updateMethodRow(trx, after);
-    await recordAudit(trx, { actor: actorOf(auth), requestId, action: 'method.updated', targetType: 'method', targetId: id, before, after });
+    await recordAudit(trx, {
+      actor: actorOf(auth),
+      requestId,
+      action: 'method.updated',
+      targetType: 'method',
+      targetId: id,
+      before,
+      after,
+    });
     return after;
   });
 }

@@ -29,7 +29,15 @@ export function truncateUtf8(text: string, limit: number): { text: string; trunc
   return { text: cut.replace(/\uFFFD+$/, ''), truncated: true };
 }
 
-function textSnapshot(kind: BodyKind, contentType: string | null, text: string, size: number, limit: number, cutBefore = false, redacted = false): BodySnapshot {
+function textSnapshot(
+  kind: BodyKind,
+  contentType: string | null,
+  text: string,
+  size: number,
+  limit: number,
+  cutBefore = false,
+  redacted = false,
+): BodySnapshot {
   const r = redactText(text);
   const { text: body, truncated } = truncateUtf8(r.value, limit);
   return { kind, contentType, body, size, truncated: truncated || cutBefore, redacted: redacted || r.redacted };
@@ -40,7 +48,14 @@ function jsonSnapshot(kind: BodyKind, contentType: string | null, value: unknown
   return textSnapshot(kind, contentType, JSON.stringify(r.value), size, limit, false, r.redacted);
 }
 
-const none = (contentType: string | null): BodySnapshot => ({ kind: 'none', contentType, body: null, size: 0, truncated: false, redacted: false });
+const none = (contentType: string | null): BodySnapshot => ({
+  kind: 'none',
+  contentType,
+  body: null,
+  size: 0,
+  truncated: false,
+  redacted: false,
+});
 
 export function snapshotRequestBody(req: Request, limit: number): BodySnapshot {
   const contentType = req.get('content-type') ?? null;
@@ -49,14 +64,17 @@ export function snapshotRequestBody(req: Request, limit: number): BodySnapshot {
   if (contentType && /^multipart\//i.test(contentType)) {
     const files = uploadedFiles(req).map((f) => ({ field: f.fieldname, name: f.originalname, size: f.size, content_type: f.mimetype }));
     // Only the text fields: an upload route may have put the file object itself on the body.
-    const fields = Object.fromEntries(Object.entries((body ?? {}) as Record<string, unknown>).filter(([, value]) => typeof value !== 'object' || value === null));
+    const fields = Object.fromEntries(
+      Object.entries((body ?? {}) as Record<string, unknown>).filter(([, value]) => typeof value !== 'object' || value === null),
+    );
     return jsonSnapshot('multipart', contentType, { fields, files }, declared, limit);
   }
   if (body === undefined || body === null) {
     return declared > 0 ? { ...none(contentType), kind: 'unread', size: declared } : none(contentType);
   }
   if (Buffer.isBuffer(body)) {
-    if (contentType && (TEXT_TYPE.test(contentType) || JSON_TYPE.test(contentType))) return textSnapshot('text', contentType, body.toString('utf8'), body.length, limit);
+    if (contentType && (TEXT_TYPE.test(contentType) || JSON_TYPE.test(contentType)))
+      return textSnapshot('text', contentType, body.toString('utf8'), body.length, limit);
     return { kind: 'binary', contentType, body: null, size: body.length, truncated: false, redacted: false };
   }
   if (typeof body === 'string') return textSnapshot('text', contentType, body, Buffer.byteLength(body), limit);

@@ -14,7 +14,8 @@ const SECRET_NAME = /password|secret|token|api[-_]?key|authorization|cookie/i;
 const KEY_TEXT = new RegExp(`${KEY_PREFIX}[0-9A-Za-z]{7,}`, 'g');
 
 /** `"password": "…"` pairs in text that is not parseable JSON (a truncated body). */
-const SECRET_PAIR = /("(?:[^"\\]*(?:password|secret|token|api[-_]?key|authorization|cookie)[^"\\]*)"\s*:\s*)("(?:[^"\\]|\\.)*(?:"|$)|[^,}\]\s]+)/gi;
+const SECRET_PAIR =
+  /("(?:[^"\\]*(?:password|secret|token|api[-_]?key|authorization|cookie)[^"\\]*)"\s*:\s*)("(?:[^"\\]|\\.)*(?:"|$)|[^,}\]\s]+)/gi;
 
 export function isSecretName(name: string): boolean {
   return SECRET_NAME.test(name);

@@ -47,7 +47,20 @@ export interface RequestLogFilters {
   limit: number;
 }
 
-const SUMMARY_COLUMNS = ['id', 'occurred_at', 'method', 'path', 'query', 'status', 'duration_ms', 'caller_type', 'caller_id', 'caller_label', 'request_id', 'replay_of'] as const;
+const SUMMARY_COLUMNS = [
+  'id',
+  'occurred_at',
+  'method',
+  'path',
+  'query',
+  'status',
+  'duration_ms',
+  'caller_type',
+  'caller_id',
+  'caller_label',
+  'request_id',
+  'replay_of',
+] as const;
 
 export type RequestLogSummaryRow = Pick<RequestLogRow, (typeof SUMMARY_COLUMNS)[number]>;
 

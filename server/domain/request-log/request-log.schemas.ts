@@ -32,7 +32,9 @@ const BodySchema = (name: string) =>
     .object({
       headers: z.record(z.string(), z.string()).openapi({ description: 'Authorization, Cookie and Set-Cookie values are redacted.' }),
       content_type: z.string().nullable(),
-      body_kind: z.enum(BODY_KINDS).openapi({ description: '`multipart` bodies are described (field, file name, size, type), not stored; `binary` bodies are not stored.' }),
+      body_kind: z.enum(BODY_KINDS).openapi({
+        description: '`multipart` bodies are described (field, file name, size, type), not stored; `binary` bodies are not stored.',
+      }),
       body: z.string().nullable().openapi({ description: 'The body as text with secrets redacted, cut at the configured limit.' }),
       body_size: z.number().int().openapi({ description: 'Bytes of the original body.' }),
       body_truncated: z.boolean(),
@@ -49,10 +51,7 @@ export const RequestLogEntrySchema = RequestLogSummarySchema.extend({
 export const RequestLogListSchema = listOf(RequestLogSummarySchema, 'RequestLogList');
 
 export const RequestLogQuerySchema = paginationQuery.extend({
-  method: z
-    .enum(HTTP_METHODS)
-    .optional()
-    .openapi({ description: 'Only calls with this HTTP method.', example: 'POST' }),
+  method: z.enum(HTTP_METHODS).optional().openapi({ description: 'Only calls with this HTTP method.', example: 'POST' }),
   status: z
     .string()
     .regex(/^[1-5](\d\d|xx)$/i, 'a status code like 404, or a class like 4xx')

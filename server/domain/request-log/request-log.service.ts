@@ -48,8 +48,10 @@ export function notReplayableReason(row: RequestLogRow, bodyLimit: number): stri
       return 'The request body was never read (the call failed before it), so it is not in the log and the call cannot be sent again.';
     default:
   }
-  if (row.request_body_truncated) return `The request body (${row.request_body_size} bytes) was longer than the log keeps (${bodyLimit} bytes), so it cannot be sent again.`;
-  if (row.request_redacted) return 'Secrets (a password, token or API key) were removed from the logged request, so it cannot be sent again as it was.';
+  if (row.request_body_truncated)
+    return `The request body (${row.request_body_size} bytes) was longer than the log keeps (${bodyLimit} bytes), so it cannot be sent again.`;
+  if (row.request_redacted)
+    return 'Secrets (a password, token or API key) were removed from the logged request, so it cannot be sent again as it was.';
   return null;
 }
 

@@ -30,7 +30,14 @@ function settingsOf(method: Method): Map<string, MethodElement> {
 }
 
 function defaultSettings(element: string): MethodElement {
-  return { element, decimals: DEFAULT_DECIMALS, working_range_low: null, working_range_high: null, detection_limit: null, repeatability_sd: null };
+  return {
+    element,
+    decimals: DEFAULT_DECIMALS,
+    working_range_low: null,
+    working_range_high: null,
+    detection_limit: null,
+    repeatability_sd: null,
+  };
 }
 
 /** Method elements first (in the method's order), then any others alphabetically. */

@@ -30,7 +30,11 @@ export function toResultView(stored: StoredResult, unit: OutputUnit) {
     decimals: reportingDecimals(stored.decimals, unit),
     flags: converted.flags,
     repeatability: converted.repeatability
-      ? { range: Number(converted.repeatability.range), critical_range: Number(converted.repeatability.critical_range), exceeded: converted.repeatability.exceeded }
+      ? {
+          range: Number(converted.repeatability.range),
+          critical_range: Number(converted.repeatability.critical_range),
+          exceeded: converted.repeatability.exceeded,
+        }
       : null,
   };
 }

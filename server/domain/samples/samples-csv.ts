@@ -33,10 +33,37 @@ export function samplesToCsv(samples: CsvSample[], unit: string): string {
     for (const r of sample.results) if (!elements.includes(r.element)) elements.push(r.element);
     for (const f of Object.keys(sample.fields)) if (!fieldNames.includes(f)) fieldNames.push(f);
   }
-  const header = ['id', 'sample_code', 'heat', 'grade', 'kind', 'status', 'instrument', 'method', ...fieldNames, 'created_at', 'updated_at', 'flags', ...elements.map((e) => `${e} [${unit}]`)];
+  const header = [
+    'id',
+    'sample_code',
+    'heat',
+    'grade',
+    'kind',
+    'status',
+    'instrument',
+    'method',
+    ...fieldNames,
+    'created_at',
+    'updated_at',
+    'flags',
+    ...elements.map((e) => `${e} [${unit}]`),
+  ];
   const rows = samples.map((s) => {
     const byElement = new Map(s.results.map((r) => [r.element, r]));
-    const cells = [s.id, s.sample_code, s.heat ?? '', s.grade ?? '', s.kind ?? '', s.status, s.instrument.code, s.method.code, ...fieldNames.map((f) => s.fields[f] ?? ''), s.created_at, s.updated_at, s.flags.join(' ')];
+    const cells = [
+      s.id,
+      s.sample_code,
+      s.heat ?? '',
+      s.grade ?? '',
+      s.kind ?? '',
+      s.status,
+      s.instrument.code,
+      s.method.code,
+      ...fieldNames.map((f) => s.fields[f] ?? ''),
+      s.created_at,
+      s.updated_at,
+      s.flags.join(' '),
+    ];
     const values = elements.map((e) => {
       const r = byElement.get(e);
       return r?.reported == null ? '' : `${r.qualifier ?? ''}${r.reported}`;

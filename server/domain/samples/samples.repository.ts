@@ -101,7 +101,11 @@ export async function updateBurn(db: Queryable, id: string, changes: Partial<Bur
   await db<BurnRow>('burns').where({ id }).update(changes);
 }
 
-export async function updateSampleResults(db: Queryable, id: string, changes: Pick<SampleRow, 'results_json' | 'flags_json' | 'updated_at'> & Partial<Pick<SampleRow, 'correction_json'>>): Promise<void> {
+export async function updateSampleResults(
+  db: Queryable,
+  id: string,
+  changes: Pick<SampleRow, 'results_json' | 'flags_json' | 'updated_at'> & Partial<Pick<SampleRow, 'correction_json'>>,
+): Promise<void> {
   await db<SampleRow>('samples').where({ id }).update(changes);
 }
 
@@ -121,7 +125,8 @@ export interface SampleFilters {
   onlyInstrumentIds?: string[] | null;
 }
 
-export type SampleOrder = { by: 'created_desc'; after?: { t: string; id: string } } | { by: 'updated_asc'; after?: { t: string; id: string } };
+export type SampleOrder =
+  { by: 'created_desc'; after?: { t: string; id: string } } | { by: 'updated_asc'; after?: { t: string; id: string } };
 
 /** Filtered samples in a stable order; fetches limit + 1 rows so the caller can tell whether there is more. */
 export function listSampleRows(db: Queryable, filters: SampleFilters, order: SampleOrder, limit: number): Promise<SampleRowWithRefs[]> {
@@ -140,16 +145,26 @@ export function listSampleRows(db: Queryable, filters: SampleFilters, order: Sam
   if (filters.updated_since) query.where('samples.updated_at', '>=', filters.updated_since);
   if (filters.onlyInstrumentIds) query.whereIn('samples.instrument_id', filters.onlyInstrumentIds);
   if (order.by === 'created_desc') {
-    query.orderBy([{ column: 'samples.created_at', order: 'desc' }, { column: 'samples.id', order: 'desc' }]);
+    query.orderBy([
+      { column: 'samples.created_at', order: 'desc' },
+      { column: 'samples.id', order: 'desc' },
+    ]);
     if (order.after) {
       const { t, id } = order.after;
-      query.where((w) => w.where('samples.created_at', '<', t).orWhere((x) => x.where('samples.created_at', t).andWhere('samples.id', '<', id)));
+      query.where((w) =>
+        w.where('samples.created_at', '<', t).orWhere((x) => x.where('samples.created_at', t).andWhere('samples.id', '<', id)),
+      );
     }
   } else {
-    query.orderBy([{ column: 'samples.updated_at', order: 'asc' }, { column: 'samples.id', order: 'asc' }]);
+    query.orderBy([
+      { column: 'samples.updated_at', order: 'asc' },
+      { column: 'samples.id', order: 'asc' },
+    ]);
     if (order.after) {
       const { t, id } = order.after;
-      query.where((w) => w.where('samples.updated_at', '>', t).orWhere((x) => x.where('samples.updated_at', t).andWhere('samples.id', '>', id)));
+      query.where((w) =>
+        w.where('samples.updated_at', '>', t).orWhere((x) => x.where('samples.updated_at', t).andWhere('samples.id', '>', id)),
+      );
     }
   }
   return query.limit(limit + 1);

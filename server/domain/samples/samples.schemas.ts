@@ -5,7 +5,9 @@ import { OUTPUT_UNITS, UNITS } from '../chemistry/units.ts';
 export const SAMPLE_KINDS = ['preliminary', 'final', 'ladle', 'incoming', 'control'] as const;
 export const SampleKindSchema = z.enum(SAMPLE_KINDS).openapi('SampleKind');
 export const SampleStatusSchema = z.enum(['draft', 'released']).openapi('SampleStatus');
-export const OutputUnitSchema = z.enum(OUTPUT_UNITS).openapi('OutputUnit', { description: '`%` (mass fraction in percent, the default), `ppm` (mg/kg) or `ppb` (µg/kg).' });
+export const OutputUnitSchema = z
+  .enum(OUTPUT_UNITS)
+  .openapi('OutputUnit', { description: '`%` (mass fraction in percent, the default), `ppm` (mg/kg) or `ppb` (µg/kg).' });
 
 const text = (max: number) => z.string().trim().min(1).max(max);
 const fieldsSchema = z
@@ -20,7 +22,9 @@ export const PushedValueSchema = z
 export const PushedBurnSchema = z
   .object({
     measured_at: z.iso.datetime({ offset: true }).optional().openapi({ description: 'When the burn was sparked (ISO 8601).' }),
-    values: z.record(z.string().min(1).max(10), PushedValueSchema).openapi({ description: 'Element symbol → value. Symbols in any case (MN → Mn).', example: { C: 0.452, Mn: 0.71, S: '<0.002' } }),
+    values: z
+      .record(z.string().min(1).max(10), PushedValueSchema)
+      .openapi({ description: 'Element symbol → value. Symbols in any case (MN → Mn).', example: { C: 0.452, Mn: 0.71, S: '<0.002' } }),
   })
   .openapi('PushedBurn');
 
@@ -33,7 +37,9 @@ export const PushSampleRequestSchema = z
     instrument_id: z.string().min(1).max(40),
     method_id: z.string().min(1).max(40),
     fields: fieldsSchema.optional(),
-    unit: z.enum(UNITS).optional().openapi({ description: 'Unit of every value in `burns`; defaults to the method\'s default unit. `fraction` = plain mass fraction (0.01 = 1 %).' }),
+    unit: z.enum(UNITS).optional().openapi({
+      description: "Unit of every value in `burns`; defaults to the method's default unit. `fraction` = plain mass fraction (0.01 = 1 %).",
+    }),
     burns: z.array(PushedBurnSchema).min(1).max(50),
   })
   .openapi('PushSampleRequest');
@@ -53,14 +59,22 @@ export const ResultSchema = z
     max: z.number().nullable(),
     unit: OutputUnitSchema,
     raw_mean: z.number().nullable().openapi({ description: 'Mean before drift correction.' }),
-    reported: z.string().nullable().openapi({ description: 'The mean rounded half to even (ASTM E29) to the method\'s decimals, as a string; with `qualifier` when qualified.', example: '0.71' }),
-    qualifier: z.enum(['<', '>']).nullable().openapi({ description: '`<` below the detection limit or working range, `>` above the working range.' }),
-    decimals: z.number().int().openapi({ description: 'Decimal places of `reported` in this unit: the method\'s decimals in %, shifted for ppm (−4) and ppb (−7). Negative = rounded to tens, hundreds …' }),
-    flags: z.array(z.string()).openapi({ description: 'See the result flags in the operation description.' }),
-    repeatability: z
-      .object({ range: z.number(), critical_range: z.number(), exceeded: z.boolean() })
+    reported: z.string().nullable().openapi({
+      description: "The mean rounded half to even (ASTM E29) to the method's decimals, as a string; with `qualifier` when qualified.",
+      example: '0.71',
+    }),
+    qualifier: z
+      .enum(['<', '>'])
       .nullable()
-      .openapi({ description: 'ISO 5725-6 check of the burns\' range against f(n)·σr, when the method sets σr and there are at least two burns.' }),
+      .openapi({ description: '`<` below the detection limit or working range, `>` above the working range.' }),
+    decimals: z.number().int().openapi({
+      description:
+        "Decimal places of `reported` in this unit: the method's decimals in %, shifted for ppm (−4) and ppb (−7). Negative = rounded to tens, hundreds …",
+    }),
+    flags: z.array(z.string()).openapi({ description: 'See the result flags in the operation description.' }),
+    repeatability: z.object({ range: z.number(), critical_range: z.number(), exceeded: z.boolean() }).nullable().openapi({
+      description: "ISO 5725-6 check of the burns' range against f(n)·σr, when the method sets σr and there are at least two burns.",
+    }),
   })
   .openapi('ElementResult');
 
@@ -73,7 +87,10 @@ export const BurnValueSchema = z
     corrected: z
       .object({ value: z.number().nullable(), qualifier: z.enum(['<', '>', 'nd']).nullable() })
       .nullable()
-      .openapi({ description: 'The value after drift correction (slope·value + offset), in the requested unit; null when no correction set applied to this burn.' }),
+      .openapi({
+        description:
+          'The value after drift correction (slope·value + offset), in the requested unit; null when no correction set applied to this burn.',
+      }),
   })
   .openapi('BurnValue');
 
@@ -84,7 +101,10 @@ export const BurnSchema = z
     excluded: z.boolean(),
     exclusion: z.object({ reason: z.string(), by: z.string(), at: z.string() }).nullable(),
     source_line: z.number().int().nullable().openapi({ description: 'Line of the imported file this burn came from.' }),
-    correction_set_id: z.string().nullable().openapi({ description: 'The correction set (standardization) applied to this burn; null when none.' }),
+    correction_set_id: z
+      .string()
+      .nullable()
+      .openapi({ description: 'The correction set (standardization) applied to this burn; null when none.' }),
     values: z.record(z.string(), BurnValueSchema),
   })
   .openapi('Burn');
@@ -93,15 +113,26 @@ const ref = z.object({ id: z.string(), code: z.string() });
 
 export const SampleCorrectionSchema = z
   .object({
-    set_id: z.string().nullable().openapi({ description: 'The correction set applied to every corrected burn; null when none was (recomputed without correction) or when burns measured across an activation used different sets (see `set_ids`).' }),
+    set_id: z.string().nullable().openapi({
+      description:
+        'The correction set applied to every corrected burn; null when none was (recomputed without correction) or when burns measured across an activation used different sets (see `set_ids`).',
+    }),
     set_ids: z.array(z.string()).openapi({ description: 'Every correction set applied to the burns, in burn order.' }),
-    applied_to: z.literal('concentration').openapi({ description: 'Result files and pushes carry concentrations, not intensity ratios, so slope·x + offset is applied to the concentration of each burn (valid where the analytical curve is linear).' }),
-    selection: z.enum(['measurement_time', 'requested']).openapi({ description: '`measurement_time`: at ingest, each burn got the set in force for the instrument and method at its measurement time (else the sample\'s creation time). `requested`: recomputed on request against the set named (or none), with a reason.' }),
+    applied_to: z.literal('concentration').openapi({
+      description:
+        'Result files and pushes carry concentrations, not intensity ratios, so slope·x + offset is applied to the concentration of each burn (valid where the analytical curve is linear).',
+    }),
+    selection: z.enum(['measurement_time', 'requested']).openapi({
+      description:
+        "`measurement_time`: at ingest, each burn got the set in force for the instrument and method at its measurement time (else the sample's creation time). `requested`: recomputed on request against the set named (or none), with a reason.",
+    }),
     reason: z.string().nullable().openapi({ description: 'Why the sample was recomputed (selection `requested`).' }),
     recomputed_by: z.string().nullable(),
     recomputed_at: z.string().nullable().openapi({ format: 'date-time' }),
   })
-  .openapi('SampleCorrection', { description: 'Which drift correction produced the results. Raw values and `raw_mean` are always kept, so results can be recomputed.' });
+  .openapi('SampleCorrection', {
+    description: 'Which drift correction produced the results. Raw values and `raw_mean` are always kept, so results can be recomputed.',
+  });
 
 export const SampleSummarySchema = z
   .object({
@@ -119,7 +150,9 @@ export const SampleSummarySchema = z
     burn_count: z.number().int(),
     flags: z.array(z.string()).openapi({ description: 'Every flag raised on any element result.' }),
     results: z.array(ResultSchema),
-    correction: SampleCorrectionSchema.nullable().openapi({ description: 'The drift correction behind `results`; null when no correction set was in force for any burn.' }),
+    correction: SampleCorrectionSchema.nullable().openapi({
+      description: 'The drift correction behind `results`; null when no correction set was in force for any burn.',
+    }),
     created_by: z.string(),
     created_at: z.string().openapi({ format: 'date-time' }),
     updated_at: z.string().openapi({ format: 'date-time' }),
@@ -149,7 +182,9 @@ export const SetBurnExclusionRequestSchema = z
     excluded: z.boolean(),
     reason: z.string().trim().min(3, 'say why, in a few words').max(500),
   })
-  .openapi('SetBurnExclusionRequest', { description: 'Exclude a burn from the statistics (it is never deleted), or include it again. The reason is recorded either way.' });
+  .openapi('SetBurnExclusionRequest', {
+    description: 'Exclude a burn from the statistics (it is never deleted), or include it again. The reason is recorded either way.',
+  });
 
 /** A time with any offset, turned into the stored form (ISO 8601 UTC) so text comparison is time comparison. */
 const utcTime = z.iso
@@ -169,6 +204,9 @@ export const SampleListQuerySchema = paginationQuery.extend({
   flag: z.string().max(60).optional().openapi({ description: 'Only samples with this flag on some element.' }),
   created_from: utcTime.optional(),
   created_to: utcTime.optional(),
-  updated_since: utcTime.optional().openapi({ description: 'Samples changed at or after this time; the list is then ordered oldest change first, so a client can resume from its last `updated_at`.' }),
+  updated_since: utcTime.optional().openapi({
+    description:
+      'Samples changed at or after this time; the list is then ordered oldest change first, so a client can resume from its last `updated_at`.',
+  }),
   unit: OutputUnitSchema.default('%'),
 });

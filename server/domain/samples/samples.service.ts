@@ -16,7 +16,15 @@ import { timelineLoader } from '../drift/correction-timeline.ts';
 import { normalisePushedBurns, type PushedBurn } from './pushed-sample.ts';
 import { buildSampleRows } from './sample-builder.ts';
 import { computeSampleResults } from './sample-results.ts';
-import { type BurnRow, findBurns, findSample, insertSamples, type SampleRow, updateBurn, updateSampleResults } from './samples.repository.ts';
+import {
+  type BurnRow,
+  findBurns,
+  findSample,
+  insertSamples,
+  type SampleRow,
+  updateBurn,
+  updateSampleResults,
+} from './samples.repository.ts';
 import { decodeResults, encodeResults } from './results-codec.ts';
 
 export interface PushedSample {
@@ -34,32 +42,55 @@ export interface PushedSample {
 type Queryable = Knex | Knex.Transaction;
 
 /** Loads each referenced method once; unknown or forbidden references become errors. */
-async function resolveReferences(db: Queryable, auth: AuthContext, samples: PushedSample[], location: (i: number) => string, errors: FieldError[]) {
+async function resolveReferences(
+  db: Queryable,
+  auth: AuthContext,
+  samples: PushedSample[],
+  location: (i: number) => string,
+  errors: FieldError[],
+) {
   const methods = new Map<string, Method | undefined>();
   const instruments = new Map<string, boolean>();
   for (const [i, sample] of samples.entries()) {
     if (!instruments.has(sample.instrument_id)) instruments.set(sample.instrument_id, !!(await findInstrument(db, sample.instrument_id)));
-    if (!instruments.get(sample.instrument_id)) errors.push({ location: `${location(i)}.instrument_id`, message: `no instrument ${sample.instrument_id}`, code: 'unknown_reference' });
+    if (!instruments.get(sample.instrument_id))
+      errors.push({
+        location: `${location(i)}.instrument_id`,
+        message: `no instrument ${sample.instrument_id}`,
+        code: 'unknown_reference',
+      });
     else assertInstrumentAllowed(auth, sample.instrument_id);
     if (!methods.has(sample.method_id)) methods.set(sample.method_id, await findMethod(db, sample.method_id));
-    if (!methods.get(sample.method_id)) errors.push({ location: `${location(i)}.method_id`, message: `no method ${sample.method_id}`, code: 'unknown_reference' });
+    if (!methods.get(sample.method_id))
+      errors.push({ location: `${location(i)}.method_id`, message: `no method ${sample.method_id}`, code: 'unknown_reference' });
   }
   return methods;
 }
 
 /** Stores pushed samples in one transaction and returns their ids, in request order. */
-export async function pushSamples(ctx: AppContext, auth: AuthContext, samples: PushedSample[], batch: boolean, requestId?: string): Promise<string[]> {
+export async function pushSamples(
+  ctx: AppContext,
+  auth: AuthContext,
+  samples: PushedSample[],
+  batch: boolean,
+  requestId?: string,
+): Promise<string[]> {
   const location = (i: number) => (batch ? `body.samples.${i}` : 'body');
   const referenceErrors: FieldError[] = [];
   const methods = await resolveReferences(ctx.db, auth, samples, location, referenceErrors);
-  if (referenceErrors.length) throw new UnprocessableProblem('A sample refers to an instrument or method that does not exist.', referenceErrors);
+  if (referenceErrors.length)
+    throw new UnprocessableProblem('A sample refers to an instrument or method that does not exist.', referenceErrors);
 
   const errors: FieldError[] = [];
   const now = nowIso();
   const actor = actorOf(auth);
   const normalised = samples.map((sample, i) => {
     const method = methods.get(sample.method_id)!;
-    return { sample, method, burns: normalisePushedBurns(sample.burns, sample.unit ?? method.default_unit, `${location(i)}.burns`, errors) };
+    return {
+      sample,
+      method,
+      burns: normalisePushedBurns(sample.burns, sample.unit ?? method.default_unit, `${location(i)}.burns`, errors),
+    };
   });
   if (errors.length) throw new ValidationProblem(errors, 'Some values cannot be read; see errors[] for each one. Nothing was stored.');
 
@@ -84,7 +115,11 @@ export async function storeNewSamples(
   requestId?: string,
   options: { auditEach: boolean } = { auditEach: true },
 ): Promise<void> {
-  await insertSamples(trx, built.map((b) => b.sample), built.flatMap((b) => b.burns));
+  await insertSamples(
+    trx,
+    built.map((b) => b.sample),
+    built.flatMap((b) => b.burns),
+  );
   // A file import is audited once, as import.completed, naming the import that holds the samples.
   if (!options.auditEach) return;
   for (const { sample } of built) {
@@ -94,7 +129,13 @@ export async function storeNewSamples(
       action: 'sample.created',
       targetType: 'sample',
       targetId: sample.id,
-      after: { sample_code: sample.sample_code, heat: sample.heat, source: sample.source, import_id: sample.import_id, results: decodeResults(sample.results_json) },
+      after: {
+        sample_code: sample.sample_code,
+        heat: sample.heat,
+        source: sample.source,
+        import_id: sample.import_id,
+        results: decodeResults(sample.results_json),
+      },
     });
   }
 }
@@ -110,7 +151,14 @@ function burnState(burn: BurnRow) {
 }
 
 /** Excludes or re-includes one burn, recomputes the results and records who, when and why. */
-export async function setBurnExclusion(ctx: AppContext, auth: AuthContext, sampleId: string, burnNumber: number, change: { excluded: boolean; reason: string }, requestId?: string): Promise<void> {
+export async function setBurnExclusion(
+  ctx: AppContext,
+  auth: AuthContext,
+  sampleId: string,
+  burnNumber: number,
+  change: { excluded: boolean; reason: string },
+  requestId?: string,
+): Promise<void> {
   await ctx.db.transaction(async (trx) => {
     const sample = await loadSample(trx, auth, sampleId);
     if (sample.status === 'released') throw new ConflictProblem('This sample is released; amend it instead of changing its burns.');
@@ -124,14 +172,25 @@ export async function setBurnExclusion(ctx: AppContext, auth: AuthContext, sampl
     const method = await findMethod(trx, sample.method_id);
     const now = nowIso();
     const actor = actorOf(auth);
-    const updated: BurnRow = { ...burn, excluded: change.excluded, exclusion_reason: change.reason, excluded_by: actor.label, excluded_at: now };
+    const updated: BurnRow = {
+      ...burn,
+      excluded: change.excluded,
+      exclusion_reason: change.reason,
+      excluded_by: actor.label,
+      excluded_at: now,
+    };
     const next = burns.map((b) => (b.id === burn.id ? updated : b));
     // The burns keep the correction they were stored with: excluding one never changes the set applied.
     const { results, flags } = computeSampleResults(
       next.map((b) => ({ excluded: Boolean(b.excluded), values: JSON.parse(b.values_json), corrected: parseJsonColumn(b.corrected_json) })),
       method!,
     );
-    await updateBurn(trx, burn.id, { excluded: change.excluded, exclusion_reason: change.reason, excluded_by: actor.label, excluded_at: now });
+    await updateBurn(trx, burn.id, {
+      excluded: change.excluded,
+      exclusion_reason: change.reason,
+      excluded_by: actor.label,
+      excluded_at: now,
+    });
     await updateSampleResults(trx, sampleId, { results_json: encodeResults(results), flags_json: JSON.stringify(flags), updated_at: now });
     await recordAudit(trx, {
       actor,

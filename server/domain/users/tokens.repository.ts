@@ -42,7 +42,9 @@ export async function issueToken(db: Queryable, userId: string, purpose: TokenPu
 /** Marks a valid token used and returns its user id; undefined when unknown, used or expired. */
 export async function consumeToken(db: Queryable, token: string, purpose: TokenPurpose): Promise<string | undefined> {
   const now = nowIso();
-  const row = await db<TokenRow>('user_tokens').where({ token_hash: sha256Hex(token), purpose }).first();
+  const row = await db<TokenRow>('user_tokens')
+    .where({ token_hash: sha256Hex(token), purpose })
+    .first();
   if (!row || row.used_at || row.expires_at <= now) return undefined;
   const updated = await db<TokenRow>('user_tokens').where({ id: row.id }).whereNull('used_at').update({ used_at: now });
   return updated === 1 ? row.user_id : undefined;

@@ -43,7 +43,9 @@ export function findUserById(db: Queryable, id: string): Promise<UserRow | undef
 }
 
 export function findUserByEmail(db: Queryable, email: string): Promise<UserRow | undefined> {
-  return db<UserRow>('users').where({ email_key: emailKey(email) }).first();
+  return db<UserRow>('users')
+    .where({ email_key: emailKey(email) })
+    .first();
 }
 
 export async function insertUser(db: Queryable, row: UserRow): Promise<void> {
@@ -65,7 +67,9 @@ export async function countUsers(db: Queryable): Promise<number> {
 }
 
 export function listUserRows(db: Queryable, filters: { role?: Role; status?: UserStatus; afterId?: string; limit: number }) {
-  const query = db<UserRow>('users').orderBy('id', 'asc').limit(filters.limit + 1);
+  const query = db<UserRow>('users')
+    .orderBy('id', 'asc')
+    .limit(filters.limit + 1);
   if (filters.role) query.where('role', filters.role);
   if (filters.status) query.where('status', filters.status);
   if (filters.afterId) query.where('id', '>', filters.afterId);

@@ -51,9 +51,7 @@ export const InviteUserRequestSchema = z
   })
   .openapi('InviteUserRequest');
 
-export const InvitedUserSchema = z
-  .object({ user: UserSchema, invitation_mail: MailOutcomeSchema })
-  .openapi('InvitedUser');
+export const InvitedUserSchema = z.object({ user: UserSchema, invitation_mail: MailOutcomeSchema }).openapi('InvitedUser');
 
 export const UpdateUserRequestSchema = z
   .object({
@@ -64,9 +62,7 @@ export const UpdateUserRequestSchema = z
   .refine((value) => Object.keys(value).length > 0, 'give at least one of name, role, status')
   .openapi('UpdateUserRequest');
 
-export const LoginRequestSchema = z
-  .object({ email: z.string().max(320), password: z.string().max(1000) })
-  .openapi('LoginRequest');
+export const LoginRequestSchema = z.object({ email: z.string().max(320), password: z.string().max(1000) }).openapi('LoginRequest');
 
 export const MeSchema = z
   .object({

@@ -103,7 +103,14 @@ export async function updateUser(
       // Sessions carry the role's scopes; end them so the change takes effect at once.
       await trx('sessions').where({ user_id: id }).whereNull('revoked_at').update({ revoked_at: after.updated_at });
     }
-    await recordAudit(trx, { ...by, action: 'user.updated', targetType: 'user', targetId: id, before: toUser(before), after: toUser(after) });
+    await recordAudit(trx, {
+      ...by,
+      action: 'user.updated',
+      targetType: 'user',
+      targetId: id,
+      before: toUser(before),
+      after: toUser(after),
+    });
     return toUser(after);
   });
 }
@@ -129,7 +136,13 @@ export async function requestPasswordReset(ctx: AppContext, email: string, reque
   const row = await findUserByEmail(ctx.db, email);
   if (!row || row.status !== 'active') return;
   const token = await ctx.db.transaction(async (trx) => {
-    await recordAudit(trx, { actor: SYSTEM_ACTOR, requestId, action: 'user.password_reset_requested', targetType: 'user', targetId: row.id });
+    await recordAudit(trx, {
+      actor: SYSTEM_ACTOR,
+      requestId,
+      action: 'user.password_reset_requested',
+      targetType: 'user',
+      targetId: row.id,
+    });
     return issueToken(trx, row.id, 'password_reset');
   });
   const link = `${ctx.config.publicUrl}/reset-password?token=${encodeURIComponent(token)}`;
@@ -153,7 +166,12 @@ export async function confirmPasswordReset(ctx: AppContext, token: string, passw
 }
 
 /** CLI bootstrap: creates an active admin, or makes an existing user an active admin with this password. */
-export async function ensureAdmin(ctx: Pick<AppContext, 'db'>, email: string, password: string, name = 'Administrator'): Promise<{ user: User; created: boolean }> {
+export async function ensureAdmin(
+  ctx: Pick<AppContext, 'db'>,
+  email: string,
+  password: string,
+  name = 'Administrator',
+): Promise<{ user: User; created: boolean }> {
   const passwordHash = await hashPassword(password);
   return ctx.db.transaction(async (trx) => {
     const existing = await findUserByEmail(trx, email);
@@ -161,12 +179,36 @@ export async function ensureAdmin(ctx: Pick<AppContext, 'db'>, email: string, pa
     if (existing) {
       const changes = { role: 'admin' as const, status: 'active' as const, password_hash: passwordHash, updated_at: now };
       await updateUserRow(trx, existing.id, changes);
-      await recordAudit(trx, { actor: SYSTEM_ACTOR, action: 'user.admin_bootstrapped', targetType: 'user', targetId: existing.id, before: toUser(existing), after: toUser({ ...existing, ...changes }) });
+      await recordAudit(trx, {
+        actor: SYSTEM_ACTOR,
+        action: 'user.admin_bootstrapped',
+        targetType: 'user',
+        targetId: existing.id,
+        before: toUser(existing),
+        after: toUser({ ...existing, ...changes }),
+      });
       return { user: toUser({ ...existing, ...changes }), created: false };
     }
-    const row: UserRow = { id: newId('usr'), email: email.trim(), email_key: emailKey(email), name, role: 'admin', status: 'active', password_hash: passwordHash, created_at: now, updated_at: now, last_login_at: null };
+    const row: UserRow = {
+      id: newId('usr'),
+      email: email.trim(),
+      email_key: emailKey(email),
+      name,
+      role: 'admin',
+      status: 'active',
+      password_hash: passwordHash,
+      created_at: now,
+      updated_at: now,
+      last_login_at: null,
+    };
     await insertUser(trx, row);
-    await recordAudit(trx, { actor: SYSTEM_ACTOR, action: 'user.admin_bootstrapped', targetType: 'user', targetId: row.id, after: toUser(row) });
+    await recordAudit(trx, {
+      actor: SYSTEM_ACTOR,
+      action: 'user.admin_bootstrapped',
+      targetType: 'user',
+      targetId: row.id,
+      after: toUser(row),
+    });
     return { user: toUser(row), created: true };
   });
 }

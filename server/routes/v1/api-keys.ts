@@ -32,7 +32,14 @@ export const apiKeyRoutes = [
         limit: query.limit,
       });
       const now = new Date().toISOString();
-      res.json(pageOf(rows, query.limit, (row) => toApiKey(row, now), (row) => ({ id: row.id })));
+      res.json(
+        pageOf(
+          rows,
+          query.limit,
+          (row) => toApiKey(row, now),
+          (row) => ({ id: row.id }),
+        ),
+      );
     },
   }),
   defineRoute({
@@ -92,7 +99,11 @@ export const apiKeyRoutes = [
     body: RollApiKeyRequestSchema,
     secretInResponse: true,
     responses: {
-      201: { description: 'The replacement, with its secret shown once.', schema: ApiKeyWithSecretSchema, headers: { Location: 'The new key.' } },
+      201: {
+        description: 'The replacement, with its secret shown once.',
+        schema: ApiKeyWithSecretSchema,
+        headers: { Location: 'The new key.' },
+      },
       404: { description: 'No such key, or not yours.' },
       409: { description: 'The key is revoked or expired.' },
     },

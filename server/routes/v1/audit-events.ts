@@ -9,7 +9,8 @@ export const auditRoutes = [
     path: '/audit-events',
     operationId: 'listAuditEvents',
     summary: 'The audit trail, newest first',
-    description: 'Every state-changing call: who (user or API key), what, which record, when, and the record before and after where it applies.',
+    description:
+      'Every state-changing call: who (user or API key), what, which record, when, and the record before and after where it applies.',
     tag: 'Audit',
     access: { scope: 'audit:read' },
     query: AuditQuerySchema,
@@ -26,7 +27,14 @@ export const auditRoutes = [
         after,
         limit: query.limit,
       });
-      res.json(pageOf(rows, query.limit, (row) => row, (row) => ({ occurred_at: row.occurred_at, id: row.id })));
+      res.json(
+        pageOf(
+          rows,
+          query.limit,
+          (row) => row,
+          (row) => ({ occurred_at: row.occurred_at, id: row.id }),
+        ),
+      );
     },
   }),
 ];

@@ -1,6 +1,12 @@
 import { correctionsInForce, driftHistory } from '../../domain/drift/drift-history.service.ts';
 import { CORRECTION_APPLY_DOC } from '../../domain/drift/drift-docs.ts';
-import { CorrectionsInForceSchema, CorrectionsQuerySchema, DriftHistorySchema, DriftQuerySchema, InstrumentStandardizationParams } from '../../domain/drift/standardizations.schemas.ts';
+import {
+  CorrectionsInForceSchema,
+  CorrectionsQuerySchema,
+  DriftHistorySchema,
+  DriftQuerySchema,
+  InstrumentStandardizationParams,
+} from '../../domain/drift/standardizations.schemas.ts';
 import { defineRoute } from '../../http/route.ts';
 
 export const driftRoutes = [
@@ -30,7 +36,10 @@ export const driftRoutes = [
     access: { scope: 'standardizations:read' },
     params: InstrumentStandardizationParams,
     query: CorrectionsQuerySchema,
-    responses: { 200: { description: 'The sets in force.', schema: CorrectionsInForceSchema }, 404: { description: 'No such instrument.' } },
+    responses: {
+      200: { description: 'The sets in force.', schema: CorrectionsInForceSchema },
+      404: { description: 'No such instrument.' },
+    },
     async handler({ params, query, auth, res, ctx }) {
       res.json(await correctionsInForce(ctx, auth, params.id, query.at));
     },

@@ -66,7 +66,8 @@ export const importProfileRoutes = [
     path: '/import-profiles/{id}',
     operationId: 'updateImportProfile',
     summary: 'Change an import profile',
-    description: 'Top-level fields replace the stored ones (`columns` is replaced whole); the changed profile is validated as a whole and its `revision` goes up by one.',
+    description:
+      'Top-level fields replace the stored ones (`columns` is replaced whole); the changed profile is validated as a whole and its `revision` goes up by one.',
     tag: 'Import profiles',
     access: { scope: 'imports:write' },
     params: ImportProfileIdParams,

@@ -1,5 +1,13 @@
 import { listImportRows, findImportFile, toImport } from '../../domain/imports/imports.repository.ts';
-import { ImportIdParams, ImportListQuerySchema, ImportListSchema, ImportPreviewRequestSchema, ImportPreviewSchema, ImportSchema, ImportUploadSchema } from '../../domain/imports/imports.schemas.ts';
+import {
+  ImportIdParams,
+  ImportListQuerySchema,
+  ImportListSchema,
+  ImportPreviewRequestSchema,
+  ImportPreviewSchema,
+  ImportSchema,
+  ImportUploadSchema,
+} from '../../domain/imports/imports.schemas.ts';
 import { getImport, previewImport, uploadImport } from '../../domain/imports/imports.service.ts';
 import { AUTO_DETECTION_DESCRIPTION } from '../../domain/imports/import-profiles.schemas.ts';
 import { NotFoundProblem } from '../../http/problem.ts';
@@ -28,10 +36,16 @@ export const importRoutes = [
     before: (ctx) => [singleFileUpload('file', ctx.config.importMaxBytes)],
     responses: {
       200: { description: 'These bytes were imported before: the earlier import, unchanged.', schema: ImportSchema },
-      201: { description: 'Imported; the report lists what was created, warnings and rejected lines.', schema: ImportSchema, headers: { Location: 'The new import.' } },
-      413: { description: 'The file exceeds IMPORT_MAX_BYTES; the problem\'s `limit_bytes` gives the limit.' },
+      201: {
+        description: 'Imported; the report lists what was created, warnings and rejected lines.',
+        schema: ImportSchema,
+        headers: { Location: 'The new import.' },
+      },
+      413: { description: "The file exceeds IMPORT_MAX_BYTES; the problem's `limit_bytes` gives the limit." },
       415: { description: 'Not a multipart/form-data request.' },
-      422: { description: `The file cannot be read, a value is broken (all-or-nothing), or a referenced instrument, method or profile does not exist. ${FILE_ISSUES_NOTE}` },
+      422: {
+        description: `The file cannot be read, a value is broken (all-or-nothing), or a referenced instrument, method or profile does not exist. ${FILE_ISSUES_NOTE}`,
+      },
     },
     async handler({ body, auth, req, res, ctx }) {
       const { created, record } = await uploadImport(ctx, auth, body, req.requestId);
@@ -44,7 +58,8 @@ export const importRoutes = [
     path: '/imports/preview',
     operationId: 'previewImport',
     summary: 'Read a result file without storing anything',
-    description: 'Shows how the file would be read: recognised columns, the first samples, warnings and rejected lines, and whether these bytes were imported before.',
+    description:
+      'Shows how the file would be read: recognised columns, the first samples, warnings and rejected lines, and whether these bytes were imported before.',
     tag: 'Imports',
     access: { scope: 'imports:write' },
     body: ImportPreviewRequestSchema,
@@ -52,7 +67,7 @@ export const importRoutes = [
     before: (ctx) => [singleFileUpload('file', ctx.config.importMaxBytes)],
     responses: {
       200: { description: 'How the file reads.', schema: ImportPreviewSchema },
-      413: { description: 'The file exceeds IMPORT_MAX_BYTES; the problem\'s `limit_bytes` gives the limit.' },
+      413: { description: "The file exceeds IMPORT_MAX_BYTES; the problem's `limit_bytes` gives the limit." },
       415: { description: 'Not a multipart/form-data request.' },
       422: { description: `The file cannot be read as result data, or a reference does not exist. ${FILE_ISSUES_NOTE}` },
     },
@@ -71,7 +86,12 @@ export const importRoutes = [
     responses: { 200: { description: 'A page of imports.', schema: ImportListSchema } },
     async handler({ query, auth, res, ctx }) {
       const afterId = query.cursor ? decodeCursor<{ id: string }>(query.cursor, ['id']).id : undefined;
-      const rows = await listImportRows(ctx.db, { instrumentId: query.instrument_id, onlyInstrumentIds: auth.instrumentIds, afterId, limit: query.limit });
+      const rows = await listImportRows(ctx.db, {
+        instrumentId: query.instrument_id,
+        onlyInstrumentIds: auth.instrumentIds,
+        afterId,
+        limit: query.limit,
+      });
       res.json(pageOf(rows, query.limit, toImport, (row) => ({ id: row.id })));
     },
   }),
@@ -97,12 +117,17 @@ export const importRoutes = [
     access: { scope: 'samples:read' },
     params: ImportIdParams,
     responses: {
-      200: { description: 'The bytes as uploaded, with their SHA-256 in the `x-content-sha256` header.', contentType: 'application/octet-stream', schema: z.string().openapi({ format: 'binary' }) },
+      200: {
+        description: 'The bytes as uploaded, with their SHA-256 in the `x-content-sha256` header.',
+        contentType: 'application/octet-stream',
+        schema: z.string().openapi({ format: 'binary' }),
+      },
       404: { description: 'No such import.' },
     },
     async handler({ params, auth, res, ctx }) {
       const file = await findImportFile(ctx.db, params.id);
-      if (!file || (auth.instrumentIds && !auth.instrumentIds.includes(file.instrument_id))) throw new NotFoundProblem(`No import ${params.id}.`);
+      if (!file || (auth.instrumentIds && !auth.instrumentIds.includes(file.instrument_id)))
+        throw new NotFoundProblem(`No import ${params.id}.`);
       res.setHeader('Content-Type', file.content_type);
       res.setHeader('x-content-sha256', file.sha256);
       res.attachment(file.file_name);

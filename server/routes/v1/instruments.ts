@@ -25,7 +25,14 @@ export const instrumentRoutes = [
     async handler({ query, auth, res, ctx }) {
       const afterCode = query.cursor ? decodeCursor<{ code: string }>(query.cursor, ['code']).code : undefined;
       const rows = await listInstrumentRows(ctx.db, { afterCode, onlyIds: auth.instrumentIds, limit: query.limit });
-      res.json(pageOf(rows, query.limit, (row) => row, (row) => ({ code: row.code })));
+      res.json(
+        pageOf(
+          rows,
+          query.limit,
+          (row) => row,
+          (row) => ({ code: row.code }),
+        ),
+      );
     },
   }),
   defineRoute({
@@ -62,7 +69,7 @@ export const instrumentRoutes = [
     method: 'patch',
     path: '/instruments/{id}',
     operationId: 'updateInstrument',
-    summary: 'Change an instrument\'s code, name or site',
+    summary: "Change an instrument's code, name or site",
     tag: 'Instruments',
     access: { scope: 'instruments:write' },
     params: InstrumentIdParams,

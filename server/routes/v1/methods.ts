@@ -24,7 +24,14 @@ export const methodRoutes = [
     async handler({ query, res, ctx }) {
       const afterCode = query.cursor ? decodeCursor<{ code: string }>(query.cursor, ['code']).code : undefined;
       const methods = await listMethods(ctx.db, { matrix: query.matrix, afterCode, limit: query.limit });
-      res.json(pageOf(methods, query.limit, (m) => m, (m) => ({ code: m.code })));
+      res.json(
+        pageOf(
+          methods,
+          query.limit,
+          (m) => m,
+          (m) => ({ code: m.code }),
+        ),
+      );
     },
   }),
   defineRoute({
@@ -61,7 +68,7 @@ export const methodRoutes = [
     method: 'patch',
     path: '/methods/{id}',
     operationId: 'updateMethod',
-    summary: 'Change a method\'s name, default unit or element settings',
+    summary: "Change a method's name, default unit or element settings",
     description: 'Results already stored keep the settings they were computed with.',
     tag: 'Methods',
     access: { scope: 'methods:write' },

@@ -19,7 +19,8 @@ export const outboxRoutes = [
     path: '/dev/outbox',
     operationId: 'listOutbox',
     summary: 'E-mails captured by the built-in SMTP server (development only)',
-    description: 'Available when `SMTP_URL` is not set outside production: Meltwire then runs its own SMTP server and keeps the last 200 messages here instead of delivering them.',
+    description:
+      'Available when `SMTP_URL` is not set outside production: Meltwire then runs its own SMTP server and keeps the last 200 messages here instead of delivering them.',
     tag: 'System',
     access: { scope: 'users:write' },
     responses: {

@@ -54,7 +54,10 @@ export const referenceMaterialRoutes = [
     tag: 'Drift correction',
     access: { scope: 'standardizations:read' },
     params: ReferenceMaterialIdParams,
-    responses: { 200: { description: 'The reference material.', schema: ReferenceMaterialSchema }, 404: { description: 'No such reference material.' } },
+    responses: {
+      200: { description: 'The reference material.', schema: ReferenceMaterialSchema },
+      404: { description: 'No such reference material.' },
+    },
     async handler({ params, res, ctx }) {
       res.json(toReferenceMaterialView(await getReferenceMaterial(ctx, params.id)));
     },

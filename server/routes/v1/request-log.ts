@@ -55,7 +55,11 @@ export const requestLogRoutes = [
     access: { scope: 'request-log:read' },
     params: RequestLogIdParams,
     responses: {
-      201: { description: 'Replayed; the body is the new entry, with the replayed call\'s status and response.', schema: RequestLogEntrySchema, headers: { Location: 'The new entry.' } },
+      201: {
+        description: "Replayed; the body is the new entry, with the replayed call's status and response.",
+        schema: RequestLogEntrySchema,
+        headers: { Location: 'The new entry.' },
+      },
       404: { description: 'No such entry, or not yours.' },
       422: { description: 'This entry cannot be replayed; `detail` says why.' },
     },

@@ -10,7 +10,7 @@ export const sampleRecomputeRoutes = [
     method: 'post',
     path: '/samples/{id}/recompute',
     operationId: 'recomputeSample',
-    summary: 'Recompute a sample\'s results against another correction set, or none',
+    summary: "Recompute a sample's results against another correction set, or none",
     description:
       'Every burn is corrected with the activated set named in `correction_set_id` (of the sample\'s instrument and method), or left uncorrected with `null`; the results are recomputed from the kept measured values. The reason, who and when are stored with the sample (`correction.selection = "requested"`) and the audit trail keeps the results before and after. Released samples cannot be recomputed (409).\n\n' +
       CORRECTION_APPLY_DOC,

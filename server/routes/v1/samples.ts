@@ -41,7 +41,12 @@ export const sampleRoutes = [
       const order = { by, after: after && after.by === by ? after : undefined } as SampleOrder;
       const rows = await listSampleRows(ctx.db, { ...query, onlyInstrumentIds: auth.instrumentIds }, order, query.limit);
       res.json(
-        pageOf(rows, query.limit, (row) => toSampleSummary(row, query.unit), (row) => ({ by, t: by === 'updated_asc' ? row.updated_at : row.created_at, id: row.id })),
+        pageOf(
+          rows,
+          query.limit,
+          (row) => toSampleSummary(row, query.unit),
+          (row) => ({ by, t: by === 'updated_asc' ? row.updated_at : row.created_at, id: row.id }),
+        ),
       );
     },
   }),
@@ -61,10 +66,16 @@ export const sampleRoutes = [
     async handler({ query, auth, res, ctx }) {
       const by = query.updated_since ? 'updated_asc' : 'created_desc';
       const rows = await listSampleRows(ctx.db, { ...query, onlyInstrumentIds: auth.instrumentIds }, { by } as SampleOrder, CSV_MAX_ROWS);
-      if (rows.length > CSV_MAX_ROWS) throw new UnprocessableProblem(`More than ${CSV_MAX_ROWS} samples match: narrow the filters (e.g. created_from/created_to).`);
+      if (rows.length > CSV_MAX_ROWS)
+        throw new UnprocessableProblem(`More than ${CSV_MAX_ROWS} samples match: narrow the filters (e.g. created_from/created_to).`);
       res.type('text/csv; charset=utf-8');
       res.attachment(`samples-${new Date().toISOString().slice(0, 10)}.csv`);
-      res.send(samplesToCsv(rows.map((row) => toSampleSummary(row, query.unit)), query.unit));
+      res.send(
+        samplesToCsv(
+          rows.map((row) => toSampleSummary(row, query.unit)),
+          query.unit,
+        ),
+      );
     },
   }),
   defineRoute({
@@ -83,7 +94,10 @@ export const sampleRoutes = [
     },
     async handler({ body, auth, req, res, ctx }) {
       const [id] = await pushSamples(ctx, auth, [body], false, req.requestId);
-      res.status(201).location(`/api/v1/samples/${id}`).json(await loadSampleDetail(ctx.db, auth, id, '%'));
+      res
+        .status(201)
+        .location(`/api/v1/samples/${id}`)
+        .json(await loadSampleDetail(ctx.db, auth, id, '%'));
     },
   }),
   defineRoute({
@@ -126,7 +140,8 @@ export const sampleRoutes = [
     path: '/samples/{id}/burns/{n}',
     operationId: 'setBurnExclusion',
     summary: 'Exclude a burn from the results, or include it again',
-    description: 'The burn is never deleted. The results are recomputed, and the change is audited with the reason, who and when. Released samples cannot be changed this way (409).',
+    description:
+      'The burn is never deleted. The results are recomputed, and the change is audited with the reason, who and when. Released samples cannot be changed this way (409).',
     tag: 'Samples',
     access: { scope: 'samples:write' },
     params: BurnParams,

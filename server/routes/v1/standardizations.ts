@@ -23,16 +23,23 @@ export const standardizationRoutes = [
     operationId: 'createStandardization',
     summary: 'Run a standardization: per-element corrections from reference burns',
     description:
-      'Send the burns of each reference material as measured (uncorrected), in `unit` (default: the method\'s). The run is stored as a `draft` with a correction per element of the method, its flag and reasons, and the slope and offset of the set in force for comparison; it changes nothing until activated (`POST /standardizations/{id}/activate`). A run with any `warn` or `fail` element records the event `standardization.flagged`. Burns are entered as JSON; reading them from a result file is not offered yet.\n\n' +
+      "Send the burns of each reference material as measured (uncorrected), in `unit` (default: the method's). The run is stored as a `draft` with a correction per element of the method, its flag and reasons, and the slope and offset of the set in force for comparison; it changes nothing until activated (`POST /standardizations/{id}/activate`). A run with any `warn` or `fail` element records the event `standardization.flagged`. Burns are entered as JSON; reading them from a result file is not offered yet.\n\n" +
       `${CORRECTION_MATH_DOC}\n\n${CORRECTION_FLAGS_DOC}`,
     tag: 'Drift correction',
     access: { scope: 'standardizations:write' },
     params: InstrumentStandardizationParams,
     body: CreateStandardizationRequestSchema,
     responses: {
-      201: { description: 'Computed and stored as a draft.', schema: StandardizationSchema, headers: { Location: 'The new standardization.' } },
+      201: {
+        description: 'Computed and stored as a draft.',
+        schema: StandardizationSchema,
+        headers: { Location: 'The new standardization.' },
+      },
       404: { description: 'No such instrument.' },
-      422: { description: 'Unknown method or reference material; references that do not fit the mode (e.g. two_point without a high and a low, a control sample, another matrix); or no correction can be computed for an element (H = L): `errors[]` names each.' },
+      422: {
+        description:
+          'Unknown method or reference material; references that do not fit the mode (e.g. two_point without a high and a low, a control sample, another matrix); or no correction can be computed for an element (H = L): `errors[]` names each.',
+      },
     },
     async handler({ params, body, auth, req, res, ctx }) {
       const run = await createStandardization(ctx, auth, params.id, body, req.requestId);
@@ -43,7 +50,7 @@ export const standardizationRoutes = [
     method: 'get',
     path: '/instruments/{id}/standardizations',
     operationId: 'listStandardizations',
-    summary: 'List an instrument\'s standardization runs',
+    summary: "List an instrument's standardization runs",
     description: 'Newest measurement first.',
     tag: 'Drift correction',
     access: { scope: 'standardizations:read' },
@@ -53,10 +60,17 @@ export const standardizationRoutes = [
     async handler({ params, query, auth, res, ctx }) {
       await getInstrument(ctx, auth, params.id);
       const after = query.cursor ? decodeCursor<{ t: string; id: string }>(query.cursor, ['t', 'id']) : undefined;
-      const rows = await listStandardizationRows(ctx.db, { instrumentId: params.id, methodId: query.method_id, status: query.status, flag: query.flag, after }, query.limit);
+      const rows = await listStandardizationRows(
+        ctx.db,
+        { instrumentId: params.id, methodId: query.method_id, status: query.status, flag: query.flag, after },
+        query.limit,
+      );
       const page = rows.slice(0, query.limit);
       const last = page[page.length - 1];
-      res.json({ data: await toStandardizationViews(ctx.db, page), next_cursor: rows.length > query.limit ? encodeCursor({ t: last.measured_at, id: last.id }) : null });
+      res.json({
+        data: await toStandardizationViews(ctx.db, page),
+        next_cursor: rows.length > query.limit ? encodeCursor({ t: last.measured_at, id: last.id }) : null,
+      });
     },
   }),
   defineRoute({
@@ -87,7 +101,10 @@ export const standardizationRoutes = [
     responses: {
       200: { description: 'Activated.', schema: StandardizationSchema },
       404: { description: 'No such standardization.' },
-      409: { description: 'Already activated; a run measured later is already activated; or an element is flagged `fail` and no `override_reason` was given (`failing_elements` lists them).' },
+      409: {
+        description:
+          'Already activated; a run measured later is already activated; or an element is flagged `fail` and no `override_reason` was given (`failing_elements` lists them).',
+      },
       422: { description: '`effective_from` is in the past.' },
     },
     async handler({ params, body, auth, req, res, ctx }) {

@@ -35,7 +35,8 @@ export const userRoutes = [
     path: '/users',
     operationId: 'inviteUser',
     summary: 'Invite a user by e-mail',
-    description: 'Creates the user with status `invited` and e-mails a link to choose a password (valid 7 days). `invitation_mail.delivered` says whether the SMTP server took the message.',
+    description:
+      'Creates the user with status `invited` and e-mails a link to choose a password (valid 7 days). `invitation_mail.delivered` says whether the SMTP server took the message.',
     tag: 'Users',
     access: { scope: 'users:write' },
     body: InviteUserRequestSchema,
@@ -65,7 +66,7 @@ export const userRoutes = [
     method: 'patch',
     path: '/users/{id}',
     operationId: 'updateUser',
-    summary: 'Change a user\'s name, role or status',
+    summary: "Change a user's name, role or status",
     description: 'Changing the role or disabling the user ends their sessions. The last active admin cannot be demoted or disabled (409).',
     tag: 'Users',
     access: { scope: 'users:write' },

@@ -20,7 +20,12 @@ export function AcceptInvitationPage() {
         </Alert>
       )}
       {token && !accept.isSuccess && (
-        <ChoosePasswordForm submitLabel="Activate my account" pending={accept.isPending} error={accept.error} onSubmit={(password) => accept.mutate({ token, password })} />
+        <ChoosePasswordForm
+          submitLabel="Activate my account"
+          pending={accept.isPending}
+          error={accept.error}
+          onSubmit={(password) => accept.mutate({ token, password })}
+        />
       )}
     </AuthFrame>
   );

@@ -5,7 +5,10 @@ import { RequireScope } from '../../features/auth/components/require-scope.tsx';
 export function AuditPage() {
   return (
     <RequireScope scope="audit:read">
-      <PageHeader title="Audit trail" description="Every change: who (user or API key), what, which record, when — with the record before and after. Entries are never edited or deleted." />
+      <PageHeader
+        title="Audit trail"
+        description="Every change: who (user or API key), what, which record, when — with the record before and after. Entries are never edited or deleted."
+      />
       <AuditTable />
     </RequireScope>
   );

@@ -32,33 +32,54 @@ export function DriftRunPage() {
         <>
           <PageHeader
             title={`Standardization of ${run.data.instrument.code} · ${run.data.method.code}`}
-            description={<>Measured {formatTime(run.data.measured_at)} by {run.data.created_by}. <Link className="text-copper-700 underline" to={`/drift?instrument=${run.data.instrument.id}&method=${run.data.method.id}`}>Back to the drift history</Link></>}
-            actions={
-              run.data.status === 'draft' && canActivate && <Button onClick={() => setActivating(true)}>Activate…</Button>
+            description={
+              <>
+                Measured {formatTime(run.data.measured_at)} by {run.data.created_by}.{' '}
+                <Link className="text-copper-700 underline" to={`/drift?instrument=${run.data.instrument.id}&method=${run.data.method.id}`}>
+                  Back to the drift history
+                </Link>
+              </>
             }
+            actions={run.data.status === 'draft' && canActivate && <Button onClick={() => setActivating(true)}>Activate…</Button>}
           />
           <div className="space-y-6">
             <div className="flex flex-wrap items-center gap-4 text-sm">
-              <span>Overall: <FlagBadge flag={run.data.flag} /></span>
-              <StatusText status={run.data.status} inForce={run.data.in_force} effectiveFrom={run.data.activation?.effective_from ?? null} />
+              <span>
+                Overall: <FlagBadge flag={run.data.flag} />
+              </span>
+              <StatusText
+                status={run.data.status}
+                inForce={run.data.in_force}
+                effectiveFrom={run.data.activation?.effective_from ?? null}
+              />
               <span className="text-slag-500">Mode: {run.data.mode.replace(/_/g, ' ')}</span>
               {run.data.note && <span className="text-slag-500">Note: {run.data.note}</span>}
             </div>
             {run.data.activation && (
-              <Alert tone={run.data.activation.override_reason ? 'caution' : 'info'} title={`Activated ${formatTime(run.data.activation.activated_at)} by ${run.data.activation.activated_by}, in force from ${formatTime(run.data.activation.effective_from)}`}>
-                {run.data.activation.override_reason && <p data-testid="override-reason">Override: {run.data.activation.override_reason}</p>}
+              <Alert
+                tone={run.data.activation.override_reason ? 'caution' : 'info'}
+                title={`Activated ${formatTime(run.data.activation.activated_at)} by ${run.data.activation.activated_by}, in force from ${formatTime(run.data.activation.effective_from)}`}
+              >
+                {run.data.activation.override_reason && (
+                  <p data-testid="override-reason">Override: {run.data.activation.override_reason}</p>
+                )}
               </Alert>
             )}
             {run.data.status === 'draft' && superseded && (
-              <p className="text-sm text-slag-500">A draft that can no longer be activated: a run measured later is in force. Run a new standardization instead.</p>
+              <p className="text-sm text-slag-500">
+                A draft that can no longer be activated: a run measured later is in force. Run a new standardization instead.
+              </p>
             )}
-            {run.data.status === 'draft' && !superseded && !canActivate && <p className="text-sm text-slag-500">A draft: a lab manager or admin reviews and activates it.</p>}
+            {run.data.status === 'draft' && !superseded && !canActivate && (
+              <p className="text-sm text-slag-500">A draft: a lab manager or admin reviews and activates it.</p>
+            )}
             <CorrectionsTable corrections={run.data.corrections} />
             <Card title="Reference measurements">
               <ul className="space-y-1 text-sm">
                 {run.data.measurements.map((m) => (
                   <li key={m.reference_material.id}>
-                    <strong>{m.reference_material.code}</strong> ({m.reference_material.kind}) — {m.burns.length} burn{m.burns.length === 1 ? '' : 's'}
+                    <strong>{m.reference_material.code}</strong> ({m.reference_material.kind}) — {m.burns.length} burn
+                    {m.burns.length === 1 ? '' : 's'}
                   </li>
                 ))}
               </ul>

@@ -14,7 +14,8 @@ function DriftHistory({ selection, instrumentCode }: { selection: DriftSelection
   const drift = useDrift(selection.instrumentId, selection.element, selection.methodId);
   if (drift.isPending) return <Spinner label="Loading the drift history…" />;
   if (drift.error) return <ProblemAlert error={drift.error} />;
-  if (drift.data.points.length === 0) return <EmptyState title={`No standardization of ${selection.element} yet`}>Run one to start the history.</EmptyState>;
+  if (drift.data.points.length === 0)
+    return <EmptyState title={`No standardization of ${selection.element} yet`}>Run one to start the history.</EmptyState>;
   return <DriftChart points={drift.data.points} element={selection.element} instrumentCode={instrumentCode} />;
 }
 
@@ -36,7 +37,13 @@ export function DriftPage() {
       <PageHeader
         title="Drift"
         description="Standardization runs per instrument and method: slope and offset of each element over time, their flags, and the correction set in force. Corrections are applied to concentrations (result files carry no intensity ratios)."
-        actions={hasScope(me, 'standardizations:write') && <Link className="rounded-md bg-ember-600 px-3.5 py-2 text-sm font-medium text-white hover:bg-ember-700" to="/drift/new">Run a standardization</Link>}
+        actions={
+          hasScope(me, 'standardizations:write') && (
+            <Link className="rounded-md bg-ember-600 px-3.5 py-2 text-sm font-medium text-white hover:bg-ember-700" to="/drift/new">
+              Run a standardization
+            </Link>
+          )
+        }
       />
       {instruments.isPending || methods.isPending || (instrumentId && inForce.isPending) ? (
         <Spinner />
@@ -47,14 +54,21 @@ export function DriftPage() {
       ) : (
         <div className="space-y-6">
           <div className="flex flex-wrap items-start justify-between gap-6">
-            <DriftFilters instruments={instruments.data} methods={methods.data} value={selection} onChange={(next) => setParams({ instrument: next.instrumentId, method: next.methodId, element: next.element })} />
+            <DriftFilters
+              instruments={instruments.data}
+              methods={methods.data}
+              value={selection}
+              onChange={(next) => setParams({ instrument: next.instrumentId, method: next.methodId, element: next.element })}
+            />
             <InForceCard instrumentId={instrumentId} methodId={methodId} />
           </div>
           <Card title={`${selection.element} on ${instrument.code} — slope and offset over time`}>
             <DriftHistory selection={selection} instrumentCode={instrument.code} />
           </Card>
           <section className="space-y-3">
-            <h2 className="text-sm font-semibold uppercase tracking-wide text-slag-500">Runs of {instrument.code} with {method.code}</h2>
+            <h2 className="text-sm font-semibold uppercase tracking-wide text-slag-500">
+              Runs of {instrument.code} with {method.code}
+            </h2>
             <RunsTable instrumentId={instrumentId} methodId={methodId} />
           </section>
         </div>

@@ -9,7 +9,10 @@ export function HomePage() {
   const { data: me } = useMe();
   return (
     <>
-      <PageHeader title={`Welcome, ${me?.user.name ?? ''}`} description="Meltwire is the results hub between the spark stand and everything else: ERP/MES, melt shop screens, quality and certificates." />
+      <PageHeader
+        title={`Welcome, ${me?.user.name ?? ''}`}
+        description="Meltwire is the results hub between the spark stand and everything else: ERP/MES, melt shop screens, quality and certificates."
+      />
       <div className="grid gap-6 lg:grid-cols-2">
         {hasScope(me, 'samples:read') && <RecentSamplesCard />}
         <HealthCard />
@@ -30,21 +33,37 @@ export function HomePage() {
         <Card title="Start integrating" className="lg:col-span-2">
           <ol className="list-decimal space-y-1 pl-5 text-sm">
             <li>
-              Issue a key with only the scopes your integration needs on <Link className="text-copper-700 underline" to="/api-keys">API keys</Link>.
+              Issue a key with only the scopes your integration needs on{' '}
+              <Link className="text-copper-700 underline" to="/api-keys">
+                API keys
+              </Link>
+              .
             </li>
             <li>
-              Make your first call with the copy-paste examples on <Link className="text-copper-700 underline" to="/quick-start">Quick start</Link>; every operation is on{' '}
-              <Link className="text-copper-700 underline" to="/reference">API reference</Link>.
+              Make your first call with the copy-paste examples on{' '}
+              <Link className="text-copper-700 underline" to="/quick-start">
+                Quick start
+              </Link>
+              ; every operation is on{' '}
+              <Link className="text-copper-700 underline" to="/reference">
+                API reference
+              </Link>
+              .
             </li>
             <li>
-              Every error is an RFC 9457 problem (<code>application/problem+json</code>) with a request id to quote; the <Link className="text-copper-700 underline" to="/request-log">Request log</Link> shows each call and replays it.
+              Every error is an RFC 9457 problem (<code>application/problem+json</code>) with a request id to quote; the{' '}
+              <Link className="text-copper-700 underline" to="/request-log">
+                Request log
+              </Link>{' '}
+              shows each call and replays it.
             </li>
           </ol>
         </Card>
       </div>
       <div className="mt-6">
         <Alert tone="caution" title="Released results decide whether a heat ships">
-          Meltwire computes and records; it does not replace review. Results must be reviewed and authorised under your laboratory&apos;s own accredited procedures before they are released or put on a certificate.
+          Meltwire computes and records; it does not replace review. Results must be reviewed and authorised under your laboratory&apos;s
+          own accredited procedures before they are released or put on a certificate.
         </Alert>
       </div>
     </>

@@ -13,7 +13,10 @@ export function ImportsPage() {
         description="Every uploaded result file with its report, newest first. The raw file is kept exactly as uploaded."
         actions={
           hasScope(me, 'imports:write') && (
-            <Link to="/imports/new" className="inline-flex items-center rounded-md bg-ember-600 px-3.5 py-2 text-sm font-medium text-white hover:bg-ember-700">
+            <Link
+              to="/imports/new"
+              className="inline-flex items-center rounded-md bg-ember-600 px-3.5 py-2 text-sm font-medium text-white hover:bg-ember-700"
+            >
               Upload results
             </Link>
           )

@@ -12,8 +12,19 @@ export function QuickStartPage() {
         title="Quick start"
         description={
           <>
-            Copy-paste examples for this server. Issue a key on <Link className="text-copper-700 underline" to="/api-keys">API keys</Link>, run them, then find each call in the{' '}
-            <Link className="text-copper-700 underline" to="/request-log">Request log</Link>. Every operation is in the <Link className="text-copper-700 underline" to="/reference">API reference</Link>.
+            Copy-paste examples for this server. Issue a key on{' '}
+            <Link className="text-copper-700 underline" to="/api-keys">
+              API keys
+            </Link>
+            , run them, then find each call in the{' '}
+            <Link className="text-copper-700 underline" to="/request-log">
+              Request log
+            </Link>
+            . Every operation is in the{' '}
+            <Link className="text-copper-700 underline" to="/reference">
+              API reference
+            </Link>
+            .
           </>
         }
       />
@@ -31,10 +42,13 @@ export function QuickStartPage() {
           </Card>
         ))}
         <Alert tone="info" title="Retry writes safely">
-          Send an <code>Idempotency-Key</code> header (a new UUID per logical write) with every POST, PATCH and DELETE. Retrying with the same key and body within 24 hours returns the first answer again, marked <code>Idempotent-Replayed: true</code>, instead of writing twice.
+          Send an <code>Idempotency-Key</code> header (a new UUID per logical write) with every POST, PATCH and DELETE. Retrying with the
+          same key and body within 24 hours returns the first answer again, marked <code>Idempotent-Replayed: true</code>, instead of
+          writing twice.
         </Alert>
         <Alert tone="info" title="Stay within the rate limit">
-          Each key has its own budget per minute. Every response carries <code>RateLimit</code> and <code>RateLimit-Policy</code> headers; over the budget you get <code>429</code> with <code>Retry-After</code> in seconds.
+          Each key has its own budget per minute. Every response carries <code>RateLimit</code> and <code>RateLimit-Policy</code> headers;
+          over the budget you get <code>429</code> with <code>Retry-After</code> in seconds.
         </Alert>
       </div>
     </>

@@ -15,10 +15,14 @@ export function ReferencePage() {
   const { data: me } = useMe();
   return (
     <>
-      <PageHeader title="API reference" description="Generated from the same schemas that validate requests. Each operation names the scope it needs." />
+      <PageHeader
+        title="API reference"
+        description="Generated from the same schemas that validate requests. Each operation names the scope it needs."
+      />
       <div className="mb-4">
         <Alert tone="info" title={`“Try it out” calls the API as ${me?.user.email ?? 'you'}`}>
-          Calls made here carry your session, so your role&apos;s scopes apply ({me?.scopes.length ?? 0} scopes) and they appear in the Request log. Integrations use an API key instead: <code>Authorization: Bearer mw_live_…</code>.
+          Calls made here carry your session, so your role&apos;s scopes apply ({me?.scopes.length ?? 0} scopes) and they appear in the
+          Request log. Integrations use an API key instead: <code>Authorization: Bearer mw_live_…</code>.
         </Alert>
       </div>
       <div className="meltwire-reference rounded-lg border border-ash-200 bg-white px-4" data-testid="api-reference">

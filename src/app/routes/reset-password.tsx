@@ -26,7 +26,14 @@ function RequestResetForm() {
   return (
     <form onSubmit={submit} className="space-y-4" noValidate>
       <ProblemAlert error={request.error} fields={['email']} />
-      <TextField label="E-mail" type="email" autoComplete="username" value={email} onChange={(e) => setEmail(e.target.value)} error={problem?.fieldError('email')} />
+      <TextField
+        label="E-mail"
+        type="email"
+        autoComplete="username"
+        value={email}
+        onChange={(e) => setEmail(e.target.value)}
+        error={problem?.fieldError('email')}
+      />
       <Button type="submit" className="w-full" disabled={request.isPending}>
         Send me a reset link
       </Button>
@@ -49,7 +56,14 @@ export function ResetPasswordPage() {
           with the new password.
         </Alert>
       )}
-      {token && !confirm.isSuccess && <ChoosePasswordForm submitLabel="Save the new password" pending={confirm.isPending} error={confirm.error} onSubmit={(password) => confirm.mutate({ token, password })} />}
+      {token && !confirm.isSuccess && (
+        <ChoosePasswordForm
+          submitLabel="Save the new password"
+          pending={confirm.isPending}
+          error={confirm.error}
+          onSubmit={(password) => confirm.mutate({ token, password })}
+        />
+      )}
       <p className="mt-6 text-center text-sm">
         <Link to="/sign-in" className="text-copper-700 hover:underline">
           Back to sign-in

@@ -3,7 +3,11 @@ import { Alert } from '../../components/ui/feedback.tsx';
 
 export function RouteError() {
   const error = useRouteError();
-  const message = isRouteErrorResponse(error) ? `${error.status} ${error.statusText}` : error instanceof Error ? error.message : 'Unknown error';
+  const message = isRouteErrorResponse(error)
+    ? `${error.status} ${error.statusText}`
+    : error instanceof Error
+      ? error.message
+      : 'Unknown error';
   return (
     <div className="mx-auto max-w-xl p-10">
       <Alert title="This page failed to load">

@@ -42,8 +42,8 @@ export function SamplePage() {
       {s && (
         <div className="space-y-6">
           <Alert tone="caution" title="Review before release">
-            These results are computed from the burns as stored. They must be reviewed and authorised under your laboratory&apos;s own procedures before they are released or
-            reported.
+            These results are computed from the burns as stored. They must be reviewed and authorised under your laboratory&apos;s own
+            procedures before they are released or reported.
           </Alert>
           <div className="grid gap-6 lg:grid-cols-2">
             <SampleIdentity sample={s} />
@@ -59,8 +59,8 @@ export function SamplePage() {
             </div>
             <ResultsTable results={s.results} unit={unit} />
             <p className="text-xs text-slag-500">
-              Reported: the mean rounded half to even to the method&apos;s decimals. Mean, SD, min and max show two more decimals (hover for the full value); raw mean is before drift
-              correction.
+              Reported: the mean rounded half to even to the method&apos;s decimals. Mean, SD, min and max show two more decimals (hover for
+              the full value); raw mean is before drift correction.
             </p>
             <FlagLegend flags={s.results.flatMap((r) => r.flags)} />
           </section>
@@ -74,7 +74,15 @@ export function SamplePage() {
                 A released result is never changed in place; it is amended with a new revision.
               </Alert>
             )}
-            <BurnsTable burns={s.burns} elements={burnElements(s.burns, s.results.map((r) => r.element))} unit={unit} onToggle={canChangeBurns ? setToggling : undefined} />
+            <BurnsTable
+              burns={s.burns}
+              elements={burnElements(
+                s.burns,
+                s.results.map((r) => r.element),
+              )}
+              unit={unit}
+              onToggle={canChangeBurns ? setToggling : undefined}
+            />
           </section>
           <BurnExclusionDialog sampleId={s.id} burn={toggling} onClose={() => setToggling(null)} />
         </div>

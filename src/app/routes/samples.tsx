@@ -19,7 +19,11 @@ export function SamplesPage() {
         title="Samples"
         description="Every sample with its burns averaged per element. Filters are part of the address: copy it to share this view."
         actions={
-          <a href={csvHref(filters, unit)} download className="inline-flex items-center rounded-md border border-ash-200 bg-white px-3.5 py-2 text-sm font-medium hover:bg-ash-100">
+          <a
+            href={csvHref(filters, unit)}
+            download
+            className="inline-flex items-center rounded-md border border-ash-200 bg-white px-3.5 py-2 text-sm font-medium hover:bg-ash-100"
+          >
             ⤓ Download CSV
           </a>
         }
@@ -33,7 +37,11 @@ export function SamplesPage() {
               <Link to={`/imports/${importId}`} className="font-mono text-copper-700 underline">
                 {importId}
               </Link>{' '}
-              <button type="button" className="ml-1 rounded px-1.5 text-copper-700 underline hover:bg-ash-100" onClick={() => show(formFilters)}>
+              <button
+                type="button"
+                className="ml-1 rounded px-1.5 text-copper-700 underline hover:bg-ash-100"
+                onClick={() => show(formFilters)}
+              >
                 show all imports
               </button>
             </p>

@@ -9,7 +9,12 @@ const STYLES: Record<Variant, string> = {
   ghost: 'text-copper-700 hover:bg-ash-100 disabled:text-slag-300',
 };
 
-export function Button({ variant = 'primary', className = '', type = 'button', ...props }: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant }) {
+export function Button({
+  variant = 'primary',
+  className = '',
+  type = 'button',
+  ...props
+}: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant }) {
   return (
     <button
       type={type}

@@ -10,7 +10,15 @@ export function Spinner({ label = 'Loading…' }: { label?: string }) {
   );
 }
 
-export function Alert({ tone = 'error', title, children }: { tone?: 'error' | 'info' | 'success' | 'caution'; title: string; children?: ReactNode }) {
+export function Alert({
+  tone = 'error',
+  title,
+  children,
+}: {
+  tone?: 'error' | 'info' | 'success' | 'caution';
+  title: string;
+  children?: ReactNode;
+}) {
   const styles = {
     error: 'border-oxide-600 bg-oxide-50 text-oxide-600',
     info: 'border-ash-200 bg-white text-slag-800',
@@ -21,7 +29,9 @@ export function Alert({ tone = 'error', title, children }: { tone?: 'error' | 'i
   return (
     <div role={tone === 'error' ? 'alert' : 'status'} className={`rounded-md border-l-4 px-4 py-3 text-sm ${styles}`}>
       <p className="font-semibold">
-        <span aria-hidden className="mr-1.5">{icon}</span>
+        <span aria-hidden className="mr-1.5">
+          {icon}
+        </span>
         {title}
       </p>
       {children && <div className="mt-1 text-slag-800">{children}</div>}

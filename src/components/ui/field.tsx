@@ -44,7 +44,12 @@ export function SelectField({ label, error, hint, children, ...select }: FieldPr
   const id = useId();
   return (
     <FieldFrame id={id} label={label} error={error} hint={hint}>
-      <select id={id} aria-invalid={error ? true : undefined} className={`${CONTROL} ${error ? 'border-oxide-600' : 'border-ash-200'}`} {...select}>
+      <select
+        id={id}
+        aria-invalid={error ? true : undefined}
+        className={`${CONTROL} ${error ? 'border-oxide-600' : 'border-ash-200'}`}
+        {...select}
+      >
         {children}
       </select>
     </FieldFrame>

@@ -16,7 +16,10 @@ export function ProgressBar({ label, value, detail }: { label: string; value?: n
         aria-valuetext={percent === undefined ? 'in progress' : `${percent} %`}
         className="h-2.5 overflow-hidden rounded-full bg-ash-200"
       >
-        <div className={`h-full rounded-full bg-ember-500 transition-[width] ${percent === undefined ? 'w-1/3 animate-pulse' : ''}`} style={percent === undefined ? undefined : { width: `${percent}%` }} />
+        <div
+          className={`h-full rounded-full bg-ember-500 transition-[width] ${percent === undefined ? 'w-1/3 animate-pulse' : ''}`}
+          style={percent === undefined ? undefined : { width: `${percent}%` }}
+        />
       </div>
     </div>
   );

@@ -10,7 +10,11 @@ const auditQuery = (action: string, targetId: string) =>
   infiniteQueryOptions({
     queryKey: ['audit-events', { action, targetId }],
     queryFn: ({ pageParam }) =>
-      unwrap(api.GET('/audit-events', { params: { query: { limit: 50, cursor: pageParam, action: action || undefined, target_id: targetId || undefined } } })),
+      unwrap(
+        api.GET('/audit-events', {
+          params: { query: { limit: 50, cursor: pageParam, action: action || undefined, target_id: targetId || undefined } },
+        }),
+      ),
     initialPageParam: undefined as string | undefined,
     getNextPageParam: (page) => page.next_cursor ?? undefined,
   });

@@ -10,7 +10,8 @@ export function parseBurnsJson(text: string): { burns?: Record<string, number | 
   for (const [i, burn] of value.entries()) {
     if (!burn || typeof burn !== 'object' || Array.isArray(burn)) return { error: `Burn ${i + 1} is not an object of element → value.` };
     for (const [element, cell] of Object.entries(burn)) {
-      if (typeof cell !== 'number' && typeof cell !== 'string') return { error: `Burn ${i + 1}: the value of ${element} must be a number or a string such as "<0.002".` };
+      if (typeof cell !== 'number' && typeof cell !== 'string')
+        return { error: `Burn ${i + 1}: the value of ${element} must be a number or a string such as "<0.002".` };
     }
   }
   return { burns: value as Record<string, number | string>[] };

@@ -7,10 +7,15 @@ export function OutboxList() {
   const outbox = useQuery({ queryKey: ['outbox'], queryFn: () => unwrap(api.GET('/dev/outbox')), refetchInterval: 5000 });
   if (outbox.isPending) return <Spinner label="Loading captured e-mail…" />;
   if (isProblem(outbox.error, 404)) {
-    return <Alert tone="info" title="No outbox here">This server delivers e-mail through the SMTP server in SMTP_URL.</Alert>;
+    return (
+      <Alert tone="info" title="No outbox here">
+        This server delivers e-mail through the SMTP server in SMTP_URL.
+      </Alert>
+    );
   }
   if (outbox.error) return <ProblemAlert error={outbox.error} />;
-  if (outbox.data.data.length === 0) return <EmptyState title="No e-mail captured yet">Invitations and password-reset links appear here.</EmptyState>;
+  if (outbox.data.data.length === 0)
+    return <EmptyState title="No e-mail captured yet">Invitations and password-reset links appear here.</EmptyState>;
   return (
     <ul className="space-y-3">
       {outbox.data.data.map((mail) => (

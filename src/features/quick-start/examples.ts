@@ -16,7 +16,8 @@ export function quickStartExamples(origin: string): QuickStartExample[] {
     {
       id: 'key',
       title: '1. Keep your key in the environment',
-      intro: 'Issue a key on the API keys page with only the scopes your integration needs (samples:read for these examples). It is shown once; keep it out of scripts and source control.',
+      intro:
+        'Issue a key on the API keys page with only the scopes your integration needs (samples:read for these examples). It is shown once; keep it out of scripts and source control.',
       code: `export MELTWIRE_KEY='mw_live_…'   # paste the key you copied`,
     },
     {
@@ -29,7 +30,8 @@ export function quickStartExamples(origin: string): QuickStartExample[] {
     {
       id: 'list',
       title: '3. List samples',
-      intro: 'Lists return a page of data and a cursor for the next page; next_cursor is null on the last page. limit is 1–200 (default 50).',
+      intro:
+        'Lists return a page of data and a cursor for the next page; next_cursor is null on the last page. limit is 1–200 (default 50).',
       code: `curl -sS "${api}/samples?limit=2" \\\n  -H "Authorization: Bearer $MELTWIRE_KEY"`,
       output: `{"data":[{"id":"smp_…","sample_code":"K24-0419-F1","heat":"K24-0419",…,"results":[{"element":"C","mean":0.4597,"reported":"0.460",…}]},…],"next_cursor":"eyJieSI6…"}`,
     },
@@ -51,7 +53,8 @@ export function quickStartExamples(origin: string): QuickStartExample[] {
     {
       id: 'errors',
       title: '5. Read errors',
-      intro: 'Every error is an RFC 9457 problem (application/problem+json). Validation errors list each field in errors[]; quote request_id when you ask for help — it finds the call in the Request log. A key without the scope gets 403 naming the scope it needs.',
+      intro:
+        'Every error is an RFC 9457 problem (application/problem+json). Validation errors list each field in errors[]; quote request_id when you ask for help — it finds the call in the Request log. A key without the scope gets 403 naming the scope it needs.',
       code: `curl -sS -i ${api}/users \\\n  -H "Authorization: Bearer $MELTWIRE_KEY"`,
       output: [
         'HTTP/1.1 403 Forbidden',
@@ -65,7 +68,8 @@ export function quickStartExamples(origin: string): QuickStartExample[] {
     {
       id: 'typescript',
       title: '6. A typed client in TypeScript',
-      intro: 'Generate types from this server\'s OpenAPI document with openapi-typescript, then call the API with openapi-fetch: paths, parameters and responses are checked by the compiler. examples/client.ts in the repository is a complete script.',
+      intro:
+        "Generate types from this server's OpenAPI document with openapi-typescript, then call the API with openapi-fetch: paths, parameters and responses are checked by the compiler. examples/client.ts in the repository is a complete script.",
       code: [
         `npx openapi-typescript ${api}/openapi.json -o meltwire.d.ts`,
         ``,

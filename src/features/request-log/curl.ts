@@ -23,9 +23,14 @@ const COPIED_HEADERS: [string, string][] = [
 function multipartParts(body: string | null): string[] {
   if (!body) return [];
   try {
-    const { fields = {}, files = [] } = JSON.parse(body) as { fields?: Record<string, unknown>; files?: { field: string; name: string; content_type: string }[] };
+    const { fields = {}, files = [] } = JSON.parse(body) as {
+      fields?: Record<string, unknown>;
+      files?: { field: string; name: string; content_type: string }[];
+    };
     return [
-      ...Object.entries(fields).map(([name, value]) => `-F ${shellQuote(`${name}=${typeof value === 'string' ? value : JSON.stringify(value)}`)}`),
+      ...Object.entries(fields).map(
+        ([name, value]) => `-F ${shellQuote(`${name}=${typeof value === 'string' ? value : JSON.stringify(value)}`)}`,
+      ),
       ...files.map((file) => `-F ${shellQuote(`${file.field}=@${file.name};type=${file.content_type}`)}`),
     ];
   } catch {

@@ -88,7 +88,11 @@ export function localDayStart(day: string, offsetDays = 0): string {
   return new Date(y, m - 1, d + offsetDays).toISOString();
 }
 
-export type SamplesApiQuery = Omit<SampleFilters, 'created_from' | 'created_to'> & { created_from?: string; created_to?: string; unit: OutputUnit };
+export type SamplesApiQuery = Omit<SampleFilters, 'created_from' | 'created_to'> & {
+  created_from?: string;
+  created_to?: string;
+  unit: OutputUnit;
+};
 
 /** The query for GET /samples and /samples.csv. */
 export function toApiQuery(filters: SampleFilters, unit: OutputUnit): SamplesApiQuery {
@@ -103,6 +107,8 @@ export function toApiQuery(filters: SampleFilters, unit: OutputUnit): SamplesApi
 
 /** The CSV export of exactly what the table shows. */
 export function csvHref(filters: SampleFilters, unit: OutputUnit): string {
-  const query = new URLSearchParams(Object.entries(toApiQuery(filters, unit)).filter((entry): entry is [string, string] => typeof entry[1] === 'string' && entry[1] !== ''));
+  const query = new URLSearchParams(
+    Object.entries(toApiQuery(filters, unit)).filter((entry): entry is [string, string] => typeof entry[1] === 'string' && entry[1] !== ''),
+  );
   return `/api/v1/samples.csv?${query.toString()}`;
 }

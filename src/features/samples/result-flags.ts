@@ -13,11 +13,14 @@ export const RESULT_FLAG_DESCRIPTIONS = {
   above_working_range: "The mean (or its lower bound) is above the upper end of the method's working range.",
   burns_outside_working_range: 'At least one burn lies outside the working range although the result does not.',
   all_burns_qualified: 'Every burn was reported as "<", ">" or n.d.: the result is a bound, there is no mean.',
-  mixed_qualified_burns: 'Numeric burns and "<", ">" or n.d. burns together: the result is a bound; mean, SD and n describe the numeric burns only.',
+  mixed_qualified_burns:
+    'Numeric burns and "<", ">" or n.d. burns together: the result is a bound; mean, SD and n describe the numeric burns only.',
   not_detected: 'At least one burn was reported as not detected (counted as "<" the detection limit).',
   conflicting_qualified_burns: 'Burns say both "<" and ">": no bound holds, nothing is reported.',
-  limit_missing: 'A burn is qualified without a value (n.d., or "<"/">" alone) and the method sets no limit to bound it: nothing is reported.',
-  negative_after_correction: 'At least one burn is below 0 after drift correction. Corrected values are not clamped to 0 (that would bias the mean and break its linearity); a mean below the detection limit is reported as "<" the limit as usual.',
+  limit_missing:
+    'A burn is qualified without a value (n.d., or "<"/">" alone) and the method sets no limit to bound it: nothing is reported.',
+  negative_after_correction:
+    'At least one burn is below 0 after drift correction. Corrected values are not clamped to 0 (that would bias the mean and break its linearity); a mean below the detection limit is reported as "<" the limit as usual.',
   not_in_method: 'The method does not list this element; it is averaged anyway, with 4 reporting decimals and no limits.',
 } as const;
 

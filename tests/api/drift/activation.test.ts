@@ -15,7 +15,13 @@ afterAll(() => t.close());
 
 const hoursAgo = (h: number) => new Date(Date.now() - h * 3600_000).toISOString();
 /** C measured at 0.42·(nominal span) → slope ≈ 2.2: far beyond the fail limit 0.5. */
-const failingRun = (measuredAt: string) => twoPointRun(s, burnsAt('high', 1).map((b) => ({ ...b, C: 0.42 })), burnsAt('low', 1).map((b) => ({ ...b, C: 0.1 })), { measured_at: measuredAt });
+const failingRun = (measuredAt: string) =>
+  twoPointRun(
+    s,
+    burnsAt('high', 1).map((b) => ({ ...b, C: 0.42 })),
+    burnsAt('low', 1).map((b) => ({ ...b, C: 0.1 })),
+    { measured_at: measuredAt },
+  );
 
 describe('POST /api/v1/standardizations/{id}/activate', () => {
   it('is refused to analysts (403 naming standardizations:activate)', async () => {
@@ -33,12 +39,18 @@ describe('POST /api/v1/standardizations/{id}/activate', () => {
     const refused = await s.manager.post(`/api/v1/standardizations/${run.id}/activate`).send({});
     expectProblem(refused, 409);
     expect(problemBody(refused).detail).toMatch(/^C is flagged fail\. Activate only with an override_reason/);
-    expect(problemBody(refused).failing_elements).toEqual([{ element: 'C', reasons: [expect.stringContaining('more than the fail limit 0.5')] }]);
+    expect(problemBody(refused).failing_elements).toEqual([
+      { element: 'C', reasons: [expect.stringContaining('more than the fail limit 0.5')] },
+    ]);
     expect(await t.db('events').where({ type: 'standardization.activated' })).toHaveLength(0);
 
     const reason = 'C channel lens cleaned after the run; accepted until the afternoon re-standardization (L. Marsh)';
     const activated = await activate(s, run.id, { override_reason: reason });
-    expect(activated).toMatchObject({ status: 'activated', in_force: true, activation: { override_reason: reason, activated_by: expect.stringMatching(/^manager\d+@kestrelbend\.test$/) } });
+    expect(activated).toMatchObject({
+      status: 'activated',
+      in_force: true,
+      activation: { override_reason: reason, activated_by: expect.stringMatching(/^manager\d+@kestrelbend\.test$/) },
+    });
     expect(Date.parse(activated.activation.effective_from)).toBeLessThanOrEqual(Date.now());
 
     const audit = await t.db('audit_events').where({ action: 'standardization.activated', target_id: run.id });
@@ -47,7 +59,9 @@ describe('POST /api/v1/standardizations/{id}/activate', () => {
     expect(JSON.parse(audit[0].before_json)).toEqual({ status: 'draft', set_in_force: null });
     const events = await t.db('events').where({ type: 'standardization.activated' });
     expect(events).toHaveLength(1);
-    expect(JSON.parse(events[0].data_json)).toMatchObject({ standardization: { id: run.id, flag: 'fail', override_reason: reason, replaces: null } });
+    expect(JSON.parse(events[0].data_json)).toMatchObject({
+      standardization: { id: run.id, flag: 'fail', override_reason: reason, replaces: null },
+    });
 
     expectProblem(await s.manager.post(`/api/v1/standardizations/${run.id}/activate`).send({ override_reason: reason }), 409);
   });
@@ -80,7 +94,9 @@ describe('POST /api/v1/standardizations/{id}/activate', () => {
     expect(planned).toMatchObject({ in_force: false, activation: { effective_from: later } });
     const now = await s.viewer.get(`/api/v1/instruments/${s.lab.foundry.id}/corrections`);
     expect(now.body.data.map((d: { set: { id: string } }) => d.set.id)).toEqual([run.id]);
-    const then = await s.viewer.get(`/api/v1/instruments/${s.lab.foundry.id}/corrections`).query({ at: new Date(Date.now() + 2 * 3600_000).toISOString() });
+    const then = await s.viewer
+      .get(`/api/v1/instruments/${s.lab.foundry.id}/corrections`)
+      .query({ at: new Date(Date.now() + 2 * 3600_000).toISOString() });
     expect(then.body.data[0]).toMatchObject({ method: { id: s.method.id }, set: { id: next.id, in_force: false } });
   });
 });

@@ -19,9 +19,15 @@ const D34 = Decimal.clone({ precision: 34, rounding: Decimal.ROUND_HALF_EVEN });
 const plain = (d: Decimal) => (d.isZero() ? '0' : d.toFixed());
 type Set = { id: string; corrections: { element: string; slope: string; offset: string }[] };
 
-const BURNS = [{ C: 0.452, Mn: 0.744, Cr: 0.11 }, { C: 0.449, Mn: 0.751, Cr: '<0.002' }, { C: 0.455, Mn: 0.755, Cr: 0.12 }];
+const BURNS = [
+  { C: 0.452, Mn: 0.744, Cr: 0.11 },
+  { C: 0.449, Mn: 0.751, Cr: '<0.002' },
+  { C: 0.455, Mn: 0.755, Cr: 0.12 },
+];
 const push = (code: string, burns: { values: Record<string, number | string>; measured_at?: string }[]) =>
-  s.analyst.post('/api/v1/samples').send({ sample_code: code, heat: code.slice(0, 8), instrument_id: s.lab.foundry.id, method_id: s.method.id, burns });
+  s.analyst
+    .post('/api/v1/samples')
+    .send({ sample_code: code, heat: code.slice(0, 8), instrument_id: s.lab.foundry.id, method_id: s.method.id, burns });
 const storedBurns = (sampleId: string) => t.db('burns').where({ sample_id: sampleId }).orderBy('burn_number');
 const storedSample = (sampleId: string) => t.db('samples').where({ id: sampleId }).first();
 
@@ -36,7 +42,10 @@ let set: Set;
 
 describe('applying the correction set in force', () => {
   it('leaves samples uncorrected while no set is in force', async () => {
-    const res = await push('K24-0801-F1', BURNS.map((values) => ({ values })));
+    const res = await push(
+      'K24-0801-F1',
+      BURNS.map((values) => ({ values })),
+    );
     expect(res.status).toBe(201);
     expect(res.body.correction).toBeNull();
     expect(res.body.burns[0]).toMatchObject({ correction_set_id: null, values: { Mn: { corrected: null } } });
@@ -48,8 +57,19 @@ describe('applying the correction set in force', () => {
   it('corrects every burn pushed after activation by exactly α·x + β per element, records the set, and leaves earlier samples untouched', async () => {
     set = await createRun(s, twoPointRun(s, burnsAt('high', 0.97), burnsAt('low', 0.95)));
     await activate(s, set.id);
-    const res = await push('K24-0802-F1', BURNS.map((values) => ({ values })));
-    expect(res.body.correction).toEqual({ set_id: set.id, set_ids: [set.id], applied_to: 'concentration', selection: 'measurement_time', reason: null, recomputed_by: null, recomputed_at: null });
+    const res = await push(
+      'K24-0802-F1',
+      BURNS.map((values) => ({ values })),
+    );
+    expect(res.body.correction).toEqual({
+      set_id: set.id,
+      set_ids: [set.id],
+      applied_to: 'concentration',
+      selection: 'measurement_time',
+      reason: null,
+      recomputed_by: null,
+      recomputed_at: null,
+    });
     const burns = await storedBurns(res.body.id);
     for (const [i, burn] of burns.entries()) {
       expect(burn.correction_set_id).toBe(set.id);
@@ -73,8 +93,17 @@ describe('applying the correction set in force', () => {
   });
 
   it('corrects an imported file the same way', async () => {
-    const csv = ['Sample,Heat,Burn,C %,Mn %,Cr %', 'K24-0803-F1,K24-0803,1,0.452,0.744,0.11', 'K24-0803-F1,K24-0803,2,0.449,0.751,0.12', ''].join('\n');
-    const res = await s.analyst.post('/api/v1/imports').field('instrument_id', s.lab.foundry.id).field('method_id', s.method.id).attach('file', Buffer.from(csv), 'after.csv');
+    const csv = [
+      'Sample,Heat,Burn,C %,Mn %,Cr %',
+      'K24-0803-F1,K24-0803,1,0.452,0.744,0.11',
+      'K24-0803-F1,K24-0803,2,0.449,0.751,0.12',
+      '',
+    ].join('\n');
+    const res = await s.analyst
+      .post('/api/v1/imports')
+      .field('instrument_id', s.lab.foundry.id)
+      .field('method_id', s.method.id)
+      .attach('file', Buffer.from(csv), 'after.csv');
     expect(res.status).toBe(201);
     const sampleId = res.body.report.sample_ids[0];
     for (const burn of await storedBurns(sampleId)) {
@@ -85,7 +114,7 @@ describe('applying the correction set in force', () => {
     expect((await s.viewer.get(`/api/v1/samples/${sampleId}`)).body.correction.set_id).toBe(set.id);
   });
 
-  it('chooses the set by each burn\'s measurement time', async () => {
+  it("chooses the set by each burn's measurement time", async () => {
     const between = new Date().toISOString();
     const second = await createRun(s, twoPointRun(s, burnsAt('high', 1.02), burnsAt('low', 1.01)));
     await activate(s, second.id);
@@ -100,14 +129,19 @@ describe('applying the correction set in force', () => {
     expect(res.body.burns[0].values.Mn.corrected).toBeNull();
   });
 
-  it('keeps each burn\'s correction when a burn is excluded', async () => {
-    const res = await push('K24-0805-F1', BURNS.map((values) => ({ values })));
+  it("keeps each burn's correction when a burn is excluded", async () => {
+    const res = await push(
+      'K24-0805-F1',
+      BURNS.map((values) => ({ values })),
+    );
     const excluded = await s.analyst.patch(`/api/v1/samples/${res.body.id}/burns/3`).send({ excluded: true, reason: 'spark on a pore' });
     expect(excluded.status).toBe(200);
     const results = JSON.parse((await storedSample(res.body.id)).results_json);
     const burns = await storedBurns(res.body.id);
     const correctedMn = burns.slice(0, 2).map((b) => JSON.parse(b.corrected_json).Mn.v);
-    expect(results.find((r: { element: string }) => r.element === 'Mn').mean).toBe(plain(correctedMn.reduce((sum: Decimal, v: string) => sum.plus(v), new D34(0)).div(2)));
+    expect(results.find((r: { element: string }) => r.element === 'Mn').mean).toBe(
+      plain(correctedMn.reduce((sum: Decimal, v: string) => sum.plus(v), new D34(0)).div(2)),
+    );
     expect(excluded.body.correction.set_ids).toEqual(res.body.correction.set_ids);
   });
 });

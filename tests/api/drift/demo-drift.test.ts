@@ -16,7 +16,14 @@ beforeAll(async () => {
 });
 afterAll(() => t.close());
 
-type Run = { id: string; flag: string; status: string; in_force: boolean; measured_at: string; corrections: { element: string; flag: string; reasons: string[] }[] };
+type Run = {
+  id: string;
+  flag: string;
+  status: string;
+  in_force: boolean;
+  measured_at: string;
+  corrections: { element: string; flag: string; reasons: string[] }[];
+};
 
 describe('demo drift history', () => {
   it('gives each instrument weeks of runs with one warn and one fail, and the latest good run in force', async () => {
@@ -47,7 +54,9 @@ describe('demo drift history', () => {
       expect(sample.correction).toMatchObject({ applied_to: 'concentration', selection: 'measurement_time' });
       for (const burn of sample.burns) {
         const inForce = await viewer.get(`/api/v1/instruments/${sample.instrument.id}/corrections`).query({ at: burn.measured_at });
-        expect(burn.correction_set_id).toBe(inForce.body.data.find((d: { method: { id: string } }) => d.method.id === sample.method.id).set.id);
+        expect(burn.correction_set_id).toBe(
+          inForce.body.data.find((d: { method: { id: string } }) => d.method.id === sample.method.id).set.id,
+        );
       }
     }
   });

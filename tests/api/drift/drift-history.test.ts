@@ -12,7 +12,14 @@ beforeAll(async () => {
   s = await driftSetup(t);
   const day = 24 * 3600_000;
   for (const [i, factor] of [0.99, 0.98, 0.97].entries()) {
-    runs.push(await createRun(s, twoPointRun(s, burnsAt('high', factor), burnsAt('low', factor + 0.005), { measured_at: new Date(Date.now() - (3 - i) * day).toISOString() })));
+    runs.push(
+      await createRun(
+        s,
+        twoPointRun(s, burnsAt('high', factor), burnsAt('low', factor + 0.005), {
+          measured_at: new Date(Date.now() - (3 - i) * day).toISOString(),
+        }),
+      ),
+    );
   }
   await activate(s, runs[1].id);
 });
@@ -25,8 +32,14 @@ describe('GET /api/v1/instruments/{id}/drift', () => {
     expect(res.body.element).toBe('Mn');
     expect(res.body.instrument.code).toBe('OES-1');
     expect(res.body.points.map((p: { standardization_id: string }) => p.standardization_id)).toEqual(runs.map((r) => r.id));
-    expect(res.body.points.map((p: { slope: string }) => p.slope)).toEqual(runs.map((r) => r.corrections.find((c) => c.element === 'Mn')!.slope));
-    expect(res.body.points.map((p: { status: string; in_force: boolean }) => [p.status, p.in_force])).toEqual([['draft', false], ['activated', true], ['draft', false]]);
+    expect(res.body.points.map((p: { slope: string }) => p.slope)).toEqual(
+      runs.map((r) => r.corrections.find((c) => c.element === 'Mn')!.slope),
+    );
+    expect(res.body.points.map((p: { status: string; in_force: boolean }) => [p.status, p.in_force])).toEqual([
+      ['draft', false],
+      ['activated', true],
+      ['draft', false],
+    ]);
     expect(res.body.points[1]).toMatchObject({ flag: 'ok', reasons: [], mode: 'two_point', method: { id: s.method.id } });
   });
 
@@ -45,7 +58,12 @@ describe('GET /api/v1/instruments/{id}/drift', () => {
 describe('GET /api/v1/instruments/{id}/corrections', () => {
   it('shows the set in force per method, and none for an instrument without one', async () => {
     const res = await s.viewer.get(`/api/v1/instruments/${s.lab.foundry.id}/corrections`);
-    expect(res.body.data).toEqual([{ method: { id: s.method.id, code: s.method.code }, set: expect.objectContaining({ id: runs[1].id, in_force: true, status: 'activated' }) }]);
+    expect(res.body.data).toEqual([
+      {
+        method: { id: s.method.id, code: s.method.code },
+        set: expect.objectContaining({ id: runs[1].id, in_force: true, status: 'activated' }),
+      },
+    ]);
     expect((await s.viewer.get(`/api/v1/instruments/${s.lab.castHouse.id}/corrections`)).body.data).toEqual([]);
   });
 });

@@ -44,11 +44,27 @@ export async function driftSetup(t: TestApp): Promise<DriftSetup> {
   if (methodRes.status !== 201) throw new Error(`method: ${methodRes.status} ${methodRes.text}`);
   const reference = async (kind: 'high' | 'low') => {
     const values = Object.entries(NOMINAL[kind]).map(([element, nominal]) => ({ element, nominal }));
-    const res = await analyst.post('/api/v1/reference-materials').send({ code: `T-FE-${kind.toUpperCase()}-${counter}`, name: `Test ${kind} steel`, matrix: 'Fe', kind, values, certificate: 'invented for tests' });
+    const res = await analyst.post('/api/v1/reference-materials').send({
+      code: `T-FE-${kind.toUpperCase()}-${counter}`,
+      name: `Test ${kind} steel`,
+      matrix: 'Fe',
+      kind,
+      values,
+      certificate: 'invented for tests',
+    });
     if (res.status !== 201) throw new Error(`reference: ${res.status} ${res.text}`);
     return { id: res.body.id as string, code: res.body.code as string };
   };
-  return { lab, analyst, manager, admin, viewer, method: { id: methodRes.body.id, code: methodRes.body.code }, high: await reference('high'), low: await reference('low') };
+  return {
+    lab,
+    analyst,
+    manager,
+    admin,
+    viewer,
+    method: { id: methodRes.body.id, code: methodRes.body.code },
+    high: await reference('high'),
+    low: await reference('low'),
+  };
 }
 
 type Burns = Record<string, number | string>[];
@@ -68,13 +84,27 @@ export function twoPointRun(s: DriftSetup, highBurns: Burns, lowBurns: Burns, ex
 
 /** Burns that read the nominal values times `factor` for every element (± a small spread). */
 export function burnsAt(kind: 'high' | 'low', factor: number, spread = [0, 0.001, -0.001]): Burns {
-  return spread.map((d) => Object.fromEntries(Object.entries(NOMINAL[kind]).map(([el, v]) => [el, Number((Number(v) * (factor + d)).toFixed(4))])));
+  return spread.map((d) =>
+    Object.fromEntries(Object.entries(NOMINAL[kind]).map(([el, v]) => [el, Number((Number(v) * (factor + d)).toFixed(4))])),
+  );
 }
 
 export async function createRun(s: DriftSetup, body: Record<string, unknown>, agent = s.analyst) {
   const res = await agent.post(`/api/v1/instruments/${s.lab.foundry.id}/standardizations`).send(body);
   if (res.status !== 201) throw new Error(`run: ${res.status} ${res.text}`);
-  return res.body as { id: string; flag: string; corrections: { element: string; slope: string; offset: string; previous_slope: string | null; previous_offset: string | null; flag: string; reasons: string[] }[] };
+  return res.body as {
+    id: string;
+    flag: string;
+    corrections: {
+      element: string;
+      slope: string;
+      offset: string;
+      previous_slope: string | null;
+      previous_offset: string | null;
+      flag: string;
+      reasons: string[];
+    }[];
+  };
 }
 
 export async function activate(s: DriftSetup, id: string, body: Record<string, unknown> = {}, agent = s.manager) {

@@ -14,7 +14,12 @@ let second: { id: string };
 beforeAll(async () => {
   t = await createTestApp();
   s = await driftSetup(t);
-  const push = await s.analyst.post('/api/v1/samples').send({ sample_code: 'K24-0901-F1', instrument_id: s.lab.foundry.id, method_id: s.method.id, burns: [{ values: { Mn: 0.744 } }, { values: { Mn: 0.756 } }] });
+  const push = await s.analyst.post('/api/v1/samples').send({
+    sample_code: 'K24-0901-F1',
+    instrument_id: s.lab.foundry.id,
+    method_id: s.method.id,
+    burns: [{ values: { Mn: 0.744 } }, { values: { Mn: 0.756 } }],
+  });
   sampleId = push.body.id;
   first = await createRun(s, twoPointRun(s, burnsAt('high', 0.97), burnsAt('low', 0.95)));
   await activate(s, first.id);
@@ -26,9 +31,18 @@ const recompute = (body: Record<string, unknown>, agent = s.analyst) => agent.po
 
 describe('POST /api/v1/samples/{id}/recompute', () => {
   it('applies an activated set to a sample stored before it, recording the reason and both versions in the audit trail', async () => {
-    const res = await recompute({ correction_set_id: first.id, reason: 'Stored before the morning standardization; QA asked for corrected values' });
+    const res = await recompute({
+      correction_set_id: first.id,
+      reason: 'Stored before the morning standardization; QA asked for corrected values',
+    });
     expect(res.status).toBe(200);
-    expect(res.body.correction).toMatchObject({ set_id: first.id, set_ids: [first.id], selection: 'requested', reason: 'Stored before the morning standardization; QA asked for corrected values', recomputed_by: expect.stringMatching(/^analyst\d+@/) });
+    expect(res.body.correction).toMatchObject({
+      set_id: first.id,
+      set_ids: [first.id],
+      selection: 'requested',
+      reason: 'Stored before the morning standardization; QA asked for corrected values',
+      recomputed_by: expect.stringMatching(/^analyst\d+@/),
+    });
     // decimal.js: mean of α·x + β over the two burns.
     const mn = first.corrections.find((c) => c.element === 'Mn')!;
     const mean = ['0.744', '0.756'].reduce((sum, x) => sum.plus(new Decimal(mn.slope).times(x).plus(mn.offset)), new Decimal(0)).div(2);
@@ -38,7 +52,11 @@ describe('POST /api/v1/samples/{id}/recompute', () => {
     const audit = await t.db('audit_events').where({ action: 'sample.recomputed', target_id: sampleId });
     expect(audit).toHaveLength(1);
     expect(JSON.parse(audit[0].before_json)).toMatchObject({ correction: null, results: [{ element: 'Mn', mean: '0.75' }] });
-    expect(JSON.parse(audit[0].after_json)).toMatchObject({ correction: { set_ids: [first.id] }, results: [{ element: 'Mn', raw_mean: '0.75' }], reason: expect.any(String) });
+    expect(JSON.parse(audit[0].after_json)).toMatchObject({
+      correction: { set_ids: [first.id] },
+      results: [{ element: 'Mn', raw_mean: '0.75' }],
+      reason: expect.any(String),
+    });
   });
 
   it('removes the correction with null, again audited', async () => {
@@ -49,13 +67,17 @@ describe('POST /api/v1/samples/{id}/recompute', () => {
     expect(await t.db('audit_events').where({ action: 'sample.recomputed', target_id: sampleId })).toHaveLength(2);
   });
 
-  it('refuses a draft set, an unknown one, another instrument\'s, a missing reason and a released sample', async () => {
+  it("refuses a draft set, an unknown one, another instrument's, a missing reason and a released sample", async () => {
     const draft = await recompute({ correction_set_id: second.id, reason: 'try the draft' });
     expectProblem(draft, 422);
     expect(problemBody(draft).errors?.[0]).toMatchObject({ location: 'body.correction_set_id', code: 'unusable_set' });
     expectProblem(await recompute({ correction_set_id: 'std_nope', reason: 'no such set' }), 422);
-    const other = await s.analyst.post('/api/v1/samples').send({ sample_code: 'B24-0901-S1', instrument_id: s.lab.castHouse.id, method_id: s.method.id, burns: [{ values: { Mn: 0.7 } }] });
-    const foreign = await s.analyst.post(`/api/v1/samples/${other.body.id}/recompute`).send({ correction_set_id: first.id, reason: 'wrong instrument' });
+    const other = await s.analyst
+      .post('/api/v1/samples')
+      .send({ sample_code: 'B24-0901-S1', instrument_id: s.lab.castHouse.id, method_id: s.method.id, burns: [{ values: { Mn: 0.7 } }] });
+    const foreign = await s.analyst
+      .post(`/api/v1/samples/${other.body.id}/recompute`)
+      .send({ correction_set_id: first.id, reason: 'wrong instrument' });
     expectProblem(foreign, 422);
     expect(problemBody(foreign).errors?.[0].message).toMatch(/another instrument or method/);
     const noReason = await recompute({ correction_set_id: first.id });

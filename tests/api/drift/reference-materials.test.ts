@@ -19,7 +19,11 @@ const body = (code: string, extra: Record<string, unknown> = {}) => ({
   name: 'Invented low-level steel',
   matrix: 'fe',
   kind: 'low',
-  values: [{ element: 'mn', nominal: '0.3050' }, { element: 'B', nominal: '12', unit: 'ppm' }, { element: 'N', nominal: '45', unit: 'ppb' }],
+  values: [
+    { element: 'mn', nominal: '0.3050' },
+    { element: 'B', nominal: '12', unit: 'ppm' },
+    { element: 'N', nominal: '45', unit: 'ppb' },
+  ],
   certificate: 'In-house lot 2026-03',
   ...extra,
 });
@@ -29,7 +33,13 @@ describe('reference materials', () => {
     const res = await analyst.post('/api/v1/reference-materials').send(body('KB-FE-LO'));
     expect(res.status).toBe(201);
     expect(res.headers.location).toBe(`/api/v1/reference-materials/${res.body.id}`);
-    expect(res.body).toMatchObject({ code: 'KB-FE-LO', matrix: 'Fe', kind: 'low', certificate: 'In-house lot 2026-03', created_by: expect.stringMatching(/^analyst/) });
+    expect(res.body).toMatchObject({
+      code: 'KB-FE-LO',
+      matrix: 'Fe',
+      kind: 'low',
+      certificate: 'In-house lot 2026-03',
+      created_by: expect.stringMatching(/^analyst/),
+    });
     // 12 ppm = 0.0012 %; 45 ppb = 0.0000045 % (1 % = 10^4 ppm = 10^7 ppb, NIST SP 811 §7.10).
     expect(res.body.values).toEqual([
       { element: 'Mn', nominal: '0.305', given: '0.3050', unit: '%' },
@@ -43,9 +53,21 @@ describe('reference materials', () => {
 
   it('refuses a taken code (409), a repeated element and a bad value (400 naming each)', async () => {
     expectProblem(await analyst.post('/api/v1/reference-materials').send(body('kb-fe-lo')), 409);
-    const res = await analyst.post('/api/v1/reference-materials').send(body('KB-FE-X', { kind: 'medium', values: [{ element: 'Mn', nominal: '0.3' }, { element: 'MN', nominal: '-1' }] }));
+    const res = await analyst.post('/api/v1/reference-materials').send(
+      body('KB-FE-X', {
+        kind: 'medium',
+        values: [
+          { element: 'Mn', nominal: '0.3' },
+          { element: 'MN', nominal: '-1' },
+        ],
+      }),
+    );
     expectProblem(res, 400);
-    expect(problemBody(res).errors?.map((e) => e.location).sort()).toEqual(['body.kind', 'body.values.1.element', 'body.values.1.nominal']);
+    expect(
+      problemBody(res)
+        .errors?.map((e) => e.location)
+        .sort(),
+    ).toEqual(['body.kind', 'body.values.1.element', 'body.values.1.nominal']);
   });
 
   it('lists by code with filters and pages; viewers read but cannot write', async () => {

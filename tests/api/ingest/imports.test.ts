@@ -37,7 +37,13 @@ const counts = async () => ({
   imports: Number((await t.db('imports').count({ n: '*' }))[0].n),
 });
 
-const GOOD = ['Sample,Heat,Burn,Mn %,C %', 'K24-0700-F1,K24-0700,1,0.75,0.452', 'K24-0700-F1,K24-0700,2,0.76,0.448', 'K24-0701-F1,K24-0701,1,0.80,0.20', ''].join('\n');
+const GOOD = [
+  'Sample,Heat,Burn,Mn %,C %',
+  'K24-0700-F1,K24-0700,1,0.75,0.452',
+  'K24-0700-F1,K24-0700,2,0.76,0.448',
+  'K24-0701-F1,K24-0701,1,0.80,0.20',
+  '',
+].join('\n');
 
 describe('POST /api/v1/imports', () => {
   it('imports a file, keeps its bytes, and creates nothing when the same bytes come again', async () => {
@@ -53,14 +59,23 @@ describe('POST /api/v1/imports', () => {
     expect(await counts()).toEqual(before);
 
     const sample = await analyst.get(`/api/v1/samples/${first.body.report.sample_ids[0]}`);
-    expect(sample.body.provenance).toEqual({ source: 'import', import_id: first.body.id, file_sha256: first.body.file.sha256, file_name: 'results.csv', lines: [2, 3] });
+    expect(sample.body.provenance).toEqual({
+      source: 'import',
+      import_id: first.body.id,
+      file_sha256: first.body.file.sha256,
+      file_name: 'results.csv',
+      lines: [2, 3],
+    });
     expect(sample.body.results.find((r: { element: string }) => r.element === 'Mn')).toMatchObject({ n: 2, reported: '0.76' });
 
-    const file = await analyst.get(`/api/v1/imports/${first.body.id}/file`).buffer(true).parse((res, done) => {
-      const chunks: Buffer[] = [];
-      res.on('data', (c: Buffer) => chunks.push(c));
-      res.on('end', () => done(null, Buffer.concat(chunks)));
-    });
+    const file = await analyst
+      .get(`/api/v1/imports/${first.body.id}/file`)
+      .buffer(true)
+      .parse((res, done) => {
+        const chunks: Buffer[] = [];
+        res.on('data', (c: Buffer) => chunks.push(c));
+        res.on('end', () => done(null, Buffer.concat(chunks)));
+      });
     expect(file.status).toBe(200);
     expect((file.body as Buffer).equals(Buffer.from(GOOD))).toBe(true);
     expect(file.headers['x-content-sha256']).toBe(first.body.file.sha256);
@@ -71,7 +86,13 @@ describe('POST /api/v1/imports', () => {
     expect(res.status).toBe(201);
     expect(res.body.report.layout).toMatchObject({ encoding: 'utf-8 (BOM)', delimiter: ';', decimal_separator: ',' });
     const sample = await analyst.get(`/api/v1/samples/${res.body.report.sample_ids[0]}`);
-    expect(sample.body).toMatchObject({ sample_code: 'K24-0412-P1', heat: 'K24-0412', grade: 'SAE 1045', kind: 'preliminary', fields: { Furnace: 'EAF-2' } });
+    expect(sample.body).toMatchObject({
+      sample_code: 'K24-0412-P1',
+      heat: 'K24-0412',
+      grade: 'SAE 1045',
+      kind: 'preliminary',
+      fields: { Furnace: 'EAF-2' },
+    });
     const cr = sample.body.burns[0].values.Cr;
     expect(cr).toEqual({ value: 0.125, qualifier: null, raw: '1250', raw_unit: 'ppm', corrected: null });
   });
@@ -83,7 +104,10 @@ describe('POST /api/v1/imports', () => {
     expectProblem(res, 422);
     expect(problemBody(res).errors).toEqual([expect.objectContaining({ location: 'file:line 3:Mn %' })]);
     // The same issue, structured, for clients that show line and column apart (documented on the 422).
-    expect(problemBody(res)).toMatchObject({ errors_total: 1, issues: [{ line: 3, column: 'Mn %', code: 'invalid_value', message: expect.any(String) }] });
+    expect(problemBody(res)).toMatchObject({
+      errors_total: 1,
+      issues: [{ line: 3, column: 'Mn %', code: 'invalid_value', message: expect.any(String) }],
+    });
     expect(await counts()).toEqual(before);
   });
 
@@ -109,8 +133,15 @@ describe('POST /api/v1/imports', () => {
     expectProblem(await analyst.post('/api/v1/imports').send({ instrument_id: lab.foundry.id }), 415);
     const tooLarge = await upload(Buffer.alloc(300_000, 'a'));
     expectProblem(tooLarge, 413);
-    expect(problemBody(tooLarge)).toMatchObject({ limit_bytes: 200_000, detail: 'The file exceeds the limit of 200000 bytes (IMPORT_MAX_BYTES).' });
-    const previewTooLarge = await analyst.post('/api/v1/imports/preview').field('instrument_id', lab.foundry.id).field('method_id', lab.feMethod.id).attach('file', Buffer.alloc(300_000, 'a'), 'big.csv');
+    expect(problemBody(tooLarge)).toMatchObject({
+      limit_bytes: 200_000,
+      detail: 'The file exceeds the limit of 200000 bytes (IMPORT_MAX_BYTES).',
+    });
+    const previewTooLarge = await analyst
+      .post('/api/v1/imports/preview')
+      .field('instrument_id', lab.foundry.id)
+      .field('method_id', lab.feMethod.id)
+      .attach('file', Buffer.alloc(300_000, 'a'), 'big.csv');
     expectProblem(previewTooLarge, 413);
     expect(problemBody(previewTooLarge).limit_bytes).toBe(200_000);
   });
@@ -124,7 +155,13 @@ describe('POST /api/v1/imports', () => {
       .attach('file', Buffer.from(GOOD), 'results.csv');
     expect(res.status).toBe(200);
     expect(res.body.counts).toEqual({ rows: 3, samples: 2, burns: 3, values: 6 });
-    expect(res.body.layout.columns.map((c: { role: string }) => c.role)).toEqual(['sample_code', 'heat', 'burn_number', 'element', 'element']);
+    expect(res.body.layout.columns.map((c: { role: string }) => c.role)).toEqual([
+      'sample_code',
+      'heat',
+      'burn_number',
+      'element',
+      'element',
+    ]);
     expect(res.body.duplicate_of).not.toBeNull();
     expect(await counts()).toEqual(before);
   });
@@ -133,7 +170,10 @@ describe('POST /api/v1/imports', () => {
     const text = wideCsv(300, { seed: 7 });
     const res = await upload(text, {}, 'generated.csv');
     expect(res.status).toBe(201);
-    const lines = text.trim().split('\n').map((l) => l.split(','));
+    const lines = text
+      .trim()
+      .split('\n')
+      .map((l) => l.split(','));
     const header = lines[0];
     const mnColumn = header.indexOf('Mn %');
     const first = await analyst.get(`/api/v1/samples/${res.body.report.sample_ids[0]}`);
@@ -150,7 +190,10 @@ describe('POST /api/v1/imports', () => {
     let run = 0;
     await fc.assert(
       fc.asyncProperty(
-        fc.array(fc.record({ at: fc.nat(), byte: fc.integer({ min: 0, max: 255 }), op: fc.constantFrom('set', 'insert', 'delete') }), { minLength: 1, maxLength: 6 }),
+        fc.array(fc.record({ at: fc.nat(), byte: fc.integer({ min: 0, max: 255 }), op: fc.constantFrom('set', 'insert', 'delete') }), {
+          minLength: 1,
+          maxLength: 6,
+        }),
         fc.constantFrom('all_or_nothing', 'per_sample'),
         async (mutations, mode) => {
           const bytes = [...base];

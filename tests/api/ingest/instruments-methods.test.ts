@@ -32,7 +32,10 @@ describe('instruments', () => {
   it('shows a key restricted to one instrument only that instrument', async () => {
     const lab = await seedDemoLab(t.db);
     const key = await issueKey(t, ['samples:read']);
-    await t.db('api_keys').where({ id: key.id }).update({ instrument_ids_json: JSON.stringify([lab.castHouse.id]) });
+    await t
+      .db('api_keys')
+      .where({ id: key.id })
+      .update({ instrument_ids_json: JSON.stringify([lab.castHouse.id]) });
     const list = await request(t.app).get('/api/v1/instruments').set('authorization', `Bearer ${key.secret}`);
     expect(list.body.data.map((i: { id: string }) => i.id)).toEqual([lab.castHouse.id]);
     expectProblem(await request(t.app).get(`/api/v1/instruments/${lab.foundry.id}`).set('authorization', `Bearer ${key.secret}`), 404);
@@ -54,7 +57,14 @@ describe('methods', () => {
     expect(res.status).toBe(201);
     expect(res.body).toMatchObject({ matrix: 'Cu', default_unit: '%' });
     expect(res.body.elements).toEqual([
-      { element: 'Pb', decimals: 2, working_range_low: '0.010', working_range_high: '4.00', detection_limit: null, repeatability_sd: '0.010' },
+      {
+        element: 'Pb',
+        decimals: 2,
+        working_range_low: '0.010',
+        working_range_high: '4.00',
+        detection_limit: null,
+        repeatability_sd: '0.010',
+      },
       { element: 'Fe', decimals: 3, working_range_low: null, working_range_high: null, detection_limit: null, repeatability_sd: null },
     ]);
   });
@@ -74,7 +84,11 @@ describe('methods', () => {
       ],
     });
     expectProblem(res, 400);
-    expect(problemBody(res).errors?.map((e) => e.location).sort()).toEqual([
+    expect(
+      problemBody(res)
+        .errors?.map((e) => e.location)
+        .sort(),
+    ).toEqual([
       'body.elements.0.element',
       'body.elements.1.decimals',
       'body.elements.2.working_range_high',

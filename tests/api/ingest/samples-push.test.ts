@@ -18,7 +18,16 @@ beforeAll(async () => {
 afterAll(() => t.close());
 
 function steel(code: string, burns: Record<string, number | string>[], extra: Record<string, unknown> = {}) {
-  return { sample_code: code, heat: code.slice(0, 8), grade: 'SAE 1045', kind: 'final', instrument_id: lab.foundry.id, method_id: lab.feMethod.id, burns: burns.map((values) => ({ values })), ...extra };
+  return {
+    sample_code: code,
+    heat: code.slice(0, 8),
+    grade: 'SAE 1045',
+    kind: 'final',
+    instrument_id: lab.foundry.id,
+    method_id: lab.feMethod.id,
+    burns: burns.map((values) => ({ values })),
+    ...extra,
+  };
 }
 
 const countSamples = async () => Number((await t.db('samples').count({ n: '*' }))[0].n);
@@ -26,7 +35,13 @@ const countSamples = async () => Number((await t.db('samples').count({ n: '*' })
 describe('POST /api/v1/samples', () => {
   it('stores the burns and returns results that agree with an independent calculation', async () => {
     const mn = [0.744, 0.751, 0.755];
-    const res = await analyst.post('/api/v1/samples').send(steel('K24-0412-F1', [{ mn: mn[0], C: 0.452 }, { MN: mn[1], C: 0.449 }, { Mn: mn[2], c: 0.455 }]));
+    const res = await analyst.post('/api/v1/samples').send(
+      steel('K24-0412-F1', [
+        { mn: mn[0], C: 0.452 },
+        { MN: mn[1], C: 0.449 },
+        { Mn: mn[2], c: 0.455 },
+      ]),
+    );
     expect(res.status).toBe(201);
     expect(res.headers.location).toBe(`/api/v1/samples/${res.body.id}`);
     const result = res.body.results.find((r: { element: string }) => r.element === 'Mn');
@@ -40,19 +55,38 @@ describe('POST /api/v1/samples', () => {
     expect(res.body.results.map((r: { element: string }) => r.element)).toEqual(['C', 'Mn']);
     expect(res.body.burns).toHaveLength(3);
     expect(res.body.burns[1].values.Mn).toEqual({ value: 0.751, qualifier: null, raw: '0.751', raw_unit: '%', corrected: null });
-    expect(res.body).toMatchObject({ status: 'draft', source: 'push', instrument: { code: 'OES-1' }, method: { code: 'FE-LA' }, provenance: { source: 'push', import_id: null } });
+    expect(res.body).toMatchObject({
+      status: 'draft',
+      source: 'push',
+      instrument: { code: 'OES-1' },
+      method: { code: 'FE-LA' },
+      provenance: { source: 'push', import_id: null },
+    });
   });
 
   it('rounds an exact tie half to even, from the decimal mean (ASTM E29)', async () => {
     // Exact means 0.125, 0.135, 0.145 → 0.12, 0.14, 0.14: ties go to the even digit (ASTM E29 examples 12.25 → 12.2, 12.35 → 12.4, 12.45 → 12.4).
-    for (const [a, b, expected] of [[0.12, 0.13, '0.12'], [0.13, 0.14, '0.14'], [0.14, 0.15, '0.14']] as const) {
+    for (const [a, b, expected] of [
+      [0.12, 0.13, '0.12'],
+      [0.13, 0.14, '0.14'],
+      [0.14, 0.15, '0.14'],
+    ] as const) {
       const res = await analyst.post('/api/v1/samples').send(steel('K24-0413-F1', [{ Cr: a }, { Cr: b }]));
       expect(res.body.results[0]).toMatchObject({ element: 'Cr', reported: expected });
     }
   });
 
   it('keeps qualified values and converts exactly to ppm on request', async () => {
-    const created = await analyst.post('/api/v1/samples').send(steel('K24-0414-F1', [{ S: '<0.002', B: 0.0004 }, { S: '<0.002', B: '0.0005' }], { unit: '%' }));
+    const created = await analyst.post('/api/v1/samples').send(
+      steel(
+        'K24-0414-F1',
+        [
+          { S: '<0.002', B: 0.0004 },
+          { S: '<0.002', B: '0.0005' },
+        ],
+        { unit: '%' },
+      ),
+    );
     const ppm = await analyst.get(`/api/v1/samples/${created.body.id}`).query({ unit: 'ppm' });
     expect(ppm.status).toBe(200);
     const s = ppm.body.results.find((r: { element: string }) => r.element === 'S');
@@ -64,7 +98,16 @@ describe('POST /api/v1/samples', () => {
   });
 
   it('accepts values pushed in ppm and stores them canonically in %', async () => {
-    const res = await analyst.post('/api/v1/samples').send(steel('K24-0415-F1', [{ N: 85, B: 4 }, { N: 95, B: 5 }], { unit: 'ppm' }));
+    const res = await analyst.post('/api/v1/samples').send(
+      steel(
+        'K24-0415-F1',
+        [
+          { N: 85, B: 4 },
+          { N: 95, B: 5 },
+        ],
+        { unit: 'ppm' },
+      ),
+    );
     expect(res.status).toBe(201);
     const n = res.body.results.find((r: { element: string }) => r.element === 'N');
     expect(n.mean).toBe(0.009);
@@ -76,7 +119,11 @@ describe('POST /api/v1/samples', () => {
     const before = await countSamples();
     const res = await analyst.post('/api/v1/samples').send(steel('K24-0416-F1', [{ Xx: 1, Mn: 'abc' }, { Mn: -0.5, C: '0.4.5' }, {}]));
     expectProblem(res, 400);
-    expect(problemBody(res).errors?.map((e) => e.location).sort()).toEqual([
+    expect(
+      problemBody(res)
+        .errors?.map((e) => e.location)
+        .sort(),
+    ).toEqual([
       'body.burns.0.values.Mn',
       'body.burns.0.values.Xx',
       'body.burns.1.values.C',
@@ -87,18 +134,28 @@ describe('POST /api/v1/samples', () => {
   });
 
   it('answers 422 for an unknown instrument or method', async () => {
-    const res = await analyst.post('/api/v1/samples').send({ ...steel('K24-0417-F1', [{ Mn: 0.7 }]), instrument_id: 'ins_nope', method_id: 'mth_nope' });
+    const res = await analyst
+      .post('/api/v1/samples')
+      .send({ ...steel('K24-0417-F1', [{ Mn: 0.7 }]), instrument_id: 'ins_nope', method_id: 'mth_nope' });
     expectProblem(res, 422);
-    expect(problemBody(res).errors?.map((e) => e.location).sort()).toEqual(['body.instrument_id', 'body.method_id']);
+    expect(
+      problemBody(res)
+        .errors?.map((e) => e.location)
+        .sort(),
+    ).toEqual(['body.instrument_id', 'body.method_id']);
   });
 
   it('stores a batch all or nothing', async () => {
     const before = await countSamples();
-    const bad = await analyst.post('/api/v1/samples/batch').send({ samples: [steel('K24-0418-F1', [{ Mn: 0.7 }]), steel('K24-0418-F2', [{ Mn: 'x' }])] });
+    const bad = await analyst
+      .post('/api/v1/samples/batch')
+      .send({ samples: [steel('K24-0418-F1', [{ Mn: 0.7 }]), steel('K24-0418-F2', [{ Mn: 'x' }])] });
     expectProblem(bad, 400);
     expect(problemBody(bad).errors?.[0].location).toBe('body.samples.1.burns.0.values.Mn');
     expect(await countSamples()).toBe(before);
-    const good = await analyst.post('/api/v1/samples/batch').send({ samples: [steel('K24-0418-F1', [{ Mn: 0.7 }]), steel('K24-0418-F2', [{ Mn: 0.71 }])] });
+    const good = await analyst
+      .post('/api/v1/samples/batch')
+      .send({ samples: [steel('K24-0418-F1', [{ Mn: 0.7 }]), steel('K24-0418-F2', [{ Mn: 0.71 }])] });
     expect(good.status).toBe(201);
     expect(good.body.data.map((s: { sample_code: string }) => s.sample_code)).toEqual(['K24-0418-F1', 'K24-0418-F2']);
     expect(await countSamples()).toBe(before + 2);
@@ -121,20 +178,32 @@ describe('PATCH /api/v1/samples/{id}/burns/{n}', () => {
     expect(excluded.status).toBe(200);
     expect(excluded.body.results[0]).toMatchObject({ n: 2, reported: '0.76' });
     expect(excluded.body.results[0].flags).not.toContain('repeatability_exceeded');
-    expect(excluded.body.burns[2]).toMatchObject({ excluded: true, exclusion: { reason: 'porous spot, visible crater' }, values: { Mn: { value: 0.95 } } });
+    expect(excluded.body.burns[2]).toMatchObject({
+      excluded: true,
+      exclusion: { reason: 'porous spot, visible crater' },
+      values: { Mn: { value: 0.95 } },
+    });
 
     const { agent: manager } = await signedInAgent(t, 'manager');
     const audit = await manager.get('/api/v1/audit-events').query({ target_id: id, action: 'sample.burn_excluded' });
-    expect(audit.body.data[0]).toMatchObject({ before: { burn: { number: 3, excluded: false } }, after: { burn: { number: 3, excluded: true }, reason: 'porous spot, visible crater' } });
+    expect(audit.body.data[0]).toMatchObject({
+      before: { burn: { number: 3, excluded: false } },
+      after: { burn: { number: 3, excluded: true }, reason: 'porous spot, visible crater' },
+    });
 
-    const included = await analyst.patch(`/api/v1/samples/${id}/burns/3`).send({ excluded: false, reason: 'crater was on the other sample' });
+    const included = await analyst
+      .patch(`/api/v1/samples/${id}/burns/3`)
+      .send({ excluded: false, reason: 'crater was on the other sample' });
     expect(included.body.results[0].n).toBe(3);
     expectProblem(await analyst.patch(`/api/v1/samples/${id}/burns/9`).send({ excluded: true, reason: 'no such burn' }), 404);
   });
 
   it('never excludes the last included burn', async () => {
     const created = await analyst.post('/api/v1/samples').send(steel('K24-0421-F1', [{ Mn: 0.75 }]));
-    expectProblem(await analyst.patch(`/api/v1/samples/${created.body.id}/burns/1`).send({ excluded: true, reason: 'would leave nothing' }), 409);
+    expectProblem(
+      await analyst.patch(`/api/v1/samples/${created.body.id}/burns/1`).send({ excluded: true, reason: 'would leave nothing' }),
+      409,
+    );
   });
 });
 
@@ -142,7 +211,8 @@ describe('GET /api/v1/samples', () => {
   it('filters, pages without gaps, and follows updated_since in change order', async () => {
     const heat = 'K24-0500';
     const ids: string[] = [];
-    for (let i = 0; i < 5; i++) ids.push((await analyst.post('/api/v1/samples').send(steel(`${heat}-F${i}`, [{ Mn: 0.7 + i / 100 }], { heat }))).body.id);
+    for (let i = 0; i < 5; i++)
+      ids.push((await analyst.post('/api/v1/samples').send(steel(`${heat}-F${i}`, [{ Mn: 0.7 + i / 100 }], { heat }))).body.id);
     const seen: string[] = [];
     let cursor: string | undefined;
     do {

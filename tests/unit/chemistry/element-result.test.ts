@@ -21,7 +21,17 @@ function result(cells: Array<BurnCell | undefined>, settings: Partial<ElementSet
 describe('rule 1–2: numeric burns → mean, SD, RSD, n, min, max, reported', () => {
   it('averages the burns exactly and rounds half-even to the method decimals', () => {
     const r = result([num('0.752'), num('0.748'), num('0.751')], { decimals: 2 });
-    expect(r).toMatchObject({ element: 'Mn', mean: '0.7503333333333333333333333333333333', n: 3, min: '0.748', max: '0.752', reported: '0.75', qualifier: null, flags: [], n_qualified: 0 });
+    expect(r).toMatchObject({
+      element: 'Mn',
+      mean: '0.7503333333333333333333333333333333',
+      n: 3,
+      min: '0.748',
+      max: '0.752',
+      reported: '0.75',
+      qualifier: null,
+      flags: [],
+      n_qualified: 0,
+    });
     // SD (n − 1) cross-checked with simple-statistics 7.12.1.
     expect(r.sd).toBeCloseTo(sampleStandardDeviation([0.752, 0.748, 0.751]), 14);
     expect(r.rsd).toBeCloseTo((100 * sampleStandardDeviation([0.752, 0.748, 0.751])) / 0.7503333333333333, 10);
@@ -51,8 +61,18 @@ describe('rule 3: n = 0 → no result', () => {
     ['only blank cells', [{ value: null, qualifier: null }]],
   ])('%s', (_label, cells) => {
     expect(result(cells as BurnCell[])).toEqual({
-      element: 'Mn', mean: null, sd: null, rsd: null, n: 0, min: null, max: null,
-      reported: null, qualifier: null, flags: ['not_measured'], n_qualified: 0, repeatability: null,
+      element: 'Mn',
+      mean: null,
+      sd: null,
+      rsd: null,
+      n: 0,
+      min: null,
+      max: null,
+      reported: null,
+      qualifier: null,
+      flags: ['not_measured'],
+      n_qualified: 0,
+      repeatability: null,
     });
   });
 });
@@ -69,7 +89,12 @@ describe('rule 4: numeric mean outside the limits', () => {
 
   it('below the detection limit → "<" the lowest reportable value (larger of DL and range low)', () => {
     const r = result([num('0.0003'), num('0.0004')], limits);
-    expect(r).toMatchObject({ mean: '0.00035', reported: '0.0020', qualifier: '<', flags: ['below_detection_limit', 'below_working_range'] });
+    expect(r).toMatchObject({
+      mean: '0.00035',
+      reported: '0.0020',
+      qualifier: '<',
+      flags: ['below_detection_limit', 'below_working_range'],
+    });
   });
 
   it('below the detection limit when no working range is set → "<" the detection limit', () => {
@@ -91,14 +116,26 @@ describe('rule 4: numeric mean outside the limits', () => {
     expect(result([num('0.0020'), num('0.0020')], limits)).toMatchObject({ reported: '0.0020', qualifier: null, flags: [] });
     expect(result([num('2.0')], { ...limits, decimals: 1 })).toMatchObject({ reported: '2.0', qualifier: null });
     // 0.00199999 rounds to 0.0020 but is below the range: "<", not a number equal to the limit.
-    expect(result([num('0.00199999')], limits)).toMatchObject({ reported: '0.0020', qualifier: '<', flags: ['single_burn', 'below_working_range'] });
+    expect(result([num('0.00199999')], limits)).toMatchObject({
+      reported: '0.0020',
+      qualifier: '<',
+      flags: ['single_burn', 'below_working_range'],
+    });
   });
 });
 
 describe('rule 5: "<" and n.d. burns → an upper bound', () => {
   it('all burns "<" → "<" the limit; no mean', () => {
     const r = result([lt('0.0005'), lt('0.0005'), lt('0.0005')], { detection_limit: '0.0005' });
-    expect(r).toMatchObject({ mean: null, sd: null, n: 0, n_qualified: 3, reported: '0.0005', qualifier: '<', flags: ['all_burns_qualified'] });
+    expect(r).toMatchObject({
+      mean: null,
+      sd: null,
+      n: 0,
+      n_qualified: 3,
+      reported: '0.0005',
+      qualifier: '<',
+      flags: ['all_burns_qualified'],
+    });
   });
 
   it('all burns "<" with different limits → "<" the mean of the limits', () => {
@@ -108,13 +145,24 @@ describe('rule 5: "<" and n.d. burns → an upper bound', () => {
   it('mixed numeric and "<" burns → "<" the mean with each "<" at its limit; mean, n of numeric burns', () => {
     // (0.0007 + 0.0006 + 0.0005) / 3 = 0.0006
     const r = result([num('0.0007'), num('0.0006'), lt('0.0005')], { detection_limit: '0.0005' });
-    expect(r).toMatchObject({ mean: '0.00065', n: 2, n_qualified: 1, reported: '0.0006', qualifier: '<', flags: ['mixed_qualified_burns'] });
+    expect(r).toMatchObject({
+      mean: '0.00065',
+      n: 2,
+      n_qualified: 1,
+      reported: '0.0006',
+      qualifier: '<',
+      flags: ['mixed_qualified_burns'],
+    });
   });
 
   it('an upper bound below the lowest reportable value is raised to it', () => {
     // (0.0001 + 0.0005) / 2 = 0.0003 < DL 0.0005
     const r = result([num('0.0001'), lt('0.0005')], { detection_limit: '0.0005' });
-    expect(r).toMatchObject({ reported: '0.0005', qualifier: '<', flags: ['single_burn', 'below_detection_limit', 'mixed_qualified_burns'] });
+    expect(r).toMatchObject({
+      reported: '0.0005',
+      qualifier: '<',
+      flags: ['single_burn', 'below_detection_limit', 'mixed_qualified_burns'],
+    });
   });
 
   it('n.d. counts as "<" the detection limit', () => {
@@ -133,11 +181,20 @@ describe('rule 5: "<" and n.d. burns → an upper bound', () => {
 
 describe('rule 6: ">" burns → a lower bound', () => {
   it('all ">" → ">" the limit', () => {
-    expect(result([gt('1.5'), gt('1.5')], { decimals: 2 })).toMatchObject({ reported: '1.50', qualifier: '>', flags: ['all_burns_qualified'] });
+    expect(result([gt('1.5'), gt('1.5')], { decimals: 2 })).toMatchObject({
+      reported: '1.50',
+      qualifier: '>',
+      flags: ['all_burns_qualified'],
+    });
   });
 
   it('mixed numeric and ">" → ">" the mean with each ">" at its limit', () => {
-    expect(result([num('1.40'), gt('1.5')], { decimals: 2 })).toMatchObject({ mean: '1.4', reported: '1.45', qualifier: '>', flags: ['single_burn', 'mixed_qualified_burns'] });
+    expect(result([num('1.40'), gt('1.5')], { decimals: 2 })).toMatchObject({
+      mean: '1.4',
+      reported: '1.45',
+      qualifier: '>',
+      flags: ['single_burn', 'mixed_qualified_burns'],
+    });
   });
 
   it('a lower bound above the working range is capped at its upper end', () => {
@@ -153,7 +210,13 @@ describe('rule 6: ">" burns → a lower bound', () => {
 describe('rule 7: nothing can be reported', () => {
   it('"<" and ">" burns together', () => {
     const r = result([lt('0.001'), gt('1.5'), num('0.5')], { decimals: 3 });
-    expect(r).toMatchObject({ reported: null, qualifier: null, mean: '0.5', n: 1, flags: ['single_burn', 'mixed_qualified_burns', 'conflicting_qualified_burns'] });
+    expect(r).toMatchObject({
+      reported: null,
+      qualifier: null,
+      mean: '0.5',
+      n: 1,
+      flags: ['single_burn', 'mixed_qualified_burns', 'conflicting_qualified_burns'],
+    });
   });
 
   it('n.d. without a detection limit', () => {
@@ -162,7 +225,11 @@ describe('rule 7: nothing can be reported', () => {
   });
 
   it('">" without a value and without a working range', () => {
-    expect(result([gt(null), num('1.2')])).toMatchObject({ reported: null, qualifier: null, flags: ['single_burn', 'mixed_qualified_burns', 'limit_missing'] });
+    expect(result([gt(null), num('1.2')])).toMatchObject({
+      reported: null,
+      qualifier: null,
+      flags: ['single_burn', 'mixed_qualified_burns', 'limit_missing'],
+    });
   });
 });
 
@@ -193,7 +260,10 @@ describe('rule 10: repeatability (ISO 5725-6)', () => {
   });
 
   it('more than 20 burns → repeatability_unchecked', () => {
-    const r = result(Array.from({ length: 21 }, () => num('0.75')), { decimals: 2, repeatability_sd: '0.005' });
+    const r = result(
+      Array.from({ length: 21 }, () => num('0.75')),
+      { decimals: 2, repeatability_sd: '0.005' },
+    );
     expect(r.flags).toEqual(['repeatability_unchecked']);
   });
 

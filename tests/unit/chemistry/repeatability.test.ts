@@ -1,12 +1,34 @@
 import jStat from 'jstat';
 import { describe, expect, it } from 'vitest';
-import { CRITICAL_RANGE_FACTORS, criticalRangeFactor, rangeCheck, repeatabilityCheck } from '../../../server/domain/chemistry/repeatability.ts';
+import {
+  CRITICAL_RANGE_FACTORS,
+  criticalRangeFactor,
+  rangeCheck,
+  repeatabilityCheck,
+} from '../../../server/domain/chemistry/repeatability.ts';
 
 // ISO 5725-6:1994 Table 1, critical range factors f(n) to one decimal. n = 2…6 as listed in
 // /work/shared/REFERENCES.md (read); n = 7…20 from memory.
 const ISO_5725_6_TABLE_1: Record<number, number> = {
-  2: 2.8, 3: 3.3, 4: 3.6, 5: 3.9, 6: 4.0, 7: 4.2, 8: 4.3, 9: 4.4, 10: 4.5, 11: 4.6,
-  12: 4.6, 13: 4.7, 14: 4.7, 15: 4.8, 16: 4.8, 17: 4.9, 18: 4.9, 19: 5.0, 20: 5.0,
+  2: 2.8,
+  3: 3.3,
+  4: 3.6,
+  5: 3.9,
+  6: 4.0,
+  7: 4.2,
+  8: 4.3,
+  9: 4.4,
+  10: 4.5,
+  11: 4.6,
+  12: 4.6,
+  13: 4.7,
+  14: 4.7,
+  15: 4.8,
+  16: 4.8,
+  17: 4.9,
+  18: 4.9,
+  19: 5.0,
+  20: 5.0,
 };
 
 describe('ISO 5725-6 critical range factors', () => {
@@ -18,7 +40,7 @@ describe('ISO 5725-6 critical range factors', () => {
     expect(criticalRangeFactor(21)).toBeUndefined();
   });
 
-  it.each(ns)('f(%i) is jstat\'s studentized range quantile q(0.95; n, ∞) to two decimals', (n) => {
+  it.each(ns)("f(%i) is jstat's studentized range quantile q(0.95; n, ∞) to two decimals", (n) => {
     // jstat 1.9.6: jStat.tukey.inv(p, nmeans, df); df = Infinity as in REFERENCES.md.
     const quantile = jStat.tukey.inv(0.95, n, Infinity);
     expect(Math.abs(Number(CRITICAL_RANGE_FACTORS[n]) - quantile)).toBeLessThanOrEqual(0.005);
@@ -49,7 +71,11 @@ describe('repeatabilityCheck', () => {
   });
 
   it('passes three burns within the critical range', () => {
-    expect(repeatabilityCheck(['0.750', '0.755', '0.752'], '0.005')).toEqual({ range: '0.005', critical_range: '0.01655', exceeded: false });
+    expect(repeatabilityCheck(['0.750', '0.755', '0.752'], '0.005')).toEqual({
+      range: '0.005',
+      critical_range: '0.01655',
+      exceeded: false,
+    });
   });
 
   it('passes a range exactly equal to the critical range and flags one just above', () => {
@@ -64,7 +90,12 @@ describe('repeatabilityCheck', () => {
 
   it('does not apply to one burn, more than 20 burns, or σr ≤ 0', () => {
     expect(repeatabilityCheck(['0.75'], '0.005')).toBeNull();
-    expect(repeatabilityCheck(Array.from({ length: 21 }, () => '0.75'), '0.005')).toBeNull();
+    expect(
+      repeatabilityCheck(
+        Array.from({ length: 21 }, () => '0.75'),
+        '0.005',
+      ),
+    ).toBeNull();
     expect(repeatabilityCheck(['0.75', '0.76'], '0')).toBeNull();
     expect(repeatabilityCheck(['0.75', '0.76'], '-0.01')).toBeNull();
     expect(repeatabilityCheck([], '0.01')).toBeNull();

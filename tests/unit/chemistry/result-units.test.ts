@@ -11,7 +11,12 @@ const num = (value: string): BurnCell => ({ value, qualifier: null });
 
 describe('reportingDecimals (the same place in another unit; 1 % = 10^4 ppm = 10^7 ppb, NIST SP 811 §7.10)', () => {
   it.each([
-    [4, 'ppm', 0], [5, 'ppm', 1], [2, 'ppm', -2], [4, 'ppb', -3], [7, 'ppb', 0], [3, '%', 3],
+    [4, 'ppm', 0],
+    [5, 'ppm', 1],
+    [2, 'ppm', -2],
+    [4, 'ppb', -3],
+    [7, 'ppb', 0],
+    [3, '%', 3],
   ] as const)('%i decimals in %% → %s with %i decimals', (decimals, unit, expected) => {
     expect(reportingDecimals(decimals, unit)).toBe(expected);
   });
@@ -82,15 +87,20 @@ describe('convertResult', () => {
     // other unit must give the same quantity; checked both ways, and the mean against js-quantities.
     const decimal = decimalString({ maxDigits: 10n ** 9n, maxScale: 9 }).filter((value) => Number(value) > 0);
     fc.assert(
-      fc.property(fc.array(decimal, { minLength: 1, maxLength: 5 }), fc.integer({ min: 0, max: 7 }), fc.constantFrom('ppm' as const, 'ppb' as const), (values, decimals, unit) => {
-        const r = computeElementResult({ element: 'Mn', cells: values.map(num), settings: { decimals } });
-        const converted = convertResult(r, unit, decimals);
-        const shift = unit === 'ppm' ? 4 : 7;
-        expect(converted.reported).toBe(roundHalfEven(fromPercent(r.mean as string, unit), decimals - shift));
-        expect(Number(converted.reported)).toBe(Number(fromPercent(r.reported as string, unit)));
-        const theirs = Qty(`${Number(r.mean)} %`).to(unit).scalar; // js-quantities 1.8.0 (doubles)
-        expect(Math.abs(Number(converted.mean) - theirs)).toBeLessThanOrEqual(1e-12 * theirs);
-      }),
+      fc.property(
+        fc.array(decimal, { minLength: 1, maxLength: 5 }),
+        fc.integer({ min: 0, max: 7 }),
+        fc.constantFrom('ppm' as const, 'ppb' as const),
+        (values, decimals, unit) => {
+          const r = computeElementResult({ element: 'Mn', cells: values.map(num), settings: { decimals } });
+          const converted = convertResult(r, unit, decimals);
+          const shift = unit === 'ppm' ? 4 : 7;
+          expect(converted.reported).toBe(roundHalfEven(fromPercent(r.mean as string, unit), decimals - shift));
+          expect(Number(converted.reported)).toBe(Number(fromPercent(r.reported as string, unit)));
+          const theirs = Qty(`${Number(r.mean)} %`).to(unit).scalar; // js-quantities 1.8.0 (doubles)
+          expect(Math.abs(Number(converted.mean) - theirs)).toBeLessThanOrEqual(1e-12 * theirs);
+        },
+      ),
       { numRuns: 500 },
     );
   });

@@ -50,7 +50,9 @@ describe('mass-fraction conversions (SI brochure; NIST SP 811 §7.10)', () => {
           const theirs = Qty(`${percent} %`).to(unit).scalar;
           const ours = Number(fromPercent(percent, unit));
           expect(Math.abs(ours - theirs)).toBeLessThanOrEqual(1e-12 * Math.abs(theirs));
-          expect(Math.abs(Number(toPercent(String(ours), unit)) - Qty(`${ours} ${unit}`).to('%').scalar)).toBeLessThanOrEqual(1e-12 * Number(percent));
+          expect(Math.abs(Number(toPercent(String(ours), unit)) - Qty(`${ours} ${unit}`).to('%').scalar)).toBeLessThanOrEqual(
+            1e-12 * Number(percent),
+          );
         }
       }),
       { numRuns: 300 },
@@ -60,10 +62,24 @@ describe('mass-fraction conversions (SI brochure; NIST SP 811 §7.10)', () => {
 
 describe('parseUnit', () => {
   it.each([
-    ['%', '%'], ['wt%', '%'], ['wt.%', '%'], ['mass %', '%'], ['Percent', '%'],
-    ['ppm', 'ppm'], ['PPM', 'ppm'], ['mg/kg', 'ppm'], ['µg/g', 'ppm'], ['ug/g', 'ppm'],
-    ['ppb', 'ppb'], ['µg/kg', 'ppb'], ['μg/kg', 'ppb'], ['ug/kg', 'ppb'],
-    ['fraction', 'fraction'], ['mass  fraction', 'fraction'], ['kg/kg', 'fraction'], [' g/g ', 'fraction'],
+    ['%', '%'],
+    ['wt%', '%'],
+    ['wt.%', '%'],
+    ['mass %', '%'],
+    ['Percent', '%'],
+    ['ppm', 'ppm'],
+    ['PPM', 'ppm'],
+    ['mg/kg', 'ppm'],
+    ['µg/g', 'ppm'],
+    ['ug/g', 'ppm'],
+    ['ppb', 'ppb'],
+    ['µg/kg', 'ppb'],
+    ['μg/kg', 'ppb'],
+    ['ug/kg', 'ppb'],
+    ['fraction', 'fraction'],
+    ['mass  fraction', 'fraction'],
+    ['kg/kg', 'fraction'],
+    [' g/g ', 'fraction'],
   ])('%s → %s', (text, unit) => {
     expect(parseUnit(text)).toBe(unit);
   });

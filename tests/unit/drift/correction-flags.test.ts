@@ -11,15 +11,26 @@ describe('slope limits', () => {
     expect(limitFlags('two_point', { slope: '1.2', offset: '0' }, LIMITS, 'FE-LA')).toEqual([]);
     expect(limitFlags('two_point', { slope: '0.8', offset: '0' }, LIMITS, 'FE-LA')).toEqual([]);
     const warn = limitFlags('two_point', { slope: '1.2000001', offset: '0' }, LIMITS, 'FE-LA');
-    expect(warn).toEqual([{ flag: 'warn', reason: 'Slope 1.2 is 0.2 away from 1: more than the warn limit 0.2 of method FE-LA (fail above 0.5).' }]);
+    expect(warn).toEqual([
+      { flag: 'warn', reason: 'Slope 1.2 is 0.2 away from 1: more than the warn limit 0.2 of method FE-LA (fail above 0.5).' },
+    ]);
     expect(limitFlags('two_point', { slope: '1.5', offset: '0' }, LIMITS, 'FE-LA').map((f) => f.flag)).toEqual(['warn']);
     const fail = limitFlags('one_point_factor', { slope: '0.4512', offset: '0' }, LIMITS, 'FE-LA');
-    expect(fail).toEqual([{ flag: 'fail', reason: 'Slope 0.4512 is 0.5488 away from 1: more than the fail limit 0.5 of method FE-LA. Activating it needs an override reason.' }]);
+    expect(fail).toEqual([
+      {
+        flag: 'fail',
+        reason: 'Slope 0.4512 is 0.5488 away from 1: more than the fail limit 0.5 of method FE-LA. Activating it needs an override reason.',
+      },
+    ]);
   });
 
-  it('uses the method\'s own limits', () => {
-    expect(limitFlags('two_point', { slope: '1.06', offset: '0' }, { warn: '0.05', fail: '0.1' }, 'AL-WR').map((f) => f.flag)).toEqual(['warn']);
-    expect(limitFlags('two_point', { slope: '1.11', offset: '0' }, { warn: '0.05', fail: '0.1' }, 'AL-WR').map((f) => f.flag)).toEqual(['fail']);
+  it("uses the method's own limits", () => {
+    expect(limitFlags('two_point', { slope: '1.06', offset: '0' }, { warn: '0.05', fail: '0.1' }, 'AL-WR').map((f) => f.flag)).toEqual([
+      'warn',
+    ]);
+    expect(limitFlags('two_point', { slope: '1.11', offset: '0' }, { warn: '0.05', fail: '0.1' }, 'AL-WR').map((f) => f.flag)).toEqual([
+      'fail',
+    ]);
   });
 
   it('fails a negative slope and says the references look swapped', () => {
@@ -29,9 +40,17 @@ describe('slope limits', () => {
   });
 
   it('judges a one-point offset relative to the nominal value', () => {
-    expect(limitFlags('one_point_offset', { slope: '1', offset: '0.05' }, LIMITS, 'FE-LA', { nominal: '0.5', measured: '0.45' })).toEqual([]);
+    expect(limitFlags('one_point_offset', { slope: '1', offset: '0.05' }, LIMITS, 'FE-LA', { nominal: '0.5', measured: '0.45' })).toEqual(
+      [],
+    );
     const flags = limitFlags('one_point_offset', { slope: '1', offset: '0.15' }, LIMITS, 'FE-LA', { nominal: '0.5', measured: '0.35' });
-    expect(flags).toEqual([{ flag: 'warn', reason: 'Offset 0.15 % moves the reference by 30 % of its nominal value 0.5 %: more than the warn limit 0.2 of method FE-LA (fail above 0.5).' }]);
+    expect(flags).toEqual([
+      {
+        flag: 'warn',
+        reason:
+          'Offset 0.15 % moves the reference by 30 % of its nominal value 0.5 %: more than the warn limit 0.2 of method FE-LA (fail above 0.5).',
+      },
+    ]);
   });
 });
 
@@ -43,12 +62,13 @@ describe('other checks', () => {
     expect(spanFlag({ nominal: '1.5', measured: '1.47' }, { nominal: '0.3', measured: '0.31' }, 'HI', 'LO')).toBeNull();
   });
 
-  it('warns when a reference\'s burns exceed the ISO 5725-6 critical range', () => {
+  it("warns when a reference's burns exceed the ISO 5725-6 critical range", () => {
     // f(2) = 2.77 (ISO 5725-6 Table 1; jstat), σr = 0.005 → critical range 0.01385 < range 0.02 (shown half-even to 4 decimals: 0.0138).
     const check = repeatabilityCheck(['0.70', '0.72'], '0.005');
     expect(agreementFlag(check, 2, '0.005', 'KB-FE-HI')).toEqual({
       flag: 'warn',
-      reason: 'The 2 burns of KB-FE-HI disagree: their range 0.02 % exceeds the ISO 5725-6 critical range f(2)·σr = 0.0138 % (σr 0.005 %). Spark it again before relying on this correction.',
+      reason:
+        'The 2 burns of KB-FE-HI disagree: their range 0.02 % exceeds the ISO 5725-6 critical range f(2)·σr = 0.0138 % (σr 0.005 %). Spark it again before relying on this correction.',
     });
     expect(agreementFlag(repeatabilityCheck(['0.70', '0.71'], '0.005'), 2, '0.005', 'KB-FE-HI')).toBeNull();
   });

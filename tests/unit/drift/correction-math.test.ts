@@ -20,8 +20,17 @@ import { computeSampleResults } from '../../../server/domain/samples/sample-resu
 import { decimalString } from '../../helpers/decimal-arbitrary.ts';
 
 const METHOD: Method = {
-  id: 'mth_test', code: 'T', name: 'test', matrix: 'Fe', default_unit: '%', drift_limits: { warn: '0.2', fail: '0.5' }, created_at: '', updated_at: '',
-  elements: [{ element: 'Mn', decimals: 3, working_range_low: null, working_range_high: null, detection_limit: null, repeatability_sd: null }],
+  id: 'mth_test',
+  code: 'T',
+  name: 'test',
+  matrix: 'Fe',
+  default_unit: '%',
+  drift_limits: { warn: '0.2', fail: '0.5' },
+  created_at: '',
+  updated_at: '',
+  elements: [
+    { element: 'Mn', decimals: 3, working_range_low: null, working_range_high: null, detection_limit: null, repeatability_sd: null },
+  ],
 };
 
 // The oracle: decimal.js 10.6.0 configured here — quotient at 60 digits, α kept to 20 significant
@@ -84,7 +93,10 @@ describe('two-point correction', () => {
 
 describe('one-point and type corrections', () => {
   it('factor α = N/M with β = 0, offset α = 1 with β = N − M (decimal.js)', () => {
-    expect(onePointFactor({ nominal: '0.75', measured: '0.7' })).toEqual({ slope: plain(new D60('0.75').div('0.7').toSignificantDigits(20, Decimal.ROUND_HALF_EVEN)), offset: '0' });
+    expect(onePointFactor({ nominal: '0.75', measured: '0.7' })).toEqual({
+      slope: plain(new D60('0.75').div('0.7').toSignificantDigits(20, Decimal.ROUND_HALF_EVEN)),
+      offset: '0',
+    });
     expect(onePointOffset({ nominal: '0.75', measured: '0.7123' })).toEqual({ slope: '1', offset: '0.0377' });
     expect(() => onePointFactor({ nominal: '0.75', measured: '0' })).toThrow(CorrectionMathError);
   });
@@ -107,34 +119,48 @@ describe('correcting burns then averaging equals averaging then correcting', () 
   // Realistic inputs: mass fractions up to 100 % with up to 6 decimals, references measured within
   // ±40 % of their nominal values (slopes roughly 0.5–2). Then every corrected value has at most
   // ~30 digits and the 34-digit mean sums them without rounding.
-  const percent = (maxScale: number) => fc.tuple(fc.bigInt({ min: 1n, max: 100n * 10n ** BigInt(maxScale) }), fc.constant(maxScale)).map(([d, k]) => plain(new D200(d.toString()).div(10n ** BigInt(k) + '')));
+  const percent = (maxScale: number) =>
+    fc
+      .tuple(fc.bigInt({ min: 1n, max: 100n * 10n ** BigInt(maxScale) }), fc.constant(maxScale))
+      .map(([d, k]) => plain(new D200(d.toString()).div(10n ** BigInt(k) + '')));
   const measuredNear = (nominal: string, factor: number) => plain(new D200(nominal).times(factor).toDecimalPlaces(5));
   it('holds exactly on the sums and to the last of 34 digits on the means (property, decimal.js)', () => {
     const factor = fc.double({ min: 0.6, max: 1.4, noNaN: true });
     fc.assert(
-      fc.property(fc.array(percent(6), { minLength: 1, maxLength: 50 }), percent(4), percent(4), factor, factor, (burns, h0, l0, fh, fl) => {
-        const h = measuredNear(h0, fh);
-        const l = measuredNear(l0, fl);
-        fc.pre(!new Decimal(h).eq(l) && !new Decimal(h0).eq(l0));
-        const slope = new Decimal(h0).minus(l0).div(new Decimal(h).minus(l)).abs();
-        fc.pre(slope.gte(0.5) && slope.lte(2));
-        const c = twoPoint({ nominal: h0, measured: h }, { nominal: l0, measured: l });
-        const n = burns.length;
-        const sumCorrected = burns.reduce((s, x) => s.plus(correctValue(x, c)), new D200(0));
-        const sumRaw = burns.reduce((s, x) => s.plus(x), new D200(0));
-        expect(plain(sumCorrected)).toBe(plain(new D200(c.slope).times(sumRaw).plus(new D200(c.offset).times(n))));
-        const D34 = Decimal.clone({ precision: 34, rounding: Decimal.ROUND_HALF_EVEN });
-        const meanThenCorrect = new D200(c.slope).times(new D200(sumRaw).div(n)).plus(c.offset); // 200 digits
-        const expectedMean = plain(new D34(meanThenCorrect).toSignificantDigits(34, Decimal.ROUND_HALF_EVEN));
-        expect(plain(new D34(sumCorrected).div(n))).toBe(expectedMean);
-        // …and the stored result (computeSampleResults over corrected burns) is that same mean, with raw_mean uncorrected.
-        const { results } = computeSampleResults(
-          burns.map((x) => ({ excluded: false, values: { Mn: { v: x, q: null } }, corrected: { Mn: correctCell({ v: x, q: null }, c) } })),
-          METHOD,
-        );
-        expect(results[0].mean).toBe(expectedMean);
-        expect(results[0].raw_mean).toBe(plain(new D34(sumRaw).div(n)));
-      }),
+      fc.property(
+        fc.array(percent(6), { minLength: 1, maxLength: 50 }),
+        percent(4),
+        percent(4),
+        factor,
+        factor,
+        (burns, h0, l0, fh, fl) => {
+          const h = measuredNear(h0, fh);
+          const l = measuredNear(l0, fl);
+          fc.pre(!new Decimal(h).eq(l) && !new Decimal(h0).eq(l0));
+          const slope = new Decimal(h0).minus(l0).div(new Decimal(h).minus(l)).abs();
+          fc.pre(slope.gte(0.5) && slope.lte(2));
+          const c = twoPoint({ nominal: h0, measured: h }, { nominal: l0, measured: l });
+          const n = burns.length;
+          const sumCorrected = burns.reduce((s, x) => s.plus(correctValue(x, c)), new D200(0));
+          const sumRaw = burns.reduce((s, x) => s.plus(x), new D200(0));
+          expect(plain(sumCorrected)).toBe(plain(new D200(c.slope).times(sumRaw).plus(new D200(c.offset).times(n))));
+          const D34 = Decimal.clone({ precision: 34, rounding: Decimal.ROUND_HALF_EVEN });
+          const meanThenCorrect = new D200(c.slope).times(new D200(sumRaw).div(n)).plus(c.offset); // 200 digits
+          const expectedMean = plain(new D34(meanThenCorrect).toSignificantDigits(34, Decimal.ROUND_HALF_EVEN));
+          expect(plain(new D34(sumCorrected).div(n))).toBe(expectedMean);
+          // …and the stored result (computeSampleResults over corrected burns) is that same mean, with raw_mean uncorrected.
+          const { results } = computeSampleResults(
+            burns.map((x) => ({
+              excluded: false,
+              values: { Mn: { v: x, q: null } },
+              corrected: { Mn: correctCell({ v: x, q: null }, c) },
+            })),
+            METHOD,
+          );
+          expect(results[0].mean).toBe(expectedMean);
+          expect(results[0].raw_mean).toBe(plain(new D34(sumRaw).div(n)));
+        },
+      ),
       { numRuns: 1000 },
     );
   });
@@ -171,7 +197,11 @@ describe('correcting one cell', () => {
     expect(correctValue('0.001', { slope: '1', offset: '-0.003' })).toBe('-0.002');
     const shift = { slope: '1', offset: '-0.006' };
     const { results } = computeSampleResults(
-      ['0.001', '0.004'].map((x) => ({ excluded: false, values: { Mn: { v: x, q: null } }, corrected: { Mn: correctCell({ v: x, q: null }, shift) } })),
+      ['0.001', '0.004'].map((x) => ({
+        excluded: false,
+        values: { Mn: { v: x, q: null } },
+        corrected: { Mn: correctCell({ v: x, q: null }, shift) },
+      })),
       METHOD,
     );
     // Mean −0.0035 rounds half-even to −0.004 (ASTM E29); the method sets no detection limit here.

@@ -30,15 +30,28 @@ describe('CorrectionTimeline', () => {
   });
 
   it('corrects the elements the set covers and copies the others', () => {
-    const burn = correctBurn({ Mn: { v: '0.7', q: null }, B: { v: '0.0004', q: null }, S: { v: null, q: 'nd' } }, timeline.at('2026-03-03T00:00:00Z'));
-    expect(burn).toEqual({ correction_set_id: 'std_c', corrected: { Mn: { v: '0.77', q: null }, B: { v: '0.0004', q: null }, S: { v: null, q: 'nd' } } });
+    const burn = correctBurn(
+      { Mn: { v: '0.7', q: null }, B: { v: '0.0004', q: null }, S: { v: null, q: 'nd' } },
+      timeline.at('2026-03-03T00:00:00Z'),
+    );
+    expect(burn).toEqual({
+      correction_set_id: 'std_c',
+      corrected: { Mn: { v: '0.77', q: null }, B: { v: '0.0004', q: null }, S: { v: null, q: 'nd' } },
+    });
     expect(correctBurn({ Mn: { v: '0.7', q: null } }, null)).toEqual({ correction_set_id: null, corrected: null });
   });
 
-  it('records every set a sample\'s burns used, and nothing when none applied', () => {
+  it("records every set a sample's burns used, and nothing when none applied", () => {
     const a = correctBurn({ Mn: { v: '0.7', q: null } }, timeline.at('2026-03-01T12:00:00Z'));
     const c = correctBurn({ Mn: { v: '0.7', q: null } }, timeline.at('2026-03-02T12:00:00Z'));
-    expect(ingestCorrection([a, c, c])).toEqual({ applied_to: 'concentration', set_ids: ['std_a', 'std_c'], selection: 'measurement_time', reason: null, recomputed_by: null, recomputed_at: null });
+    expect(ingestCorrection([a, c, c])).toEqual({
+      applied_to: 'concentration',
+      set_ids: ['std_a', 'std_c'],
+      selection: 'measurement_time',
+      reason: null,
+      recomputed_by: null,
+      recomputed_at: null,
+    });
     expect(ingestCorrection([correctBurn({}, null)])).toBeNull();
   });
 });

@@ -58,8 +58,11 @@ describe('readCell', () => {
     expect(readCell('  ', '.', '%')).toBeNull();
   });
 
-  it.each(['0.7.5', 'abc', '-0.01', '100.0001', '1000001', '1000000.1', '1.01e2', '1e-40', '1,5', '0x10', 'Infinity', 'NaN'])('refuses %s', (raw) => {
-    const unit = raw.startsWith('1000000') ? 'ppm' : '%';
-    expect(() => readCell(raw, '.', unit)).toThrow(CellError);
-  });
+  it.each(['0.7.5', 'abc', '-0.01', '100.0001', '1000001', '1000000.1', '1.01e2', '1e-40', '1,5', '0x10', 'Infinity', 'NaN'])(
+    'refuses %s',
+    (raw) => {
+      const unit = raw.startsWith('1000000') ? 'ppm' : '%';
+      expect(() => readCell(raw, '.', unit)).toThrow(CellError);
+    },
+  );
 });

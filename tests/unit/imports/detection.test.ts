@@ -10,10 +10,14 @@ describe('decodeBytes', () => {
     expect(decodeBytes(Buffer.from('\ufeffAl µg/kg', 'utf8'))).toEqual({ text: 'Al µg/kg', encoding: 'utf-8', bom: true });
     expect(decodeBytes(Buffer.from('Al µg/kg', 'utf8'))).toEqual({ text: 'Al µg/kg', encoding: 'utf-8', bom: false });
     // 0xB5 is µ and 0x80 is € in Windows-1252 (WHATWG Encoding Standard index).
-    expect(decodeBytes(Buffer.from([0x41, 0x6c, 0x20, 0xb5, 0x67, 0x80]))).toEqual({ text: 'Al µg€', encoding: 'windows-1252', bom: false });
+    expect(decodeBytes(Buffer.from([0x41, 0x6c, 0x20, 0xb5, 0x67, 0x80]))).toEqual({
+      text: 'Al µg€',
+      encoding: 'windows-1252',
+      bom: false,
+    });
   });
 
-  it('maps 0x80–0x9F as Windows-1252, not Latin-1 (Node\'s own decoder does not: nodejs/node#60888)', () => {
+  it("maps 0x80–0x9F as Windows-1252, not Latin-1 (Node's own decoder does not: nodejs/node#60888)", () => {
     const defined = [...Array(32).keys()].map((i) => 0x80 + i).filter((b) => ![0x81, 0x8d, 0x8f, 0x90, 0x9d].includes(b));
     // Expected characters produced by Python's cp1252 codec, which follows the same WHATWG index.
     expect(decodeBytes(Buffer.from([0xff, ...defined]), 'windows-1252').text).toBe('ÿ€‚ƒ„…†‡ˆ‰Š‹ŒŽ‘’“”•–—˜™š›œžŸ');
@@ -45,9 +49,38 @@ describe('detectDelimiter', () => {
 describe('detectDecimalSeparator', () => {
   it('uses "." for comma-delimited files and counts digit-comma-digit against digit-dot-digit otherwise', () => {
     expect(detectDecimalSeparator([['S1', '0,4']], [1], ',')).toBe('.');
-    expect(detectDecimalSeparator([['S1', '0,4'], ['S2', '<0,001'], ['S3', '1.5']], [1], ';')).toBe(',');
-    expect(detectDecimalSeparator([['S1', '0.4'], ['S2', 'n.d.'], ['S3', '1']], [1], ';')).toBe('.');
-    expect(detectDecimalSeparator([['S1', '12'], ['S2', '']], [1], '\t')).toBe('.');
+    expect(
+      detectDecimalSeparator(
+        [
+          ['S1', '0,4'],
+          ['S2', '<0,001'],
+          ['S3', '1.5'],
+        ],
+        [1],
+        ';',
+      ),
+    ).toBe(',');
+    expect(
+      detectDecimalSeparator(
+        [
+          ['S1', '0.4'],
+          ['S2', 'n.d.'],
+          ['S3', '1'],
+        ],
+        [1],
+        ';',
+      ),
+    ).toBe('.');
+    expect(
+      detectDecimalSeparator(
+        [
+          ['S1', '12'],
+          ['S2', ''],
+        ],
+        [1],
+        '\t',
+      ),
+    ).toBe('.');
   });
 });
 

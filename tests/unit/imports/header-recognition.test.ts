@@ -68,14 +68,21 @@ describe('identification headers', () => {
   it('docs/imports/auto-detection.md lists exactly the aliases the code recognises', () => {
     const doc = readFileSync(resolve(import.meta.dirname, '../../../docs/imports/auto-detection.md'), 'utf8');
     const section = doc.split('## Identification headers')[1].split('\n## ')[0];
-    const rows = [...section.matchAll(/^\| `(\w+)` \| (.+?) \|/gm)].map(([, role, aliases]) => [role, [...aliases.matchAll(/`([^`]+)`/g)].map((m) => m[1])]);
+    const rows = [...section.matchAll(/^\| `(\w+)` \| (.+?) \|/gm)].map(([, role, aliases]) => [
+      role,
+      [...aliases.matchAll(/`([^`]+)`/g)].map((m) => m[1]),
+    ]);
     expect(Object.fromEntries(rows)).toEqual(HEADER_ALIASES);
   });
 });
 
 describe('profile header names', () => {
   it('match ignoring case and surrounding or repeated spaces, and win over recognition', () => {
-    const profile = CreateImportProfileRequestSchema.parse({ name: 'p', columns: { sample_code: '  heat   NO ', heat: 'Sample' }, ignore_columns: ['c'] });
+    const profile = CreateImportProfileRequestSchema.parse({
+      name: 'p',
+      columns: { sample_code: '  heat   NO ', heat: 'Sample' },
+      ignore_columns: ['c'],
+    });
     const parsed = parseResultFile(Buffer.from('Sample,Heat No,C,Mn\nK24-0412,S1,0.4,0.7\n'), { profile });
     expect(parsed.columns.map((c) => [c.header, c.role, c.source])).toEqual([
       ['Sample', 'heat', 'profile'],

@@ -66,7 +66,14 @@ describe('long layout', () => {
           fields: { shift: 'C' },
           first_line: 11,
           rejected: [],
-          burns: [{ line: 11, burn_number: 1, measured_at: '2024-03-04T07:45:10.000Z', values: { Si: { value: '0.25', qualifier: null, raw: '2500', unit: 'ppm' } } }],
+          burns: [
+            {
+              line: 11,
+              burn_number: 1,
+              measured_at: '2024-03-04T07:45:10.000Z',
+              values: { Si: { value: '0.25', qualifier: null, raw: '2500', unit: 'ppm' } },
+            },
+          ],
         },
       ],
       warnings: [],
@@ -76,20 +83,45 @@ describe('long layout', () => {
   });
 
   it('is recognised without a profile from "Element" and "Value" headers, burns taken from the burn column', () => {
-    const text = ['Sample;Burn;Element;Value;Unit', 'S1;1;C;0,45;%', 'S1;2;C;0,46;%', 'S1;1;Mn;7500;ppm', 'S1;2;mn;7600;mg/kg', 'S1;2;Fe;;%'].join('\n');
+    const text = [
+      'Sample;Burn;Element;Value;Unit',
+      'S1;1;C;0,45;%',
+      'S1;2;C;0,46;%',
+      'S1;1;Mn;7500;ppm',
+      'S1;2;mn;7600;mg/kg',
+      'S1;2;Fe;;%',
+    ].join('\n');
     const parsed = parseResultFile(Buffer.from(text));
     expect(parsed.layout).toBe('long');
     expect(parsed.decimal_separator).toBe(',');
     expect(parsed.samples).toHaveLength(1);
     expect(parsed.samples[0].burns).toEqual([
-      { line: 2, burn_number: 1, values: { C: { value: '0.45', qualifier: null, raw: '0,45', unit: '%' }, Mn: { value: '0.75', qualifier: null, raw: '7500', unit: 'ppm' } } },
-      { line: 3, burn_number: 2, values: { C: { value: '0.46', qualifier: null, raw: '0,46', unit: '%' }, Mn: { value: '0.76', qualifier: null, raw: '7600', unit: 'ppm' } } },
+      {
+        line: 2,
+        burn_number: 1,
+        values: {
+          C: { value: '0.45', qualifier: null, raw: '0,45', unit: '%' },
+          Mn: { value: '0.75', qualifier: null, raw: '7500', unit: 'ppm' },
+        },
+      },
+      {
+        line: 3,
+        burn_number: 2,
+        values: {
+          C: { value: '0.46', qualifier: null, raw: '0,46', unit: '%' },
+          Mn: { value: '0.76', qualifier: null, raw: '7600', unit: 'ppm' },
+        },
+      },
     ]);
     expect(parsed.counts).toEqual({ rows: 5, burns: 2, values: 4 });
   });
 
   it('with a long profile, a header that looks like an element is an identification field', () => {
-    const longProfile = CreateImportProfileRequestSchema.parse({ name: 'long', layout: 'long', long_columns: { element: 'Element', value: 'Value' } });
+    const longProfile = CreateImportProfileRequestSchema.parse({
+      name: 'long',
+      layout: 'long',
+      long_columns: { element: 'Element', value: 'Value' },
+    });
     const parsed = parseResultFile(Buffer.from('Sample,Element,Value,Ni\nS1,C,0.4,x\n'), { profile: longProfile });
     expect(parsed.layout).toBe('long');
     expect(parsed.columns[3]).toMatchObject({ header: 'Ni', role: 'field', field: 'Ni' });

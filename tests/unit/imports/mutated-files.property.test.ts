@@ -18,18 +18,75 @@ const BASES = [
 ];
 const PROFILES = [
   undefined,
-  CreateImportProfileRequestSchema.parse({ name: 'long', layout: 'long', delimiter: 'tab', long_columns: { element: 'Analyte', value: 'Reading', unit: 'Unit' }, columns: { sample_code: 'Specimen Ref' } }),
-  CreateImportProfileRequestSchema.parse({ name: 'strict', delimiter: ';', decimal_separator: ',', encoding: 'utf-8', default_unit: 'ppm', time: { format: 'iso8601', utc_offset: '+01:00' } }),
+  CreateImportProfileRequestSchema.parse({
+    name: 'long',
+    layout: 'long',
+    delimiter: 'tab',
+    long_columns: { element: 'Analyte', value: 'Reading', unit: 'Unit' },
+    columns: { sample_code: 'Specimen Ref' },
+  }),
+  CreateImportProfileRequestSchema.parse({
+    name: 'strict',
+    delimiter: ';',
+    decimal_separator: ',',
+    encoding: 'utf-8',
+    default_unit: 'ppm',
+    time: { format: 'iso8601', utc_offset: '+01:00' },
+  }),
 ];
-const PIECES = [';', ',', '\t', '"', '\n', '\r\n', '\r', '<', '>', '.', '-', 'e', 'E9', '1e-40', '0', '7', '99999', 'a', 'µ', '\ufeff', ' ', '%', '[', ']', '(', ')', 'n.d.', 'Xx %', 'Mn', '\u0000', '€'];
+const PIECES = [
+  ';',
+  ',',
+  '\t',
+  '"',
+  '\n',
+  '\r\n',
+  '\r',
+  '<',
+  '>',
+  '.',
+  '-',
+  'e',
+  'E9',
+  '1e-40',
+  '0',
+  '7',
+  '99999',
+  'a',
+  'µ',
+  '\ufeff',
+  ' ',
+  '%',
+  '[',
+  ']',
+  '(',
+  ')',
+  'n.d.',
+  'Xx %',
+  'Mn',
+  '\u0000',
+  '€',
+];
 
 type Mutation = (text: string) => string;
 const at = (text: string, fraction: number) => Math.floor(fraction * (text.length + 1));
 const mutation: fc.Arbitrary<Mutation> = fc.oneof(
-  fc.tuple(fc.double({ min: 0, max: 1, noNaN: true }), fc.constantFrom(...PIECES)).map(([f, piece]) => (t: string) => t.slice(0, at(t, f)) + piece + t.slice(at(t, f))),
-  fc.tuple(fc.double({ min: 0, max: 1, noNaN: true }), fc.integer({ min: 1, max: 12 })).map(([f, n]) => (t: string) => t.slice(0, at(t, f)) + t.slice(at(t, f) + n)),
+  fc.tuple(fc.double({ min: 0, max: 1, noNaN: true }), fc.constantFrom(...PIECES)).map(
+    ([f, piece]) =>
+      (t: string) =>
+        t.slice(0, at(t, f)) + piece + t.slice(at(t, f)),
+  ),
+  fc.tuple(fc.double({ min: 0, max: 1, noNaN: true }), fc.integer({ min: 1, max: 12 })).map(
+    ([f, n]) =>
+      (t: string) =>
+        t.slice(0, at(t, f)) + t.slice(at(t, f) + n),
+  ),
   fc.double({ min: 0, max: 1, noNaN: true }).map((f) => (t: string) => t.slice(0, at(t, f))),
-  fc.constantFrom<Mutation>((t) => t.replaceAll(';', '\u0001').replaceAll(',', ';').replaceAll('\u0001', ','), (t) => t.replaceAll(';', '\t'), (t) => t.replaceAll('.', ',')),
+  fc.constantFrom<Mutation>(
+    (t) => t.replaceAll(';', '\u0001').replaceAll(',', ';').replaceAll('\u0001', ','),
+    (t) => t.replaceAll(';', '\t'),
+    (t) => t.replaceAll('.', ','),
+  ),
   fc.tuple(fc.nat(), fc.nat()).map(([a, b]) => (t: string) => {
     const lines = t.split('\n');
     const [i, j] = [a % lines.length, b % lines.length];
@@ -84,20 +141,26 @@ function checkSound(parsed: ParsedFile, bytes: Buffer): void {
 describe('randomly mutated result files', () => {
   it('parse soundly or throw FileLayoutError, nothing else', () => {
     fc.assert(
-      fc.property(fc.constantFrom(...BASES), fc.array(mutation, { maxLength: 8 }), encode, fc.constantFrom(...PROFILES), (base, mutations, toBytes, profile) => {
-        const bytes = toBytes(mutations.reduce((text, mutate) => mutate(text), base));
-        let parsed: ParsedFile;
-        try {
-          parsed = parseResultFile(bytes, { profile });
-        } catch (error) {
-          expect(error).toBeInstanceOf(FileLayoutError);
-          const issues = (error as FileLayoutError).issues;
-          expect(issues.length).toBeGreaterThan(0);
-          for (const issue of issues) expect(issue.message).not.toMatch(/NaN|undefined/);
-          return;
-        }
-        checkSound(parsed, bytes);
-      }),
+      fc.property(
+        fc.constantFrom(...BASES),
+        fc.array(mutation, { maxLength: 8 }),
+        encode,
+        fc.constantFrom(...PROFILES),
+        (base, mutations, toBytes, profile) => {
+          const bytes = toBytes(mutations.reduce((text, mutate) => mutate(text), base));
+          let parsed: ParsedFile;
+          try {
+            parsed = parseResultFile(bytes, { profile });
+          } catch (error) {
+            expect(error).toBeInstanceOf(FileLayoutError);
+            const issues = (error as FileLayoutError).issues;
+            expect(issues.length).toBeGreaterThan(0);
+            for (const issue of issues) expect(issue.message).not.toMatch(/NaN|undefined/);
+            return;
+          }
+          checkSound(parsed, bytes);
+        },
+      ),
       { numRuns: 1500 },
     );
   });

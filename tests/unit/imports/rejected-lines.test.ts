@@ -5,7 +5,10 @@ import { CreateImportProfileRequestSchema } from '../../../server/domain/imports
 import { parseResultFile } from '../../../server/domain/imports/parse/index.ts';
 
 const parse = (lines: string[], profile?: Record<string, unknown>) =>
-  parseResultFile(Buffer.from(lines.join('\n')), profile ? { profile: CreateImportProfileRequestSchema.parse({ name: 'p', ...profile }) } : {});
+  parseResultFile(
+    Buffer.from(lines.join('\n')),
+    profile ? { profile: CreateImportProfileRequestSchema.parse({ name: 'p', ...profile }) } : {},
+  );
 
 const burnLines = (parsed: ReturnType<typeof parse>) => parsed.samples.flatMap((s) => s.burns.map((b) => b.line));
 
@@ -29,7 +32,10 @@ describe('rejected lines (wide layout)', () => {
 
   it('reports every broken cell of one line', () => {
     const parsed = parse(['Sample,C,Mn', 'S1,x,y']);
-    expect(parsed.rejected.map((i) => [i.line, i.column])).toEqual([[2, 'C'], [2, 'Mn']]);
+    expect(parsed.rejected.map((i) => [i.line, i.column])).toEqual([
+      [2, 'C'],
+      [2, 'Mn'],
+    ]);
     expect(parsed.samples).toEqual([]);
   });
 
@@ -50,24 +56,41 @@ describe('rejected lines (wide layout)', () => {
 
   it('a burn number that is not a positive whole number', () => {
     const parsed = parse(['Sample,Burn,C', 'S1,1,0.4', 'S1,two,0.5', 'S1,0,0.5']);
-    expect(parsed.rejected.map((i) => [i.line, i.column, i.code])).toEqual([[3, 'Burn', 'invalid_burn_number'], [4, 'Burn', 'invalid_burn_number']]);
+    expect(parsed.rejected.map((i) => [i.line, i.column, i.code])).toEqual([
+      [3, 'Burn', 'invalid_burn_number'],
+      [4, 'Burn', 'invalid_burn_number'],
+    ]);
   });
 
   it('a burn number twice in one sample', () => {
     const parsed = parse(['Sample,Replicate,C', 'S1,1,0.4', 'S1,2,0.5', 'S1,2,0.6']);
-    expect(parsed.rejected).toEqual([{ line: 4, column: 'Replicate', code: 'duplicate_burn', message: 'Burn 2 of sample S1 appears twice (lines 3 and 4).' }]);
+    expect(parsed.rejected).toEqual([
+      { line: 4, column: 'Replicate', code: 'duplicate_burn', message: 'Burn 2 of sample S1 appears twice (lines 3 and 4).' },
+    ]);
     expect(parsed.samples[0].burns.map((b) => b.values.C.value)).toEqual(['0.4', '0.5']);
   });
 
   it('a time that cannot be read, or does not exist', () => {
     const parsed = parse(['Sample,Time,C', 'S1,yesterday,0.4', 'S1,2024-02-30 10:00,0.4', 'S1,2024-02-29 10:00,0.4']);
-    expect(parsed.rejected.map((i) => [i.line, i.column, i.code])).toEqual([[2, 'Time', 'invalid_time'], [3, 'Time', 'invalid_time']]);
+    expect(parsed.rejected.map((i) => [i.line, i.column, i.code])).toEqual([
+      [2, 'Time', 'invalid_time'],
+      [3, 'Time', 'invalid_time'],
+    ]);
     expect(parsed.samples[0].burns[0].measured_at).toBe('2024-02-29T10:00:00.000Z');
   });
 
   it('a time in another format than the profile names', () => {
-    const parsed = parse(['Sample,Time,C', 'S1,2024-03-04 10:00,0.4', 'S1,04.03.2024 10:00,0.4'], { time: { format: 'DD.MM.YYYY HH:mm[:ss]', utc_offset: 'Z' } });
-    expect(parsed.rejected).toEqual([{ line: 2, column: 'Time', code: 'invalid_time', message: '"2024-03-04 10:00" on line 2 is not a valid time (DD.MM.YYYY HH:mm[:ss]).' }]);
+    const parsed = parse(['Sample,Time,C', 'S1,2024-03-04 10:00,0.4', 'S1,04.03.2024 10:00,0.4'], {
+      time: { format: 'DD.MM.YYYY HH:mm[:ss]', utc_offset: 'Z' },
+    });
+    expect(parsed.rejected).toEqual([
+      {
+        line: 2,
+        column: 'Time',
+        code: 'invalid_time',
+        message: '"2024-03-04 10:00" on line 2 is not a valid time (DD.MM.YYYY HH:mm[:ss]).',
+      },
+    ]);
   });
 
   it('physical line numbers survive blank lines and line breaks inside quoted cells', () => {
@@ -78,7 +101,7 @@ describe('rejected lines (wide layout)', () => {
 });
 
 describe('preamble', () => {
-  it('lines above the profile\'s header row are skipped, even with a quote that never closes', () => {
+  it("lines above the profile's header row are skipped, even with a quote that never closes", () => {
     const parsed = parse(['"Export of OES-1', 'operator: A. Moss', 'Sample,C', 'S1,0.4', 'S1,x'], { header_row: 3 });
     expect(parsed.samples[0].burns.map((b) => b.line)).toEqual([4]);
     expect(parsed.rejected[0]).toMatchObject({ line: 5, column: 'C' });
@@ -100,15 +123,24 @@ describe('rejected lines (long layout)', () => {
   });
 
   it('the same element twice in one numbered burn', () => {
-    const parsed = parse(['Sample;Burn;Element;Value', 'S1;1;C;0.4', 'S1;1;c;0.5'], { layout: 'long', long_columns: { element: 'Element', value: 'Value' } });
-    expect(parsed.rejected).toEqual([{ line: 3, column: 'Element', code: 'duplicate_value', message: 'Burn 1 of sample S1 has C twice (line 3).' }]);
+    const parsed = parse(['Sample;Burn;Element;Value', 'S1;1;C;0.4', 'S1;1;c;0.5'], {
+      layout: 'long',
+      long_columns: { element: 'Element', value: 'Value' },
+    });
+    expect(parsed.rejected).toEqual([
+      { line: 3, column: 'Element', code: 'duplicate_value', message: 'Burn 1 of sample S1 has C twice (line 3).' },
+    ]);
   });
 });
 
 describe('warnings (the line is still read)', () => {
   it('a sample that comes back after others is read as a separate sample', () => {
     const parsed = parse(['Sample,Heat,C', 'S1,K1,0.4', 'S2,K1,0.5', 'S1,K1,0.6']);
-    expect(parsed.samples.map((s) => [s.sample_code, s.first_line])).toEqual([['S1', 2], ['S2', 3], ['S1', 4]]);
+    expect(parsed.samples.map((s) => [s.sample_code, s.first_line])).toEqual([
+      ['S1', 2],
+      ['S2', 3],
+      ['S1', 4],
+    ]);
     expect(parsed.warnings).toEqual([{ line: 4, code: 'sample_repeated', message: expect.stringContaining('first on line 2') }]);
   });
 
@@ -121,7 +153,9 @@ describe('warnings (the line is still read)', () => {
   it('a row without any element value is skipped with a warning', () => {
     const parsed = parse(['Sample,C,Mn', 'S1,,', 'S1,0.4,']);
     expect(parsed.warnings).toEqual([{ line: 2, code: 'empty_burn', message: 'Line 2 holds no element values; it is skipped.' }]);
-    expect(parsed.samples[0].burns).toEqual([{ line: 3, burn_number: 2, values: { C: { value: '0.4', qualifier: null, raw: '0.4', unit: '%' } } }]);
+    expect(parsed.samples[0].burns).toEqual([
+      { line: 3, burn_number: 2, values: { C: { value: '0.4', qualifier: null, raw: '0.4', unit: '%' } } },
+    ]);
   });
 
   it('a short header that is no element symbol becomes a field with a warning', () => {

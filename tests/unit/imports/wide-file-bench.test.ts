@@ -17,7 +17,10 @@ describe('bench/generate-wide-file.ts', () => {
     expect(lines[1]).toMatch(/^K24-0412-P1,K24-0412,SAE 1045,preliminary,1,2024-03-04T06:00:00Z,/);
     expect(lines.slice(1).map((line) => line.split(',')[4])).toEqual(['1', '2', '3', '1', '2', '3', '1', '2', '3']);
     // Fe is the balance: the 25 values of a burn add up to 100 % within the written rounding.
-    const sum = lines[1].split(',').slice(6).reduce((total, cell) => total.plus(cell), new Decimal(0));
+    const sum = lines[1]
+      .split(',')
+      .slice(6)
+      .reduce((total, cell) => total.plus(cell), new Decimal(0));
     expect(sum.minus(100).abs().lte('0.0005')).toBe(true);
   });
 

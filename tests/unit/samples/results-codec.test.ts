@@ -13,7 +13,14 @@ const method: Method = {
   created_at: '',
   updated_at: '',
   elements: [
-    { element: 'Mn', decimals: 2, working_range_low: '0.01', working_range_high: '2.0', detection_limit: '0.003', repeatability_sd: '0.008' },
+    {
+      element: 'Mn',
+      decimals: 2,
+      working_range_low: '0.01',
+      working_range_high: '2.0',
+      detection_limit: '0.003',
+      repeatability_sd: '0.008',
+    },
     { element: 'S', decimals: 3, working_range_low: '0.002', working_range_high: '0.1', detection_limit: '0.001', repeatability_sd: null },
   ],
 } as Method;
@@ -42,6 +49,8 @@ describe('results codec', () => {
 
   it('leaves out fields at their usual value', () => {
     const { results } = computeSampleResults([{ excluded: false, values: { Mn: { v: '0.75', q: null } } }], method);
-    expect(JSON.parse(encodeResults(results))).toEqual([{ element: 'Mn', n: 1, decimals: 2, mean: '0.75', min: '0.75', max: '0.75', reported: '0.75', flags: ['single_burn'] }]);
+    expect(JSON.parse(encodeResults(results))).toEqual([
+      { element: 'Mn', n: 1, decimals: 2, mean: '0.75', min: '0.75', max: '0.75', reported: '0.75', flags: ['single_burn'] },
+    ]);
   });
 });

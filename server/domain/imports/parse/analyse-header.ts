@@ -14,7 +14,17 @@ export interface HeaderAnalysis {
   warnings: Issue[];
 }
 
-const SINGLE_ROLES: ColumnRoleName[] = ['sample_code', 'heat', 'grade', 'kind', 'burn_number', 'measured_at', 'element_name', 'value', 'unit'];
+const SINGLE_ROLES: ColumnRoleName[] = [
+  'sample_code',
+  'heat',
+  'grade',
+  'kind',
+  'burn_number',
+  'measured_at',
+  'element_name',
+  'value',
+  'unit',
+];
 
 function profileRole(path: (string | number)[], profile: ImportProfileDefinition): Omit<ColumnRole, 'index' | 'header' | 'source'> {
   const [group, key] = path;
@@ -34,7 +44,12 @@ function assignProfile(headers: string[], line: number, profile: ImportProfileDe
   for (const { path, header } of namedHeaders(profile)) {
     const index = headers.findIndex((h, i) => !roles[i] && profileHeaderKey(h) === profileHeaderKey(header));
     if (index < 0) {
-      missing.push({ line, column: header, code: 'missing_column', message: `The profile reads "${header}" as ${path.join('.')}, but the header on line ${line} has no such column.` });
+      missing.push({
+        line,
+        column: header,
+        code: 'missing_column',
+        message: `The profile reads "${header}" as ${path.join('.')}, but the header on line ${line} has no such column.`,
+      });
       continue;
     }
     roles[index] = { index, header: headers[index], source: 'profile', ...profileRole(path, profile) };
@@ -43,7 +58,12 @@ function assignProfile(headers: string[], line: number, profile: ImportProfileDe
   return roles;
 }
 
-export function analyseHeader(rawHeader: string[], line: number, profile: ImportProfileDefinition | undefined, defaultUnit: Unit | undefined): HeaderAnalysis {
+export function analyseHeader(
+  rawHeader: string[],
+  line: number,
+  profile: ImportProfileDefinition | undefined,
+  defaultUnit: Unit | undefined,
+): HeaderAnalysis {
   const headers = rawHeader.map((cell) => cell.trim());
   const roles = profile ? assignProfile(headers, line, profile) : headers.map(() => undefined);
   const warnings: Issue[] = [];
@@ -57,7 +77,12 @@ export function analyseHeader(rawHeader: string[], line: number, profile: Import
     if (header === '') return auto(index, { role: 'ignored' });
     const alias = aliasRole(header);
     if (alias && alias !== 'ignored' && taken.has(alias)) {
-      warnings.push({ line, column: header, code: 'duplicate_role', message: `"${header}" looks like another ${alias} column; it is kept as an identification field.` });
+      warnings.push({
+        line,
+        column: header,
+        code: 'duplicate_role',
+        message: `"${header}" looks like another ${alias} column; it is kept as an identification field.`,
+      });
       return auto(index, { role: 'field' });
     }
     if (alias) {
@@ -65,18 +90,39 @@ export function analyseHeader(rawHeader: string[], line: number, profile: Import
       return auto(index, { role: alias });
     }
     const parsed = parseElementHeader(header);
-    if (parsed.kind === 'element') return auto(index, { role: 'element', element: parsed.element, ...(parsed.unit ? { unit: parsed.unit, unit_source: 'header' as const } : {}) });
+    if (parsed.kind === 'element')
+      return auto(index, {
+        role: 'element',
+        element: parsed.element,
+        ...(parsed.unit ? { unit: parsed.unit, unit_source: 'header' as const } : {}),
+      });
     if (parsed.kind === 'unknown_element') {
-      elementErrors.push({ line, column: header, code: 'unknown_element_header', message: `The column "${header}" carries a unit but "${parsed.symbol}" is not an element symbol.` });
+      elementErrors.push({
+        line,
+        column: header,
+        code: 'unknown_element_header',
+        message: `The column "${header}" carries a unit but "${parsed.symbol}" is not an element symbol.`,
+      });
     } else if (parsed.kind === 'unknown_unit') {
-      elementErrors.push({ line, column: header, code: 'unknown_unit_header', message: `The column "${header}" names ${parsed.element} in "${parsed.unit}", which is not a mass-fraction unit (%, ppm, mg/kg, ppb, µg/kg).` });
+      elementErrors.push({
+        line,
+        column: header,
+        code: 'unknown_unit_header',
+        message: `The column "${header}" names ${parsed.element} in "${parsed.unit}", which is not a mass-fraction unit (%, ppm, mg/kg, ppb, µg/kg).`,
+      });
     } else if (parsed.kind === 'short_unknown') {
-      warnings.push({ line, column: header, code: 'unrecognised_header', message: `"${header}" is not an element symbol; it is kept as an identification field.` });
+      warnings.push({
+        line,
+        column: header,
+        code: 'unrecognised_header',
+        message: `"${header}" is not an element symbol; it is kept as an identification field.`,
+      });
     }
     auto(index, { role: 'field' });
   });
   const columns = roles as ColumnRole[];
-  const layout = profile?.layout ?? (taken.has('element_name') && taken.has('value') && !columns.some((c) => c.role === 'element') ? 'long' : 'wide');
+  const layout =
+    profile?.layout ?? (taken.has('element_name') && taken.has('value') && !columns.some((c) => c.role === 'element') ? 'long' : 'wide');
   settleLayout(columns, layout);
   if (layout === 'wide' && elementErrors.length > 0) throw new FileLayoutError(elementErrors);
   resolveUnits(columns, profile?.default_unit ?? undefined, defaultUnit);
@@ -107,7 +153,10 @@ function resolveUnits(columns: ColumnRole[], profileUnit: Unit | undefined, call
       if (fromHeader.kind === 'element' && fromHeader.unit) Object.assign(column, { unit: fromHeader.unit, unit_source: 'header' });
     }
     if (!column.unit) {
-      Object.assign(column, profileUnit ? { unit: profileUnit, unit_source: 'profile' } : { unit: callerUnit ?? '%', unit_source: 'default' });
+      Object.assign(
+        column,
+        profileUnit ? { unit: profileUnit, unit_source: 'profile' } : { unit: callerUnit ?? '%', unit_source: 'default' },
+      );
     }
   }
 }
@@ -127,20 +176,36 @@ function checkRequired(columns: ColumnRole[], layout: Layout, line: number): voi
   const has = (role: ColumnRoleName) => columns.some((c) => c.role === role);
   const issues: Issue[] = [];
   if (!has('sample_code')) {
-    issues.push({ line, code: 'no_sample_code_column', message: `No column on line ${line} is recognised as the sample code: name it "Sample" or "Sample ID", or map it in an import profile.` });
+    issues.push({
+      line,
+      code: 'no_sample_code_column',
+      message: `No column on line ${line} is recognised as the sample code: name it "Sample" or "Sample ID", or map it in an import profile.`,
+    });
   }
   if (layout === 'wide') {
-    if (!has('element')) issues.push({ line, code: 'no_element_columns', message: `No column on line ${line} is an element (headers such as "Mn", "C %", "Si [ppm]").` });
+    if (!has('element'))
+      issues.push({
+        line,
+        code: 'no_element_columns',
+        message: `No column on line ${line} is an element (headers such as "Mn", "C %", "Si [ppm]").`,
+      });
     const byElement = new Map<string, ColumnRole>();
     for (const column of columns.filter((c) => c.role === 'element')) {
       const first = byElement.get(column.element!);
       if (first) {
-        issues.push({ line, column: column.header, code: 'duplicate_element_column', message: `"${column.header}" and "${first.header}" both hold ${column.element}; ignore one of them in an import profile.` });
+        issues.push({
+          line,
+          column: column.header,
+          code: 'duplicate_element_column',
+          message: `"${column.header}" and "${first.header}" both hold ${column.element}; ignore one of them in an import profile.`,
+        });
       } else byElement.set(column.element!, column);
     }
   } else {
-    if (!has('element_name')) issues.push({ line, code: 'no_element_column', message: `The long layout needs a column naming the element ("Element").` });
-    if (!has('value')) issues.push({ line, code: 'no_value_column', message: `The long layout needs a column holding the value ("Value").` });
+    if (!has('element_name'))
+      issues.push({ line, code: 'no_element_column', message: `The long layout needs a column naming the element ("Element").` });
+    if (!has('value'))
+      issues.push({ line, code: 'no_value_column', message: `The long layout needs a column holding the value ("Value").` });
   }
   if (issues.length > 0) throw new FileLayoutError(issues);
 }

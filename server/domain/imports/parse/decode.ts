@@ -45,7 +45,11 @@ export function decodeBytes(bytes: Uint8Array, choice: EncodingChoice = 'auto'):
     } catch {
       if (choice !== 'auto' || bom) {
         const line = firstInvalidUtf8Line(body);
-        throw layoutError('undecodable', `Line ${line} holds bytes that are not valid UTF-8${bom ? ' although the file starts with a UTF-8 byte order mark' : ''}.`, { line });
+        throw layoutError(
+          'undecodable',
+          `Line ${line} holds bytes that are not valid UTF-8${bom ? ' although the file starts with a UTF-8 byte order mark' : ''}.`,
+          { line },
+        );
       }
       decoded = { text: decodeWindows1252(body), encoding: 'windows-1252', bom };
     }

@@ -38,7 +38,11 @@ export function detectDelimiter(lines: string[], headerRow: number): Delimiter {
     }
   }
   if (!best) {
-    throw layoutError('no_delimiter', `The header on line ${headerRow} is a single column: expected columns separated by ",", ";" or tab.`, { line: headerRow });
+    throw layoutError(
+      'no_delimiter',
+      `The header on line ${headerRow} is a single column: expected columns separated by ",", ";" or tab.`,
+      { line: headerRow },
+    );
   }
   return best.delimiter;
 }

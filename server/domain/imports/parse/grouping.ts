@@ -48,7 +48,16 @@ export class SampleGrouper {
       });
     } else this.firstLine.set(key, line);
     const { sample_code, heat, grade, kind, fields } = identity;
-    const sample: ParsedSample = { sample_code, ...(heat ? { heat } : {}), ...(grade ? { grade } : {}), ...(kind ? { kind } : {}), fields, first_line: line, burns: [], rejected: [] };
+    const sample: ParsedSample = {
+      sample_code,
+      ...(heat ? { heat } : {}),
+      ...(grade ? { grade } : {}),
+      ...(kind ? { kind } : {}),
+      fields,
+      first_line: line,
+      burns: [],
+      rejected: [],
+    };
     this.current = { sample, burns: new Map(), nextBurn: 1, warned: new Set() };
     this.currentKey = key;
     this.states.push(this.current);
@@ -73,7 +82,11 @@ export class SampleGrouper {
     const pairs: [string, string | undefined, string | undefined][] = [
       ['grade', sample.grade, identity.grade],
       ['kind', sample.kind, identity.kind],
-      ...Object.keys({ ...sample.fields, ...identity.fields }).map((k): [string, string | undefined, string | undefined] => [`fields.${k}`, sample.fields[k], identity.fields[k]]),
+      ...Object.keys({ ...sample.fields, ...identity.fields }).map((k): [string, string | undefined, string | undefined] => [
+        `fields.${k}`,
+        sample.fields[k],
+        identity.fields[k],
+      ]),
     ];
     for (const [key, first, now] of pairs) {
       if ((first ?? '') === (now ?? '') || state.warned.has(key)) continue;

@@ -40,7 +40,9 @@ export function headerKey(header: string): string {
 }
 
 const BY_KEY = new Map<string, AliasRole>(
-  (Object.entries(HEADER_ALIASES) as [AliasRole, readonly string[]][]).flatMap(([role, aliases]) => aliases.map((alias) => [alias, role] as const)),
+  (Object.entries(HEADER_ALIASES) as [AliasRole, readonly string[]][]).flatMap(([role, aliases]) =>
+    aliases.map((alias) => [alias, role] as const),
+  ),
 );
 
 export function aliasRole(header: string): AliasRole | undefined {

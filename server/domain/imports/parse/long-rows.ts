@@ -17,7 +17,14 @@ export interface LongColumns {
 function readUnit(cells: string[], line: number, long: LongColumns): Unit | Issue {
   const text = long.unit ? cells[long.unit.index]?.trim() : '';
   if (!text) return long.value.unit!;
-  return parseUnit(text) ?? { line, column: long.unit!.header, code: 'unknown_unit', message: `"${text}" on line ${line} is not a mass-fraction unit (%, ppm, mg/kg, ppb, µg/kg).` };
+  return (
+    parseUnit(text) ?? {
+      line,
+      column: long.unit!.header,
+      code: 'unknown_unit',
+      message: `"${text}" on line ${line} is not a mass-fraction unit (%, ppm, mg/kg, ppb, µg/kg).`,
+    }
+  );
 }
 
 function readElement(cells: string[], line: number, long: LongColumns): string | Issue {
@@ -66,7 +73,12 @@ export function readLongRow(record: RawRecord, reading: RowReading, long: LongCo
       value = readCell(cells[long.value.index] ?? '', reading.decimal, unit);
     } catch (error) {
       if (!(error instanceof CellError)) throw error;
-      issues.push({ line, column: long.value.header, code: 'invalid_value', message: `Line ${line}, ${long.value.header}: ${error.message}.` });
+      issues.push({
+        line,
+        column: long.value.header,
+        code: 'invalid_value',
+        message: `Line ${line}, ${long.value.header}: ${error.message}.`,
+      });
     }
   }
   if (issues.length > 0) return grouper.reject(issues, state);
@@ -74,12 +86,27 @@ export function readLongRow(record: RawRecord, reading: RowReading, long: LongCo
   const symbol = element as string;
   const burn = burnFor(state, written as number | undefined, symbol, time as string | undefined, line);
   if (symbol in burn.values) {
-    return grouper.reject([{ line, column: long.element.header, code: 'duplicate_value', message: `Burn ${burn.burn_number} of sample ${identity.sample_code} has ${symbol} twice (line ${line}).` }], state);
+    return grouper.reject(
+      [
+        {
+          line,
+          column: long.element.header,
+          code: 'duplicate_value',
+          message: `Burn ${burn.burn_number} of sample ${identity.sample_code} has ${symbol} twice (line ${line}).`,
+        },
+      ],
+      state,
+    );
   }
   if (time !== undefined) {
     if (burn.measured_at === undefined) burn.measured_at = time as string;
     else if (burn.measured_at !== time) {
-      reading.warnings.push({ line, column: columns.measuredAt!.header, code: 'time_mismatch', message: `Line ${line} gives another time than the burn's first line (${burn.line}); the first is kept.` });
+      reading.warnings.push({
+        line,
+        column: columns.measuredAt!.header,
+        code: 'time_mismatch',
+        message: `Line ${line} gives another time than the burn's first line (${burn.line}); the first is kept.`,
+      });
     }
   }
   burn.values[symbol] = value;

@@ -31,23 +31,35 @@ export function parseResultFile(bytes: Uint8Array, options: ParseOptions = {}): 
   const headerRow = profile ? profile.header_row : firstNonBlankLine(lines);
   if (headerRow === undefined) throw layoutError('empty_file', 'The file is empty.');
   if (headerRow > lines.length || lines[headerRow - 1].trim() === '') {
-    throw layoutError('no_header', `Line ${headerRow} should hold the header but is ${headerRow > lines.length ? 'past the end of the file' : 'blank'}.`, { line: headerRow });
+    throw layoutError(
+      'no_header',
+      `Line ${headerRow} should hold the header but is ${headerRow > lines.length ? 'past the end of the file' : 'blank'}.`,
+      { line: headerRow },
+    );
   }
   const delimiter = profile && profile.delimiter !== 'auto' ? DELIMITERS[profile.delimiter] : detectDelimiter(lines, headerRow);
   const [headerRecord, ...records] = readRecords(text, delimiter, headerRow);
   const header = headerRecord.cells.map((cell) => cell.trim());
   const analysis = analyseHeader(headerRecord.cells, headerRow, profile, options.defaultUnit);
   const dataRecords = records.filter((record) => !isBlankRecord(record.cells));
-  if (dataRecords.length === 0) throw layoutError('no_rows', `The file has a header on line ${headerRow} but no data lines.`, { line: headerRow });
+  if (dataRecords.length === 0)
+    throw layoutError('no_rows', `The file has a header on line ${headerRow} but no data lines.`, { line: headerRow });
 
   const { columns, layout } = analysis;
   const valueColumns = columns.filter((c) => c.role === (layout === 'wide' ? 'element' : 'value')).map((c) => c.index);
   const decimal: DecimalSeparator =
-    profile && profile.decimal_separator !== 'auto' ? profile.decimal_separator : detectDecimalSeparator(dataRecords.map((r) => r.cells), valueColumns, delimiter);
+    profile && profile.decimal_separator !== 'auto'
+      ? profile.decimal_separator
+      : detectDecimalSeparator(
+          dataRecords.map((r) => r.cells),
+          valueColumns,
+          delimiter,
+        );
 
   const warnings: Issue[] = [...analysis.warnings];
   const rejected: Issue[] = [];
-  const headerOf = (key: string) => columns.find((c) => (key.startsWith('fields.') ? c.role === 'field' && `fields.${c.field}` === key : c.role === key))?.header;
+  const headerOf = (key: string) =>
+    columns.find((c) => (key.startsWith('fields.') ? c.role === 'field' && `fields.${c.field}` === key : c.role === key))?.header;
   const reading: RowReading = {
     columns: rowColumns(columns),
     elements: columns.filter((c) => c.role === 'element'),
@@ -59,11 +71,19 @@ export function parseResultFile(bytes: Uint8Array, options: ParseOptions = {}): 
   if (layout === 'wide') {
     for (const record of dataRecords) readWideRow(record, reading);
   } else {
-    const long = { element: columns.find((c) => c.role === 'element_name')!, value: columns.find((c) => c.role === 'value')!, unit: columns.find((c) => c.role === 'unit') };
+    const long = {
+      element: columns.find((c) => c.role === 'element_name')!,
+      value: columns.find((c) => c.role === 'value')!,
+      unit: columns.find((c) => c.role === 'unit'),
+    };
     for (const record of dataRecords) readLongRow(record, reading, long);
   }
   if (reading.time.assumedUtc) {
-    warnings.push({ column: reading.columns.measuredAt?.header, code: 'time_without_offset', message: 'Times without a UTC offset were read as UTC; set the offset in an import profile if the instrument writes local time.' });
+    warnings.push({
+      column: reading.columns.measuredAt?.header,
+      code: 'time_without_offset',
+      message: 'Times without a UTC offset were read as UTC; set the offset in an import profile if the instrument writes local time.',
+    });
   }
   const samples = reading.grouper.finish();
   const burns = samples.reduce((n, s) => n + s.burns.length, 0);

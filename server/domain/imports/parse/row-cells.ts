@@ -46,13 +46,20 @@ function cell(cells: string[], column: ColumnRole | undefined): string | undefin
 
 export function readIdentity(cells: string[], line: number, columns: RowColumns): RowIdentity | Issue {
   const sampleCode = cell(cells, columns.sampleCode);
-  if (!sampleCode) return { line, column: columns.sampleCode.header, code: 'missing_sample_code', message: `Line ${line} has no sample code.` };
+  if (!sampleCode)
+    return { line, column: columns.sampleCode.header, code: 'missing_sample_code', message: `Line ${line} has no sample code.` };
   const fields: Record<string, string> = {};
   for (const column of columns.fields) {
     const value = cell(cells, column);
     if (value) fields[column.field!] = value;
   }
-  return { sample_code: sampleCode, heat: cell(cells, columns.heat), grade: cell(cells, columns.grade), kind: cell(cells, columns.kind), fields };
+  return {
+    sample_code: sampleCode,
+    heat: cell(cells, columns.heat),
+    grade: cell(cells, columns.grade),
+    kind: cell(cells, columns.kind),
+    fields,
+  };
 }
 
 const BURN_NUMBER = /^\d{1,6}(\.0+)?$/;
@@ -62,7 +69,13 @@ export function readBurnNumber(cells: string[], line: number, columns: RowColumn
   const text = cell(cells, columns.burnNumber);
   if (text === undefined) return undefined;
   const number = BURN_NUMBER.test(text) ? Number.parseInt(text, 10) : 0;
-  if (number < 1) return { line, column: columns.burnNumber!.header, code: 'invalid_burn_number', message: `"${text}" on line ${line} is not a burn number (1, 2, 3 …).` };
+  if (number < 1)
+    return {
+      line,
+      column: columns.burnNumber!.header,
+      code: 'invalid_burn_number',
+      message: `"${text}" on line ${line} is not a burn number (1, 2, 3 …).`,
+    };
   return number;
 }
 
@@ -80,7 +93,12 @@ export function readTime(cells: string[], line: number, columns: RowColumns, set
   const parsed = parseBurnTime(text, settings.format, settings.utcOffset ?? 'Z');
   if (!parsed) {
     const expected = settings.format === 'auto' ? 'ISO 8601, YYYY-MM-DD HH:mm[:ss] or DD.MM.YYYY HH:mm[:ss]' : settings.format;
-    return { line, column: columns.measuredAt!.header, code: 'invalid_time', message: `"${text}" on line ${line} is not a valid time (${expected}).` };
+    return {
+      line,
+      column: columns.measuredAt!.header,
+      code: 'invalid_time',
+      message: `"${text}" on line ${line} is not a valid time (${expected}).`,
+    };
   }
   if (!parsed.hadOffset && settings.utcOffset === null) settings.assumedUtc = true;
   return parsed.iso;

@@ -53,7 +53,8 @@ export function parseBurnTime(text: string, format: TimeFormat, defaultOffset: s
     const minute = Number(m[5]);
     const second = m[6] === undefined ? 0 : Number(m[6]);
     // Date.UTC maps years 0–99 to 1900–1999; refuse early years rather than guess.
-    if (year < 1900 || month < 1 || month > 12 || day < 1 || day > daysInMonth(year, month) || hour > 23 || minute > 59 || second > 59) return undefined;
+    if (year < 1900 || month < 1 || month > 12 || day < 1 || day > daysInMonth(year, month) || hour > 23 || minute > 59 || second > 59)
+      return undefined;
     const shift = offsetMinutes(m[8] ?? defaultOffset);
     if (shift === undefined) return undefined;
     const millis = m[7] === undefined ? 0 : Number(m[7].padEnd(3, '0').slice(0, 3));

@@ -20,7 +20,12 @@ export function readWideRow(record: RawRecord, reading: RowReading): void {
     issues.push(written);
     burnNumber = state.nextBurn;
   } else if (written !== undefined && state.burns.has(written)) {
-    issues.push({ line, column: columns.burnNumber!.header, code: 'duplicate_burn', message: `Burn ${written} of sample ${identity.sample_code} appears twice (lines ${state.burns.get(written)!.line} and ${line}).` });
+    issues.push({
+      line,
+      column: columns.burnNumber!.header,
+      code: 'duplicate_burn',
+      message: `Burn ${written} of sample ${identity.sample_code} appears twice (lines ${state.burns.get(written)!.line} and ${line}).`,
+    });
     burnNumber = written;
   } else burnNumber = written ?? state.nextBurn;
   state.nextBurn = Math.max(state.nextBurn, burnNumber + 1);

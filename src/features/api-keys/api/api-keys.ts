@@ -9,7 +9,9 @@ export const apiKeysQuery = (includeRevoked: boolean) =>
   infiniteQueryOptions({
     queryKey: ['api-keys', { includeRevoked }],
     queryFn: ({ pageParam }) =>
-      unwrap(api.GET('/api-keys', { params: { query: { limit: 50, cursor: pageParam, include_revoked: includeRevoked ? 'true' : 'false' } } })),
+      unwrap(
+        api.GET('/api-keys', { params: { query: { limit: 50, cursor: pageParam, include_revoked: includeRevoked ? 'true' : 'false' } } }),
+      ),
     initialPageParam: undefined as string | undefined,
     getNextPageParam: (page) => page.next_cursor ?? undefined,
   });

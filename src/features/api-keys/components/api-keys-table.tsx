@@ -17,12 +17,19 @@ export function ApiKeysTable({ canWrite }: { canWrite: boolean }) {
   return (
     <div className="space-y-3">
       <label className="flex items-center gap-2 text-sm text-slag-700">
-        <input type="checkbox" checked={includeRevoked} onChange={(e) => setIncludeRevoked(e.target.checked)} className="accent-ember-600" />
+        <input
+          type="checkbox"
+          checked={includeRevoked}
+          onChange={(e) => setIncludeRevoked(e.target.checked)}
+          className="accent-ember-600"
+        />
         Show revoked keys
       </label>
       <ProblemAlert error={keys.error ?? revoke.error ?? roll.error} />
       {keys.isPending && <Spinner label="Loading keys…" />}
-      {!keys.isPending && rows.length === 0 && <EmptyState title="No API keys yet">Issue one for each integration, with only the scopes it needs.</EmptyState>}
+      {!keys.isPending && rows.length === 0 && (
+        <EmptyState title="No API keys yet">Issue one for each integration, with only the scopes it needs.</EmptyState>
+      )}
       {rows.length > 0 && (
         <Table head={['Name', 'Key', 'Scopes', 'Created by', 'Last used', 'Expires', 'Status', '']} caption="API keys">
           {rows.map((key) => (
@@ -47,7 +54,12 @@ export function ApiKeysTable({ canWrite }: { canWrite: boolean }) {
               <td className="whitespace-nowrap px-3 py-2 text-right">
                 {canWrite && key.status === 'active' && (
                   <>
-                    <Button variant="ghost" onClick={() => roll.mutate({ id: key.id, overlap_minutes: 60 })} disabled={roll.isPending} title="Issue a replacement; this key keeps working for 60 minutes">
+                    <Button
+                      variant="ghost"
+                      onClick={() => roll.mutate({ id: key.id, overlap_minutes: 60 })}
+                      disabled={roll.isPending}
+                      title="Issue a replacement; this key keeps working for 60 minutes"
+                    >
                       Roll
                     </Button>
                     <Button variant="ghost" className="!text-oxide-600" onClick={() => setRevoking(key)}>
@@ -66,12 +78,18 @@ export function ApiKeysTable({ canWrite }: { canWrite: boolean }) {
         </Button>
       )}
       <Dialog open={!!revoking} title={`Revoke “${revoking?.name}”?`} onClose={() => setRevoking(null)}>
-        <p className="mb-4 text-sm">Calls with this key fail at once with 401. Integrations using it stop working until they get a new key.</p>
+        <p className="mb-4 text-sm">
+          Calls with this key fail at once with 401. Integrations using it stop working until they get a new key.
+        </p>
         <div className="flex justify-end gap-2">
           <Button variant="secondary" onClick={() => setRevoking(null)}>
             Keep it
           </Button>
-          <Button variant="danger" onClick={() => revoking && revoke.mutate(revoking.id, { onSuccess: () => setRevoking(null) })} disabled={revoke.isPending}>
+          <Button
+            variant="danger"
+            onClick={() => revoking && revoke.mutate(revoking.id, { onSuccess: () => setRevoking(null) })}
+            disabled={revoke.isPending}
+          >
             Revoke now
           </Button>
         </div>

@@ -39,7 +39,13 @@ export function CreateKeyDialog({ open, grantable, onClose }: { open: boolean; g
       ) : (
         <form onSubmit={submit} className="space-y-4" noValidate>
           <ProblemAlert error={create.error} fields={['name', 'scopes', 'expires_at']} />
-          <TextField label="Name" placeholder="e.g. MES melt shop" value={name} onChange={(e) => setName(e.target.value)} error={problem?.fieldError('name')} />
+          <TextField
+            label="Name"
+            placeholder="e.g. MES melt shop"
+            value={name}
+            onChange={(e) => setName(e.target.value)}
+            error={problem?.fieldError('name')}
+          />
           <fieldset>
             <legend className="mb-1 text-sm font-medium text-slag-800">Scopes</legend>
             <p className="mb-2 text-xs text-slag-500">Grant only what the integration does. You can grant the scopes your role holds.</p>
@@ -57,7 +63,14 @@ export function CreateKeyDialog({ open, grantable, onClose }: { open: boolean; g
               </p>
             )}
           </fieldset>
-          <TextField label="Expires (optional)" type="datetime-local" value={expiresAt} onChange={(e) => setExpiresAt(e.target.value)} error={problem?.fieldError('expires_at')} hint="Leave empty for a key that lives until revoked." />
+          <TextField
+            label="Expires (optional)"
+            type="datetime-local"
+            value={expiresAt}
+            onChange={(e) => setExpiresAt(e.target.value)}
+            error={problem?.fieldError('expires_at')}
+            hint="Leave empty for a key that lives until revoked."
+          />
           <div className="flex justify-end gap-2">
             <Button variant="secondary" onClick={close}>
               Cancel

@@ -12,9 +12,13 @@ export function AuthFrame({ title, children }: { title: string; children: ReactN
         </div>
         <div className="max-w-md space-y-3">
           <p className="font-mono text-sm text-ember-400">spark stand → results hub → everything else</p>
-          <p className="text-2xl font-semibold leading-snug">Chemistry from every burn, averaged, drift-corrected and traceable — over one versioned API.</p>
+          <p className="text-2xl font-semibold leading-snug">
+            Chemistry from every burn, averaged, drift-corrected and traceable — over one versioned API.
+          </p>
         </div>
-        <p className="text-xs text-slag-300">Results decide whether a heat ships. Review and authorise them under your laboratory&apos;s accredited procedures.</p>
+        <p className="text-xs text-slag-300">
+          Results decide whether a heat ships. Review and authorise them under your laboratory&apos;s accredited procedures.
+        </p>
       </aside>
       <main className="flex items-center justify-center p-6">
         <div className="w-full max-w-sm">

@@ -8,7 +8,8 @@ export function RequireScope({ scope, children }: { scope: Scope; children: Reac
   if (!hasScope(me, scope)) {
     return (
       <Alert title="Not available for your role">
-        This page needs the scope <code>{scope}</code>; your role <code>{me?.user.role}</code> does not hold it. Ask a lab admin if you need it.
+        This page needs the scope <code>{scope}</code>; your role <code>{me?.user.role}</code> does not hold it. Ask a lab admin if you need
+        it.
       </Alert>
     );
   }

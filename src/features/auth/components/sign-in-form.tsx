@@ -27,8 +27,26 @@ export function SignInForm() {
   return (
     <form onSubmit={submit} className="space-y-4" noValidate>
       <ProblemAlert error={login.error} fields={['email', 'password']} />
-      <TextField label="E-mail" type="email" name="email" autoComplete="username" required value={email} onChange={(e) => setEmail(e.target.value)} error={problem?.fieldError('email')} />
-      <TextField label="Password" type="password" name="password" autoComplete="current-password" required value={password} onChange={(e) => setPassword(e.target.value)} error={problem?.fieldError('password')} />
+      <TextField
+        label="E-mail"
+        type="email"
+        name="email"
+        autoComplete="username"
+        required
+        value={email}
+        onChange={(e) => setEmail(e.target.value)}
+        error={problem?.fieldError('email')}
+      />
+      <TextField
+        label="Password"
+        type="password"
+        name="password"
+        autoComplete="current-password"
+        required
+        value={password}
+        onChange={(e) => setPassword(e.target.value)}
+        error={problem?.fieldError('password')}
+      />
       <Button type="submit" className="w-full" disabled={login.isPending}>
         {login.isPending ? 'Signing in…' : 'Sign in'}
       </Button>

@@ -13,28 +13,45 @@ export const runsQuery = (instrumentId: string, methodId?: string) =>
   infiniteQueryOptions({
     queryKey: ['standardizations', 'list', instrumentId, methodId ?? null],
     queryFn: ({ pageParam }) =>
-      unwrap(api.GET('/instruments/{id}/standardizations', { params: { path: { id: instrumentId }, query: { limit: 25, cursor: pageParam, method_id: methodId || undefined } } })),
+      unwrap(
+        api.GET('/instruments/{id}/standardizations', {
+          params: { path: { id: instrumentId }, query: { limit: 25, cursor: pageParam, method_id: methodId || undefined } },
+        }),
+      ),
     initialPageParam: undefined as string | undefined,
     getNextPageParam: (page) => page.next_cursor ?? undefined,
   });
 
-export const useRuns = (instrumentId: string, methodId?: string) => useInfiniteQuery({ ...runsQuery(instrumentId, methodId), enabled: !!instrumentId });
+export const useRuns = (instrumentId: string, methodId?: string) =>
+  useInfiniteQuery({ ...runsQuery(instrumentId, methodId), enabled: !!instrumentId });
 
 export const runQuery = (id: string) =>
-  queryOptions({ queryKey: ['standardizations', 'one', id], queryFn: () => unwrap(api.GET('/standardizations/{id}', { params: { path: { id } } })) });
+  queryOptions({
+    queryKey: ['standardizations', 'one', id],
+    queryFn: () => unwrap(api.GET('/standardizations/{id}', { params: { path: { id } } })),
+  });
 
 export const useRun = (id: string) => useQuery(runQuery(id));
 
 export const driftQuery = (instrumentId: string, element: string, methodId?: string) =>
   queryOptions({
     queryKey: ['drift', instrumentId, element, methodId ?? null],
-    queryFn: () => unwrap(api.GET('/instruments/{id}/drift', { params: { path: { id: instrumentId }, query: { element, method_id: methodId || undefined, limit: 200 } } })),
+    queryFn: () =>
+      unwrap(
+        api.GET('/instruments/{id}/drift', {
+          params: { path: { id: instrumentId }, query: { element, method_id: methodId || undefined, limit: 200 } },
+        }),
+      ),
   });
 
-export const useDrift = (instrumentId: string, element: string, methodId?: string) => useQuery({ ...driftQuery(instrumentId, element, methodId), enabled: !!instrumentId && !!element });
+export const useDrift = (instrumentId: string, element: string, methodId?: string) =>
+  useQuery({ ...driftQuery(instrumentId, element, methodId), enabled: !!instrumentId && !!element });
 
 export const correctionsQuery = (instrumentId: string) =>
-  queryOptions({ queryKey: ['corrections', instrumentId], queryFn: () => unwrap(api.GET('/instruments/{id}/corrections', { params: { path: { id: instrumentId } } })) });
+  queryOptions({
+    queryKey: ['corrections', instrumentId],
+    queryFn: () => unwrap(api.GET('/instruments/{id}/corrections', { params: { path: { id: instrumentId } } })),
+  });
 
 export const useCorrectionsInForce = (instrumentId: string) => useQuery({ ...correctionsQuery(instrumentId), enabled: !!instrumentId });
 

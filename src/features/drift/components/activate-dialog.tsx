@@ -27,7 +27,8 @@ export function ActivateDialog({ run, open, onClose }: { run: Standardization; o
     <Dialog open={open} title={needsReason ? 'Activate with an override' : 'Activate this correction set'} onClose={close}>
       <form onSubmit={submit} className="space-y-4" noValidate>
         <p className="text-sm text-slag-800">
-          From now on every burn measured on <strong>{run.instrument.code}</strong> with <strong>{run.method.code}</strong> is corrected with this set. Results already stored are not changed.
+          From now on every burn measured on <strong>{run.instrument.code}</strong> with <strong>{run.method.code}</strong> is corrected
+          with this set. Results already stored are not changed.
         </p>
         {needsReason && (
           <>

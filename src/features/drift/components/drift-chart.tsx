@@ -20,9 +20,15 @@ interface DotProps {
 /** ok: circle; warn: triangle; fail: cross — the shape carries the flag, not only the colour. */
 function FlagDot({ cx, cy, payload, stroke }: DotProps) {
   if (cx === undefined || cy === undefined || !payload) return null;
-  if (payload.flag === 'fail') return <path d={`M${cx - 5},${cy - 5}L${cx + 5},${cy + 5}M${cx - 5},${cy + 5}L${cx + 5},${cy - 5}`} stroke="#b42318" strokeWidth={2.5} />;
-  if (payload.flag === 'warn') return <path d={`M${cx},${cy - 6}L${cx + 6},${cy + 5}L${cx - 6},${cy + 5}Z`} fill="#f0642a" stroke="#a83c10" />;
-  return <circle cx={cx} cy={cy} r={payload.inForce ? 5 : 3.5} fill={payload.inForce ? stroke : '#fff'} stroke={stroke} strokeWidth={1.5} />;
+  if (payload.flag === 'fail')
+    return (
+      <path d={`M${cx - 5},${cy - 5}L${cx + 5},${cy + 5}M${cx - 5},${cy + 5}L${cx + 5},${cy - 5}`} stroke="#b42318" strokeWidth={2.5} />
+    );
+  if (payload.flag === 'warn')
+    return <path d={`M${cx},${cy - 6}L${cx + 6},${cy + 5}L${cx - 6},${cy + 5}Z`} fill="#f0642a" stroke="#a83c10" />;
+  return (
+    <circle cx={cx} cy={cy} r={payload.inForce ? 5 : 3.5} fill={payload.inForce ? stroke : '#fff'} stroke={stroke} strokeWidth={1.5} />
+  );
 }
 
 export function DriftChart({ points, element, instrumentCode }: { points: DriftPoint[]; element: string; instrumentCode: string }) {
@@ -36,13 +42,56 @@ export function DriftChart({ points, element, instrumentCode }: { points: DriftP
         <ResponsiveContainer width="100%" height="100%">
           <LineChart data={rows} margin={{ top: 30, right: 8, bottom: 24, left: 8 }}>
             <CartesianGrid stroke="#e6dccf" strokeDasharray="3 3" />
-            <XAxis dataKey="time" type="number" scale="time" domain={['dataMin', 'dataMax']} tickFormatter={formatDay} label={{ value: 'Measured (UTC date)', position: 'insideBottom', offset: -14 }} />
-            <YAxis yAxisId="slope" width={64} domain={['auto', 'auto']} tickFormatter={(v: number) => AXIS.format(v)} label={{ value: 'Slope α', position: 'top', offset: 14 }} />
-            <YAxis yAxisId="offset" orientation="right" width={104} domain={['auto', 'auto']} tickFormatter={(v: number) => AXIS.format(v)} label={{ value: 'Offset β (%)', position: 'top', offset: 14 }} />
-            <Tooltip labelFormatter={(t) => formatTime(Number(t))} formatter={(value, name) => [typeof value === 'number' ? shortDecimal(String(value)) : '—', name]} />
+            <XAxis
+              dataKey="time"
+              type="number"
+              scale="time"
+              domain={['dataMin', 'dataMax']}
+              tickFormatter={formatDay}
+              label={{ value: 'Measured (UTC date)', position: 'insideBottom', offset: -14 }}
+            />
+            <YAxis
+              yAxisId="slope"
+              width={64}
+              domain={['auto', 'auto']}
+              tickFormatter={(v: number) => AXIS.format(v)}
+              label={{ value: 'Slope α', position: 'top', offset: 14 }}
+            />
+            <YAxis
+              yAxisId="offset"
+              orientation="right"
+              width={104}
+              domain={['auto', 'auto']}
+              tickFormatter={(v: number) => AXIS.format(v)}
+              label={{ value: 'Offset β (%)', position: 'top', offset: 14 }}
+            />
+            <Tooltip
+              labelFormatter={(t) => formatTime(Number(t))}
+              formatter={(value, name) => [typeof value === 'number' ? shortDecimal(String(value)) : '—', name]}
+            />
             <Legend verticalAlign="bottom" height={20} wrapperStyle={{ bottom: -4 }} />
-            <Line yAxisId="slope" type="linear" dataKey="slope" name="Slope α" stroke="#2f7d6d" strokeWidth={2} dot={<FlagDot />} isAnimationActive={false} connectNulls={false} />
-            <Line yAxisId="offset" type="linear" dataKey="offset" name="Offset β (%)" stroke="#9a5b2e" strokeDasharray="5 3" dot={<FlagDot />} isAnimationActive={false} connectNulls={false} />
+            <Line
+              yAxisId="slope"
+              type="linear"
+              dataKey="slope"
+              name="Slope α"
+              stroke="#2f7d6d"
+              strokeWidth={2}
+              dot={<FlagDot />}
+              isAnimationActive={false}
+              connectNulls={false}
+            />
+            <Line
+              yAxisId="offset"
+              type="linear"
+              dataKey="offset"
+              name="Offset β (%)"
+              stroke="#9a5b2e"
+              strokeDasharray="5 3"
+              dot={<FlagDot />}
+              isAnimationActive={false}
+              connectNulls={false}
+            />
           </LineChart>
         </ResponsiveContainer>
       </div>
@@ -55,11 +104,27 @@ export function DriftChart({ points, element, instrumentCode }: { points: DriftP
           {points.map((p) => (
             <tr key={p.standardization_id}>
               <td className="px-3 py-1.5 font-mono text-xs">{formatTime(p.measured_at)}</td>
-              <td className="px-3 py-1.5 font-mono text-xs" title={p.slope ?? undefined}>{shortDecimal(p.slope)}</td>
-              <td className="px-3 py-1.5 font-mono text-xs" title={p.offset ?? undefined}>{shortDecimal(p.offset)}</td>
-              <td className="px-3 py-1.5"><FlagBadge flag={p.flag} /></td>
-              <td className="px-3 py-1.5"><StatusText status={p.status} inForce={p.in_force} effectiveFrom={p.effective_from} /></td>
-              <td className="px-3 py-1.5 text-right"><Link className="text-sm text-copper-700 underline" to={`/drift/runs/${p.standardization_id}`} aria-label={`Open the run of ${formatTime(p.measured_at)}`}>Open</Link></td>
+              <td className="px-3 py-1.5 font-mono text-xs" title={p.slope ?? undefined}>
+                {shortDecimal(p.slope)}
+              </td>
+              <td className="px-3 py-1.5 font-mono text-xs" title={p.offset ?? undefined}>
+                {shortDecimal(p.offset)}
+              </td>
+              <td className="px-3 py-1.5">
+                <FlagBadge flag={p.flag} />
+              </td>
+              <td className="px-3 py-1.5">
+                <StatusText status={p.status} inForce={p.in_force} effectiveFrom={p.effective_from} />
+              </td>
+              <td className="px-3 py-1.5 text-right">
+                <Link
+                  className="text-sm text-copper-700 underline"
+                  to={`/drift/runs/${p.standardization_id}`}
+                  aria-label={`Open the run of ${formatTime(p.measured_at)}`}
+                >
+                  Open
+                </Link>
+              </td>
             </tr>
           ))}
         </Table>

@@ -7,23 +7,49 @@ export interface DriftSelection {
   element: string;
 }
 
-export function DriftFilters({ instruments, methods, value, onChange }: { instruments: Instrument[]; methods: Method[]; value: DriftSelection; onChange: (next: DriftSelection) => void }) {
+export function DriftFilters({
+  instruments,
+  methods,
+  value,
+  onChange,
+}: {
+  instruments: Instrument[];
+  methods: Method[];
+  value: DriftSelection;
+  onChange: (next: DriftSelection) => void;
+}) {
   const method = methods.find((m) => m.id === value.methodId);
   return (
     <div className="grid max-w-3xl gap-4 sm:grid-cols-3">
       <SelectField label="Instrument" value={value.instrumentId} onChange={(e) => onChange({ ...value, instrumentId: e.target.value })}>
         {instruments.map((i) => (
-          <option key={i.id} value={i.id}>{i.code} — {i.name}</option>
+          <option key={i.id} value={i.id}>
+            {i.code} — {i.name}
+          </option>
         ))}
       </SelectField>
-      <SelectField label="Method" value={value.methodId} onChange={(e) => onChange({ ...value, methodId: e.target.value, element: methods.find((m) => m.id === e.target.value)?.elements[0]?.element ?? '' })}>
+      <SelectField
+        label="Method"
+        value={value.methodId}
+        onChange={(e) =>
+          onChange({
+            ...value,
+            methodId: e.target.value,
+            element: methods.find((m) => m.id === e.target.value)?.elements[0]?.element ?? '',
+          })
+        }
+      >
         {methods.map((m) => (
-          <option key={m.id} value={m.id}>{m.code} ({m.matrix} base)</option>
+          <option key={m.id} value={m.id}>
+            {m.code} ({m.matrix} base)
+          </option>
         ))}
       </SelectField>
       <SelectField label="Element" value={value.element} onChange={(e) => onChange({ ...value, element: e.target.value })}>
         {method?.elements.map((e) => (
-          <option key={e.element} value={e.element}>{e.element}</option>
+          <option key={e.element} value={e.element}>
+            {e.element}
+          </option>
         ))}
       </SelectField>
     </div>

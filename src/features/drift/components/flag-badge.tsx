@@ -17,7 +17,15 @@ export function FlagBadge({ flag }: { flag: CorrectionFlag }) {
   );
 }
 
-export function StatusText({ status, inForce, effectiveFrom }: { status: 'draft' | 'activated'; inForce: boolean; effectiveFrom: string | null }) {
+export function StatusText({
+  status,
+  inForce,
+  effectiveFrom,
+}: {
+  status: 'draft' | 'activated';
+  inForce: boolean;
+  effectiveFrom: string | null;
+}) {
   if (inForce) return <span className="text-xs font-semibold text-verdigris-600">● In force</span>;
   if (status === 'draft') return <span className="text-xs text-slag-500">Draft</span>;
   const scheduled = effectiveFrom !== null && Date.parse(effectiveFrom) > Date.now();

@@ -13,7 +13,9 @@ export function InForceCard({ instrumentId, methodId }: { instrumentId: string; 
       {corrections.isPending ? (
         <p className="text-sm text-slag-500">Loading…</p>
       ) : !entry ? (
-        <p className="text-sm text-slag-800" data-testid="in-force">None: results of this instrument and method are not drift-corrected.</p>
+        <p className="text-sm text-slag-800" data-testid="in-force">
+          None: results of this instrument and method are not drift-corrected.
+        </p>
       ) : (
         <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm" data-testid="in-force">
           <dt className="text-slag-500">Measured</dt>
@@ -23,8 +25,14 @@ export function InForceCard({ instrumentId, methodId }: { instrumentId: string; 
           <dt className="text-slag-500">Activated by</dt>
           <dd>{entry.set.activation?.activated_by}</dd>
           <dt className="text-slag-500">Flag</dt>
-          <dd><FlagBadge flag={entry.set.flag} /></dd>
-          <dd className="col-span-2 pt-1"><Link className="text-copper-700 underline" to={`/drift/runs/${entry.set.id}`}>Open the set</Link></dd>
+          <dd>
+            <FlagBadge flag={entry.set.flag} />
+          </dd>
+          <dd className="col-span-2 pt-1">
+            <Link className="text-copper-700 underline" to={`/drift/runs/${entry.set.id}`}>
+              Open the set
+            </Link>
+          </dd>
         </dl>
       )}
     </Card>

@@ -18,8 +18,24 @@ const MODES: { value: Mode; label: string; kinds: ReferenceMaterial['kind'][][] 
   { value: 'type', label: 'Type standardization (similar composition)', kinds: [['type']] },
 ];
 
-function ReferenceBurns({ index, label, options, referenceId, onReference, text, onText, error }: {
-  index: number; label: string; options: ReferenceMaterial[]; referenceId: string; onReference: (id: string) => void; text: string; onText: (text: string) => void; error?: string;
+function ReferenceBurns({
+  index,
+  label,
+  options,
+  referenceId,
+  onReference,
+  text,
+  onText,
+  error,
+}: {
+  index: number;
+  label: string;
+  options: ReferenceMaterial[];
+  referenceId: string;
+  onReference: (id: string) => void;
+  text: string;
+  onText: (text: string) => void;
+  error?: string;
 }) {
   return (
     <fieldset className="space-y-3 rounded-lg border border-ash-200 bg-white p-4">
@@ -36,15 +52,34 @@ function ReferenceBurns({ index, label, options, referenceId, onReference, text,
         <label htmlFor={`burns-${index}`} className="block text-sm font-medium text-slag-800">
           Burns of reference {index + 1} (JSON, % unless the method says otherwise)
         </label>
-        <textarea id={`burns-${index}`} rows={5} value={text} onChange={(e) => onText(e.target.value)} aria-invalid={error ? true : undefined}
-          className="w-full rounded-md border border-ash-200 bg-white px-3 py-2 font-mono text-xs focus:border-ember-500 focus:outline-none" placeholder='[{"C": 0.80, "Mn": 1.47}, {"C": 0.81, "Mn": 1.48}]' />
-        {error && <p role="alert" className="text-xs font-medium text-oxide-600">⚠ {error}</p>}
+        <textarea
+          id={`burns-${index}`}
+          rows={5}
+          value={text}
+          onChange={(e) => onText(e.target.value)}
+          aria-invalid={error ? true : undefined}
+          className="w-full rounded-md border border-ash-200 bg-white px-3 py-2 font-mono text-xs focus:border-ember-500 focus:outline-none"
+          placeholder='[{"C": 0.80, "Mn": 1.47}, {"C": 0.81, "Mn": 1.48}]'
+        />
+        {error && (
+          <p role="alert" className="text-xs font-medium text-oxide-600">
+            ⚠ {error}
+          </p>
+        )}
       </div>
     </fieldset>
   );
 }
 
-export function RunForm({ instruments, methods, references }: { instruments: Instrument[]; methods: Method[]; references: ReferenceMaterial[] }) {
+export function RunForm({
+  instruments,
+  methods,
+  references,
+}: {
+  instruments: Instrument[];
+  methods: Method[];
+  references: ReferenceMaterial[];
+}) {
   const [instrumentId, setInstrumentId] = useState(instruments[0]?.id ?? '');
   const [methodId, setMethodId] = useState(methods[0]?.id ?? '');
   const [mode, setMode] = useState<Mode>('two_point');
@@ -76,25 +111,46 @@ export function RunForm({ instruments, methods, references }: { instruments: Ins
     <form onSubmit={submit} className="max-w-3xl space-y-4" noValidate>
       <div className="grid gap-4 sm:grid-cols-3">
         <SelectField label="Instrument" value={instrumentId} onChange={(e) => setInstrumentId(e.target.value)}>
-          {instruments.map((i) => <option key={i.id} value={i.id}>{i.code} — {i.name}</option>)}
+          {instruments.map((i) => (
+            <option key={i.id} value={i.id}>
+              {i.code} — {i.name}
+            </option>
+          ))}
         </SelectField>
         <SelectField label="Method" value={methodId} onChange={(e) => setMethodId(e.target.value)} error={problem?.fieldError('method_id')}>
-          {methods.map((m) => <option key={m.id} value={m.id}>{m.code} ({m.matrix} base)</option>)}
+          {methods.map((m) => (
+            <option key={m.id} value={m.id}>
+              {m.code} ({m.matrix} base)
+            </option>
+          ))}
         </SelectField>
         <SelectField label="Mode" value={mode} onChange={(e) => setMode(e.target.value as Mode)}>
-          {MODES.map((m) => <option key={m.value} value={m.value}>{m.label}</option>)}
+          {MODES.map((m) => (
+            <option key={m.value} value={m.value}>
+              {m.label}
+            </option>
+          ))}
         </SelectField>
       </div>
       {kinds.map((allowed, i) => (
-        <ReferenceBurns key={`${mode}-${i}`} index={i} label={mode === 'two_point' ? (i === 0 ? 'High reference' : 'Low reference') : 'Reference'}
+        <ReferenceBurns
+          key={`${mode}-${i}`}
+          index={i}
+          label={mode === 'two_point' ? (i === 0 ? 'High reference' : 'Low reference') : 'Reference'}
           options={references.filter((r) => allowed.includes(r.kind) && (!method || r.matrix === method.matrix))}
-          referenceId={refIds[i]} onReference={(id) => setRefIds((ids) => ids.map((x, j) => (j === i ? id : x)))}
-          text={texts[i]} onText={(text) => setTexts((all) => all.map((x, j) => (j === i ? text : x)))} error={jsonErrors[i]} />
+          referenceId={refIds[i]}
+          onReference={(id) => setRefIds((ids) => ids.map((x, j) => (j === i ? id : x)))}
+          text={texts[i]}
+          onText={(text) => setTexts((all) => all.map((x, j) => (j === i ? text : x)))}
+          error={jsonErrors[i]}
+        />
       ))}
       <TextField label="Note (optional)" value={note} onChange={(e) => setNote(e.target.value)} />
       <ProblemAlert error={create.error} fields={['method_id']} />
       <div className="flex justify-end">
-        <Button type="submit" disabled={create.isPending}>Compute corrections</Button>
+        <Button type="submit" disabled={create.isPending}>
+          Compute corrections
+        </Button>
       </div>
     </form>
   );

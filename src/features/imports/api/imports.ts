@@ -49,7 +49,10 @@ function formOf(choice: UploadChoice, extra: Record<string, string> = {}): FormD
 }
 
 /** A multipart mutation with its upload progress (null before the first progress event). */
-function useUploadMutation<TInput, TOutput>(send: (input: TInput, onProgress: (p: UploadProgress) => void) => Promise<TOutput>, onSuccess?: (output: TOutput) => unknown) {
+function useUploadMutation<TInput, TOutput>(
+  send: (input: TInput, onProgress: (p: UploadProgress) => void) => Promise<TOutput>,
+  onSuccess?: (output: TOutput) => unknown,
+) {
   const [progress, setProgress] = useState<UploadProgress | null>(null);
   const mutation = useMutation({
     mutationFn: (input: TInput) => {
@@ -62,17 +65,23 @@ function useUploadMutation<TInput, TOutput>(send: (input: TInput, onProgress: (p
 }
 
 export function usePreviewImport() {
-  return useUploadMutation((choice: UploadChoice, onProgress) => postMultipart<ImportPreview>('/imports/preview', formOf(choice), onProgress).then((answer) => answer.data));
+  return useUploadMutation((choice: UploadChoice, onProgress) =>
+    postMultipart<ImportPreview>('/imports/preview', formOf(choice), onProgress).then((answer) => answer.data),
+  );
 }
 
 /** Commits the upload: 201 = imported now, 200 = these bytes were imported before (nothing created). */
 export function useCommitImport() {
   const queryClient = useQueryClient();
   return useUploadMutation(
-    ({ mode, ...choice }: UploadChoice & { mode: ImportMode }, onProgress) => postMultipart<Import>('/imports', formOf(choice, { mode }), onProgress),
+    ({ mode, ...choice }: UploadChoice & { mode: ImportMode }, onProgress) =>
+      postMultipart<Import>('/imports', formOf(choice, { mode }), onProgress),
     (answer: UploadAnswer<Import>) => {
       queryClient.setQueryData(importQuery(answer.data.id).queryKey, answer.data);
-      return Promise.all([queryClient.invalidateQueries({ queryKey: ['imports', 'list'] }), queryClient.invalidateQueries({ queryKey: ['samples'] })]);
+      return Promise.all([
+        queryClient.invalidateQueries({ queryKey: ['imports', 'list'] }),
+        queryClient.invalidateQueries({ queryKey: ['samples'] }),
+      ]);
     },
   );
 }

@@ -16,7 +16,21 @@ const MODES: { value: ImportMode; title: string; text: string }[] = [
 ];
 
 /** Step 2: choose how strictly to import, then commit. */
-export function CommitPanel({ preview, mode, onMode, onCommit, onRestart, busy }: { preview: ImportPreview; mode: ImportMode; onMode: (mode: ImportMode) => void; onCommit: () => void; onRestart: () => void; busy: boolean }) {
+export function CommitPanel({
+  preview,
+  mode,
+  onMode,
+  onCommit,
+  onRestart,
+  busy,
+}: {
+  preview: ImportPreview;
+  mode: ImportMode;
+  onMode: (mode: ImportMode) => void;
+  onCommit: () => void;
+  onRestart: () => void;
+  busy: boolean;
+}) {
   const rejected = new Set(preview.rejected.map((issue) => issue.line)).size;
   return (
     <section aria-labelledby="commit-heading" className="space-y-4 rounded-lg border border-ash-200 bg-white p-5">
@@ -26,8 +40,18 @@ export function CommitPanel({ preview, mode, onMode, onCommit, onRestart, busy }
       <fieldset className="space-y-2" disabled={busy}>
         <legend className="mb-1 text-sm font-medium text-slag-800">When a line cannot be read</legend>
         {MODES.map((m) => (
-          <label key={m.value} className="flex cursor-pointer gap-3 rounded-md border border-ash-200 p-3 text-sm has-[:checked]:border-ember-500 has-[:checked]:bg-ember-500/5">
-            <input type="radio" name="import-mode" value={m.value} checked={mode === m.value} onChange={() => onMode(m.value)} className="mt-0.5 accent-ember-600" />
+          <label
+            key={m.value}
+            className="flex cursor-pointer gap-3 rounded-md border border-ash-200 p-3 text-sm has-[:checked]:border-ember-500 has-[:checked]:bg-ember-500/5"
+          >
+            <input
+              type="radio"
+              name="import-mode"
+              value={m.value}
+              checked={mode === m.value}
+              onChange={() => onMode(m.value)}
+              className="mt-0.5 accent-ember-600"
+            />
             <span>
               <span className="block font-medium">{m.title}</span>
               <span className="block text-slag-700">{m.text}</span>
@@ -45,7 +69,9 @@ export function CommitPanel({ preview, mode, onMode, onCommit, onRestart, busy }
           Choose another file
         </Button>
         <Button onClick={onCommit} disabled={busy}>
-          {preview.duplicate_of ? 'Show the earlier import' : `Import ${preview.counts.samples} ${preview.counts.samples === 1 ? 'sample' : 'samples'}`}
+          {preview.duplicate_of
+            ? 'Show the earlier import'
+            : `Import ${preview.counts.samples} ${preview.counts.samples === 1 ? 'sample' : 'samples'}`}
         </Button>
       </div>
     </section>

@@ -6,7 +6,17 @@ import { formatBytes } from '../../../lib/format-bytes.ts';
  * input with Tab and pressing Enter or Space all choose the file. The input stays in the page
  * (visually hidden) so keyboards, screen readers and tests reach it as a normal file input.
  */
-export function FileDropZone({ file, onFile, disabled, error }: { file: File | null; onFile: (file: File | null) => void; disabled?: boolean; error?: string }) {
+export function FileDropZone({
+  file,
+  onFile,
+  disabled,
+  error,
+}: {
+  file: File | null;
+  onFile: (file: File | null) => void;
+  disabled?: boolean;
+  error?: string;
+}) {
   const id = useId();
   const [dragging, setDragging] = useState(false);
   const input = useRef<HTMLInputElement>(null);
@@ -45,7 +55,11 @@ export function FileDropZone({ file, onFile, disabled, error }: { file: File | n
         onDrop={drop}
         data-testid="drop-zone"
         className={`flex min-h-36 cursor-pointer flex-col items-center justify-center gap-1 rounded-lg border-2 border-dashed px-6 py-8 text-center transition-colors peer-focus-visible:outline-2 peer-focus-visible:outline-offset-2 peer-focus-visible:outline-ember-500 ${
-          dragging ? 'border-ember-500 bg-ember-500/5' : error ? 'border-oxide-600 bg-white' : 'border-ash-200 bg-white hover:border-slag-300'
+          dragging
+            ? 'border-ember-500 bg-ember-500/5'
+            : error
+              ? 'border-oxide-600 bg-white'
+              : 'border-ash-200 bg-white hover:border-slag-300'
         } ${disabled ? 'cursor-not-allowed opacity-60' : ''}`}
       >
         <span className="text-sm font-medium text-slag-800">Result file</span>
@@ -55,7 +69,9 @@ export function FileDropZone({ file, onFile, disabled, error }: { file: File | n
             <span className="block text-xs text-slag-500">Drop or choose another file to replace it.</span>
           </span>
         ) : (
-          <span className="text-sm text-slag-500">Drop the file here, or click to choose it (Tab here, then Enter or Space). CSV or other delimited text.</span>
+          <span className="text-sm text-slag-500">
+            Drop the file here, or click to choose it (Tab here, then Enter or Space). CSV or other delimited text.
+          </span>
         )}
       </label>
       {error && (

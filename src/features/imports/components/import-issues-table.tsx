@@ -5,7 +5,17 @@ import type { ImportIssue } from '../api/imports.ts';
 export function ImportIssuesTable({ issues, caption, testId }: { issues: ImportIssue[]; caption: string; testId?: string }) {
   return (
     <div data-testid={testId}>
-      <Table caption={caption} head={[<span key="l" className="block text-right">Line</span>, 'Column', 'Reason', 'Code']}>
+      <Table
+        caption={caption}
+        head={[
+          <span key="l" className="block text-right">
+            Line
+          </span>,
+          'Column',
+          'Reason',
+          'Code',
+        ]}
+      >
         {issues.map((issue, index) => (
           <tr key={`${issue.line}-${issue.column}-${index}`} className="align-top" data-testid="issue-row">
             <td className="px-3 py-1.5 text-right font-mono tabular-nums">{issue.line ?? '—'}</td>

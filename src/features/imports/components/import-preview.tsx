@@ -12,7 +12,10 @@ const SHOWN_SAMPLES = 5;
 export function ImportPreviewView({ preview }: { preview: ImportPreview }) {
   const shown = preview.samples.slice(0, SHOWN_SAMPLES);
   const burns = shown.flatMap((sample) => sample.burns.map((burn) => ({ sample, burn })));
-  const elements = elementsOf(preview.layout.columns, burns.map((b) => b.burn.values));
+  const elements = elementsOf(
+    preview.layout.columns,
+    burns.map((b) => b.burn.values),
+  );
   return (
     <div className="space-y-5" data-testid="import-preview">
       {preview.duplicate_of && (
@@ -24,7 +27,15 @@ export function ImportPreviewView({ preview }: { preview: ImportPreview }) {
           . Importing it again creates nothing and shows that import&apos;s report.
         </Alert>
       )}
-      <LayoutSummary layout={preview.layout} counts={[['Data rows', preview.counts.rows], ['Samples', preview.counts.samples], ['Burns', preview.counts.burns], ['Values', preview.counts.values]]} />
+      <LayoutSummary
+        layout={preview.layout}
+        counts={[
+          ['Data rows', preview.counts.rows],
+          ['Samples', preview.counts.samples],
+          ['Burns', preview.counts.burns],
+          ['Values', preview.counts.values],
+        ]}
+      />
 
       <section className="space-y-2">
         <h3 className="text-sm font-semibold text-slag-800">Recognised columns</h3>
@@ -50,7 +61,21 @@ export function ImportPreviewView({ preview }: { preview: ImportPreview }) {
         {burns.length === 0 ? (
           <p className="text-sm text-slag-500">No readable sample in this file.</p>
         ) : (
-          <Table caption="The first samples' burns as they would be stored" head={['Line', 'Sample code', 'Heat', 'Burn', 'Time', ...elements.map((el) => <span key={el} className="block text-right normal-case">{el}</span>)]}>
+          <Table
+            caption="The first samples' burns as they would be stored"
+            head={[
+              'Line',
+              'Sample code',
+              'Heat',
+              'Burn',
+              'Time',
+              ...elements.map((el) => (
+                <span key={el} className="block text-right normal-case">
+                  {el}
+                </span>
+              )),
+            ]}
+          >
             {burns.map(({ sample, burn }) => (
               <tr key={`${sample.first_line}-${burn.line}`} data-testid="preview-burn-row">
                 <td className="px-3 py-1.5 text-right font-mono text-xs">{burn.line}</td>

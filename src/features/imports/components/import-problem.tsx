@@ -5,7 +5,10 @@ import type { ImportIssue } from '../api/imports.ts';
 import { ImportIssuesTable } from './import-issues-table.tsx';
 
 function isIssueList(value: unknown): value is ImportIssue[] {
-  return Array.isArray(value) && value.every((item) => typeof item === 'object' && item !== null && typeof (item as ImportIssue).message === 'string');
+  return (
+    Array.isArray(value) &&
+    value.every((item) => typeof item === 'object' && item !== null && typeof (item as ImportIssue).message === 'string')
+  );
 }
 
 /** An upload or preview that failed: too large (413), unreadable lines (422 with issues), or any other problem. */
@@ -16,8 +19,13 @@ export function ImportProblem({ error, fileSize, during }: { error: Error | null
     return (
       <Alert title="The file is too large">
         <p data-testid="too-large">
-          {limit !== undefined ? <>The server accepts files of at most {formatBytesExactly(limit)}.</> : <>The file is larger than the server accepts.</>}
-          {fileSize !== undefined && <> This file is {formatBytes(fileSize)}.</>} Split it into smaller files, or ask the administrator to raise IMPORT_MAX_BYTES.
+          {limit !== undefined ? (
+            <>The server accepts files of at most {formatBytesExactly(limit)}.</>
+          ) : (
+            <>The file is larger than the server accepts.</>
+          )}
+          {fileSize !== undefined && <> This file is {formatBytes(fileSize)}.</>} Split it into smaller files, or ask the administrator to
+          raise IMPORT_MAX_BYTES.
         </p>
       </Alert>
     );

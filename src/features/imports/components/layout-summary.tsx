@@ -17,8 +17,8 @@ export function LayoutSummary({ layout, counts }: { layout: ImportPreview['layou
         ))}
       </dl>
       <p className="text-xs text-slag-500">
-        Read as <strong>{layout.layout}</strong> layout · encoding <code>{layout.encoding}</code> · delimiter <code>{layout.delimiter}</code> · decimal separator{' '}
-        <code>{layout.decimal_separator}</code>
+        Read as <strong>{layout.layout}</strong> layout · encoding <code>{layout.encoding}</code> · delimiter{' '}
+        <code>{layout.delimiter}</code> · decimal separator <code>{layout.decimal_separator}</code>
       </p>
     </div>
   );

@@ -24,7 +24,17 @@ function missingIn(draft: UploadDraft): Missing {
 }
 
 /** Step 1: instrument, method, optional profile and the file; "Preview" asks the server how it reads. */
-export function UploadChoicesForm({ draft, onChange, onPreview, busy }: { draft: UploadDraft; onChange: (draft: UploadDraft) => void; onPreview: () => void; busy: boolean }) {
+export function UploadChoicesForm({
+  draft,
+  onChange,
+  onPreview,
+  busy,
+}: {
+  draft: UploadDraft;
+  onChange: (draft: UploadDraft) => void;
+  onPreview: () => void;
+  busy: boolean;
+}) {
   const instruments = useInstruments();
   const methods = useMethods();
   const profiles = useImportProfiles();
@@ -46,7 +56,13 @@ export function UploadChoicesForm({ draft, onChange, onPreview, busy }: { draft:
   return (
     <form onSubmit={submit} noValidate aria-label="Upload" className="space-y-4 rounded-lg border border-ash-200 bg-white p-5">
       <div className="grid gap-4 md:grid-cols-3">
-        <SelectField label="Instrument" value={draft.instrumentId} onChange={(e) => change({ instrumentId: e.target.value })} error={missing.instrumentId ?? loadError} disabled={busy}>
+        <SelectField
+          label="Instrument"
+          value={draft.instrumentId}
+          onChange={(e) => change({ instrumentId: e.target.value })}
+          error={missing.instrumentId ?? loadError}
+          disabled={busy}
+        >
           <option value="">{instruments.isPending ? 'Loading…' : 'Choose an instrument…'}</option>
           {instruments.data?.map((i) => (
             <option key={i.id} value={i.id}>
@@ -54,7 +70,13 @@ export function UploadChoicesForm({ draft, onChange, onPreview, busy }: { draft:
             </option>
           ))}
         </SelectField>
-        <SelectField label="Method" value={draft.methodId} onChange={(e) => change({ methodId: e.target.value })} error={missing.methodId} disabled={busy}>
+        <SelectField
+          label="Method"
+          value={draft.methodId}
+          onChange={(e) => change({ methodId: e.target.value })}
+          error={missing.methodId}
+          disabled={busy}
+        >
           <option value="">{methods.isPending ? 'Loading…' : 'Choose a method…'}</option>
           {methods.data?.map((m) => (
             <option key={m.id} value={m.id}>
@@ -67,7 +89,11 @@ export function UploadChoicesForm({ draft, onChange, onPreview, busy }: { draft:
           value={draft.profileId}
           onChange={(e) => change({ profileId: e.target.value })}
           disabled={busy}
-          hint={profiles.error ? 'Profiles could not be loaded; the layout will be detected.' : 'Without a profile, delimiter, decimal separator, encoding and columns are detected.'}
+          hint={
+            profiles.error
+              ? 'Profiles could not be loaded; the layout will be detected.'
+              : 'Without a profile, delimiter, decimal separator, encoding and columns are detected.'
+          }
         >
           <option value="">Detect the layout</option>
           {profiles.data?.map((p) => (

@@ -8,6 +8,9 @@ export function UploadProgressBar({ progress, sending, working }: { progress: Up
   const sent = progress && total !== null && progress.loaded >= total;
   if (sent || !progress) return <ProgressBar label={sent ? working : sending} />;
   const share = total ? progress.loaded / total : undefined;
-  const detail = share === undefined ? `${formatBytes(progress.loaded)} sent` : `${Math.round(share * 100)} % · ${formatBytes(progress.loaded)} of ${formatBytes(total!)}`;
+  const detail =
+    share === undefined
+      ? `${formatBytes(progress.loaded)} sent`
+      : `${Math.round(share * 100)} % · ${formatBytes(progress.loaded)} of ${formatBytes(total!)}`;
   return <ProgressBar label={sending} value={share} detail={detail} />;
 }

@@ -14,7 +14,12 @@ import { UploadProgressBar } from './upload-progress.tsx';
 const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
 
 function choiceOf(draft: UploadDraft): UploadChoice {
-  return { file: draft.file as File, instrumentId: draft.instrumentId, methodId: draft.methodId, ...(draft.profileId ? { profileId: draft.profileId } : {}) };
+  return {
+    file: draft.file as File,
+    instrumentId: draft.instrumentId,
+    methodId: draft.methodId,
+    ...(draft.profileId ? { profileId: draft.profileId } : {}),
+  };
 }
 
 /** `createdSamples` renders the samples an import created (the page composes it from the samples feature). */
@@ -41,7 +46,10 @@ export function UploadWizard({ createdSamples }: { createdSamples: (importId: st
     return (
       <div className="space-y-5">
         {created ? (
-          <Alert tone="success" title={`Imported: ${plural(record.report.counts.samples_created, 'sample')} created from ${record.file.name}`}>
+          <Alert
+            tone="success"
+            title={`Imported: ${plural(record.report.counts.samples_created, 'sample')} created from ${record.file.name}`}
+          >
             The report below is kept with the import, together with the raw file.
           </Alert>
         ) : (
@@ -67,13 +75,24 @@ export function UploadWizard({ createdSamples }: { createdSamples: (importId: st
   return (
     <div className="space-y-5">
       <UploadChoicesForm draft={draft} onChange={changeDraft} onPreview={() => preview.mutate(choiceOf(draft))} busy={busy} />
-      {preview.isPending && <UploadProgressBar progress={preview.progress} sending="Sending the file for a preview" working="Reading the file…" />}
+      {preview.isPending && (
+        <UploadProgressBar progress={preview.progress} sending="Sending the file for a preview" working="Reading the file…" />
+      )}
       <ImportProblem error={preview.error} fileSize={draft.file?.size} during="preview" />
       {preview.data && (
         <>
           <ImportPreviewView preview={preview.data} />
-          <CommitPanel preview={preview.data} mode={mode} onMode={setMode} onCommit={() => commit.mutate({ ...choiceOf(draft), mode })} onRestart={restart} busy={busy} />
-          {commit.isPending && <UploadProgressBar progress={commit.progress} sending="Uploading" working="Storing the samples and computing results…" />}
+          <CommitPanel
+            preview={preview.data}
+            mode={mode}
+            onMode={setMode}
+            onCommit={() => commit.mutate({ ...choiceOf(draft), mode })}
+            onRestart={restart}
+            busy={busy}
+          />
+          {commit.isPending && (
+            <UploadProgressBar progress={commit.progress} sending="Uploading" working="Storing the samples and computing results…" />
+          )}
           <ImportProblem error={commit.error} fileSize={draft.file?.size} during="import" />
         </>
       )}

@@ -14,7 +14,8 @@ function present(filters: RequestLogFilters): RequestLogFilters {
 export const requestLogQuery = (filters: RequestLogFilters) =>
   infiniteQueryOptions({
     queryKey: ['request-log', 'list', present(filters)],
-    queryFn: ({ pageParam }) => unwrap(api.GET('/request-log', { params: { query: { limit: 50, cursor: pageParam, ...present(filters) } } })),
+    queryFn: ({ pageParam }) =>
+      unwrap(api.GET('/request-log', { params: { query: { limit: 50, cursor: pageParam, ...present(filters) } } })),
     initialPageParam: undefined as string | undefined,
     getNextPageParam: (page) => page.next_cursor ?? undefined,
   });

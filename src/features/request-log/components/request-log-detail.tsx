@@ -10,7 +10,8 @@ import { StatusBadge } from './status-badge.tsx';
 type Message = RequestLogEntry['request'];
 
 function prettyBody(message: Message): string {
-  if (message.body === null) return message.body_kind === 'none' ? '(no body)' : `(${message.body_kind} body of ${message.body_size} bytes, not kept)`;
+  if (message.body === null)
+    return message.body_kind === 'none' ? '(no body)' : `(${message.body_kind} body of ${message.body_size} bytes, not kept)`;
   if (message.body_kind === 'json' && !message.body_truncated) {
     try {
       return JSON.stringify(JSON.parse(message.body), null, 2);
@@ -37,11 +38,12 @@ function MessagePanel({ title, message }: { title: string; message: Message }) {
         </dl>
       </details>
       {message.body_truncated && (
-        <p className="text-xs text-ember-700">
-          Cut at the log&apos;s size limit: {message.body_size} bytes in the original.
-        </p>
+        <p className="text-xs text-ember-700">Cut at the log&apos;s size limit: {message.body_size} bytes in the original.</p>
       )}
-      <pre className="max-h-80 overflow-auto rounded-md border border-ash-200 bg-white p-3 text-xs" data-testid={`${title.toLowerCase()}-body`}>
+      <pre
+        className="max-h-80 overflow-auto rounded-md border border-ash-200 bg-white p-3 text-xs"
+        data-testid={`${title.toLowerCase()}-body`}
+      >
         {prettyBody(message)}
       </pre>
     </section>
@@ -116,7 +118,11 @@ export function RequestLogDetail({ id }: { id: string }) {
         )}
       </dl>
       <ReplayPanel key={e.id} entry={e} />
-      <CodeBlock label="Equivalent curl (set MELTWIRE_KEY to your key first)" code={curlCommand(e, window.location.origin)} testId="curl-command" />
+      <CodeBlock
+        label="Equivalent curl (set MELTWIRE_KEY to your key first)"
+        code={curlCommand(e, window.location.origin)}
+        testId="curl-command"
+      />
       <MessagePanel title="Request" message={e.request} />
       <MessagePanel title="Response" message={e.response} />
     </div>

@@ -13,7 +13,8 @@ function toIso(local: string): string | undefined {
 
 export function RequestLogFilterForm({ onApply }: { onApply: (filters: RequestLogFilters) => void }) {
   const [form, setForm] = useState(EMPTY);
-  const set = (field: keyof typeof EMPTY) => (event: { target: { value: string } }) => setForm((f) => ({ ...f, [field]: event.target.value }));
+  const set = (field: keyof typeof EMPTY) => (event: { target: { value: string } }) =>
+    setForm((f) => ({ ...f, [field]: event.target.value }));
 
   function submit(event: FormEvent) {
     event.preventDefault();
@@ -28,7 +29,11 @@ export function RequestLogFilterForm({ onApply }: { onApply: (filters: RequestLo
   }
 
   return (
-    <form onSubmit={submit} className="grid grid-cols-2 items-end gap-3 rounded-lg border border-ash-200 bg-white p-4 md:grid-cols-4 xl:grid-cols-7" aria-label="Filters">
+    <form
+      onSubmit={submit}
+      className="grid grid-cols-2 items-end gap-3 rounded-lg border border-ash-200 bg-white p-4 md:grid-cols-4 xl:grid-cols-7"
+      aria-label="Filters"
+    >
       <SelectField label="Method" value={form.method} onChange={set('method')}>
         <option value="">any</option>
         {METHODS.map((m) => (

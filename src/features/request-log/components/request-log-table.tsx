@@ -13,7 +13,9 @@ export function RequestLogTable({ filters, onOpen }: { filters: RequestLogFilter
       <ProblemAlert error={log.error} />
       {log.isPending && <Spinner label="Loading calls…" />}
       {!log.isPending && !log.error && rows.length === 0 && (
-        <EmptyState title="No calls match">Calls to /api/v1 appear here as soon as they are answered. Try wider filters, or make a call with a key.</EmptyState>
+        <EmptyState title="No calls match">
+          Calls to /api/v1 appear here as soon as they are answered. Try wider filters, or make a call with a key.
+        </EmptyState>
       )}
       {rows.length > 0 && (
         <Table head={['When (UTC)', 'Method', 'Path', 'Status', 'ms', 'Caller', '']} caption="Calls to the API, newest first">
@@ -38,7 +40,11 @@ export function RequestLogTable({ filters, onOpen }: { filters: RequestLogFilter
                 {entry.caller.label ?? 'anonymous'} <span className="text-slag-500">({entry.caller.type.replace('_', ' ')})</span>
               </td>
               <td className="px-3 py-2 text-right">
-                <Button variant="ghost" onClick={() => onOpen(entry.id)} aria-label={`Details of ${entry.method} ${entry.path} at ${entry.occurred_at}`}>
+                <Button
+                  variant="ghost"
+                  onClick={() => onOpen(entry.id)}
+                  aria-label={`Details of ${entry.method} ${entry.path} at ${entry.occurred_at}`}
+                >
                   Details
                 </Button>
               </td>

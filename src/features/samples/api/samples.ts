@@ -11,7 +11,8 @@ export type Burn = components['schemas']['Burn'];
 export const samplesQuery = (filters: SampleFilters, unit: OutputUnit, pageSize = 50) =>
   infiniteQueryOptions({
     queryKey: ['samples', 'list', filters, unit, pageSize],
-    queryFn: ({ pageParam }) => unwrap(api.GET('/samples', { params: { query: { ...toApiQuery(filters, unit), limit: pageSize, cursor: pageParam } } })),
+    queryFn: ({ pageParam }) =>
+      unwrap(api.GET('/samples', { params: { query: { ...toApiQuery(filters, unit), limit: pageSize, cursor: pageParam } } })),
     initialPageParam: undefined as string | undefined,
     getNextPageParam: (page) => page.next_cursor ?? undefined,
   });

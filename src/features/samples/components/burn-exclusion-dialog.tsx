@@ -33,7 +33,11 @@ export function BurnExclusionDialog({ sampleId, burn, onClose }: { sampleId: str
   }
 
   const conflict = isProblem(change.error, 409) ? change.error : null;
-  const fieldError = tooShort ? `Say why, in a few words (at least ${MIN_REASON} characters).` : isProblem(change.error) ? change.error.fieldError('reason') : undefined;
+  const fieldError = tooShort
+    ? `Say why, in a few words (at least ${MIN_REASON} characters).`
+    : isProblem(change.error)
+      ? change.error.fieldError('reason')
+      : undefined;
 
   return (
     <Dialog open={!!burn} title={burn ? `${excluding ? 'Exclude' : 'Include'} burn ${burn.number}` : ''} onClose={close}>

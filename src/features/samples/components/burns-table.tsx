@@ -17,14 +17,40 @@ function rawTitle(value: Burn['values'][string]): string {
   return `As received: ${value.raw} ${value.raw_unit}`.trim();
 }
 
-export function BurnsTable({ burns, elements, unit, onToggle }: { burns: Burn[]; elements: string[]; unit: string; onToggle?: (burn: Burn) => void }) {
+export function BurnsTable({
+  burns,
+  elements,
+  unit,
+  onToggle,
+}: {
+  burns: Burn[];
+  elements: string[];
+  unit: string;
+  onToggle?: (burn: Burn) => void;
+}) {
   return (
     <Table
       caption={`Burns, one row each, values in ${unit}; hover a value for the value as received`}
-      head={['Burn', 'Measured (UTC)', 'Line', 'State', ...elements.map((el) => <span key={el} className="block text-right font-mono normal-case">{el}</span>)]}
+      head={[
+        'Burn',
+        'Measured (UTC)',
+        'Line',
+        'State',
+        ...elements.map((el) => (
+          <span key={el} className="block text-right font-mono normal-case">
+            {el}
+          </span>
+        )),
+      ]}
     >
       {burns.map((burn) => (
-        <tr key={burn.number} className={`align-top ${burn.excluded ? 'bg-ash-100 text-slag-500' : ''}`} data-testid="burn-row" data-burn={burn.number} data-excluded={burn.excluded}>
+        <tr
+          key={burn.number}
+          className={`align-top ${burn.excluded ? 'bg-ash-100 text-slag-500' : ''}`}
+          data-testid="burn-row"
+          data-burn={burn.number}
+          data-excluded={burn.excluded}
+        >
           <th scope="row" className={`${cell} text-right font-mono`}>
             {burn.number}
           </th>
@@ -48,7 +74,12 @@ export function BurnsTable({ burns, elements, unit, onToggle }: { burns: Burn[];
             )}
             {/* Beside the state, not after the element columns: a wide method would push it out of view. */}
             {onToggle && (
-              <Button variant="secondary" className="mt-1 !px-2 !py-0.5 text-xs" onClick={() => onToggle(burn)} aria-label={`${burn.excluded ? 'Include' : 'Exclude'} burn ${burn.number}`}>
+              <Button
+                variant="secondary"
+                className="mt-1 !px-2 !py-0.5 text-xs"
+                onClick={() => onToggle(burn)}
+                aria-label={`${burn.excluded ? 'Include' : 'Exclude'} burn ${burn.number}`}
+              >
                 {burn.excluded ? 'Include…' : 'Exclude…'}
               </Button>
             )}
@@ -56,7 +87,11 @@ export function BurnsTable({ burns, elements, unit, onToggle }: { burns: Burn[];
           {elements.map((el) => {
             const value = burn.values[el];
             return (
-              <td key={el} className={`${cell} whitespace-nowrap text-right font-mono tabular-nums ${burn.excluded ? 'line-through decoration-oxide-600' : ''}`} title={value ? rawTitle(value) : 'Not measured in this burn'}>
+              <td
+                key={el}
+                className={`${cell} whitespace-nowrap text-right font-mono tabular-nums ${burn.excluded ? 'line-through decoration-oxide-600' : ''}`}
+                title={value ? rawTitle(value) : 'Not measured in this burn'}
+              >
                 {value ? burnFigure(value) : ''}
               </td>
             );

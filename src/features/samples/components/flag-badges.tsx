@@ -51,7 +51,13 @@ export function FlagLegend({ flags }: { flags: string[] }) {
               <dt>
                 <FlagBadge name={name} />
               </dt>
-              <dd className="text-slag-700">{info.description ?? <>Not described in this console version (flag <code>{name}</code>); see the API reference.</>}</dd>
+              <dd className="text-slag-700">
+                {info.description ?? (
+                  <>
+                    Not described in this console version (flag <code>{name}</code>); see the API reference.
+                  </>
+                )}
+              </dd>
             </div>
           );
         })}

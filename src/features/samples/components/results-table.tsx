@@ -20,7 +20,18 @@ export function ResultsTable({ results, unit }: { results: ElementResult[]; unit
   return (
     <Table
       caption={`Results per element, in ${unit}`}
-      head={['Element', right(`Reported (${unit})`), right('Mean'), right('SD'), right('RSD %'), right('n'), right('Min'), right('Max'), right('Raw mean'), 'Flags']}
+      head={[
+        'Element',
+        right(`Reported (${unit})`),
+        right('Mean'),
+        right('SD'),
+        right('RSD %'),
+        right('n'),
+        right('Min'),
+        right('Max'),
+        right('Raw mean'),
+        'Flags',
+      ]}
     >
       {results.map((r) => (
         <tr key={r.element} className="align-top" data-testid="result-row" data-element={r.element}>

@@ -6,7 +6,8 @@ export function SampleCorrection({ correction }: { correction: Sample['correctio
   if (!correction) {
     return (
       <p className="mt-3 text-sm" data-testid="sample-correction">
-        <span className="text-slag-500">Drift correction:</span> none — no correction set was in force for these burns; results are the measured values.
+        <span className="text-slag-500">Drift correction:</span> none — no correction set was in force for these burns; results are the
+        measured values.
       </p>
     );
   }

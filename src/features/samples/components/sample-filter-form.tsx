@@ -39,11 +39,21 @@ export function SampleFilterForm({ filters, onApply }: { filters: SampleFilters;
   }
 
   return (
-    <form onSubmit={submit} aria-label="Sample filters" title="Days are in your time zone" className="grid grid-cols-2 items-end gap-3 rounded-lg border border-ash-200 bg-white p-4 md:grid-cols-4 xl:grid-cols-6">
+    <form
+      onSubmit={submit}
+      aria-label="Sample filters"
+      title="Days are in your time zone"
+      className="grid grid-cols-2 items-end gap-3 rounded-lg border border-ash-200 bg-white p-4 md:grid-cols-4 xl:grid-cols-6"
+    >
       <TextField label="Sample code" value={draft.sample_code} onChange={set('sample_code')} placeholder="K24-0412-F1" />
       <TextField label="Heat" value={draft.heat} onChange={set('heat')} placeholder="K24-0412" />
       <TextField label="Grade" value={draft.grade} onChange={set('grade')} placeholder="SAE 1045" />
-      <SelectField label="Instrument" value={draft.instrument_id} onChange={set('instrument_id')} hint={instruments.error ? 'Instruments could not be loaded.' : undefined}>
+      <SelectField
+        label="Instrument"
+        value={draft.instrument_id}
+        onChange={set('instrument_id')}
+        hint={instruments.error ? 'Instruments could not be loaded.' : undefined}
+      >
         <option value="">any</option>
         {instruments.data?.map((i) => (
           <option key={i.id} value={i.id}>
@@ -51,7 +61,12 @@ export function SampleFilterForm({ filters, onApply }: { filters: SampleFilters;
           </option>
         ))}
       </SelectField>
-      <SelectField label="Method" value={draft.method_id} onChange={set('method_id')} hint={methods.error ? 'Methods could not be loaded.' : undefined}>
+      <SelectField
+        label="Method"
+        value={draft.method_id}
+        onChange={set('method_id')}
+        hint={methods.error ? 'Methods could not be loaded.' : undefined}
+      >
         <option value="">any</option>
         {methods.data?.map((m) => (
           <option key={m.id} value={m.id}>

@@ -17,7 +17,15 @@ export function SampleProvenance({ sample }: { sample: Sample }) {
           <dt className="text-slag-500">Source</dt>
           <dd>File import</dd>
           <dt className="text-slag-500">Import</dt>
-          <dd>{p.import_id ? <Link to={`/imports/${p.import_id}`} className="font-mono text-copper-700 underline">{p.import_id}</Link> : '—'}</dd>
+          <dd>
+            {p.import_id ? (
+              <Link to={`/imports/${p.import_id}`} className="font-mono text-copper-700 underline">
+                {p.import_id}
+              </Link>
+            ) : (
+              '—'
+            )}
+          </dd>
           <dt className="text-slag-500">File</dt>
           <dd className="break-all">{p.file_name ?? '—'}</dd>
           <dt className="text-slag-500">SHA-256</dt>
@@ -28,7 +36,11 @@ export function SampleProvenance({ sample }: { sample: Sample }) {
       )}
       <SampleCorrection correction={sample.correction} />
       {p.import_id && (
-        <a href={`/api/v1/imports/${encodeURIComponent(p.import_id)}/file`} download className="mt-3 inline-block text-sm text-copper-700 underline">
+        <a
+          href={`/api/v1/imports/${encodeURIComponent(p.import_id)}/file`}
+          download
+          className="mt-3 inline-block text-sm text-copper-700 underline"
+        >
           ⤓ Download the raw file as uploaded
         </a>
       )}

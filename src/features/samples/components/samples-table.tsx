@@ -37,16 +37,34 @@ export function SamplesTable({ filters, unit, emptyHint }: { filters: SampleFilt
     <div className="space-y-3">
       <ProblemAlert error={samples.error} />
       {samples.isPending && <Spinner label="Loading samples…" />}
-      {!samples.isPending && !samples.error && rows.length === 0 && <EmptyState title="No samples match">{emptyHint ?? 'Try wider filters, or upload a result file.'}</EmptyState>}
+      {!samples.isPending && !samples.error && rows.length === 0 && (
+        <EmptyState title="No samples match">{emptyHint ?? 'Try wider filters, or upload a result file.'}</EmptyState>
+      )}
       {rows.length > 0 && (
         <Table
           caption="Samples, newest first"
-          head={['Sample code', 'Heat', 'Grade', 'Kind', 'Instrument', 'Status', <span key="b" className="block text-right">Burns</span>, 'Flags', `Reported (${unit})`, 'Created (UTC)']}
+          head={[
+            'Sample code',
+            'Heat',
+            'Grade',
+            'Kind',
+            'Instrument',
+            'Status',
+            <span key="b" className="block text-right">
+              Burns
+            </span>,
+            'Flags',
+            `Reported (${unit})`,
+            'Created (UTC)',
+          ]}
         >
           {rows.map((s) => (
             <tr key={s.id} className="align-top hover:bg-ash-50" data-testid="sample-row">
               <td className={cell}>
-                <Link to={`/samples/${s.id}${unit === '%' ? '' : `?unit=${encodeURIComponent(unit)}`}`} className="font-mono font-medium text-copper-700 underline">
+                <Link
+                  to={`/samples/${s.id}${unit === '%' ? '' : `?unit=${encodeURIComponent(unit)}`}`}
+                  className="font-mono font-medium text-copper-700 underline"
+                >
                   {s.sample_code}
                 </Link>
               </td>

@@ -9,7 +9,10 @@ export function UnitSwitch({ value, onChange }: { value: OutputUnit; onChange: (
       <legend className="float-left mr-2 text-sm font-medium text-slag-800">Unit</legend>
       <div className="inline-flex overflow-hidden rounded-md border border-ash-200 bg-white">
         {OUTPUT_UNITS.map((unit) => (
-          <label key={unit} className="cursor-pointer border-r border-ash-200 last:border-r-0 has-[:checked]:bg-slag-900 has-[:checked]:text-white has-[:focus-visible]:outline-2 has-[:focus-visible]:outline-ember-500">
+          <label
+            key={unit}
+            className="cursor-pointer border-r border-ash-200 last:border-r-0 has-[:checked]:bg-slag-900 has-[:checked]:text-white has-[:focus-visible]:outline-2 has-[:focus-visible]:outline-ember-500"
+          >
             <input type="radio" name="unit" value={unit} checked={value === unit} onChange={() => onChange(unit)} className="sr-only" />
             <span className="block px-3 py-1.5 text-sm" title={NAMES[unit]}>
               {unit}

@@ -30,16 +30,26 @@ export function InviteUserDialog({ open, onClose }: { open: boolean; onClose: ()
       {invite.data ? (
         <div className="space-y-4">
           {invite.data.invitation_mail.delivered ? (
-            <Alert tone="success" title={`Invitation sent to ${invite.data.user.email}`}>The link is valid for 7 days.</Alert>
+            <Alert tone="success" title={`Invitation sent to ${invite.data.user.email}`}>
+              The link is valid for 7 days.
+            </Alert>
           ) : (
-            <Alert title="The user was created, but the e-mail was not sent">{invite.data.invitation_mail.error} Send it again from the users table once mail works.</Alert>
+            <Alert title="The user was created, but the e-mail was not sent">
+              {invite.data.invitation_mail.error} Send it again from the users table once mail works.
+            </Alert>
           )}
           <Button onClick={close}>Done</Button>
         </div>
       ) : (
         <form onSubmit={submit} className="space-y-4" noValidate>
           <ProblemAlert error={invite.error} fields={['email', 'name', 'role']} />
-          <TextField label="E-mail" type="email" value={email} onChange={(e) => setEmail(e.target.value)} error={problem?.fieldError('email')} />
+          <TextField
+            label="E-mail"
+            type="email"
+            value={email}
+            onChange={(e) => setEmail(e.target.value)}
+            error={problem?.fieldError('email')}
+          />
           <TextField label="Name" value={name} onChange={(e) => setName(e.target.value)} error={problem?.fieldError('name')} />
           <SelectField label="Role" value={role} onChange={(e) => setRole(e.target.value as Role)} error={problem?.fieldError('role')}>
             {ROLES.map((r) => (

@@ -54,7 +54,11 @@ export function UsersTable({ canEdit, selfId }: { canEdit: boolean; selfId?: str
                 </Button>
               )}
               {canEdit && user.status !== 'invited' && user.id !== selfId && (
-                <Button variant="ghost" onClick={() => update.mutate({ id: user.id, status: user.status === 'active' ? 'disabled' : 'active' })} disabled={update.isPending}>
+                <Button
+                  variant="ghost"
+                  onClick={() => update.mutate({ id: user.id, status: user.status === 'active' ? 'disabled' : 'active' })}
+                  disabled={update.isPending}
+                >
                   {user.status === 'active' ? 'Disable' : 'Enable'}
                 </Button>
               )}

@@ -5,11 +5,43 @@ import { formatTime, shortDecimal, toChartRows } from '../../../../src/features/
 describe('drift chart data', () => {
   it('turns points into numeric rows, keeping null where a run did not correct the element', () => {
     const rows = toChartRows([
-      { standardization_id: 'std_a', method: { id: 'm', code: 'FE-LA' }, mode: 'two_point', measured_at: '2026-03-02T05:10:00.000Z', slope: '1.0239520958083832335', offset: '-0.00423353293413173653', flag: 'ok', reasons: [], status: 'activated', effective_from: '2026-03-02T05:35:00.000Z', in_force: true },
-      { standardization_id: 'std_b', method: { id: 'm', code: 'FE-LA' }, mode: 'two_point', measured_at: '2026-03-03T05:10:00.000Z', slope: null, offset: null, flag: 'warn', reasons: ['…'], status: 'draft', effective_from: null, in_force: false },
+      {
+        standardization_id: 'std_a',
+        method: { id: 'm', code: 'FE-LA' },
+        mode: 'two_point',
+        measured_at: '2026-03-02T05:10:00.000Z',
+        slope: '1.0239520958083832335',
+        offset: '-0.00423353293413173653',
+        flag: 'ok',
+        reasons: [],
+        status: 'activated',
+        effective_from: '2026-03-02T05:35:00.000Z',
+        in_force: true,
+      },
+      {
+        standardization_id: 'std_b',
+        method: { id: 'm', code: 'FE-LA' },
+        mode: 'two_point',
+        measured_at: '2026-03-03T05:10:00.000Z',
+        slope: null,
+        offset: null,
+        flag: 'warn',
+        reasons: ['…'],
+        status: 'draft',
+        effective_from: null,
+        in_force: false,
+      },
     ]);
     expect(rows).toEqual([
-      { id: 'std_a', time: Date.UTC(2026, 2, 2, 5, 10), slope: 1.0239520958083832, offset: -0.0042335329341317365, flag: 'ok', status: 'activated', inForce: true },
+      {
+        id: 'std_a',
+        time: Date.UTC(2026, 2, 2, 5, 10),
+        slope: 1.0239520958083832,
+        offset: -0.0042335329341317365,
+        flag: 'ok',
+        status: 'activated',
+        inForce: true,
+      },
       { id: 'std_b', time: Date.UTC(2026, 2, 3, 5, 10), slope: null, offset: null, flag: 'warn', status: 'draft', inForce: false },
     ]);
   });

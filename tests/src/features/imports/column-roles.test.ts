@@ -8,9 +8,14 @@ describe('column roles', () => {
     expect(roleInWords('some_new_role')).toBe('some new role');
   });
 
-  it('orders elements as the wide file\'s columns, then those only the values name (long layout)', () => {
+  it("orders elements as the wide file's columns, then those only the values name (long layout)", () => {
     const columns = [{ role: 'sample_code' }, { role: 'element', element: 'Mn' }, { role: 'element', element: 'C' }];
-    expect(elementsOf(columns, [{ C: '0.45', Mn: '0.75' }, { Si: '0.2', C: '0.44' }])).toEqual(['Mn', 'C', 'Si']);
+    expect(
+      elementsOf(columns, [
+        { C: '0.45', Mn: '0.75' },
+        { Si: '0.2', C: '0.44' },
+      ]),
+    ).toEqual(['Mn', 'C', 'Si']);
     expect(elementsOf([{ role: 'element_name' }, { role: 'value' }], [{ Cu: '0.1' }, { Zn: '<0.001', Cu: '0.2' }])).toEqual(['Cu', 'Zn']);
   });
 });

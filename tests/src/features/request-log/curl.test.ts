@@ -5,13 +5,33 @@ const noBody = { headers: {}, body: null, body_kind: 'none' as const, content_ty
 
 describe('curlCommand', () => {
   it('writes a GET with its query and the key from the environment, never a logged credential', () => {
-    const command = curlCommand({ method: 'GET', path: '/api/v1/samples', query: 'limit=5', request: { ...noBody, headers: { authorization: 'Bearer [redacted]', accept: 'application/json' } } }, 'https://lab.kestrelbend.test');
-    expect(command).toBe(`curl -sS 'https://lab.kestrelbend.test/api/v1/samples?limit=5' \\\n  -H "Authorization: Bearer $MELTWIRE_KEY" \\\n  -H 'Accept: application/json'`);
+    const command = curlCommand(
+      {
+        method: 'GET',
+        path: '/api/v1/samples',
+        query: 'limit=5',
+        request: { ...noBody, headers: { authorization: 'Bearer [redacted]', accept: 'application/json' } },
+      },
+      'https://lab.kestrelbend.test',
+    );
+    expect(command).toBe(
+      `curl -sS 'https://lab.kestrelbend.test/api/v1/samples?limit=5' \\\n  -H "Authorization: Bearer $MELTWIRE_KEY" \\\n  -H 'Accept: application/json'`,
+    );
   });
 
   it('sends a JSON body, its type and Idempotency-Key', () => {
     const command = curlCommand(
-      { method: 'POST', path: '/api/v1/users', query: '', request: { headers: { cookie: '[redacted]', 'content-type': 'application/json', 'idempotency-key': 'k-1' }, body: `{"name":"O'Neil"}`, body_kind: 'json', content_type: 'application/json' } },
+      {
+        method: 'POST',
+        path: '/api/v1/users',
+        query: '',
+        request: {
+          headers: { cookie: '[redacted]', 'content-type': 'application/json', 'idempotency-key': 'k-1' },
+          body: `{"name":"O'Neil"}`,
+          body_kind: 'json',
+          content_type: 'application/json',
+        },
+      },
       'http://localhost:3000',
     );
     expect(command).toContain(`curl -sS -X POST 'http://localhost:3000/api/v1/users'`);
@@ -21,13 +41,42 @@ describe('curlCommand', () => {
   });
 
   it('leaves an anonymous call anonymous', () => {
-    const command = curlCommand({ method: 'POST', path: '/api/v1/auth/password-reset', query: '', request: { headers: { 'content-type': 'application/json' }, body: '{"email":"a@kestrelbend.test"}', body_kind: 'json', content_type: 'application/json' } }, 'http://localhost:3000');
+    const command = curlCommand(
+      {
+        method: 'POST',
+        path: '/api/v1/auth/password-reset',
+        query: '',
+        request: {
+          headers: { 'content-type': 'application/json' },
+          body: '{"email":"a@kestrelbend.test"}',
+          body_kind: 'json',
+          content_type: 'application/json',
+        },
+      },
+      'http://localhost:3000',
+    );
     expect(command).not.toContain('Authorization');
   });
 
   it('rebuilds a multipart upload as -F parts and lets curl choose the boundary', () => {
-    const body = JSON.stringify({ fields: { instrument: 'OES-1' }, files: [{ field: 'file', name: 'K24-0412.csv', size: 30, content_type: 'text/csv' }] });
-    const command = curlCommand({ method: 'POST', path: '/api/v1/imports', query: '', request: { headers: { 'content-type': 'multipart/form-data; boundary=x' }, body, body_kind: 'multipart', content_type: 'multipart/form-data; boundary=x' } }, 'http://localhost:3000');
+    const body = JSON.stringify({
+      fields: { instrument: 'OES-1' },
+      files: [{ field: 'file', name: 'K24-0412.csv', size: 30, content_type: 'text/csv' }],
+    });
+    const command = curlCommand(
+      {
+        method: 'POST',
+        path: '/api/v1/imports',
+        query: '',
+        request: {
+          headers: { 'content-type': 'multipart/form-data; boundary=x' },
+          body,
+          body_kind: 'multipart',
+          content_type: 'multipart/form-data; boundary=x',
+        },
+      },
+      'http://localhost:3000',
+    );
     expect(command).toContain(`-F 'instrument=OES-1'`);
     expect(command).toContain(`-F 'file=@K24-0412.csv;type=text/csv'`);
     expect(command).not.toContain('boundary');

@@ -1,7 +1,15 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { roundHalfEven } from '../../../../server/domain/chemistry/rounding.ts';
-import { burnFigure, lineRanges, plain, reportedFigure, roundedFigure, rsdFigure, statistic } from '../../../../src/features/samples/figures.ts';
+import {
+  burnFigure,
+  lineRanges,
+  plain,
+  reportedFigure,
+  roundedFigure,
+  rsdFigure,
+  statistic,
+} from '../../../../src/features/samples/figures.ts';
 import { decimalString } from '../../../helpers/decimal-arbitrary.ts';
 
 describe('roundedFigure', () => {
@@ -23,12 +31,16 @@ describe('roundedFigure', () => {
     expect(roundedFigure(value, places)).toBe(expected);
   });
 
-  it('agrees with the server\'s reporting rounding for every value a float holds exactly enough (property)', () => {
+  it("agrees with the server's reporting rounding for every value a float holds exactly enough (property)", () => {
     // Up to 15 significant digits, a decimal survives the trip through a JavaScript number.
     fc.assert(
-      fc.property(decimalString({ maxDigits: 999_999_999_999_999n, maxScale: 12, signs: ['', '', '-'] }), fc.integer({ min: 0, max: 8 }), (text, places) => {
-        expect(roundedFigure(Number(text), places)).toBe(roundHalfEven(text, places));
-      }),
+      fc.property(
+        decimalString({ maxDigits: 999_999_999_999_999n, maxScale: 12, signs: ['', '', '-'] }),
+        fc.integer({ min: 0, max: 8 }),
+        (text, places) => {
+          expect(roundedFigure(Number(text), places)).toBe(roundHalfEven(text, places));
+        },
+      ),
       { numRuns: 2000 },
     );
   });

@@ -15,7 +15,8 @@ afterEach(() => {
 
 describe('sample filters in the URL', () => {
   it('reads every filter the table offers and writes them back in a stable order', () => {
-    const query = 'unit=ppm&heat=K24-0412&grade=SAE+1045&sample_code=K24-0412-F1&instrument_id=ins_1&method_id=mth_1&kind=final&status=draft&flag=repeatability_exceeded&created_from=2024-03-04&created_to=2024-03-05&import_id=imp_1';
+    const query =
+      'unit=ppm&heat=K24-0412&grade=SAE+1045&sample_code=K24-0412-F1&instrument_id=ins_1&method_id=mth_1&kind=final&status=draft&flag=repeatability_exceeded&created_from=2024-03-04&created_to=2024-03-05&import_id=imp_1';
     const params = new URLSearchParams(query);
     const filters = readFilters(params);
     expect(filters).toEqual({
@@ -40,7 +41,9 @@ describe('sample filters in the URL', () => {
   });
 
   it('leaves out blanks, unknown kinds and statuses, impossible days and the default unit', () => {
-    const params = new URLSearchParams('heat=%20%20&grade=&kind=scrap&status=approved&created_from=2024-02-30&created_to=04.03.2024&unit=kg');
+    const params = new URLSearchParams(
+      'heat=%20%20&grade=&kind=scrap&status=approved&created_from=2024-02-30&created_to=04.03.2024&unit=kg',
+    );
     expect(readFilters(params)).toEqual({});
     expect(readUnit(params)).toBe('%');
     expect(writeFilters({ heat: '  K24-0412 ', grade: '' }, '%').toString()).toBe('heat=K24-0412');
@@ -52,7 +55,11 @@ describe('days → instants for the API', () => {
     // America/Chicago is UTC−6 in winter; daylight saving time began on 10 March 2024 (second
     // Sunday of March, US Energy Policy Act of 2005 — from memory), so that day has 23 hours.
     expect(localDayStart('2024-03-04')).toBe('2024-03-04T06:00:00.000Z');
-    expect(toApiQuery({ created_from: '2024-03-10', created_to: '2024-03-10' }, '%')).toEqual({ created_from: '2024-03-10T06:00:00.000Z', created_to: '2024-03-11T05:00:00.000Z', unit: '%' });
+    expect(toApiQuery({ created_from: '2024-03-10', created_to: '2024-03-10' }, '%')).toEqual({
+      created_from: '2024-03-10T06:00:00.000Z',
+      created_to: '2024-03-11T05:00:00.000Z',
+      unit: '%',
+    });
     expect(localDayStart('2024-12-31', 1)).toBe('2025-01-01T06:00:00.000Z');
   });
 
@@ -60,7 +67,12 @@ describe('days → instants for the API', () => {
     const href = csvHref({ heat: 'K24-0412', kind: 'final', created_from: '2024-03-04' }, 'ppb');
     const url = new URL(href, 'https://lab.kestrelbend.test');
     expect(url.pathname).toBe('/api/v1/samples.csv');
-    expect(Object.fromEntries(url.searchParams)).toEqual({ heat: 'K24-0412', kind: 'final', created_from: '2024-03-04T06:00:00.000Z', unit: 'ppb' });
+    expect(Object.fromEntries(url.searchParams)).toEqual({
+      heat: 'K24-0412',
+      kind: 'final',
+      created_from: '2024-03-04T06:00:00.000Z',
+      unit: 'ppb',
+    });
     expect(csvHref({}, '%')).toBe('/api/v1/samples.csv?unit=%25');
   });
 });
