@@ -1,5 +1,5 @@
 // Every migration, in order. Knex loads them through this list (a folder of .ts files
-// cannot be required under vitest); tests/unit/migrations-list.test.ts keeps it complete.
+// cannot be required under vitest); tests/unit/migrations.test.ts keeps it complete.
 import type { Knex } from 'knex';
 import * as createUsers from './20261201000100_create_users.ts';
 import * as createSessions from './20261201000200_create_sessions.ts';

@@ -8,7 +8,7 @@ import { sessionAuthContext } from './domain/auth/auth.service.ts';
 import { isScope, type Scope } from './domain/auth/scopes.ts';
 import { PasswordSchema } from './domain/users/users.schemas.ts';
 import { ensureAdmin } from './domain/users/users.service.ts';
-import { findUserByEmail, type UserRow } from './domain/users/users.repository.ts';
+import { findFirstActiveAdmin, findUserByEmail, type UserRow } from './domain/users/users.repository.ts';
 import { createLogger } from './logger.ts';
 import { createMailer } from './mail/mailer.ts';
 
@@ -31,9 +31,7 @@ function required(values: Record<string, string | undefined>, name: string): str
 }
 
 async function findOwner(db: Db, email?: string): Promise<UserRow> {
-  const owner = email
-    ? await findUserByEmail(db, email)
-    : await db<UserRow>('users').where({ role: 'admin', status: 'active' }).orderBy('id').first();
+  const owner = email ? await findUserByEmail(db, email) : await findFirstActiveAdmin(db);
   if (!owner || owner.status !== 'active')
     throw new UsageError(email ? `no active user ${email}` : 'no active admin yet: run create-admin first');
   return owner;

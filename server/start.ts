@@ -1,5 +1,7 @@
 // `npm start`: build the console if needed, migrate, seed the demo on an empty database,
 // capture mail in-process when no SMTP server is configured, then serve API and console.
+// `npm run dev` starts this with `--dev` under `tsx watch`: no console build, because Vite
+// serves the console with hot reload and forwards /api here.
 import { createApp, DEFAULT_CONSOLE_DIR } from './app.ts';
 import { ConfigError, loadConfig } from './config.ts';
 import { buildConsole, consoleNeedsBuild } from './console-build.ts';
@@ -13,10 +15,12 @@ import { startFakeSmtp, type FakeSmtp } from './mail/fake-smtp.ts';
 import { demoAdminStillDefault, DEMO_PASSWORD, DEMO_USERS } from './seed/demo-users.ts';
 import { seedDemoIfEmpty } from './seed/demo.ts';
 
+const DEV = process.argv.includes('--dev');
+
 async function main(): Promise<void> {
   const config = loadConfig();
   const logger = createLogger(config.logLevel);
-  if (config.env !== 'production' && consoleNeedsBuild(DEFAULT_CONSOLE_DIR)) {
+  if (!DEV && config.env !== 'production' && consoleNeedsBuild(DEFAULT_CONSOLE_DIR)) {
     logger.info('building the console (dist/ is missing or older than src/)');
     await buildConsole();
   }
@@ -45,6 +49,7 @@ async function main(): Promise<void> {
     `Meltwire ${config.version} is serving API and console on ${config.publicUrl}`,
     `  API reference: ${config.publicUrl}/api/v1/openapi.json`,
   ];
+  if (DEV) lines.push('  Console with hot reload: http://localhost:5173 (Vite, forwarding /api here)');
   if (config.seedDemo && (await demoAdminStillDefault(db))) {
     lines.push(`  Demo admin: ${DEMO_USERS[0].email} / ${DEMO_PASSWORD}  (demo data is invented; change this password before real use)`);
   }

@@ -3,8 +3,8 @@
 // the slowest step). Elsewhere — PostgreSQL, or outside a transaction — it uses Knex in chunks.
 import type { Database } from 'better-sqlite3';
 import type { Knex } from 'knex';
+import type { Queryable } from './transaction.ts';
 
-type Queryable = Knex | Knex.Transaction;
 type Row = Record<string, unknown>;
 
 const KNEX_CHUNK = 200;

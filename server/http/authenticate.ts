@@ -5,7 +5,7 @@ import type { AppContext } from '../context.ts';
 import { authenticateApiKey } from '../domain/api-keys/api-keys.auth.ts';
 import { resolveSession, touchSession } from '../domain/auth/auth.service.ts';
 import { needsRenewal, SESSION_COOKIE, verifySessionToken } from '../domain/auth/session-token.ts';
-import { UnauthorizedProblem } from './problem.ts';
+import { UnauthorizedProblem } from '../lib/problems.ts';
 import { clearSessionCookie, setSessionCookie } from './session-cookie.ts';
 
 export function authenticate(ctx: AppContext): RequestHandler {

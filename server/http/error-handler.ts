@@ -8,7 +8,7 @@ import {
   PayloadTooLargeProblem,
   PROBLEM_CONTENT_TYPE,
   ProblemError,
-} from './problem.ts';
+} from '../lib/problems.ts';
 
 interface HttpishError {
   type?: string;

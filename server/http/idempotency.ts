@@ -4,16 +4,16 @@
 // not kept. Runs after a route's `before` middleware so uploaded files count in the fingerprint.
 import type { Request, RequestHandler, Response } from 'express';
 import type { AppContext } from '../context.ts';
-import { fingerprintRequest } from '../domain/idempotency/fingerprint.ts';
+import { fingerprintRequest } from './request-fingerprint.ts';
 import {
   claimIdempotencyKey,
   completeIdempotencyKey,
   type IdempotencyRow,
   releaseIdempotencyKey,
 } from '../domain/idempotency/idempotency.repository.ts';
-import { ConflictProblem, UnprocessableProblem, ValidationProblem } from './problem.ts';
+import { ConflictProblem, UnprocessableProblem, ValidationProblem } from '../lib/problems.ts';
 import { captureResponse } from './response-capture.ts';
-import type { AuthContext } from './request-context.ts';
+import type { AuthContext } from '../domain/auth/auth-context.ts';
 
 export const IDEMPOTENCY_HEADER = 'Idempotency-Key';
 export const REPLAYED_HEADER = 'Idempotent-Replayed';

@@ -4,7 +4,7 @@
 import type { Request, RequestHandler } from 'express';
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
 import type { AppContext } from '../context.ts';
-import { RateLimitedProblem } from './problem.ts';
+import { RateLimitedProblem } from '../lib/problems.ts';
 
 const credentialLimiters = new WeakMap<AppContext, RequestHandler>();
 

@@ -4,7 +4,7 @@
 // poll them often and they carry no caller data.
 import type { Request, RequestHandler, Response } from 'express';
 import type { AppContext } from '../context.ts';
-import { type BodySnapshot, snapshotRequestBody, snapshotResponseBody } from '../domain/request-log/body-snapshot.ts';
+import { type BodySnapshot, snapshotRequestBody, snapshotResponseBody } from './body-snapshot.ts';
 import { recorderFor } from '../domain/request-log/recorder.ts';
 import { redactHeaders, redactQuery } from '../domain/request-log/redact.ts';
 import type { RequestLogRow } from '../domain/request-log/request-log.repository.ts';

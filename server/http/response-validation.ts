@@ -7,7 +7,7 @@ import type * as OpenApiValidator from 'express-openapi-validator';
 import { buildOpenApiDocument } from '../openapi/document.ts';
 import type { AnyRoute } from './route.ts';
 import { sendProblem } from './error-handler.ts';
-import { ProblemError } from './problem.ts';
+import { ProblemError } from '../lib/problems.ts';
 
 export class ResponseMismatchProblem extends ProblemError {
   constructor(detail: string) {

@@ -2,12 +2,12 @@
 // mountRoutes() turns the declarations into Express routes; registerOpenApi() documents them.
 // Because both read the same object, no route can be served without its scope or its docs.
 import type { Request, RequestHandler, Response, Router } from 'express';
-import type { ZodType } from 'zod';
+import type { z, ZodType } from 'zod';
 import type { AppContext } from '../context.ts';
 import type { Scope } from '../domain/auth/scopes.ts';
 import { idempotency } from './idempotency.ts';
-import { ForbiddenProblem, UnauthorizedProblem, ValidationProblem } from './problem.ts';
-import type { AuthContext } from './request-context.ts';
+import { ForbiddenProblem, UnauthorizedProblem, ValidationProblem } from '../lib/problems.ts';
+import type { AuthContext } from '../domain/auth/auth-context.ts';
 
 export type Access = { scope: Scope } | 'public' | 'signed-in';
 
@@ -19,10 +19,20 @@ export interface ResponseSpec {
   headers?: Record<string, string>;
 }
 
-export interface HandlerInput<P, Q, B> {
+type Responses = Record<number, ResponseSpec>;
+
+/** The JSON body a declared response takes: what its schema accepts. */
+type ReplyBody<R extends ResponseSpec> = R extends { schema: infer S extends ZodType } ? z.input<S> : never;
+
+export interface HandlerInput<P, Q, B, R extends Responses = Responses> {
   params: P;
   query: Q;
   body: B;
+  /**
+   * Answers with one of the route's declared JSON responses: a body that disagrees with that
+   * status's schema is a compile error. Non-JSON answers (CSV, files) use `res` directly.
+   */
+  reply<S extends keyof R & number>(status: S, body: ReplyBody<R[S]>, headers?: Record<string, string>): void;
   /** The caller; throws 401 when read on a public route without credentials. */
   readonly auth: AuthContext;
   req: Request;
@@ -30,7 +40,12 @@ export interface HandlerInput<P, Q, B> {
   ctx: AppContext;
 }
 
-export interface RouteSpec<P extends ZodType = ZodType, Q extends ZodType = ZodType, B extends ZodType = ZodType> {
+export interface RouteSpec<
+  P extends ZodType = ZodType,
+  Q extends ZodType = ZodType,
+  B extends ZodType = ZodType,
+  R extends Responses = Responses,
+> {
   method: 'get' | 'post' | 'put' | 'patch' | 'delete';
   /** OpenAPI-style path below /api/v1, e.g. /users/{id} */
   path: string;
@@ -50,8 +65,8 @@ export interface RouteSpec<P extends ZodType = ZodType, Q extends ZodType = ZodT
    * then gets a 409 naming the resource instead of a replay, so the secret is never stored.
    */
   secretInResponse?: boolean;
-  responses: Record<number, ResponseSpec>;
-  handler(input: HandlerInput<ZodOutput<P>, ZodOutput<Q>, ZodOutput<B>>): Promise<void> | void;
+  responses: R;
+  handler(input: HandlerInput<ZodOutput<P>, ZodOutput<Q>, ZodOutput<B>, R>): Promise<void> | void;
 }
 
 type ZodOutput<T> = T extends ZodType<infer O> ? O : undefined;
@@ -59,7 +74,9 @@ type ZodOutput<T> = T extends ZodType<infer O> ? O : undefined;
 export type AnyRoute = RouteSpec<ZodType, ZodType, ZodType>;
 
 /** Identity helper that lets TypeScript infer the handler's input types from the schemas. */
-export function defineRoute<P extends ZodType, Q extends ZodType, B extends ZodType>(spec: RouteSpec<P, Q, B>): AnyRoute {
+export function defineRoute<P extends ZodType, Q extends ZodType, B extends ZodType, R extends Responses>(
+  spec: RouteSpec<P, Q, B, R>,
+): AnyRoute {
   return spec as unknown as AnyRoute;
 }
 
@@ -113,6 +130,10 @@ export function mountRoutes(router: Router, routes: AnyRoute[], ctx: AppContext)
         req,
         res,
         ctx,
+        reply(status, payload, headers) {
+          if (headers) res.set(headers);
+          res.status(status).json(payload);
+        },
         get auth(): AuthContext {
           if (!req.auth) throw new UnauthorizedProblem();
           return req.auth;

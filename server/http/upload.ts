@@ -3,7 +3,7 @@
 // schema checks it with the other fields.
 import type { RequestHandler } from 'express';
 import multer from 'multer';
-import { ProblemError, ValidationProblem } from './problem.ts';
+import { ProblemError, ValidationProblem } from '../lib/problems.ts';
 
 export function singleFileUpload(field: string, maxBytes: number): RequestHandler {
   const upload = multer({

@@ -3,9 +3,9 @@ import { OpenAPIRegistry, OpenApiGeneratorV31, type ResponseConfig } from '@aste
 import { APP_VERSION } from '../config.ts';
 import { IDEMPOTENCY_HEADER, IDEMPOTENCY_KEY_MAX, REPLAYED_HEADER } from '../http/idempotency.ts';
 import { type AnyRoute, requiredScope, WRITE_METHODS } from '../http/route.ts';
-import { PROBLEM_CONTENT_TYPE } from '../http/problem.ts';
+import { PROBLEM_CONTENT_TYPE } from '../lib/problems.ts';
 import { ProblemSchema } from './problem.schemas.ts';
-import { z } from './zod.ts';
+import { z } from '../lib/zod.ts';
 
 const SESSION = 'sessionCookie';
 const BEARER = 'apiKey';

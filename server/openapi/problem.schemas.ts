@@ -1,4 +1,4 @@
-import { z } from './zod.ts';
+import { z } from '../lib/zod.ts';
 
 export const FieldErrorSchema = z
   .object({

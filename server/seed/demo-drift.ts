@@ -5,6 +5,7 @@
 // draft and re-run). Readings are built so that a correction (α, β) turns them back into the
 // nominal values: reading = (nominal − β)/α, plus a little burn noise. All numbers are invented.
 import type { Db } from '../db/knex.ts';
+import { inTransaction } from '../db/transaction.ts';
 import { type Actor, SYSTEM_ACTOR } from '../domain/audit/actor.ts';
 import { applyActivation } from '../domain/drift/activation.service.ts';
 import type { RunMeasurement } from '../domain/drift/compute-run.ts';
@@ -125,7 +126,7 @@ export async function seedDemoDrift(db: Db, lab: DemoLab, refs: DemoReferences, 
     for (const run of plan.runs) {
       const measuredAt = new Date(now.getTime() - run.daysAgo * DAY - 2 * 3600_000);
       const measurements = simulate(plan, run, random, drift);
-      await db.transaction(async (trx) => {
+      await inTransaction(db, async (trx) => {
         const id = await storeRun(trx, {
           instrumentId: plan.instrument.id,
           method: plan.method,

@@ -1,6 +1,7 @@
 // The invented Kestrel Bend Metals laboratory: two instruments, a Fe-base and an Al-base
 // method. Every number here is invented for the demo (plausible, not from any real lab).
 import type { Db } from '../db/knex.ts';
+import { inTransaction } from '../db/transaction.ts';
 import { SYSTEM_ACTOR } from '../domain/audit/actor.ts';
 import { recordAudit } from '../domain/audit/audit.repository.ts';
 import { insertInstrument, type InstrumentRow } from '../domain/instruments/instruments.repository.ts';
@@ -100,7 +101,7 @@ export async function seedDemoLab(db: Db): Promise<DemoLab> {
     created_at: now,
     updated_at: now,
   };
-  await db.transaction(async (trx) => {
+  await inTransaction(db, async (trx) => {
     for (const instrument of [foundry, castHouse]) {
       await insertInstrument(trx, instrument);
       await recordAudit(trx, {

@@ -1,6 +1,7 @@
 // Invented reference materials of the Kestrel Bend lab: a high and a low setting-up sample per
 // base (Fe, Al), a type sample close to SAE 1045 and a control sample. Every value is invented.
 import type { Db } from '../db/knex.ts';
+import { inTransaction } from '../db/transaction.ts';
 import { SYSTEM_ACTOR } from '../domain/audit/actor.ts';
 import { recordAudit } from '../domain/audit/audit.repository.ts';
 import {
@@ -103,7 +104,7 @@ export type DemoReferences = Record<string, ReferenceMaterial>;
 export async function seedDemoReferences(db: Db, now: Date): Promise<DemoReferences> {
   const created: DemoReferences = {};
   const stamp = new Date(now.getTime() - 60 * 24 * 3600_000).toISOString();
-  await db.transaction(async (trx) => {
+  await inTransaction(db, async (trx) => {
     for (const m of MATERIALS) {
       const values = Object.entries(m.values).map(([element, nominal]) => ({ element, nominal, unit: '%' as const }));
       const row = referenceMaterialRow(

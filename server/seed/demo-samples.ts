@@ -3,6 +3,7 @@
 // fixed pseudo-random sequence, so every fresh demo looks the same; burns are corrected with the
 // demo drift history's sets (seeded first), as ingest would.
 import type { Db } from '../db/knex.ts';
+import { inTransaction } from '../db/transaction.ts';
 import { SYSTEM_ACTOR } from '../domain/audit/actor.ts';
 import { toPercent } from '../domain/chemistry/units.ts';
 import { timelineLoader } from '../domain/drift/correction-timeline.ts';
@@ -138,7 +139,7 @@ export async function seedDemoSamples(db: Db, lab: DemoLab, now = new Date()): P
       storedAt: storedAfter(cast),
     });
   }
-  await db.transaction(async (trx) => {
+  await inTransaction(db, async (trx) => {
     // Each burn is corrected with the set in force at its measurement time, as at ingest.
     const timelineOf = timelineLoader(trx);
     const built = [];

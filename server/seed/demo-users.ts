@@ -1,5 +1,6 @@
 // Demo users of the invented Kestrel Bend Metals scenario (reserved .test domain).
 import type { Db } from '../db/knex.ts';
+import { inTransaction } from '../db/transaction.ts';
 import { SYSTEM_ACTOR } from '../domain/audit/actor.ts';
 import { recordAudit } from '../domain/audit/audit.repository.ts';
 import type { Role } from '../domain/auth/scopes.ts';
@@ -21,7 +22,7 @@ export const DEMO_USERS: { email: string; name: string; role: Role }[] = [
 
 export async function seedDemoUsers(db: Db): Promise<void> {
   const passwordHash = await hashPassword(DEMO_PASSWORD);
-  await db.transaction(async (trx) => {
+  await inTransaction(db, async (trx) => {
     for (const demo of DEMO_USERS) {
       const now = nowIso();
       const row = {

@@ -2,7 +2,7 @@
 // check bites: a route answering outside its documented shape — a body or a problem — fails.
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { ConflictProblem } from '../../server/http/problem.ts';
+import { ConflictProblem } from '../../server/lib/problems.ts';
 import type { AnyRoute } from '../../server/http/route.ts';
 import { v1Routes } from '../../server/routes/v1/index.ts';
 import { createTestApp, expectProblem, problemBody, type TestApp } from '../helpers/test-app.ts';

@@ -59,9 +59,8 @@ beforeAll(async () => {
 afterAll(() => t.close());
 
 function call(method: string, url: string) {
-  return request(t.app)
-    [method as 'get'](url)
-    .send(method === 'get' || method === 'delete' ? undefined : {});
+  const agent = request(t.app);
+  return agent[method as 'get'](url).send(method === 'get' || method === 'delete' ? undefined : {});
 }
 
 describe('scope matrix', () => {

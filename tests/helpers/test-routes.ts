@@ -3,7 +3,7 @@
 // multipart upload parsed by multer in `before` (as upload routes do).
 import multer from 'multer';
 import { defineRoute } from '../../server/http/route.ts';
-import { z } from '../../server/openapi/zod.ts';
+import { z } from '../../server/lib/zod.ts';
 
 const Counted = z.object({ call: z.number().int(), file_size: z.number().int().optional() }).openapi('TestCounted');
 

@@ -1,5 +1,6 @@
-import { readdirSync } from 'node:fs';
-import { resolve } from 'node:path';
+import { mkdtempSync, readdirSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join, resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { migrations } from '../../migrations/index.ts';
 import { createDb } from '../../server/db/knex.ts';
@@ -29,14 +30,19 @@ describe('migrations', () => {
   });
 
   it('turns on WAL, foreign keys and a busy timeout', async () => {
-    const db = createDb({ databaseFile: ':memory:' });
+    // WAL needs a file: an in-memory database always answers journal_mode "memory".
+    const dir = mkdtempSync(join(tmpdir(), 'meltwire-pragmas-'));
+    const db = createDb({ databaseFile: join(dir, 'pragmas.db') });
     try {
+      const [{ journal_mode }] = await db.raw('pragma journal_mode');
       const [{ foreign_keys }] = await db.raw('pragma foreign_keys');
       const [{ timeout }] = await db.raw('pragma busy_timeout');
+      expect(journal_mode).toBe('wal');
       expect(foreign_keys).toBe(1);
       expect(timeout).toBe(5000);
     } finally {
       await db.destroy();
+      rmSync(dir, { recursive: true, force: true });
     }
   });
 });

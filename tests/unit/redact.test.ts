@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { generateKeySecret } from '../../server/domain/api-keys/key-format.ts';
-import { truncateUtf8 } from '../../server/domain/request-log/body-snapshot.ts';
+import { truncateUtf8 } from '../../server/http/body-snapshot.ts';
 import { redactHeaders, redactJson, redactQuery, redactText } from '../../server/domain/request-log/redact.ts';
 
 describe('redaction for the request log', () => {

@@ -1,8 +1,8 @@
 // Turns a Bearer secret into the caller's AuthContext. Unknown, malformed, revoked and expired
 // keys all get a 401; the detail says which, since the caller already holds the secret.
 import type { AppContext } from '../../context.ts';
-import { UnauthorizedProblem } from '../../http/problem.ts';
-import type { AuthContext } from '../../http/request-context.ts';
+import { UnauthorizedProblem } from '../../lib/problems.ts';
+import type { AuthContext } from '../auth/auth-context.ts';
 import { parseJsonColumn } from '../../lib/json.ts';
 import { sha256Hex } from '../../lib/secrets.ts';
 import { findUserById } from '../users/users.repository.ts';

@@ -1,9 +1,9 @@
 // The only code that touches the api_keys table.
-import type { Knex } from 'knex';
 import { parseJsonColumn } from '../../lib/json.ts';
 import type { Scope } from '../auth/scopes.ts';
-
-type Queryable = Knex | Knex.Transaction;
+import type { Queryable } from '../../db/transaction.ts';
+import { type KeysetColumn, keysetPage, type PageRequest } from '../../db/keyset.ts';
+import type { Page } from '../../lib/pagination.ts';
 
 export interface ApiKeyRow {
   id: string;
@@ -60,14 +60,20 @@ export async function updateApiKey(db: Queryable, id: string, changes: Partial<A
   await db<ApiKeyRow>('api_keys').where({ id }).update(changes);
 }
 
-export function listApiKeyRows(db: Queryable, filters: { createdBy?: string; includeRevoked: boolean; afterId?: string; limit: number }) {
+type ApiKeyListRow = ApiKeyRow & { created_by_email: string | null };
+
+const API_KEY_KEYSET: KeysetColumn<ApiKeyListRow>[] = [{ column: 'api_keys.id', order: 'desc', key: 'id', valueOf: (row) => row.id }];
+
+/** Newest first (ids sort by creation time). */
+export function listApiKeyRows(
+  db: Queryable,
+  filters: { createdBy?: string; includeRevoked: boolean },
+  page: PageRequest,
+): Promise<Page<ApiKeyListRow>> {
   const query = db<ApiKeyRow>('api_keys')
     .leftJoin('users', 'users.id', 'api_keys.created_by')
-    .select<(ApiKeyRow & { created_by_email: string | null })[]>('api_keys.*', 'users.email as created_by_email')
-    .orderBy('api_keys.id', 'desc')
-    .limit(filters.limit + 1);
+    .select('api_keys.*', 'users.email as created_by_email');
   if (filters.createdBy) query.where('api_keys.created_by', filters.createdBy);
   if (!filters.includeRevoked) query.whereNull('api_keys.revoked_at');
-  if (filters.afterId) query.where('api_keys.id', '<', filters.afterId);
-  return query;
+  return keysetPage(query, API_KEY_KEYSET, page);
 }

@@ -1,26 +1,22 @@
 // Issue, list, revoke and roll API keys. A caller grants only scopes it holds itself;
 // non-admins see and manage only the keys they created.
-import type { Knex } from 'knex';
 import type { AppContext } from '../../context.ts';
-import { ForbiddenProblem, NotFoundProblem, ConflictProblem } from '../../http/problem.ts';
-import type { AuthContext } from '../../http/request-context.ts';
+import { ForbiddenProblem, NotFoundProblem, ConflictProblem } from '../../lib/problems.ts';
+import type { AuthContext } from '../auth/auth-context.ts';
 import { newId } from '../../lib/ids.ts';
 import { sha256Hex } from '../../lib/secrets.ts';
 import { nowIso } from '../../lib/time.ts';
 import { actorOf } from '../audit/actor.ts';
 import { recordAudit } from '../audit/audit.repository.ts';
 import type { Scope } from '../auth/scopes.ts';
-import { type ApiKey, type ApiKeyRow, findApiKey, insertApiKey, toApiKey, updateApiKey } from './api-keys.repository.ts';
+import { type ApiKey, type ApiKeyRow, findApiKey, insertApiKey, listApiKeyRows, toApiKey, updateApiKey } from './api-keys.repository.ts';
+import type { ApiKeyListQuerySchema, CreateApiKeyRequestSchema } from './api-keys.schemas.ts';
 import { displayPrefix, generateKeySecret } from './key-format.ts';
+import { inTransaction, type Queryable } from '../../db/transaction.ts';
+import { mapPage, type Page } from '../../lib/pagination.ts';
+import type { z } from '../../lib/zod.ts';
 
-type Queryable = Knex | Knex.Transaction;
-
-export interface NewKeyInput {
-  name: string;
-  scopes: Scope[];
-  expires_at?: string;
-  instrument_ids?: string[];
-}
+export type NewKeyInput = z.output<typeof CreateApiKeyRequestSchema>;
 
 function assertGrantable(auth: AuthContext, scopes: Scope[]): void {
   const missing = scopes.filter((scope) => !auth.scopes.has(scope));
@@ -31,6 +27,17 @@ function assertGrantable(auth: AuthContext, scopes: Scope[]): void {
 
 export function canManageAllKeys(auth: AuthContext): boolean {
   return auth.role === 'admin' && auth.kind === 'session';
+}
+
+/** Admins (signed in) see every key; everyone else the keys they created. */
+export async function listApiKeysPage(
+  ctx: AppContext,
+  auth: AuthContext,
+  query: z.output<typeof ApiKeyListQuerySchema>,
+): Promise<Page<ApiKey>> {
+  const filters = { createdBy: canManageAllKeys(auth) ? undefined : auth.userId, includeRevoked: query.include_revoked };
+  const now = nowIso();
+  return mapPage(await listApiKeyRows(ctx.db, filters, query), (row) => toApiKey(row, now));
 }
 
 async function loadManageable(db: Queryable, auth: AuthContext, id: string) {
@@ -68,7 +75,7 @@ export async function createApiKey(
 ): Promise<ApiKey & { secret: string }> {
   assertGrantable(auth, input.scopes);
   const { row, secret } = newKeyRow(input, auth.userId, nowIso());
-  await ctx.db.transaction(async (trx) => {
+  await inTransaction(ctx.db, async (trx) => {
     await insertApiKey(trx, row);
     await recordAudit(trx, {
       actor: actorOf(auth),
@@ -87,7 +94,7 @@ export async function getApiKey(ctx: AppContext, auth: AuthContext, id: string):
 }
 
 export async function revokeApiKey(ctx: AppContext, auth: AuthContext, id: string, requestId?: string): Promise<void> {
-  await ctx.db.transaction(async (trx) => {
+  await inTransaction(ctx.db, async (trx) => {
     const row = await loadManageable(trx, auth, id);
     if (row.revoked_at) return;
     const revoked_at = nowIso();
@@ -128,7 +135,7 @@ export async function rollApiKey(
   );
   const overlapEnd = new Date(Date.now() + overlapMinutes * 60_000).toISOString();
   const oldExpiry = old.expires_at && old.expires_at < overlapEnd ? old.expires_at : overlapEnd;
-  await ctx.db.transaction(async (trx) => {
+  await inTransaction(ctx.db, async (trx) => {
     await insertApiKey(trx, row);
     await updateApiKey(trx, id, { expires_at: oldExpiry, replaced_by: row.id });
     await recordAudit(trx, {

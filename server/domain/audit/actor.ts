@@ -1,4 +1,4 @@
-import type { AuthContext } from '../../http/request-context.ts';
+import type { AuthContext } from '../auth/auth-context.ts';
 
 export interface Actor {
   type: 'user' | 'api_key' | 'system';

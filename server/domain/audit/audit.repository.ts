@@ -1,9 +1,11 @@
 // The only code that touches the audit_events table. Events are appended, never updated.
-import type { Knex } from 'knex';
 import { newId } from '../../lib/ids.ts';
 import { parseJsonColumn, toJsonColumn } from '../../lib/json.ts';
 import { nowIso } from '../../lib/time.ts';
 import type { Actor } from './actor.ts';
+import { type KeysetColumn, keysetPage, type PageRequest } from '../../db/keyset.ts';
+import { mapPage } from '../../lib/pagination.ts';
+import type { Queryable } from '../../db/transaction.ts';
 
 export interface AuditInput {
   actor: Actor;
@@ -18,7 +20,7 @@ export interface AuditInput {
 interface AuditRow {
   id: string;
   occurred_at: string;
-  actor_type: string;
+  actor_type: Actor['type'];
   actor_id: string | null;
   actor_label: string;
   action: string;
@@ -36,12 +38,10 @@ export interface AuditFilters {
   targetId?: string;
   since?: string;
   until?: string;
-  after?: { occurred_at: string; id: string };
-  limit: number;
 }
 
 /** Records one audit event inside the caller's transaction, so the change and its record land together. */
-export async function recordAudit(db: Knex | Knex.Transaction, input: AuditInput): Promise<void> {
+export async function recordAudit(db: Queryable, input: AuditInput): Promise<void> {
   await db('audit_events').insert({
     id: newId('aud'),
     occurred_at: nowIso(),
@@ -57,26 +57,13 @@ export async function recordAudit(db: Knex | Knex.Transaction, input: AuditInput
   });
 }
 
-/** Newest first; fetches limit + 1 rows so the caller can tell whether there is a next page. */
-export async function listAudit(db: Knex, filters: AuditFilters) {
-  const query = db<AuditRow>('audit_events').orderBy([
-    { column: 'occurred_at', order: 'desc' },
-    { column: 'id', order: 'desc' },
-  ]);
-  if (filters.actorId) query.where('actor_id', filters.actorId);
-  if (filters.action) query.where('action', filters.action);
-  if (filters.targetType) query.where('target_type', filters.targetType);
-  if (filters.targetId) query.where('target_id', filters.targetId);
-  if (filters.since) query.where('occurred_at', '>=', filters.since);
-  if (filters.until) query.where('occurred_at', '<', filters.until);
-  if (filters.after) {
-    const { occurred_at, id } = filters.after;
-    query.where((w) =>
-      w.where('occurred_at', '<', occurred_at).orWhere((x) => x.where('occurred_at', occurred_at).andWhere('id', '<', id)),
-    );
-  }
-  const rows = await query.limit(filters.limit + 1);
-  return rows.map((row) => ({
+const AUDIT_KEYSET: KeysetColumn<AuditRow>[] = [
+  { column: 'occurred_at', order: 'desc', key: 'occurred_at', valueOf: (row) => row.occurred_at },
+  { column: 'id', order: 'desc', key: 'id', valueOf: (row) => row.id },
+];
+
+function toAuditEvent(row: AuditRow) {
+  return {
     id: row.id,
     occurred_at: row.occurred_at,
     actor: { type: row.actor_type, id: row.actor_id, label: row.actor_label },
@@ -85,5 +72,17 @@ export async function listAudit(db: Knex, filters: AuditFilters) {
     before: parseJsonColumn<unknown>(row.before_json),
     after: parseJsonColumn<unknown>(row.after_json),
     request_id: row.request_id,
-  }));
+  };
+}
+
+/** Newest first. */
+export async function listAudit(db: Queryable, filters: AuditFilters, page: PageRequest) {
+  const query = db<AuditRow>('audit_events');
+  if (filters.actorId) query.where('actor_id', filters.actorId);
+  if (filters.action) query.where('action', filters.action);
+  if (filters.targetType) query.where('target_type', filters.targetType);
+  if (filters.targetId) query.where('target_id', filters.targetId);
+  if (filters.since) query.where('occurred_at', '>=', filters.since);
+  if (filters.until) query.where('occurred_at', '<', filters.until);
+  return mapPage(await keysetPage(query, AUDIT_KEYSET, page), toAuditEvent);
 }

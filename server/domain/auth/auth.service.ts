@@ -1,7 +1,7 @@
 // Sign-in, sign-out and turning a session cookie into the caller's AuthContext.
 import type { AppContext } from '../../context.ts';
-import { UnauthorizedProblem } from '../../http/problem.ts';
-import type { AuthContext } from '../../http/request-context.ts';
+import { UnauthorizedProblem } from '../../lib/problems.ts';
+import type { AuthContext } from './auth-context.ts';
 import { newId } from '../../lib/ids.ts';
 import { nowIso } from '../../lib/time.ts';
 import { recordAudit } from '../audit/audit.repository.ts';
@@ -9,16 +9,8 @@ import { verifyPassword } from '../users/passwords.ts';
 import { findUserByEmail, findUserById, toUser, updateUserRow, type User, type UserRow } from '../users/users.repository.ts';
 import { ROLE_SCOPES } from './scopes.ts';
 import { SESSION_ABSOLUTE_HOURS } from './session-token.ts';
-
-interface SessionRow {
-  id: string;
-  user_id: string;
-  created_at: string;
-  last_seen_at: string;
-  revoked_at: string | null;
-  ip: string | null;
-  user_agent: string | null;
-}
+import { inTransaction } from '../../db/transaction.ts';
+import { findSession, insertSession, revokeSession, touchSessionRow } from './sessions.repository.ts';
 
 const INVALID_LOGIN = 'The e-mail or password is not correct.';
 
@@ -32,8 +24,8 @@ export async function login(
   if (!row || !passwordOk || row.status !== 'active') throw new UnauthorizedProblem(INVALID_LOGIN);
   const now = nowIso();
   const sessionId = newId('ses');
-  await ctx.db.transaction(async (trx) => {
-    await trx<SessionRow>('sessions').insert({
+  await inTransaction(ctx.db, async (trx) => {
+    await insertSession(trx, {
       id: sessionId,
       user_id: row.id,
       created_at: now,
@@ -56,8 +48,8 @@ export async function login(
 
 export async function logout(ctx: AppContext, auth: AuthContext, requestId?: string): Promise<void> {
   if (!auth.sessionId) return;
-  await ctx.db.transaction(async (trx) => {
-    await trx<SessionRow>('sessions').where({ id: auth.sessionId }).whereNull('revoked_at').update({ revoked_at: nowIso() });
+  await inTransaction(ctx.db, async (trx) => {
+    await revokeSession(trx, auth.sessionId!, nowIso());
     await recordAudit(trx, {
       actor: { type: 'user', id: auth.userId, label: auth.email },
       requestId,
@@ -82,7 +74,7 @@ export function sessionAuthContext(user: Pick<UserRow, 'id' | 'email' | 'role'>,
 
 /** The caller behind a session id, or undefined when the session or its user is no longer valid. */
 export async function resolveSession(ctx: AppContext, sessionId: string, userId: string): Promise<AuthContext | undefined> {
-  const session = await ctx.db<SessionRow>('sessions').where({ id: sessionId, user_id: userId }).first();
+  const session = await findSession(ctx.db, sessionId, userId);
   if (!session || session.revoked_at) return undefined;
   const absoluteEnd = Date.parse(session.created_at) + SESSION_ABSOLUTE_HOURS * 3600_000;
   if (Date.now() > absoluteEnd) return undefined;
@@ -92,5 +84,5 @@ export async function resolveSession(ctx: AppContext, sessionId: string, userId:
 }
 
 export async function touchSession(ctx: AppContext, sessionId: string): Promise<void> {
-  await ctx.db<SessionRow>('sessions').where({ id: sessionId }).update({ last_seen_at: nowIso() });
+  await touchSessionRow(ctx.db, sessionId, nowIso());
 }

@@ -6,10 +6,10 @@
 // - effective_from may be later than now (scheduled), never earlier (422): results already stored
 //   are never changed by an activation — recompute them explicitly instead.
 // The activation, its audit entry and the event standardization.activated land in one transaction.
-import type { Knex } from 'knex';
+import { inTransaction, type Transaction } from '../../db/transaction.ts';
 import type { AppContext } from '../../context.ts';
-import { ConflictProblem, NotFoundProblem, UnprocessableProblem } from '../../http/problem.ts';
-import type { AuthContext } from '../../http/request-context.ts';
+import { ConflictProblem, NotFoundProblem, UnprocessableProblem } from '../../lib/problems.ts';
+import type { AuthContext } from '../auth/auth-context.ts';
 import { nowIso } from '../../lib/time.ts';
 import { type Actor, actorOf } from '../audit/actor.ts';
 import { recordAudit } from '../audit/audit.repository.ts';
@@ -30,7 +30,7 @@ export interface ActivationInput {
 }
 
 export async function activateStandardization(ctx: AppContext, auth: AuthContext, id: string, input: ActivationInput, requestId?: string) {
-  await ctx.db.transaction(async (trx) => {
+  await inTransaction(ctx.db, async (trx) => {
     const row = await findStandardization(trx, id);
     if (!row || (auth.instrumentIds && !auth.instrumentIds.includes(row.instrument_id)))
       throw new NotFoundProblem(`No standardization ${id}.`);
@@ -42,7 +42,7 @@ export async function activateStandardization(ctx: AppContext, auth: AuthContext
 
 /** The activation rules and records, inside the caller's transaction (also used by the demo seed). */
 export async function applyActivation(
-  trx: Knex.Transaction,
+  trx: Transaction,
   row: StandardizationRow,
   input: ActivationInput,
   context: { actor: Actor; now: string; requestId?: string },

@@ -2,7 +2,7 @@
 // standardization run (no database). Every element of the method gets a row; an element that
 // cannot be corrected says why in its reasons, and arithmetic that cannot work (H = L) is
 // collected as an error per element so that one 422 names them all.
-import type { FieldError } from '../../http/problem.ts';
+import type { FieldError } from '../../lib/problems.ts';
 import { exactMean } from '../chemistry/exact-mean.ts';
 import { repeatabilityCheck } from '../chemistry/repeatability.ts';
 import type { Method } from '../methods/methods.repository.ts';

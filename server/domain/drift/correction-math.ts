@@ -1,7 +1,7 @@
 /*
  * The arithmetic of a drift correction (standardization), on decimal strings with decimal.js.
  *
- * Modes (math as practised; no readable standard gives the formula — see REFERENCES.md):
+ * Modes (math as practised; no readable standard gives the formula — see docs/references.md#drift-correction):
  * - two_point:        slope α = (H⁰ − L⁰)/(H − L), offset β = L⁰ − α·L   (H, L measured; H⁰, L⁰ nominal)
  * - one_point_factor: α = N/M, β = 0
  * - one_point_offset: α = 1,   β = N − M

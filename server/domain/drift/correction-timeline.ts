@@ -1,7 +1,7 @@
 // Which correction set applies to a burn: the set in force for the instrument and method at the
 // burn's measurement time (else the sample's creation time) — the activated set with the latest
 // effective_from at or before that time; among equal effective_from, the later activation.
-import type { Knex } from 'knex';
+import type { Queryable } from '../../db/transaction.ts';
 import type { StoredCell } from '../samples/samples.repository.ts';
 import { type Correction, correctCells } from './correction-math.ts';
 import { type ElementCorrection, listActivatedRows, type StandardizationRow } from './standardizations.repository.ts';
@@ -45,7 +45,7 @@ export class CorrectionTimeline {
 
 /** Loads the timelines of the (instrument, method) pairs asked for, each once. Call it inside the
  * transaction that stores the samples, so that an activation cannot slip in between. */
-export function timelineLoader(db: Knex | Knex.Transaction): (instrumentId: string, methodId: string) => Promise<CorrectionTimeline> {
+export function timelineLoader(db: Queryable): (instrumentId: string, methodId: string) => Promise<CorrectionTimeline> {
   const loaded = new Map<string, CorrectionTimeline>();
   return async (instrumentId, methodId) => {
     const key = `${instrumentId}|${methodId}`;

@@ -1,7 +1,7 @@
 // Read side of drift correction for one instrument: slope and offset of an element over time
 // (one point per run), and the sets in force per method.
 import type { AppContext } from '../../context.ts';
-import type { AuthContext } from '../../http/request-context.ts';
+import type { AuthContext } from '../auth/auth-context.ts';
 import { nowIso } from '../../lib/time.ts';
 import { getInstrument } from '../instruments/instruments.service.ts';
 import { inForceIds, toStandardizationView } from './standardization-view.ts';

@@ -3,8 +3,8 @@
 // correction record are replaced, and the audit trail keeps both versions (before/after).
 // Stored results are never changed any other way by drift correction: activation leaves them alone.
 import type { AppContext } from '../../context.ts';
-import { ConflictProblem, UnprocessableProblem } from '../../http/problem.ts';
-import type { AuthContext } from '../../http/request-context.ts';
+import { ConflictProblem, UnprocessableProblem } from '../../lib/problems.ts';
+import type { AuthContext } from '../auth/auth-context.ts';
 import { nowIso } from '../../lib/time.ts';
 import { actorOf } from '../audit/actor.ts';
 import { recordAudit } from '../audit/audit.repository.ts';
@@ -15,6 +15,7 @@ import { findBurns, type StoredCell, updateBurn, updateSampleResults } from '../
 import { correctBurn, correctionSetOf, type CorrectionSet, distinctSetIds, type SampleCorrection } from './correction-timeline.ts';
 import { findStandardization } from './standardizations.repository.ts';
 import { decodeResults, encodeResults } from '../samples/results-codec.ts';
+import { inTransaction } from '../../db/transaction.ts';
 
 export interface RecomputeInput {
   correction_set_id: string | null;
@@ -28,7 +29,7 @@ export async function recomputeSample(
   input: RecomputeInput,
   requestId?: string,
 ): Promise<void> {
-  await ctx.db.transaction(async (trx) => {
+  await inTransaction(ctx.db, async (trx) => {
     const sample = await loadSample(trx, auth, sampleId);
     if (sample.status === 'released') throw new ConflictProblem('This sample is released; amend it instead of recomputing it.');
     let set: CorrectionSet | null = null;

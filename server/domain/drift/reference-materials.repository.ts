@@ -1,8 +1,8 @@
 // The only code that touches the reference_materials table.
-import type { Knex } from 'knex';
 import type { Unit } from '../chemistry/units.ts';
-
-type Queryable = Knex | Knex.Transaction;
+import type { Queryable } from '../../db/transaction.ts';
+import { type KeysetColumn, keysetPage, type PageRequest } from '../../db/keyset.ts';
+import { mapPage, type Page } from '../../lib/pagination.ts';
 
 export const REFERENCE_KINDS = ['high', 'low', 'type', 'control'] as const;
 export type ReferenceKind = (typeof REFERENCE_KINDS)[number];
@@ -61,15 +61,18 @@ export async function findReferenceMaterials(db: Queryable, ids: string[]): Prom
   return (await db<ReferenceMaterialRow>('reference_materials').whereIn('id', ids)).map(toReferenceMaterial);
 }
 
+const REFERENCE_KEYSET: KeysetColumn<ReferenceMaterialRow>[] = [
+  { column: 'code_key', order: 'asc', key: 'code', valueOf: (row) => row.code_key },
+];
+
+/** Ordered by code, ignoring case. */
 export async function listReferenceMaterials(
   db: Queryable,
-  filters: { matrix?: string; kind?: ReferenceKind; afterCode?: string; limit: number },
-): Promise<ReferenceMaterial[]> {
-  const query = db<ReferenceMaterialRow>('reference_materials')
-    .orderBy('code_key')
-    .limit(filters.limit + 1);
+  filters: { matrix?: string; kind?: ReferenceKind },
+  page: PageRequest,
+): Promise<Page<ReferenceMaterial>> {
+  const query = db<ReferenceMaterialRow>('reference_materials');
   if (filters.matrix) query.where('matrix', filters.matrix);
   if (filters.kind) query.where('kind', filters.kind);
-  if (filters.afterCode) query.where('code_key', '>', filters.afterCode);
-  return (await query).map(toReferenceMaterial);
+  return mapPage(await keysetPage(query, REFERENCE_KEYSET, page), toReferenceMaterial);
 }

@@ -2,8 +2,8 @@
 // listed and read. There is no edit: a run keeps pointing at the values it used.
 import type { AppContext } from '../../context.ts';
 import { isUniqueViolation } from '../../db/errors.ts';
-import { ConflictProblem, NotFoundProblem } from '../../http/problem.ts';
-import type { AuthContext } from '../../http/request-context.ts';
+import { ConflictProblem, NotFoundProblem } from '../../lib/problems.ts';
+import type { AuthContext } from '../auth/auth-context.ts';
 import { newId } from '../../lib/ids.ts';
 import { nowIso } from '../../lib/time.ts';
 import { actorOf } from '../audit/actor.ts';
@@ -14,11 +14,16 @@ import {
   findReferenceMaterial,
   findReferenceMaterialByCode,
   insertReferenceMaterial,
+  listReferenceMaterials,
   type ReferenceKind,
   type ReferenceMaterial,
   type ReferenceMaterialRow,
   toReferenceMaterial,
 } from './reference-materials.repository.ts';
+import { inTransaction } from '../../db/transaction.ts';
+import { mapPage } from '../../lib/pagination.ts';
+import type { z } from '../../lib/zod.ts';
+import type { ReferenceMaterialListQuerySchema } from './reference-materials.schemas.ts';
 
 export interface ReferenceMaterialInput {
   code: string;
@@ -32,6 +37,12 @@ export interface ReferenceMaterialInput {
 export function toReferenceMaterialView(material: ReferenceMaterial) {
   const { created_by_label, ...rest } = material;
   return { ...rest, created_by: created_by_label };
+}
+
+/** Ordered by code, ignoring case. */
+export async function listReferenceMaterialsPage(ctx: AppContext, query: z.output<typeof ReferenceMaterialListQuerySchema>) {
+  const page = await listReferenceMaterials(ctx.db, { matrix: query.matrix, kind: query.kind }, query);
+  return mapPage(page, toReferenceMaterialView);
 }
 
 export async function getReferenceMaterial(ctx: AppContext, id: string): Promise<ReferenceMaterial> {
@@ -67,7 +78,7 @@ export async function createReferenceMaterial(
   const row = referenceMaterialRow(input, actor.label);
   const conflict = () => new ConflictProblem(`A reference material with the code ${input.code} exists (codes are compared ignoring case).`);
   try {
-    await ctx.db.transaction(async (trx) => {
+    await inTransaction(ctx.db, async (trx) => {
       if (await findReferenceMaterialByCode(trx, input.code)) throw conflict();
       await insertReferenceMaterial(trx, row);
       await recordAudit(trx, {

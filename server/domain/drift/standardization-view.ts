@@ -1,14 +1,19 @@
 // Stored standardization runs → API representations.
-import type { Knex } from 'knex';
 import { nowIso } from '../../lib/time.ts';
+import type { AppContext } from '../../context.ts';
+import { type Page } from '../../lib/pagination.ts';
+import type { z } from '../../lib/zod.ts';
+import type { AuthContext } from '../auth/auth-context.ts';
+import { getInstrument } from '../instruments/instruments.service.ts';
+import type { StandardizationListQuerySchema } from './standardizations.schemas.ts';
 import {
   findSetInForce,
+  listStandardizationRows,
   type ElementCorrection,
   type StandardizationRowWithRefs,
   type StoredMeasurement,
 } from './standardizations.repository.ts';
-
-type Queryable = Knex | Knex.Transaction;
+import type { Queryable } from '../../db/transaction.ts';
 
 export function toStandardizationView(row: StandardizationRowWithRefs, inForceId: string | null) {
   const measurements = JSON.parse(row.measurements_json) as StoredMeasurement[];
@@ -69,4 +74,17 @@ export async function inForceIds(
 export async function toStandardizationViews(db: Queryable, rows: readonly StandardizationRowWithRefs[]) {
   const ids = await inForceIds(db, rows);
   return rows.map((row) => toStandardizationView(row, ids.get(`${row.instrument_id}|${row.method_id}`) ?? null));
+}
+
+/** One instrument's runs, newest measurement first; 404 when the caller cannot see the instrument. */
+export async function listStandardizationsPage(
+  ctx: AppContext,
+  auth: AuthContext,
+  instrumentId: string,
+  query: z.output<typeof StandardizationListQuerySchema>,
+): Promise<Page<StandardizationView>> {
+  await getInstrument(ctx, auth, instrumentId);
+  const filters = { instrumentId, methodId: query.method_id, status: query.status, flag: query.flag };
+  const page = await listStandardizationRows(ctx.db, filters, query);
+  return { data: await toStandardizationViews(ctx.db, page.data), next_cursor: page.next_cursor };
 }

@@ -1,12 +1,12 @@
 // The only code that touches the standardizations table. A run's measurements and per-element
 // corrections are JSON documents in its row; activation fills the activation columns once.
-import type { Knex } from 'knex';
 import type { RawCell, StoredCell } from '../samples/samples.repository.ts';
 import type { CorrectionMode } from './correction-math.ts';
 import type { CorrectionFlag } from './correction-flags.ts';
 import type { ReferenceKind } from './reference-materials.repository.ts';
-
-type Queryable = Knex | Knex.Transaction;
+import type { Queryable } from '../../db/transaction.ts';
+import { type KeysetColumn, keysetPage, type PageRequest } from '../../db/keyset.ts';
+import type { Page } from '../../lib/pagination.ts';
 
 export type StandardizationStatus = 'draft' | 'activated';
 
@@ -101,33 +101,26 @@ export interface StandardizationFilters {
   status?: StandardizationStatus;
   flag?: CorrectionFlag;
   onlyInstrumentIds?: string[] | null;
-  after?: { t: string; id: string };
 }
 
-/** Newest measurement first; fetches limit + 1 rows so the caller can tell whether there is more. */
+const RUN_KEYSET: KeysetColumn<StandardizationRowWithRefs>[] = [
+  { column: 'standardizations.measured_at', order: 'desc', key: 't', valueOf: (row) => row.measured_at },
+  { column: 'standardizations.id', order: 'desc', key: 'id', valueOf: (row) => row.id },
+];
+
+/** Newest measurement first. */
 export function listStandardizationRows(
   db: Queryable,
   filters: StandardizationFilters,
-  limit: number,
-): Promise<StandardizationRowWithRefs[]> {
-  const query = withRefs(db).orderBy([
-    { column: 'standardizations.measured_at', order: 'desc' },
-    { column: 'standardizations.id', order: 'desc' },
-  ]);
+  page: PageRequest,
+): Promise<Page<StandardizationRowWithRefs>> {
+  const query = withRefs(db);
   if (filters.instrumentId) query.where('standardizations.instrument_id', filters.instrumentId);
   if (filters.methodId) query.where('standardizations.method_id', filters.methodId);
   if (filters.status) query.where('standardizations.status', filters.status);
   if (filters.flag) query.where('standardizations.flag', filters.flag);
   if (filters.onlyInstrumentIds) query.whereIn('standardizations.instrument_id', filters.onlyInstrumentIds);
-  if (filters.after) {
-    const { t, id } = filters.after;
-    query.where((w) =>
-      w
-        .where('standardizations.measured_at', '<', t)
-        .orWhere((x) => x.where('standardizations.measured_at', t).andWhere('standardizations.id', '<', id)),
-    );
-  }
-  return query.limit(limit + 1);
+  return keysetPage(query, RUN_KEYSET, page);
 }
 
 /** The activated set with the latest effective_from at or before `at` (the later activation on a tie). */

@@ -1,5 +1,5 @@
-import { listOf, paginationQuery } from '../../http/pagination.ts';
-import { z } from '../../openapi/zod.ts';
+import { listOf, paginationQuery } from '../../lib/pagination.ts';
+import { z } from '../../lib/zod.ts';
 import { UNITS } from '../chemistry/units.ts';
 import { ElementSymbolSchema } from '../methods/methods.schemas.ts';
 import { PushedValueSchema } from '../samples/samples.schemas.ts';

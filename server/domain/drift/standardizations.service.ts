@@ -1,10 +1,10 @@
 // Standardization runs: the references' burns are parsed like a pushed sample, checked against the
 // mode (which references it needs), turned into per-element corrections with flags, and stored as
 // a draft. A flagged run records the event standardization.flagged in the same transaction.
-import type { Knex } from 'knex';
+import { inTransaction, type Transaction } from '../../db/transaction.ts';
 import type { AppContext } from '../../context.ts';
-import { type FieldError, NotFoundProblem, UnprocessableProblem, ValidationProblem } from '../../http/problem.ts';
-import type { AuthContext } from '../../http/request-context.ts';
+import { type FieldError, NotFoundProblem, UnprocessableProblem, ValidationProblem } from '../../lib/problems.ts';
+import type { AuthContext } from '../auth/auth-context.ts';
 import { newId } from '../../lib/ids.ts';
 import { nowIso } from '../../lib/time.ts';
 import { type Actor, actorOf } from '../audit/actor.ts';
@@ -130,7 +130,7 @@ export async function createStandardization(
   if (parseErrors.length)
     throw new ValidationProblem(parseErrors, 'Some values cannot be read; see errors[] for each one. Nothing was stored.');
 
-  const id = await ctx.db.transaction((trx) =>
+  const id = await inTransaction(ctx.db, (trx) =>
     storeRun(trx, {
       instrumentId,
       method,
@@ -159,7 +159,7 @@ export interface StoreRunInput {
 }
 
 /** Computes and stores a run as a draft, with its audit entry and (when flagged) its event; returns its id. */
-export async function storeRun(trx: Knex.Transaction, input: StoreRunInput): Promise<string> {
+export async function storeRun(trx: Transaction, input: StoreRunInput): Promise<string> {
   const { instrumentId, method, measuredAt, actor, now } = input;
   const id = newId('std');
   const inForce = await findSetInForce(trx, instrumentId, method.id, measuredAt);

@@ -1,8 +1,6 @@
 // The only code that touches the idempotency_keys table.
-import type { Knex } from 'knex';
 import { isUniqueViolation } from '../../db/errors.ts';
-
-type Queryable = Knex | Knex.Transaction;
+import type { Queryable } from '../../db/transaction.ts';
 
 export interface IdempotencyRow {
   caller: string;

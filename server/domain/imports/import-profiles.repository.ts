@@ -1,8 +1,8 @@
 // The only code that touches the import_profiles table.
-import type { Knex } from 'knex';
 import type { ImportProfileDefinition } from './import-profiles.schemas.ts';
-
-type Queryable = Knex | Knex.Transaction;
+import type { Queryable } from '../../db/transaction.ts';
+import { type KeysetColumn, keysetPage, type PageRequest } from '../../db/keyset.ts';
+import type { Page } from '../../lib/pagination.ts';
 
 export interface ImportProfileRow {
   id: string;
@@ -53,10 +53,8 @@ export async function updateImportProfileRow(db: Queryable, id: string, changes:
   await db<ImportProfileRow>('import_profiles').where({ id }).update(changes);
 }
 
-export function listImportProfileRows(db: Queryable, filters: { afterId?: string; limit: number }) {
-  const query = db<ImportProfileRow>('import_profiles')
-    .orderBy('id', 'asc')
-    .limit(filters.limit + 1);
-  if (filters.afterId) query.where('id', '>', filters.afterId);
-  return query;
+const PROFILE_KEYSET: KeysetColumn<ImportProfileRow>[] = [{ column: 'id', order: 'asc', key: 'id', valueOf: (row) => row.id }];
+
+export function listImportProfileRows(db: Queryable, page: PageRequest): Promise<Page<ImportProfileRow>> {
+  return keysetPage(db<ImportProfileRow>('import_profiles'), PROFILE_KEYSET, page);
 }

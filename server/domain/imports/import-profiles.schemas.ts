@@ -1,7 +1,7 @@
 // Import profiles: how to read one family of result files. One zod schema validates the
 // request, documents it in OpenAPI and types the parser's options.
-import { listOf, paginationQuery } from '../../http/pagination.ts';
-import { z } from '../../openapi/zod.ts';
+import { listOf, paginationQuery } from '../../lib/pagination.ts';
+import { z } from '../../lib/zod.ts';
 import { normaliseElement } from '../chemistry/elements.ts';
 import { parseUnit, UNITS } from '../chemistry/units.ts';
 import { describeHeaderAliases } from './parse/header-aliases.ts';

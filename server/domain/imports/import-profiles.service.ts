@@ -2,7 +2,7 @@
 // merged into the stored profile and the result validated as a whole, so no change can leave
 // a profile the parser cannot use. Every change is audited in the same transaction.
 import type { AppContext } from '../../context.ts';
-import { ConflictProblem, NotFoundProblem, ValidationProblem } from '../../http/problem.ts';
+import { ConflictProblem, NotFoundProblem, ValidationProblem } from '../../lib/problems.ts';
 import { newId } from '../../lib/ids.ts';
 import { nowIso } from '../../lib/time.ts';
 import type { Actor } from '../audit/actor.ts';
@@ -13,6 +13,7 @@ import {
   type ImportProfile,
   type ImportProfileRow,
   insertImportProfile,
+  listImportProfileRows,
   profileNameKey,
   toImportProfile,
   updateImportProfileRow,
@@ -20,9 +21,12 @@ import {
 import {
   CreateImportProfileRequestSchema,
   type ImportProfileInput,
+  type ImportProfileListQuerySchema,
   type UpdateImportProfileRequestSchema,
 } from './import-profiles.schemas.ts';
-import type { z } from '../../openapi/zod.ts';
+import type { z } from '../../lib/zod.ts';
+import { inTransaction } from '../../db/transaction.ts';
+import { mapPage, type Page } from '../../lib/pagination.ts';
 
 interface Audited {
   actor: Actor;
@@ -33,6 +37,14 @@ interface Audited {
 function splitInput(input: ImportProfileInput) {
   const { name, description, ...definition } = input;
   return { name, description, definition_json: JSON.stringify(definition) };
+}
+
+/** Oldest first. */
+export async function listImportProfilesPage(
+  ctx: Pick<AppContext, 'db'>,
+  query: z.output<typeof ImportProfileListQuerySchema>,
+): Promise<Page<ImportProfile>> {
+  return mapPage(await listImportProfileRows(ctx.db, query), toImportProfile);
 }
 
 export async function getImportProfile(ctx: Pick<AppContext, 'db'>, id: string): Promise<ImportProfile> {
@@ -63,7 +75,7 @@ export async function createImportProfile(ctx: AppContext, input: ImportProfileI
     updated_at: now,
   };
   try {
-    return await ctx.db.transaction(async (trx) => {
+    return await inTransaction(ctx.db, async (trx) => {
       if (await findImportProfileByName(trx, input.name)) throw duplicateName(input.name);
       await insertImportProfile(trx, row);
       const profile = toImportProfile(row);
@@ -88,7 +100,7 @@ export async function updateImportProfile(
   changes: z.output<typeof UpdateImportProfileRequestSchema>,
   by: Audited,
 ): Promise<ImportProfile> {
-  return ctx.db.transaction(async (trx) => {
+  return inTransaction(ctx.db, async (trx) => {
     const row = await findImportProfile(trx, id);
     if (!row) throw new NotFoundProblem(`No import profile ${id}.`);
     const before = toImportProfile(row);

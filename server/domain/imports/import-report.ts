@@ -1,4 +1,4 @@
-import { z } from '../../openapi/zod.ts';
+import { z } from '../../lib/zod.ts';
 
 export const ImportIssueSchema = z
   .object({

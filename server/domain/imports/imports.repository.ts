@@ -1,8 +1,8 @@
 // The only code that touches the imports table.
-import type { Knex } from 'knex';
 import type { ImportReport } from './import-report.ts';
-
-type Queryable = Knex | Knex.Transaction;
+import type { Queryable } from '../../db/transaction.ts';
+import { type KeysetColumn, keysetPage, type PageRequest } from '../../db/keyset.ts';
+import type { Page } from '../../lib/pagination.ts';
 
 export interface ImportRow {
   id: string;
@@ -80,16 +80,16 @@ export function findImportFile(
   return db<ImportRow>('imports').select('instrument_id', 'file_name', 'content_type', 'content', 'sha256').where({ id }).first();
 }
 
+const IMPORT_KEYSET: KeysetColumn<ImportMeta>[] = [{ column: 'id', order: 'desc', key: 'id', valueOf: (row) => row.id }];
+
+/** Newest first (ids sort by creation time). */
 export function listImportRows(
   db: Queryable,
-  filters: { instrumentId?: string; onlyInstrumentIds?: string[] | null; afterId?: string; limit: number },
-): Promise<ImportMeta[]> {
-  const query = db<ImportRow>('imports')
-    .select(...META_COLUMNS)
-    .orderBy('id', 'desc')
-    .limit(filters.limit + 1);
+  filters: { instrumentId?: string; onlyInstrumentIds?: string[] | null },
+  page: PageRequest,
+): Promise<Page<ImportMeta>> {
+  const query = db<ImportRow>('imports').select(...META_COLUMNS);
   if (filters.instrumentId) query.where('instrument_id', filters.instrumentId);
   if (filters.onlyInstrumentIds) query.whereIn('instrument_id', filters.onlyInstrumentIds);
-  if (filters.afterId) query.where('id', '<', filters.afterId);
-  return query;
+  return keysetPage(query, IMPORT_KEYSET, page);
 }

@@ -1,8 +1,8 @@
 // Uploading a result file: deduplicated by SHA-256, parsed, and stored in one transaction —
 // all or nothing per file by default, or per sample when asked. The raw bytes are kept.
 import type { AppContext } from '../../context.ts';
-import { type FieldError, NotFoundProblem, UnprocessableProblem } from '../../http/problem.ts';
-import type { AuthContext } from '../../http/request-context.ts';
+import { type FieldError, NotFoundProblem, UnprocessableProblem } from '../../lib/problems.ts';
+import type { AuthContext } from '../auth/auth-context.ts';
 import { newId } from '../../lib/ids.ts';
 import { sha256Hex } from '../../lib/secrets.ts';
 import { nowIso } from '../../lib/time.ts';
@@ -16,8 +16,12 @@ import { storeNewSamples } from '../samples/samples.service.ts';
 import type { ImportIssue, ImportReport } from './import-report.ts';
 import { buildImportedSamples } from './import-samples.ts';
 import { getImportProfile } from './import-profiles.service.ts';
-import { findImportBySha, findImportMeta, insertImport, toImport } from './imports.repository.ts';
+import { findImportBySha, findImportFile, findImportMeta, insertImport, listImportRows, toImport } from './imports.repository.ts';
+import type { ImportListQuerySchema } from './imports.schemas.ts';
+import { mapPage } from '../../lib/pagination.ts';
+import type { z } from '../../lib/zod.ts';
 import { FileLayoutError, parseResultFile, type ParsedFile } from './parse/index.ts';
+import { inTransaction } from '../../db/transaction.ts';
 
 export interface UploadInput {
   file: Express.Multer.File;
@@ -134,7 +138,7 @@ export async function uploadImport(
   const id = newId('imp');
   const actor = actorOf(auth);
   const now = nowIso();
-  const row = await ctx.db.transaction(async (trx) => {
+  const row = await inTransaction(ctx.db, async (trx) => {
     // The correction sets are read in the storing transaction: an activation lands wholly before or after.
     const corrections = await timelineLoader(trx)(input.instrument_id, method.id);
     const warnings: ImportIssue[] = [...parsed.warnings];
@@ -190,8 +194,25 @@ export async function uploadImport(
   return { created: true, record: toImport(meta) };
 }
 
+/** Newest first; a key restricted to instruments sees only their imports. */
+export async function listImportsPage(ctx: AppContext, auth: AuthContext, query: z.output<typeof ImportListQuerySchema>) {
+  const filters = { instrumentId: query.instrument_id, onlyInstrumentIds: auth.instrumentIds };
+  return mapPage(await listImportRows(ctx.db, filters, query), toImport);
+}
+
+function visible<Row extends { instrument_id: string }>(auth: AuthContext, row: Row | undefined): row is Row {
+  return row !== undefined && (!auth.instrumentIds || auth.instrumentIds.includes(row.instrument_id));
+}
+
 export async function getImport(ctx: AppContext, auth: AuthContext, id: string) {
   const row = await findImportMeta(ctx.db, id);
-  if (!row || (auth.instrumentIds && !auth.instrumentIds.includes(row.instrument_id))) throw new NotFoundProblem(`No import ${id}.`);
+  if (!visible(auth, row)) throw new NotFoundProblem(`No import ${id}.`);
   return toImport(row);
+}
+
+/** The raw file exactly as it was uploaded. */
+export async function getImportFile(ctx: AppContext, auth: AuthContext, id: string) {
+  const file = await findImportFile(ctx.db, id);
+  if (!visible(auth, file)) throw new NotFoundProblem(`No import ${id}.`);
+  return file;
 }

@@ -1,7 +1,7 @@
 // The only code that touches the instruments table.
-import type { Knex } from 'knex';
-
-type Queryable = Knex | Knex.Transaction;
+import type { Queryable } from '../../db/transaction.ts';
+import { type KeysetColumn, keysetPage, type PageRequest } from '../../db/keyset.ts';
+import type { Page } from '../../lib/pagination.ts';
 
 export interface InstrumentRow {
   id: string;
@@ -30,11 +30,11 @@ export async function updateInstrumentRow(db: Queryable, id: string, changes: Pa
   await db<InstrumentRow>('instruments').where({ id }).update(changes);
 }
 
-export function listInstrumentRows(db: Queryable, filters: { afterCode?: string; onlyIds?: string[] | null; limit: number }) {
-  const query = db<InstrumentRow>('instruments')
-    .orderBy('code')
-    .limit(filters.limit + 1);
-  if (filters.afterCode) query.where('code', '>', filters.afterCode);
+const INSTRUMENT_KEYSET: KeysetColumn<InstrumentRow>[] = [{ column: 'code', order: 'asc', key: 'code', valueOf: (row) => row.code }];
+
+/** Ordered by code. */
+export function listInstrumentRows(db: Queryable, filters: { onlyIds?: string[] | null }, page: PageRequest): Promise<Page<InstrumentRow>> {
+  const query = db<InstrumentRow>('instruments');
   if (filters.onlyIds) query.whereIn('id', filters.onlyIds);
-  return query;
+  return keysetPage(query, INSTRUMENT_KEYSET, page);
 }

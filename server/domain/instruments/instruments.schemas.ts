@@ -1,5 +1,5 @@
-import { listOf, paginationQuery } from '../../http/pagination.ts';
-import { z } from '../../openapi/zod.ts';
+import { listOf, paginationQuery } from '../../lib/pagination.ts';
+import { z } from '../../lib/zod.ts';
 
 const code = z
   .string()

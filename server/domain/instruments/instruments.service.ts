@@ -1,8 +1,8 @@
 // Instruments: create, rename, list. Codes are unique ignoring case. An API key restricted to
 // some instruments sees and writes only those.
 import type { AppContext } from '../../context.ts';
-import { ConflictProblem, ForbiddenProblem, NotFoundProblem } from '../../http/problem.ts';
-import type { AuthContext } from '../../http/request-context.ts';
+import { ConflictProblem, ForbiddenProblem, NotFoundProblem } from '../../lib/problems.ts';
+import type { AuthContext } from '../auth/auth-context.ts';
 import { newId } from '../../lib/ids.ts';
 import { nowIso } from '../../lib/time.ts';
 import { actorOf } from '../audit/actor.ts';
@@ -13,14 +13,28 @@ import {
   insertInstrument,
   type Instrument,
   type InstrumentRow,
+  listInstrumentRows,
   updateInstrumentRow,
 } from './instruments.repository.ts';
+import type { InstrumentListQuerySchema } from './instruments.schemas.ts';
+import { inTransaction } from '../../db/transaction.ts';
+import type { Page } from '../../lib/pagination.ts';
+import type { z } from '../../lib/zod.ts';
 
 /** Throws 403 when the caller's key is restricted to other instruments. */
 export function assertInstrumentAllowed(auth: AuthContext, instrumentId: string): void {
   if (auth.instrumentIds && !auth.instrumentIds.includes(instrumentId)) {
     throw new ForbiddenProblem(`This API key is restricted to other instruments than ${instrumentId}.`);
   }
+}
+
+/** Ordered by code; a key restricted to instruments sees only those. */
+export function listInstrumentsPage(
+  ctx: AppContext,
+  auth: AuthContext,
+  query: z.output<typeof InstrumentListQuerySchema>,
+): Promise<Page<Instrument>> {
+  return listInstrumentRows(ctx.db, { onlyIds: auth.instrumentIds }, query);
 }
 
 export async function getInstrument(ctx: AppContext, auth: AuthContext, id: string): Promise<Instrument> {
@@ -37,7 +51,7 @@ export async function createInstrument(
 ): Promise<Instrument> {
   const now = nowIso();
   const row: InstrumentRow = { id: newId('ins'), ...input, created_at: now, updated_at: now };
-  await ctx.db.transaction(async (trx) => {
+  await inTransaction(ctx.db, async (trx) => {
     if (await findInstrumentByCode(trx, input.code)) throw new ConflictProblem(`An instrument with the code ${input.code} exists.`);
     await insertInstrument(trx, row);
     await recordAudit(trx, {
@@ -59,7 +73,7 @@ export async function updateInstrument(
   changes: Partial<Pick<Instrument, 'code' | 'name' | 'site'>>,
   requestId?: string,
 ): Promise<Instrument> {
-  return ctx.db.transaction(async (trx) => {
+  return inTransaction(ctx.db, async (trx) => {
     const before = await findInstrument(trx, id);
     if (!before) throw new NotFoundProblem(`No instrument ${id}.`);
     if (changes.code) {

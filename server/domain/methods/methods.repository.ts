@@ -1,8 +1,8 @@
 // The only code that touches the methods table.
-import type { Knex } from 'knex';
 import type { OutputUnit } from '../chemistry/units.ts';
-
-type Queryable = Knex | Knex.Transaction;
+import { type KeysetColumn, keysetPage, type PageRequest } from '../../db/keyset.ts';
+import type { Queryable } from '../../db/transaction.ts';
+import { mapPage, type Page } from '../../lib/pagination.ts';
 
 export interface MethodElement {
   element: string;
@@ -71,11 +71,11 @@ export async function updateMethodRow(db: Queryable, method: Method): Promise<vo
   await db<MethodRow>('methods').where({ id: method.id }).update(toMethodRow(method));
 }
 
-export async function listMethods(db: Queryable, filters: { matrix?: string; afterCode?: string; limit: number }): Promise<Method[]> {
-  const query = db<MethodRow>('methods')
-    .orderBy('code')
-    .limit(filters.limit + 1);
+const METHOD_KEYSET: KeysetColumn<MethodRow>[] = [{ column: 'code', order: 'asc', key: 'code', valueOf: (row) => row.code }];
+
+/** Methods ordered by code. */
+export async function listMethods(db: Queryable, filters: { matrix?: string }, page: PageRequest): Promise<Page<Method>> {
+  const query = db<MethodRow>('methods');
   if (filters.matrix) query.where('matrix', filters.matrix);
-  if (filters.afterCode) query.where('code', '>', filters.afterCode);
-  return (await query).map(toMethod);
+  return mapPage(await keysetPage(query, METHOD_KEYSET, page), toMethod);
 }

@@ -1,8 +1,8 @@
 // The only code that touches the request_log table. Rows are appended, read and aged out.
-import type { Knex } from 'knex';
-import type { BodyKind } from './body-snapshot.ts';
-
-type Queryable = Knex | Knex.Transaction;
+import type { BodyKind } from './body-kinds.ts';
+import { type KeysetColumn, keysetPage, type PageRequest } from '../../db/keyset.ts';
+import type { Queryable } from '../../db/transaction.ts';
+import type { Page } from '../../lib/pagination.ts';
 
 export interface RequestLogRow {
   id: string;
@@ -43,8 +43,6 @@ export interface RequestLogFilters {
   callerId?: string;
   since?: string;
   until?: string;
-  beforeId?: string;
-  limit: number;
 }
 
 const SUMMARY_COLUMNS = [
@@ -83,12 +81,11 @@ export async function findRequestLogRow(db: Queryable, id: string): Promise<Requ
   return row && normalise(row);
 }
 
-/** Newest first; fetches limit + 1 rows so the caller can tell whether there is a next page. */
-export function listRequestLogRows(db: Queryable, filters: RequestLogFilters): Promise<RequestLogSummaryRow[]> {
-  const query = db<RequestLogRow>('request_log')
-    .select(...SUMMARY_COLUMNS)
-    .orderBy('id', 'desc')
-    .limit(filters.limit + 1);
+const REQUEST_LOG_KEYSET: KeysetColumn<RequestLogSummaryRow>[] = [{ column: 'id', order: 'desc', key: 'id', valueOf: (row) => row.id }];
+
+/** Newest first (ids sort by time). */
+export function listRequestLogRows(db: Queryable, filters: RequestLogFilters, page: PageRequest): Promise<Page<RequestLogSummaryRow>> {
+  const query = db<RequestLogRow>('request_log').select(...SUMMARY_COLUMNS);
   if (filters.ownerUserId) query.where('owner_user_id', filters.ownerUserId);
   if (filters.method) query.where('method', filters.method);
   if (typeof filters.status === 'number') query.where('status', filters.status);
@@ -98,8 +95,7 @@ export function listRequestLogRows(db: Queryable, filters: RequestLogFilters): P
   if (filters.callerId) query.where('caller_id', filters.callerId);
   if (filters.since) query.where('occurred_at', '>=', filters.since);
   if (filters.until) query.where('occurred_at', '<', filters.until);
-  if (filters.beforeId) query.where('id', '<', filters.beforeId);
-  return query;
+  return keysetPage(query, REQUEST_LOG_KEYSET, page);
 }
 
 /** Deletes entries that occurred before the cutoff; returns how many. */

@@ -1,6 +1,6 @@
-import { listOf, paginationQuery } from '../../http/pagination.ts';
-import { z } from '../../openapi/zod.ts';
-import { BODY_KINDS } from './body-snapshot.ts';
+import { listOf, paginationQuery } from '../../lib/pagination.ts';
+import { z } from '../../lib/zod.ts';
+import { BODY_KINDS } from './body-kinds.ts';
 
 export const HTTP_METHODS = ['GET', 'POST', 'PUT', 'PATCH', 'DELETE', 'HEAD', 'OPTIONS'] as const;
 

@@ -1,8 +1,8 @@
 // Who sees which entries, what an entry looks like in the API, and which entries can be replayed.
 import type { AppContext } from '../../context.ts';
-import { decodeCursor, pageOf } from '../../http/pagination.ts';
-import { NotFoundProblem } from '../../http/problem.ts';
-import type { AuthContext } from '../../http/request-context.ts';
+import { mapPage } from '../../lib/pagination.ts';
+import { NotFoundProblem } from '../../lib/problems.ts';
+import type { AuthContext } from '../auth/auth-context.ts';
 import { recorderFor } from './recorder.ts';
 import {
   findRequestLogRow,
@@ -114,7 +114,7 @@ function statusFilter(status: string | undefined): RequestLogFilters['status'] {
 export async function listEntries(ctx: AppContext, auth: AuthContext, query: ListQuery) {
   // Calls that finished before this one are listed even if their entry is still being written.
   await recorderFor(ctx).drain();
-  const rows = await listRequestLogRows(ctx.db, {
+  const filters = {
     ownerUserId: seesAllEntries(auth) ? undefined : auth.userId,
     method: query.method,
     status: statusFilter(query.status),
@@ -122,8 +122,6 @@ export async function listEntries(ctx: AppContext, auth: AuthContext, query: Lis
     callerId: query.caller_id,
     since: query.since,
     until: query.until,
-    beforeId: query.cursor ? decodeCursor<{ id: string }>(query.cursor, ['id']).id : undefined,
-    limit: query.limit,
-  });
-  return pageOf(rows, query.limit, toSummary, (row) => ({ id: row.id }));
+  };
+  return mapPage(await listRequestLogRows(ctx.db, filters, query), toSummary);
 }

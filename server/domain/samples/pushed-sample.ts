@@ -1,7 +1,7 @@
 // Normalises a JSON-pushed sample: element symbols to canonical case, every value parsed
 // (qualified values allowed) and converted exactly to %. Every problem is collected, so one
 // 400 names them all.
-import type { FieldError } from '../../http/problem.ts';
+import type { FieldError } from '../../lib/problems.ts';
 import { normaliseElement } from '../chemistry/elements.ts';
 import { MeasuredValueError, parseMeasuredValue } from '../chemistry/measured-value.ts';
 import { toPercent, type Unit } from '../chemistry/units.ts';

@@ -1,6 +1,5 @@
 // Stored samples → API representations, in the unit the caller asked for.
-import type { Knex } from 'knex';
-import type { AuthContext } from '../../http/request-context.ts';
+import type { AuthContext } from '../auth/auth-context.ts';
 import { convertResult, reportingDecimals } from '../chemistry/result-units.ts';
 import { fromPercent, type OutputUnit } from '../chemistry/units.ts';
 import type { SampleCorrection } from '../drift/correction-timeline.ts';
@@ -8,8 +7,7 @@ import { findImportMeta } from '../imports/imports.repository.ts';
 import { loadSample } from './samples.service.ts';
 import { type BurnRow, findBurns, type RawCell, type SampleRowWithRefs, type StoredCell, type StoredResult } from './samples.repository.ts';
 import { decodeResults } from './results-codec.ts';
-
-type Queryable = Knex | Knex.Transaction;
+import type { Queryable } from '../../db/transaction.ts';
 
 const toNumber = (value: string | null) => (value === null ? null : Number(value));
 

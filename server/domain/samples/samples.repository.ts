@@ -1,10 +1,10 @@
 // The only code that touches the samples and burns tables.
-import type { Knex } from 'knex';
 import { bulkInsert } from '../../db/bulk-insert.ts';
 import type { ElementResult } from '../chemistry/element-result.ts';
 import type { Unit } from '../chemistry/units.ts';
-
-type Queryable = Knex | Knex.Transaction;
+import type { Queryable } from '../../db/transaction.ts';
+import { type KeysetColumn, keysetPage, type PageRequest } from '../../db/keyset.ts';
+import type { Page } from '../../lib/pagination.ts';
 
 /** A canonical burn value: exact % decimal string and qualifier. */
 export interface StoredCell {
@@ -125,11 +125,26 @@ export interface SampleFilters {
   onlyInstrumentIds?: string[] | null;
 }
 
-export type SampleOrder =
-  { by: 'created_desc'; after?: { t: string; id: string } } | { by: 'updated_asc'; after?: { t: string; id: string } };
+export type SampleOrder = 'created_desc' | 'updated_asc';
 
-/** Filtered samples in a stable order; fetches limit + 1 rows so the caller can tell whether there is more. */
-export function listSampleRows(db: Queryable, filters: SampleFilters, order: SampleOrder, limit: number): Promise<SampleRowWithRefs[]> {
+const SAMPLE_KEYSETS: Record<SampleOrder, KeysetColumn<SampleRowWithRefs>[]> = {
+  created_desc: [
+    { column: 'samples.created_at', order: 'desc', key: 't', valueOf: (row) => row.created_at },
+    { column: 'samples.id', order: 'desc', key: 'id', valueOf: (row) => row.id },
+  ],
+  updated_asc: [
+    { column: 'samples.updated_at', order: 'asc', key: 't', valueOf: (row) => row.updated_at },
+    { column: 'samples.id', order: 'asc', key: 'id', valueOf: (row) => row.id },
+  ],
+};
+
+/** Filtered samples in a stable order. */
+export function listSampleRows(
+  db: Queryable,
+  filters: SampleFilters,
+  order: SampleOrder,
+  page: PageRequest,
+): Promise<Page<SampleRowWithRefs>> {
   const query = withRefs(db);
   if (filters.heat) query.where('samples.heat', filters.heat);
   if (filters.grade) query.where('samples.grade', filters.grade);
@@ -144,28 +159,5 @@ export function listSampleRows(db: Queryable, filters: SampleFilters, order: Sam
   if (filters.created_to) query.where('samples.created_at', '<', filters.created_to);
   if (filters.updated_since) query.where('samples.updated_at', '>=', filters.updated_since);
   if (filters.onlyInstrumentIds) query.whereIn('samples.instrument_id', filters.onlyInstrumentIds);
-  if (order.by === 'created_desc') {
-    query.orderBy([
-      { column: 'samples.created_at', order: 'desc' },
-      { column: 'samples.id', order: 'desc' },
-    ]);
-    if (order.after) {
-      const { t, id } = order.after;
-      query.where((w) =>
-        w.where('samples.created_at', '<', t).orWhere((x) => x.where('samples.created_at', t).andWhere('samples.id', '<', id)),
-      );
-    }
-  } else {
-    query.orderBy([
-      { column: 'samples.updated_at', order: 'asc' },
-      { column: 'samples.id', order: 'asc' },
-    ]);
-    if (order.after) {
-      const { t, id } = order.after;
-      query.where((w) =>
-        w.where('samples.updated_at', '>', t).orWhere((x) => x.where('samples.updated_at', t).andWhere('samples.id', '>', id)),
-      );
-    }
-  }
-  return query.limit(limit + 1);
+  return keysetPage(query, SAMPLE_KEYSETS[order], { ...page, order });
 }

@@ -1,9 +1,9 @@
 // Samples: JSON push (one or a batch, all in one transaction), burn exclusion with a reason,
 // results recomputed whenever burns change. Every change is audited with before/after.
-import type { Knex } from 'knex';
+import { inTransaction, type Queryable, type Transaction } from '../../db/transaction.ts';
 import type { AppContext } from '../../context.ts';
-import { ConflictProblem, type FieldError, NotFoundProblem, UnprocessableProblem, ValidationProblem } from '../../http/problem.ts';
-import type { AuthContext } from '../../http/request-context.ts';
+import { ConflictProblem, type FieldError, NotFoundProblem, UnprocessableProblem, ValidationProblem } from '../../lib/problems.ts';
+import type { AuthContext } from '../auth/auth-context.ts';
 import { parseJsonColumn } from '../../lib/json.ts';
 import { nowIso } from '../../lib/time.ts';
 import { type Actor, actorOf } from '../audit/actor.ts';
@@ -38,8 +38,6 @@ export interface PushedSample {
   unit?: Unit;
   burns: PushedBurn[];
 }
-
-type Queryable = Knex | Knex.Transaction;
 
 /** Loads each referenced method once; unknown or forbidden references become errors. */
 async function resolveReferences(
@@ -94,7 +92,7 @@ export async function pushSamples(
   });
   if (errors.length) throw new ValidationProblem(errors, 'Some values cannot be read; see errors[] for each one. Nothing was stored.');
 
-  return ctx.db.transaction(async (trx) => {
+  return inTransaction(ctx.db, async (trx) => {
     // The correction sets are read in the storing transaction: an activation lands wholly before or after.
     const timelineOf = timelineLoader(trx);
     const built = [];
@@ -109,7 +107,7 @@ export async function pushSamples(
 
 /** Inserts built samples and audits each one; runs inside the caller's transaction. */
 export async function storeNewSamples(
-  trx: Knex.Transaction,
+  trx: Transaction,
   built: ReturnType<typeof buildSampleRows>[],
   actor: Actor,
   requestId?: string,
@@ -159,7 +157,7 @@ export async function setBurnExclusion(
   change: { excluded: boolean; reason: string },
   requestId?: string,
 ): Promise<void> {
-  await ctx.db.transaction(async (trx) => {
+  await inTransaction(ctx.db, async (trx) => {
     const sample = await loadSample(trx, auth, sampleId);
     if (sample.status === 'released') throw new ConflictProblem('This sample is released; amend it instead of changing its burns.');
     const burns = await findBurns(trx, sampleId);

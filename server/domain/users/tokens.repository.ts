@@ -3,7 +3,7 @@
 import { newId } from '../../lib/ids.ts';
 import { randomToken, sha256Hex } from '../../lib/secrets.ts';
 import { addMinutes, nowIso } from '../../lib/time.ts';
-import type { Queryable } from './users.repository.ts';
+import type { Queryable } from '../../db/transaction.ts';
 
 export type TokenPurpose = 'invitation' | 'password_reset';
 

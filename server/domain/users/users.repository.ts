@@ -1,6 +1,8 @@
 // The only code that touches the users table.
-import type { Knex } from 'knex';
 import type { Role } from '../auth/scopes.ts';
+import type { Queryable } from '../../db/transaction.ts';
+import { type KeysetColumn, keysetPage, type PageRequest } from '../../db/keyset.ts';
+import type { Page } from '../../lib/pagination.ts';
 
 export type UserStatus = 'invited' | 'active' | 'disabled';
 
@@ -16,8 +18,6 @@ export interface UserRow {
   updated_at: string;
   last_login_at: string | null;
 }
-
-export type Queryable = Knex | Knex.Transaction;
 
 export function emailKey(email: string): string {
   return email.trim().toLowerCase();
@@ -61,17 +61,21 @@ export async function countActiveAdmins(db: Queryable): Promise<number> {
   return Number(row?.n ?? 0);
 }
 
+/** The longest-standing active admin (ids sort by creation time). */
+export function findFirstActiveAdmin(db: Queryable): Promise<UserRow | undefined> {
+  return db<UserRow>('users').where({ role: 'admin', status: 'active' }).orderBy('id').first();
+}
+
 export async function countUsers(db: Queryable): Promise<number> {
   const row = await db('users').count<{ n: number | string }[]>({ n: '*' }).first();
   return Number(row?.n ?? 0);
 }
 
-export function listUserRows(db: Queryable, filters: { role?: Role; status?: UserStatus; afterId?: string; limit: number }) {
-  const query = db<UserRow>('users')
-    .orderBy('id', 'asc')
-    .limit(filters.limit + 1);
+const USER_KEYSET: KeysetColumn<UserRow>[] = [{ column: 'id', order: 'asc', key: 'id', valueOf: (row) => row.id }];
+
+export function listUserRows(db: Queryable, filters: { role?: Role; status?: UserStatus }, page: PageRequest): Promise<Page<UserRow>> {
+  const query = db<UserRow>('users');
   if (filters.role) query.where('role', filters.role);
   if (filters.status) query.where('status', filters.status);
-  if (filters.afterId) query.where('id', '>', filters.afterId);
-  return query;
+  return keysetPage(query, USER_KEYSET, page);
 }

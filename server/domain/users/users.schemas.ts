@@ -1,5 +1,5 @@
-import { listOf, paginationQuery } from '../../http/pagination.ts';
-import { z } from '../../openapi/zod.ts';
+import { listOf, paginationQuery } from '../../lib/pagination.ts';
+import { z } from '../../lib/zod.ts';
 import { ROLES, SCOPES } from '../auth/scopes.ts';
 
 export const RoleSchema = z.enum(ROLES).openapi('Role');

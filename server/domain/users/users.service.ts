@@ -1,7 +1,7 @@
 // User rules: invitations, role and status changes (never leaving the lab without an admin),
 // password resets. Every change is audited in the same transaction.
 import type { AppContext } from '../../context.ts';
-import { ConflictProblem, NotFoundProblem, UnprocessableProblem } from '../../http/problem.ts';
+import { ConflictProblem, NotFoundProblem, UnauthorizedProblem, UnprocessableProblem } from '../../lib/problems.ts';
 import { newId } from '../../lib/ids.ts';
 import { nowIso } from '../../lib/time.ts';
 import { invitationMail, passwordResetMail } from '../../mail/templates.ts';
@@ -17,16 +17,34 @@ import {
   findUserByEmail,
   findUserById,
   insertUser,
+  listUserRows,
   toUser,
   updateUserRow,
   type User,
   type UserRow,
   type UserStatus,
 } from './users.repository.ts';
+import { inTransaction } from '../../db/transaction.ts';
+import { revokeUserSessions } from '../auth/sessions.repository.ts';
+import type { AuthContext } from '../auth/auth-context.ts';
+import { mapPage, type Page } from '../../lib/pagination.ts';
+import type { z } from '../../lib/zod.ts';
+import type { UserListQuerySchema } from './users.schemas.ts';
 
 interface Audited {
   actor: Actor;
   requestId?: string;
+}
+
+export async function listUsersPage(ctx: AppContext, query: z.output<typeof UserListQuerySchema>): Promise<Page<User>> {
+  return mapPage(await listUserRows(ctx.db, { role: query.role, status: query.status }, query), toUser);
+}
+
+/** The signed-in caller; 401 when the user behind the session or key no longer exists. */
+export async function getCaller(ctx: AppContext, auth: AuthContext): Promise<User> {
+  const row = await findUserById(ctx.db, auth.userId);
+  if (!row) throw new UnauthorizedProblem();
+  return toUser(row);
 }
 
 export async function getUser(ctx: AppContext, id: string): Promise<User> {
@@ -53,7 +71,7 @@ export async function inviteUser(
     updated_at: now,
     last_login_at: null,
   };
-  const token = await ctx.db.transaction(async (trx) => {
+  const token = await inTransaction(ctx.db, async (trx) => {
     if (await findUserByEmail(trx, input.email)) {
       throw new ConflictProblem(`A user with the e-mail ${input.email} already exists.`);
     }
@@ -69,7 +87,7 @@ export async function resendInvitation(ctx: AppContext, id: string, by: Audited)
   const row = await findUserById(ctx.db, id);
   if (!row) throw new NotFoundProblem(`No user ${id}.`);
   if (row.status !== 'invited') throw new ConflictProblem('Only an invited user who has not accepted yet can be sent a new invitation.');
-  const token = await ctx.db.transaction(async (trx) => {
+  const token = await inTransaction(ctx.db, async (trx) => {
     await recordAudit(trx, { ...by, action: 'user.invitation_resent', targetType: 'user', targetId: id });
     return issueToken(trx, id, 'invitation');
   });
@@ -87,7 +105,7 @@ export async function updateUser(
   changes: { name?: string; role?: Role; status?: Exclude<UserStatus, 'invited'> },
   by: Audited,
 ): Promise<User> {
-  return ctx.db.transaction(async (trx) => {
+  return inTransaction(ctx.db, async (trx) => {
     const before = await findUserById(trx, id);
     if (!before) throw new NotFoundProblem(`No user ${id}.`);
     if (changes.status && before.status === 'invited') {
@@ -101,7 +119,7 @@ export async function updateUser(
     await updateUserRow(trx, id, { name: after.name, role: after.role, status: after.status, updated_at: after.updated_at });
     if (after.status === 'disabled' || after.role !== before.role) {
       // Sessions carry the role's scopes; end them so the change takes effect at once.
-      await trx('sessions').where({ user_id: id }).whereNull('revoked_at').update({ revoked_at: after.updated_at });
+      await revokeUserSessions(trx, id, after.updated_at);
     }
     await recordAudit(trx, {
       ...by,
@@ -117,7 +135,7 @@ export async function updateUser(
 
 export async function acceptInvitation(ctx: AppContext, token: string, password: string, requestId?: string): Promise<User> {
   const passwordHash = await hashPassword(password);
-  return ctx.db.transaction(async (trx) => {
+  return inTransaction(ctx.db, async (trx) => {
     const userId = await consumeToken(trx, token, 'invitation');
     const row = userId ? await findUserById(trx, userId) : undefined;
     if (!row || row.status !== 'invited') {
@@ -135,7 +153,7 @@ export async function acceptInvitation(ctx: AppContext, token: string, password:
 export async function requestPasswordReset(ctx: AppContext, email: string, requestId?: string): Promise<void> {
   const row = await findUserByEmail(ctx.db, email);
   if (!row || row.status !== 'active') return;
-  const token = await ctx.db.transaction(async (trx) => {
+  const token = await inTransaction(ctx.db, async (trx) => {
     await recordAudit(trx, {
       actor: SYSTEM_ACTOR,
       requestId,
@@ -151,7 +169,7 @@ export async function requestPasswordReset(ctx: AppContext, email: string, reque
 
 export async function confirmPasswordReset(ctx: AppContext, token: string, password: string, requestId?: string): Promise<void> {
   const passwordHash = await hashPassword(password);
-  await ctx.db.transaction(async (trx) => {
+  await inTransaction(ctx.db, async (trx) => {
     const userId = await consumeToken(trx, token, 'password_reset');
     const row = userId ? await findUserById(trx, userId) : undefined;
     if (!row || row.status !== 'active') {
@@ -159,7 +177,7 @@ export async function confirmPasswordReset(ctx: AppContext, token: string, passw
     }
     const now = nowIso();
     await updateUserRow(trx, row.id, { password_hash: passwordHash, updated_at: now });
-    await trx('sessions').where({ user_id: row.id }).whereNull('revoked_at').update({ revoked_at: now });
+    await revokeUserSessions(trx, row.id, now);
     const actor: Actor = { type: 'user', id: row.id, label: row.email };
     await recordAudit(trx, { actor, requestId, action: 'user.password_reset', targetType: 'user', targetId: row.id });
   });
@@ -173,7 +191,7 @@ export async function ensureAdmin(
   name = 'Administrator',
 ): Promise<{ user: User; created: boolean }> {
   const passwordHash = await hashPassword(password);
-  return ctx.db.transaction(async (trx) => {
+  return inTransaction(ctx.db, async (trx) => {
     const existing = await findUserByEmail(trx, email);
     const now = nowIso();
     if (existing) {

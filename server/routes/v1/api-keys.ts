@@ -1,4 +1,3 @@
-import { listApiKeyRows, toApiKey } from '../../domain/api-keys/api-keys.repository.ts';
 import {
   ApiKeyIdParams,
   ApiKeyListQuerySchema,
@@ -8,8 +7,7 @@ import {
   CreateApiKeyRequestSchema,
   RollApiKeyRequestSchema,
 } from '../../domain/api-keys/api-keys.schemas.ts';
-import { canManageAllKeys, createApiKey, getApiKey, revokeApiKey, rollApiKey } from '../../domain/api-keys/api-keys.service.ts';
-import { decodeCursor, pageOf } from '../../http/pagination.ts';
+import { createApiKey, getApiKey, listApiKeysPage, revokeApiKey, rollApiKey } from '../../domain/api-keys/api-keys.service.ts';
 import { defineRoute } from '../../http/route.ts';
 
 export const apiKeyRoutes = [
@@ -23,23 +21,8 @@ export const apiKeyRoutes = [
     access: { scope: 'api-keys:read' },
     query: ApiKeyListQuerySchema,
     responses: { 200: { description: 'A page of keys, newest first.', schema: ApiKeyListSchema } },
-    async handler({ query, auth, res, ctx }) {
-      const afterId = query.cursor ? decodeCursor<{ id: string }>(query.cursor, ['id']).id : undefined;
-      const rows = await listApiKeyRows(ctx.db, {
-        createdBy: canManageAllKeys(auth) ? undefined : auth.userId,
-        includeRevoked: query.include_revoked,
-        afterId,
-        limit: query.limit,
-      });
-      const now = new Date().toISOString();
-      res.json(
-        pageOf(
-          rows,
-          query.limit,
-          (row) => toApiKey(row, now),
-          (row) => ({ id: row.id }),
-        ),
-      );
+    async handler({ query, auth, ctx, reply }) {
+      reply(200, await listApiKeysPage(ctx, auth, query));
     },
   }),
   defineRoute({
@@ -55,9 +38,9 @@ export const apiKeyRoutes = [
     responses: {
       201: { description: 'Issued; copy the secret now.', schema: ApiKeyWithSecretSchema, headers: { Location: 'The new key.' } },
     },
-    async handler({ body, auth, req, res, ctx }) {
+    async handler({ body, auth, req, ctx, reply }) {
       const key = await createApiKey(ctx, auth, body, req.requestId);
-      res.status(201).location(`/api/v1/api-keys/${key.id}`).json(key);
+      reply(201, key, { Location: `/api/v1/api-keys/${key.id}` });
     },
   }),
   defineRoute({
@@ -69,8 +52,8 @@ export const apiKeyRoutes = [
     access: { scope: 'api-keys:read' },
     params: ApiKeyIdParams,
     responses: { 200: { description: 'The key.', schema: ApiKeySchema }, 404: { description: 'No such key, or not yours.' } },
-    async handler({ params, auth, res, ctx }) {
-      res.json(await getApiKey(ctx, auth, params.id));
+    async handler({ params, auth, ctx, reply }) {
+      reply(200, await getApiKey(ctx, auth, params.id));
     },
   }),
   defineRoute({
@@ -107,9 +90,9 @@ export const apiKeyRoutes = [
       404: { description: 'No such key, or not yours.' },
       409: { description: 'The key is revoked or expired.' },
     },
-    async handler({ params, body, auth, req, res, ctx }) {
+    async handler({ params, body, auth, req, ctx, reply }) {
       const key = await rollApiKey(ctx, auth, params.id, body.overlap_minutes, req.requestId);
-      res.status(201).location(`/api/v1/api-keys/${key.id}`).json(key);
+      reply(201, key, { Location: `/api/v1/api-keys/${key.id}` });
     },
   }),
 ];

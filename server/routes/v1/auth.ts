@@ -1,6 +1,5 @@
 import { login, logout } from '../../domain/auth/auth.service.ts';
 import { ROLE_SCOPES } from '../../domain/auth/scopes.ts';
-import { findUserById, toUser } from '../../domain/users/users.repository.ts';
 import {
   AcceptInvitationRequestSchema,
   LoginRequestSchema,
@@ -9,8 +8,7 @@ import {
   PasswordResetRequestSchema,
   UserSchema,
 } from '../../domain/users/users.schemas.ts';
-import { acceptInvitation, confirmPasswordReset, requestPasswordReset } from '../../domain/users/users.service.ts';
-import { UnauthorizedProblem } from '../../http/problem.ts';
+import { acceptInvitation, confirmPasswordReset, getCaller, requestPasswordReset } from '../../domain/users/users.service.ts';
 import { credentialLimiter } from '../../http/rate-limit.ts';
 import { defineRoute } from '../../http/route.ts';
 import { clearSessionCookie, setSessionCookie } from '../../http/session-cookie.ts';
@@ -31,10 +29,10 @@ export const authRoutes = [
       200: { description: 'Signed in.', schema: MeSchema },
       401: { description: 'The e-mail or password is not correct, or the account is disabled.' },
     },
-    async handler({ body, req, res, ctx }) {
+    async handler({ body, req, res, ctx, reply }) {
       const { sessionId, user } = await login(ctx, { ...body, ip: req.ip, userAgent: req.get('user-agent'), requestId: req.requestId });
       const expiresAt = setSessionCookie(res, ctx.config, sessionId, user.id);
-      res.json({ user, scopes: [...ROLE_SCOPES[user.role]], auth: 'session', session_expires_at: expiresAt });
+      reply(200, { user, scopes: [...ROLE_SCOPES[user.role]], auth: 'session', session_expires_at: expiresAt });
     },
   }),
   defineRoute({
@@ -59,11 +57,9 @@ export const authRoutes = [
     tag: 'Auth',
     access: 'signed-in',
     responses: { 200: { description: 'The caller.', schema: MeSchema } },
-    async handler({ auth, res, ctx }) {
-      const row = await findUserById(ctx.db, auth.userId);
-      if (!row) throw new UnauthorizedProblem();
-      res.json({
-        user: toUser(row),
+    async handler({ auth, res, ctx, reply }) {
+      reply(200, {
+        user: await getCaller(ctx, auth),
         scopes: [...auth.scopes],
         auth: auth.kind,
         session_expires_at: auth.kind === 'session' ? (res.locals.sessionExpiresAt as string) : null,
@@ -83,8 +79,8 @@ export const authRoutes = [
       200: { description: 'The account is active; sign in with the new password.', schema: UserSchema },
       422: { description: 'The invitation is unknown, used or expired.' },
     },
-    async handler({ body, req, res, ctx }) {
-      res.json(await acceptInvitation(ctx, body.token, body.password, req.requestId));
+    async handler({ body, req, ctx, reply }) {
+      reply(200, await acceptInvitation(ctx, body.token, body.password, req.requestId));
     },
   }),
   defineRoute({

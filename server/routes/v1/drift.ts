@@ -22,8 +22,8 @@ export const driftRoutes = [
     params: InstrumentStandardizationParams,
     query: DriftQuerySchema,
     responses: { 200: { description: 'The series.', schema: DriftHistorySchema }, 404: { description: 'No such instrument.' } },
-    async handler({ params, query, auth, res, ctx }) {
-      res.json(await driftHistory(ctx, auth, params.id, query));
+    async handler({ params, query, auth, ctx, reply }) {
+      reply(200, await driftHistory(ctx, auth, params.id, query));
     },
   }),
   defineRoute({
@@ -40,8 +40,8 @@ export const driftRoutes = [
       200: { description: 'The sets in force.', schema: CorrectionsInForceSchema },
       404: { description: 'No such instrument.' },
     },
-    async handler({ params, query, auth, res, ctx }) {
-      res.json(await correctionsInForce(ctx, auth, params.id, query.at));
+    async handler({ params, query, auth, ctx, reply }) {
+      reply(200, await correctionsInForce(ctx, auth, params.id, query.at));
     },
   }),
 ];

@@ -1,6 +1,6 @@
 import { pingDb } from '../../db/knex.ts';
 import { defineRoute } from '../../http/route.ts';
-import { z } from '../../openapi/zod.ts';
+import { z } from '../../lib/zod.ts';
 
 export const HealthSchema = z
   .object({
@@ -23,9 +23,9 @@ export const healthRoutes = [
       200: { description: 'The server is up; `database.ok` says whether the database answers.', schema: HealthSchema },
       503: { description: 'The database does not answer.', schema: HealthSchema },
     },
-    async handler({ res, ctx }) {
+    async handler({ ctx, reply }) {
       const ok = await pingDb(ctx.db);
-      res.status(ok ? 200 : 503).json({
+      reply(ok ? 200 : 503, {
         status: ok ? 'ok' : 'degraded',
         version: ctx.config.version,
         database: { ok, client: ctx.config.databaseUrl ? 'postgresql' : 'sqlite' },

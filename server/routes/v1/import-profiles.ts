@@ -1,5 +1,4 @@
 import { actorOf } from '../../domain/audit/actor.ts';
-import { listImportProfileRows, toImportProfile } from '../../domain/imports/import-profiles.repository.ts';
 import {
   AUTO_DETECTION_DESCRIPTION,
   CreateImportProfileRequestSchema,
@@ -9,8 +8,12 @@ import {
   ImportProfileSchema,
   UpdateImportProfileRequestSchema,
 } from '../../domain/imports/import-profiles.schemas.ts';
-import { createImportProfile, getImportProfile, updateImportProfile } from '../../domain/imports/import-profiles.service.ts';
-import { decodeCursor, pageOf } from '../../http/pagination.ts';
+import {
+  createImportProfile,
+  getImportProfile,
+  listImportProfilesPage,
+  updateImportProfile,
+} from '../../domain/imports/import-profiles.service.ts';
 import { defineRoute } from '../../http/route.ts';
 
 export const importProfileRoutes = [
@@ -24,10 +27,8 @@ export const importProfileRoutes = [
     access: { scope: 'samples:read' },
     query: ImportProfileListQuerySchema,
     responses: { 200: { description: 'A page of profiles.', schema: ImportProfileListSchema } },
-    async handler({ query, res, ctx }) {
-      const afterId = query.cursor ? decodeCursor<{ id: string }>(query.cursor, ['id']).id : undefined;
-      const rows = await listImportProfileRows(ctx.db, { afterId, limit: query.limit });
-      res.json(pageOf(rows, query.limit, toImportProfile, (row) => ({ id: row.id })));
+    async handler({ query, ctx, reply }) {
+      reply(200, await listImportProfilesPage(ctx, query));
     },
   }),
   defineRoute({
@@ -43,9 +44,9 @@ export const importProfileRoutes = [
       201: { description: 'Created.', schema: ImportProfileSchema, headers: { Location: 'The new profile.' } },
       409: { description: 'A profile with this name exists (names are compared ignoring case).' },
     },
-    async handler({ body, auth, req, res, ctx }) {
+    async handler({ body, auth, req, ctx, reply }) {
       const profile = await createImportProfile(ctx, body, { actor: actorOf(auth), userId: auth.userId, requestId: req.requestId });
-      res.status(201).location(`/api/v1/import-profiles/${profile.id}`).json(profile);
+      reply(201, profile, { Location: `/api/v1/import-profiles/${profile.id}` });
     },
   }),
   defineRoute({
@@ -57,8 +58,8 @@ export const importProfileRoutes = [
     access: { scope: 'samples:read' },
     params: ImportProfileIdParams,
     responses: { 200: { description: 'The profile.', schema: ImportProfileSchema }, 404: { description: 'No such profile.' } },
-    async handler({ params, res, ctx }) {
-      res.json(await getImportProfile(ctx, params.id));
+    async handler({ params, ctx, reply }) {
+      reply(200, await getImportProfile(ctx, params.id));
     },
   }),
   defineRoute({
@@ -77,8 +78,8 @@ export const importProfileRoutes = [
       404: { description: 'No such profile.' },
       409: { description: 'Another profile has this name.' },
     },
-    async handler({ params, body, auth, req, res, ctx }) {
-      res.json(await updateImportProfile(ctx, params.id, body, { actor: actorOf(auth), userId: auth.userId, requestId: req.requestId }));
+    async handler({ params, body, auth, req, ctx, reply }) {
+      reply(200, await updateImportProfile(ctx, params.id, body, { actor: actorOf(auth), userId: auth.userId, requestId: req.requestId }));
     },
   }),
 ];

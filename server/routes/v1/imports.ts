@@ -1,4 +1,3 @@
-import { listImportRows, findImportFile, toImport } from '../../domain/imports/imports.repository.ts';
 import {
   ImportIdParams,
   ImportListQuerySchema,
@@ -8,12 +7,10 @@ import {
   ImportSchema,
   ImportUploadSchema,
 } from '../../domain/imports/imports.schemas.ts';
-import { getImport, previewImport, uploadImport } from '../../domain/imports/imports.service.ts';
+import { getImport, getImportFile, listImportsPage, previewImport, uploadImport } from '../../domain/imports/imports.service.ts';
 import { AUTO_DETECTION_DESCRIPTION } from '../../domain/imports/import-profiles.schemas.ts';
-import { NotFoundProblem } from '../../http/problem.ts';
-import { decodeCursor, pageOf } from '../../http/pagination.ts';
 import { defineRoute } from '../../http/route.ts';
-import { z } from '../../openapi/zod.ts';
+import { z } from '../../lib/zod.ts';
 import { singleFileUpload } from '../../http/upload.ts';
 
 // The extensions fileProblem() (imports.service.ts) adds, for clients that show the lines.
@@ -47,10 +44,10 @@ export const importRoutes = [
         description: `The file cannot be read, a value is broken (all-or-nothing), or a referenced instrument, method or profile does not exist. ${FILE_ISSUES_NOTE}`,
       },
     },
-    async handler({ body, auth, req, res, ctx }) {
+    async handler({ body, auth, req, ctx, reply }) {
       const { created, record } = await uploadImport(ctx, auth, body, req.requestId);
-      if (created) res.status(201).location(`/api/v1/imports/${record.id}`);
-      res.json(record);
+      if (created) reply(201, record, { Location: `/api/v1/imports/${record.id}` });
+      else reply(200, record);
     },
   }),
   defineRoute({
@@ -71,8 +68,8 @@ export const importRoutes = [
       415: { description: 'Not a multipart/form-data request.' },
       422: { description: `The file cannot be read as result data, or a reference does not exist. ${FILE_ISSUES_NOTE}` },
     },
-    async handler({ body, auth, res, ctx }) {
-      res.json(await previewImport(ctx, auth, body));
+    async handler({ body, auth, ctx, reply }) {
+      reply(200, await previewImport(ctx, auth, body));
     },
   }),
   defineRoute({
@@ -84,15 +81,8 @@ export const importRoutes = [
     access: { scope: 'samples:read' },
     query: ImportListQuerySchema,
     responses: { 200: { description: 'A page of imports.', schema: ImportListSchema } },
-    async handler({ query, auth, res, ctx }) {
-      const afterId = query.cursor ? decodeCursor<{ id: string }>(query.cursor, ['id']).id : undefined;
-      const rows = await listImportRows(ctx.db, {
-        instrumentId: query.instrument_id,
-        onlyInstrumentIds: auth.instrumentIds,
-        afterId,
-        limit: query.limit,
-      });
-      res.json(pageOf(rows, query.limit, toImport, (row) => ({ id: row.id })));
+    async handler({ query, auth, ctx, reply }) {
+      reply(200, await listImportsPage(ctx, auth, query));
     },
   }),
   defineRoute({
@@ -104,8 +94,8 @@ export const importRoutes = [
     access: { scope: 'samples:read' },
     params: ImportIdParams,
     responses: { 200: { description: 'The import.', schema: ImportSchema }, 404: { description: 'No such import.' } },
-    async handler({ params, auth, res, ctx }) {
-      res.json(await getImport(ctx, auth, params.id));
+    async handler({ params, auth, ctx, reply }) {
+      reply(200, await getImport(ctx, auth, params.id));
     },
   }),
   defineRoute({
@@ -125,9 +115,7 @@ export const importRoutes = [
       404: { description: 'No such import.' },
     },
     async handler({ params, auth, res, ctx }) {
-      const file = await findImportFile(ctx.db, params.id);
-      if (!file || (auth.instrumentIds && !auth.instrumentIds.includes(file.instrument_id)))
-        throw new NotFoundProblem(`No import ${params.id}.`);
+      const file = await getImportFile(ctx, auth, params.id);
       res.setHeader('Content-Type', file.content_type);
       res.setHeader('x-content-sha256', file.sha256);
       res.attachment(file.file_name);

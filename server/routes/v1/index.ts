@@ -8,7 +8,7 @@ import { importProfileRoutes } from './import-profiles.ts';
 import { importRoutes } from './imports.ts';
 import { instrumentRoutes } from './instruments.ts';
 import { methodRoutes } from './methods.ts';
-import { openApiRoutes } from './openapi.ts';
+import { openApiRoute } from './openapi.ts';
 import { outboxRoutes } from './outbox.ts';
 import { referenceMaterialRoutes } from './reference-materials.ts';
 import { requestLogRoutes } from './request-log.ts';
@@ -20,7 +20,7 @@ import { userRoutes } from './users.ts';
 /** Every /api/v1 operation. The OpenAPI document and the Express router are both built from this list. */
 export const v1Routes: AnyRoute[] = [
   ...healthRoutes,
-  ...openApiRoutes,
+  openApiRoute(() => v1Routes),
   ...authRoutes,
   ...userRoutes,
   ...apiKeyRoutes,

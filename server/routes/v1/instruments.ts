@@ -6,9 +6,7 @@ import {
   InstrumentSchema,
   UpdateInstrumentRequestSchema,
 } from '../../domain/instruments/instruments.schemas.ts';
-import { listInstrumentRows } from '../../domain/instruments/instruments.repository.ts';
-import { createInstrument, getInstrument, updateInstrument } from '../../domain/instruments/instruments.service.ts';
-import { decodeCursor, pageOf } from '../../http/pagination.ts';
+import { createInstrument, getInstrument, listInstrumentsPage, updateInstrument } from '../../domain/instruments/instruments.service.ts';
 import { defineRoute } from '../../http/route.ts';
 
 export const instrumentRoutes = [
@@ -22,17 +20,8 @@ export const instrumentRoutes = [
     access: { scope: 'samples:read' },
     query: InstrumentListQuerySchema,
     responses: { 200: { description: 'A page of instruments.', schema: InstrumentListSchema } },
-    async handler({ query, auth, res, ctx }) {
-      const afterCode = query.cursor ? decodeCursor<{ code: string }>(query.cursor, ['code']).code : undefined;
-      const rows = await listInstrumentRows(ctx.db, { afterCode, onlyIds: auth.instrumentIds, limit: query.limit });
-      res.json(
-        pageOf(
-          rows,
-          query.limit,
-          (row) => row,
-          (row) => ({ code: row.code }),
-        ),
-      );
+    async handler({ query, auth, ctx, reply }) {
+      reply(200, await listInstrumentsPage(ctx, auth, query));
     },
   }),
   defineRoute({
@@ -47,9 +36,9 @@ export const instrumentRoutes = [
       201: { description: 'Registered.', schema: InstrumentSchema, headers: { Location: 'The new instrument.' } },
       409: { description: 'The code is taken (codes are compared ignoring case).' },
     },
-    async handler({ body, auth, req, res, ctx }) {
+    async handler({ body, auth, req, ctx, reply }) {
       const instrument = await createInstrument(ctx, auth, body, req.requestId);
-      res.status(201).location(`/api/v1/instruments/${instrument.id}`).json(instrument);
+      reply(201, instrument, { Location: `/api/v1/instruments/${instrument.id}` });
     },
   }),
   defineRoute({
@@ -61,8 +50,8 @@ export const instrumentRoutes = [
     access: { scope: 'samples:read' },
     params: InstrumentIdParams,
     responses: { 200: { description: 'The instrument.', schema: InstrumentSchema }, 404: { description: 'No such instrument.' } },
-    async handler({ params, auth, res, ctx }) {
-      res.json(await getInstrument(ctx, auth, params.id));
+    async handler({ params, auth, ctx, reply }) {
+      reply(200, await getInstrument(ctx, auth, params.id));
     },
   }),
   defineRoute({
@@ -79,8 +68,8 @@ export const instrumentRoutes = [
       404: { description: 'No such instrument.' },
       409: { description: 'The new code is taken.' },
     },
-    async handler({ params, body, auth, req, res, ctx }) {
-      res.json(await updateInstrument(ctx, auth, params.id, body, req.requestId));
+    async handler({ params, body, auth, req, ctx, reply }) {
+      reply(200, await updateInstrument(ctx, auth, params.id, body, req.requestId));
     },
   }),
 ];

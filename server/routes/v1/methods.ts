@@ -1,4 +1,3 @@
-import { listMethods } from '../../domain/methods/methods.repository.ts';
 import {
   CreateMethodRequestSchema,
   MethodIdParams,
@@ -7,8 +6,7 @@ import {
   MethodSchema,
   UpdateMethodRequestSchema,
 } from '../../domain/methods/methods.schemas.ts';
-import { createMethod, getMethod, updateMethod } from '../../domain/methods/methods.service.ts';
-import { decodeCursor, pageOf } from '../../http/pagination.ts';
+import { createMethod, getMethod, listMethodsPage, updateMethod } from '../../domain/methods/methods.service.ts';
 import { defineRoute } from '../../http/route.ts';
 
 export const methodRoutes = [
@@ -21,17 +19,8 @@ export const methodRoutes = [
     access: { scope: 'samples:read' },
     query: MethodListQuerySchema,
     responses: { 200: { description: 'A page of methods, ordered by code.', schema: MethodListSchema } },
-    async handler({ query, res, ctx }) {
-      const afterCode = query.cursor ? decodeCursor<{ code: string }>(query.cursor, ['code']).code : undefined;
-      const methods = await listMethods(ctx.db, { matrix: query.matrix, afterCode, limit: query.limit });
-      res.json(
-        pageOf(
-          methods,
-          query.limit,
-          (m) => m,
-          (m) => ({ code: m.code }),
-        ),
-      );
+    async handler({ query, reply, ctx }) {
+      reply(200, await listMethodsPage(ctx, query));
     },
   }),
   defineRoute({
@@ -46,9 +35,9 @@ export const methodRoutes = [
       201: { description: 'Defined.', schema: MethodSchema, headers: { Location: 'The new method.' } },
       409: { description: 'The code is taken (codes are compared ignoring case).' },
     },
-    async handler({ body, auth, req, res, ctx }) {
+    async handler({ body, auth, req, reply, ctx }) {
       const method = await createMethod(ctx, auth, body, req.requestId);
-      res.status(201).location(`/api/v1/methods/${method.id}`).json(method);
+      reply(201, method, { Location: `/api/v1/methods/${method.id}` });
     },
   }),
   defineRoute({
@@ -60,8 +49,8 @@ export const methodRoutes = [
     access: { scope: 'samples:read' },
     params: MethodIdParams,
     responses: { 200: { description: 'The method.', schema: MethodSchema }, 404: { description: 'No such method.' } },
-    async handler({ params, res, ctx }) {
-      res.json(await getMethod(ctx, params.id));
+    async handler({ params, reply, ctx }) {
+      reply(200, await getMethod(ctx, params.id));
     },
   }),
   defineRoute({
@@ -75,8 +64,8 @@ export const methodRoutes = [
     params: MethodIdParams,
     body: UpdateMethodRequestSchema,
     responses: { 200: { description: 'The updated method.', schema: MethodSchema }, 404: { description: 'No such method.' } },
-    async handler({ params, body, auth, req, res, ctx }) {
-      res.json(await updateMethod(ctx, auth, params.id, body, req.requestId));
+    async handler({ params, body, auth, req, reply, ctx }) {
+      reply(200, await updateMethod(ctx, auth, params.id, body, req.requestId));
     },
   }),
 ];

@@ -1,12 +1,12 @@
 import { defineRoute } from '../../http/route.ts';
 import { buildOpenApiDocument } from '../../openapi/document.ts';
-import { z } from '../../openapi/zod.ts';
-import { v1Routes } from './index.ts';
+import { z } from '../../lib/zod.ts';
+import type { AnyRoute } from '../../http/route.ts';
 
-let document: ReturnType<typeof buildOpenApiDocument> | undefined;
-
-export const openApiRoutes = [
-  defineRoute({
+/** The document route; `routes` gives the operations it documents (itself included). */
+export function openApiRoute(routes: () => AnyRoute[]): AnyRoute {
+  let document: ReturnType<typeof buildOpenApiDocument> | undefined;
+  return defineRoute({
     method: 'get',
     path: '/openapi.json',
     operationId: 'getOpenApiDocument',
@@ -15,10 +15,10 @@ export const openApiRoutes = [
     tag: 'System',
     access: 'public',
     responses: { 200: { description: 'The document.', schema: z.looseObject({}).openapi({ description: 'An OpenAPI 3.1 document.' }) } },
-    handler({ res }) {
+    handler({ reply }) {
       // Built on first use: the route list it describes includes this route.
-      document ??= buildOpenApiDocument(v1Routes);
-      res.json(document);
+      document ??= buildOpenApiDocument(routes());
+      reply(200, { ...document });
     },
-  }),
-];
+  });
+}

@@ -1,6 +1,6 @@
-import { NotFoundProblem } from '../../http/problem.ts';
+import { NotFoundProblem } from '../../lib/problems.ts';
 import { defineRoute } from '../../http/route.ts';
-import { z } from '../../openapi/zod.ts';
+import { z } from '../../lib/zod.ts';
 
 const CapturedMailSchema = z
   .object({
@@ -27,9 +27,9 @@ export const outboxRoutes = [
       200: { description: 'Newest first.', schema: z.object({ data: z.array(CapturedMailSchema) }).openapi('Outbox') },
       404: { description: 'Mail goes to a real SMTP server; there is no outbox.' },
     },
-    handler({ res, ctx }) {
+    handler({ ctx, reply }) {
       if (!ctx.outbox) throw new NotFoundProblem('Mail goes to a real SMTP server; there is no outbox.');
-      res.json({ data: ctx.outbox.messages() });
+      reply(200, { data: ctx.outbox.messages() });
     },
   }),
 ];

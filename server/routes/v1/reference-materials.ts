@@ -5,9 +5,12 @@ import {
   ReferenceMaterialListSchema,
   ReferenceMaterialSchema,
 } from '../../domain/drift/reference-materials.schemas.ts';
-import { codeKey, listReferenceMaterials } from '../../domain/drift/reference-materials.repository.ts';
-import { createReferenceMaterial, getReferenceMaterial, toReferenceMaterialView } from '../../domain/drift/reference-materials.service.ts';
-import { decodeCursor, pageOf } from '../../http/pagination.ts';
+import {
+  createReferenceMaterial,
+  getReferenceMaterial,
+  listReferenceMaterialsPage,
+  toReferenceMaterialView,
+} from '../../domain/drift/reference-materials.service.ts';
 import { defineRoute } from '../../http/route.ts';
 
 export const referenceMaterialRoutes = [
@@ -21,10 +24,8 @@ export const referenceMaterialRoutes = [
     access: { scope: 'standardizations:read' },
     query: ReferenceMaterialListQuerySchema,
     responses: { 200: { description: 'A page of reference materials.', schema: ReferenceMaterialListSchema } },
-    async handler({ query, res, ctx }) {
-      const afterCode = query.cursor ? decodeCursor<{ code: string }>(query.cursor, ['code']).code : undefined;
-      const rows = await listReferenceMaterials(ctx.db, { matrix: query.matrix, kind: query.kind, afterCode, limit: query.limit });
-      res.json(pageOf(rows, query.limit, toReferenceMaterialView, (row) => ({ code: codeKey(row.code) })));
+    async handler({ query, ctx, reply }) {
+      reply(200, await listReferenceMaterialsPage(ctx, query));
     },
   }),
   defineRoute({
@@ -41,9 +42,9 @@ export const referenceMaterialRoutes = [
       201: { description: 'Registered.', schema: ReferenceMaterialSchema, headers: { Location: 'The new reference material.' } },
       409: { description: 'The code is taken (codes are compared ignoring case).' },
     },
-    async handler({ body, auth, req, res, ctx }) {
+    async handler({ body, auth, req, ctx, reply }) {
       const material = await createReferenceMaterial(ctx, auth, body, req.requestId);
-      res.status(201).location(`/api/v1/reference-materials/${material.id}`).json(toReferenceMaterialView(material));
+      reply(201, toReferenceMaterialView(material), { Location: `/api/v1/reference-materials/${material.id}` });
     },
   }),
   defineRoute({
@@ -58,8 +59,8 @@ export const referenceMaterialRoutes = [
       200: { description: 'The reference material.', schema: ReferenceMaterialSchema },
       404: { description: 'No such reference material.' },
     },
-    async handler({ params, res, ctx }) {
-      res.json(toReferenceMaterialView(await getReferenceMaterial(ctx, params.id)));
+    async handler({ params, ctx, reply }) {
+      reply(200, toReferenceMaterialView(await getReferenceMaterial(ctx, params.id)));
     },
   }),
 ];

@@ -1,4 +1,4 @@
-import { replayEntry } from '../../domain/request-log/replay.ts';
+import { replayEntry } from '../../http/replay.ts';
 import {
   RequestLogEntrySchema,
   RequestLogIdParams,
@@ -24,8 +24,8 @@ export const requestLogRoutes = [
     access: { scope: 'request-log:read' },
     query: RequestLogQuerySchema,
     responses: { 200: { description: 'A page of calls.', schema: RequestLogListSchema } },
-    async handler({ query, auth, res, ctx }) {
-      res.json(await listEntries(ctx, auth, query));
+    async handler({ query, auth, ctx, reply }) {
+      reply(200, await listEntries(ctx, auth, query));
     },
   }),
   defineRoute({
@@ -38,8 +38,8 @@ export const requestLogRoutes = [
     access: { scope: 'request-log:read' },
     params: RequestLogIdParams,
     responses: { 200: { description: 'The call.', schema: RequestLogEntrySchema }, 404: { description: 'No such entry, or not yours.' } },
-    async handler({ params, auth, res, ctx }) {
-      res.json(toEntry(await getVisibleEntry(ctx, auth, params.id), ctx.config.requestLogBodyLimit));
+    async handler({ params, auth, ctx, reply }) {
+      reply(200, toEntry(await getVisibleEntry(ctx, auth, params.id), ctx.config.requestLogBodyLimit));
     },
   }),
   defineRoute({
@@ -63,11 +63,11 @@ export const requestLogRoutes = [
       404: { description: 'No such entry, or not yours.' },
       422: { description: 'This entry cannot be replayed; `detail` says why.' },
     },
-    async handler({ params, auth, req, res, ctx }) {
+    async handler({ params, auth, req, ctx, reply }) {
       const original = await getVisibleEntry(ctx, auth, params.id);
       const replayId = await replayEntry(ctx, req, original);
       const entry = await getVisibleEntry(ctx, auth, replayId);
-      res.status(201).location(`/api/v1/request-log/${replayId}`).json(toEntry(entry, ctx.config.requestLogBodyLimit));
+      reply(201, toEntry(entry, ctx.config.requestLogBodyLimit), { Location: `/api/v1/request-log/${replayId}` });
     },
   }),
 ];

@@ -24,9 +24,9 @@ export const sampleRecomputeRoutes = [
       409: { description: 'The sample is released.' },
       422: { description: 'The set does not exist, is a draft, or belongs to another instrument or method.' },
     },
-    async handler({ params, body, auth, req, res, ctx }) {
+    async handler({ params, body, auth, req, ctx, reply }) {
       await recomputeSample(ctx, auth, params.id, body, req.requestId);
-      res.json(await loadSampleDetail(ctx.db, auth, params.id, '%'));
+      reply(200, await loadSampleDetail(ctx.db, auth, params.id, '%'));
     },
   }),
 ];

@@ -1,4 +1,3 @@
-import { listSampleRows, type SampleOrder } from '../../domain/samples/samples.repository.ts';
 import {
   BurnParams,
   PushSampleBatchRequestSchema,
@@ -12,14 +11,10 @@ import {
   UnitQuerySchema,
 } from '../../domain/samples/samples.schemas.ts';
 import { pushSamples, setBurnExclusion } from '../../domain/samples/samples.service.ts';
-import { loadSampleDetail, toSampleSummary } from '../../domain/samples/sample-view.ts';
+import { loadSampleDetail } from '../../domain/samples/sample-view.ts';
+import { CSV_MAX_ROWS, exportSamplesCsv, listSamplesPage } from '../../domain/samples/sample-lists.ts';
 import { RESULTS_DESCRIPTION } from '../../domain/samples/results-docs.ts';
-import { samplesToCsv } from '../../domain/samples/samples-csv.ts';
-import { decodeCursor, pageOf } from '../../http/pagination.ts';
-import { UnprocessableProblem } from '../../http/problem.ts';
-import { z } from '../../openapi/zod.ts';
-
-const CSV_MAX_ROWS = 100_000;
+import { z } from '../../lib/zod.ts';
 import { defineRoute } from '../../http/route.ts';
 
 export const sampleRoutes = [
@@ -35,19 +30,8 @@ export const sampleRoutes = [
     access: { scope: 'samples:read' },
     query: SampleListQuerySchema,
     responses: { 200: { description: 'A page of samples (burns are on the single-sample endpoint).', schema: SampleListSchema } },
-    async handler({ query, auth, res, ctx }) {
-      const by = query.updated_since ? 'updated_asc' : 'created_desc';
-      const after = query.cursor ? decodeCursor<{ by: string; t: string; id: string }>(query.cursor, ['by', 't', 'id']) : undefined;
-      const order = { by, after: after && after.by === by ? after : undefined } as SampleOrder;
-      const rows = await listSampleRows(ctx.db, { ...query, onlyInstrumentIds: auth.instrumentIds }, order, query.limit);
-      res.json(
-        pageOf(
-          rows,
-          query.limit,
-          (row) => toSampleSummary(row, query.unit),
-          (row) => ({ by, t: by === 'updated_asc' ? row.updated_at : row.created_at, id: row.id }),
-        ),
-      );
+    async handler({ query, auth, ctx, reply }) {
+      reply(200, await listSamplesPage(ctx, auth, query));
     },
   }),
   defineRoute({
@@ -64,18 +48,10 @@ export const sampleRoutes = [
       422: { description: `More than ${CSV_MAX_ROWS} samples match: narrow the filters.` },
     },
     async handler({ query, auth, res, ctx }) {
-      const by = query.updated_since ? 'updated_asc' : 'created_desc';
-      const rows = await listSampleRows(ctx.db, { ...query, onlyInstrumentIds: auth.instrumentIds }, { by } as SampleOrder, CSV_MAX_ROWS);
-      if (rows.length > CSV_MAX_ROWS)
-        throw new UnprocessableProblem(`More than ${CSV_MAX_ROWS} samples match: narrow the filters (e.g. created_from/created_to).`);
+      const csv = await exportSamplesCsv(ctx, auth, query);
       res.type('text/csv; charset=utf-8');
       res.attachment(`samples-${new Date().toISOString().slice(0, 10)}.csv`);
-      res.send(
-        samplesToCsv(
-          rows.map((row) => toSampleSummary(row, query.unit)),
-          query.unit,
-        ),
-      );
+      res.send(csv);
     },
   }),
   defineRoute({
@@ -92,12 +68,9 @@ export const sampleRoutes = [
       201: { description: 'Stored, with results computed.', schema: SampleSchema, headers: { Location: 'The new sample.' } },
       422: { description: 'The instrument or method does not exist.' },
     },
-    async handler({ body, auth, req, res, ctx }) {
+    async handler({ body, auth, req, ctx, reply }) {
       const [id] = await pushSamples(ctx, auth, [body], false, req.requestId);
-      res
-        .status(201)
-        .location(`/api/v1/samples/${id}`)
-        .json(await loadSampleDetail(ctx.db, auth, id, '%'));
+      reply(201, await loadSampleDetail(ctx.db, auth, id, '%'), { Location: `/api/v1/samples/${id}` });
     },
   }),
   defineRoute({
@@ -113,11 +86,11 @@ export const sampleRoutes = [
       201: { description: 'All stored, in request order.', schema: SampleBatchResponseSchema },
       422: { description: 'An instrument or method does not exist.' },
     },
-    async handler({ body, auth, req, res, ctx }) {
+    async handler({ body, auth, req, ctx, reply }) {
       const ids = await pushSamples(ctx, auth, body.samples, true, req.requestId);
       const data = [];
       for (const id of ids) data.push(await loadSampleDetail(ctx.db, auth, id, '%'));
-      res.status(201).json({ data });
+      reply(201, { data });
     },
   }),
   defineRoute({
@@ -131,8 +104,8 @@ export const sampleRoutes = [
     params: SampleIdParams,
     query: UnitQuerySchema,
     responses: { 200: { description: 'The sample.', schema: SampleSchema }, 404: { description: 'No such sample.' } },
-    async handler({ params, query, auth, res, ctx }) {
-      res.json(await loadSampleDetail(ctx.db, auth, params.id, query.unit));
+    async handler({ params, query, auth, ctx, reply }) {
+      reply(200, await loadSampleDetail(ctx.db, auth, params.id, query.unit));
     },
   }),
   defineRoute({
@@ -151,9 +124,9 @@ export const sampleRoutes = [
       404: { description: 'No such sample or burn.' },
       409: { description: 'The sample is released, or this is its only included burn.' },
     },
-    async handler({ params, body, auth, req, res, ctx }) {
+    async handler({ params, body, auth, req, ctx, reply }) {
       await setBurnExclusion(ctx, auth, params.id, params.n, body, req.requestId);
-      res.json(await loadSampleDetail(ctx.db, auth, params.id, '%'));
+      reply(200, await loadSampleDetail(ctx.db, auth, params.id, '%'));
     },
   }),
 ];

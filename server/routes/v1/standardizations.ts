@@ -1,6 +1,6 @@
 import { activateStandardization } from '../../domain/drift/activation.service.ts';
 import { CORRECTION_FLAGS_DOC, CORRECTION_MATH_DOC } from '../../domain/drift/drift-docs.ts';
-import { toStandardizationViews } from '../../domain/drift/standardization-view.ts';
+import { listStandardizationsPage } from '../../domain/drift/standardization-view.ts';
 import {
   ActivateStandardizationRequestSchema,
   CreateStandardizationRequestSchema,
@@ -10,10 +10,7 @@ import {
   StandardizationListSchema,
   StandardizationSchema,
 } from '../../domain/drift/standardizations.schemas.ts';
-import { listStandardizationRows } from '../../domain/drift/standardizations.repository.ts';
 import { createStandardization, getStandardization } from '../../domain/drift/standardizations.service.ts';
-import { getInstrument } from '../../domain/instruments/instruments.service.ts';
-import { decodeCursor, encodeCursor } from '../../http/pagination.ts';
 import { defineRoute } from '../../http/route.ts';
 
 export const standardizationRoutes = [
@@ -41,9 +38,9 @@ export const standardizationRoutes = [
           'Unknown method or reference material; references that do not fit the mode (e.g. two_point without a high and a low, a control sample, another matrix); or no correction can be computed for an element (H = L): `errors[]` names each.',
       },
     },
-    async handler({ params, body, auth, req, res, ctx }) {
+    async handler({ params, body, auth, req, ctx, reply }) {
       const run = await createStandardization(ctx, auth, params.id, body, req.requestId);
-      res.status(201).location(`/api/v1/standardizations/${run.id}`).json(run);
+      reply(201, run, { Location: `/api/v1/standardizations/${run.id}` });
     },
   }),
   defineRoute({
@@ -57,20 +54,8 @@ export const standardizationRoutes = [
     params: InstrumentStandardizationParams,
     query: StandardizationListQuerySchema,
     responses: { 200: { description: 'A page of runs.', schema: StandardizationListSchema }, 404: { description: 'No such instrument.' } },
-    async handler({ params, query, auth, res, ctx }) {
-      await getInstrument(ctx, auth, params.id);
-      const after = query.cursor ? decodeCursor<{ t: string; id: string }>(query.cursor, ['t', 'id']) : undefined;
-      const rows = await listStandardizationRows(
-        ctx.db,
-        { instrumentId: params.id, methodId: query.method_id, status: query.status, flag: query.flag, after },
-        query.limit,
-      );
-      const page = rows.slice(0, query.limit);
-      const last = page[page.length - 1];
-      res.json({
-        data: await toStandardizationViews(ctx.db, page),
-        next_cursor: rows.length > query.limit ? encodeCursor({ t: last.measured_at, id: last.id }) : null,
-      });
+    async handler({ params, query, auth, ctx, reply }) {
+      reply(200, await listStandardizationsPage(ctx, auth, params.id, query));
     },
   }),
   defineRoute({
@@ -82,8 +67,8 @@ export const standardizationRoutes = [
     access: { scope: 'standardizations:read' },
     params: StandardizationIdParams,
     responses: { 200: { description: 'The run.', schema: StandardizationSchema }, 404: { description: 'No such standardization.' } },
-    async handler({ params, auth, res, ctx }) {
-      res.json(await getStandardization(ctx, auth, params.id));
+    async handler({ params, auth, ctx, reply }) {
+      reply(200, await getStandardization(ctx, auth, params.id));
     },
   }),
   defineRoute({
@@ -107,8 +92,8 @@ export const standardizationRoutes = [
       },
       422: { description: '`effective_from` is in the past.' },
     },
-    async handler({ params, body, auth, req, res, ctx }) {
-      res.json(await activateStandardization(ctx, auth, params.id, body ?? {}, req.requestId));
+    async handler({ params, body, auth, req, ctx, reply }) {
+      reply(200, await activateStandardization(ctx, auth, params.id, body ?? {}, req.requestId));
     },
   }),
 ];

@@ -1,5 +1,4 @@
 import { actorOf } from '../../domain/audit/actor.ts';
-import { listUserRows, toUser } from '../../domain/users/users.repository.ts';
 import {
   InvitedUserSchema,
   InviteUserRequestSchema,
@@ -10,8 +9,7 @@ import {
   UserListSchema,
   UserSchema,
 } from '../../domain/users/users.schemas.ts';
-import { getUser, inviteUser, resendInvitation, updateUser } from '../../domain/users/users.service.ts';
-import { decodeCursor, pageOf } from '../../http/pagination.ts';
+import { getUser, inviteUser, listUsersPage, resendInvitation, updateUser } from '../../domain/users/users.service.ts';
 import { defineRoute } from '../../http/route.ts';
 
 export const userRoutes = [
@@ -24,10 +22,8 @@ export const userRoutes = [
     access: { scope: 'users:read' },
     query: UserListQuerySchema,
     responses: { 200: { description: 'A page of users.', schema: UserListSchema } },
-    async handler({ query, res, ctx }) {
-      const afterId = query.cursor ? decodeCursor<{ id: string }>(query.cursor, ['id']).id : undefined;
-      const rows = await listUserRows(ctx.db, { role: query.role, status: query.status, afterId, limit: query.limit });
-      res.json(pageOf(rows, query.limit, toUser, (row) => ({ id: row.id })));
+    async handler({ query, ctx, reply }) {
+      reply(200, await listUsersPage(ctx, query));
     },
   }),
   defineRoute({
@@ -44,9 +40,9 @@ export const userRoutes = [
       201: { description: 'Invited.', schema: InvitedUserSchema, headers: { Location: 'The new user.' } },
       409: { description: 'A user with this e-mail exists (e-mails are compared ignoring case).' },
     },
-    async handler({ body, auth, req, res, ctx }) {
+    async handler({ body, auth, req, ctx, reply }) {
       const result = await inviteUser(ctx, body, { actor: actorOf(auth), requestId: req.requestId });
-      res.status(201).location(`/api/v1/users/${result.user.id}`).json(result);
+      reply(201, result, { Location: `/api/v1/users/${result.user.id}` });
     },
   }),
   defineRoute({
@@ -58,8 +54,8 @@ export const userRoutes = [
     access: { scope: 'users:read' },
     params: UserIdParams,
     responses: { 200: { description: 'The user.', schema: UserSchema }, 404: { description: 'No such user.' } },
-    async handler({ params, res, ctx }) {
-      res.json(await getUser(ctx, params.id));
+    async handler({ params, ctx, reply }) {
+      reply(200, await getUser(ctx, params.id));
     },
   }),
   defineRoute({
@@ -77,8 +73,8 @@ export const userRoutes = [
       404: { description: 'No such user.' },
       409: { description: 'The change would leave no active admin, or the user has not accepted the invitation.' },
     },
-    async handler({ params, body, auth, req, res, ctx }) {
-      res.json(await updateUser(ctx, params.id, body, { actor: actorOf(auth), requestId: req.requestId }));
+    async handler({ params, body, auth, req, ctx, reply }) {
+      reply(200, await updateUser(ctx, params.id, body, { actor: actorOf(auth), requestId: req.requestId }));
     },
   }),
   defineRoute({
@@ -95,8 +91,8 @@ export const userRoutes = [
       404: { description: 'No such user.' },
       409: { description: 'The user has already accepted.' },
     },
-    async handler({ params, auth, req, res, ctx }) {
-      res.status(202).json(await resendInvitation(ctx, params.id, { actor: actorOf(auth), requestId: req.requestId }));
+    async handler({ params, auth, req, ctx, reply }) {
+      reply(202, await resendInvitation(ctx, params.id, { actor: actorOf(auth), requestId: req.requestId }));
     },
   }),
 ];

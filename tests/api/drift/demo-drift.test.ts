@@ -1,7 +1,7 @@
 // The demo scenario's drift history: weeks of runs per instrument, one warn and one fail each,
 // the latest good run in force, and every demo sample recording the set it was corrected with.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import request from 'supertest';
+import type request from 'supertest';
 import { seedDemoIfEmpty } from '../../../server/seed/demo.ts';
 import { createTestApp, signedInAgent, type TestApp } from '../../helpers/test-app.ts';
 

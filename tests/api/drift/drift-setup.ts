@@ -1,7 +1,7 @@
 // Shared setup of the drift API tests: the demo lab, a small Fe-base method with three elements
 // and σr set, a high and a low reference for it, and signed-in users of each role that matters.
 // All values are invented.
-import request from 'supertest';
+import type request from 'supertest';
 import type { DemoLab } from '../../../server/seed/demo-lab.ts';
 import { seedDemoLab, signedInAgent, type TestApp } from '../../helpers/test-app.ts';
 

@@ -2,7 +2,7 @@
 // codes unique ignoring case, duplicates named, read access for viewers only.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, expectProblem, problemBody, signedInAgent, type TestApp } from '../../helpers/test-app.ts';
-import request from 'supertest';
+import type request from 'supertest';
 
 let t: TestApp;
 let analyst: request.Agent;

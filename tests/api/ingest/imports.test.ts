@@ -4,7 +4,7 @@ import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { Decimal } from 'decimal.js';
 import fc from 'fast-check';
-import request from 'supertest';
+import type request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { wideCsv } from '../../../bench/generate-wide-file.ts';
 import type { DemoLab } from '../../../server/seed/demo-lab.ts';

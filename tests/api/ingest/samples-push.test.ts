@@ -1,7 +1,7 @@
 // JSON push, reading samples back, units, burn exclusion, lists and the CSV export.
 import { Decimal } from 'decimal.js';
 import { sampleStandardDeviation } from 'simple-statistics';
-import request from 'supertest';
+import type request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { DemoLab } from '../../../server/seed/demo-lab.ts';
 import { createTestApp, expectProblem, problemBody, seedDemoLab, signedInAgent, type TestApp } from '../../helpers/test-app.ts';

@@ -8,7 +8,7 @@ import {
 } from '../../../server/domain/chemistry/repeatability.ts';
 
 // ISO 5725-6:1994 Table 1, critical range factors f(n) to one decimal. n = 2…6 as listed in
-// /work/shared/REFERENCES.md (read); n = 7…20 from memory.
+// docs/references.md#repeatability (read); n = 7…20 from memory.
 const ISO_5725_6_TABLE_1: Record<number, number> = {
   2: 2.8,
   3: 3.3,
@@ -41,7 +41,7 @@ describe('ISO 5725-6 critical range factors', () => {
   });
 
   it.each(ns)("f(%i) is jstat's studentized range quantile q(0.95; n, ∞) to two decimals", (n) => {
-    // jstat 1.9.6: jStat.tukey.inv(p, nmeans, df); df = Infinity as in REFERENCES.md.
+    // jstat 1.9.6: jStat.tukey.inv(p, nmeans, df); df = Infinity as in docs/references.md#repeatability.
     const quantile = jStat.tukey.inv(0.95, n, Infinity);
     expect(Math.abs(Number(CRITICAL_RANGE_FACTORS[n]) - quantile)).toBeLessThanOrEqual(0.005);
     expect(CRITICAL_RANGE_FACTORS[n]).toMatch(/^\d\.\d\d$/);
@@ -52,11 +52,11 @@ describe('ISO 5725-6 critical range factors', () => {
     expect(Math.round(quantile * 10) / 10).toBe(ISO_5725_6_TABLE_1[n]);
   });
 
-  it('matches the values quoted in REFERENCES.md for n = 2…6', () => {
+  it('matches the values in docs/references.md for n = 2…6', () => {
     expect([2, 3, 4, 5, 6].map((n) => CRITICAL_RANGE_FACTORS[n])).toEqual(['2.77', '3.31', '3.63', '3.86', '4.03']);
   });
 
-  it('f(2) is the repeatability-limit factor 1.96·√2 = 2.772 (REFERENCES.md, ISO 5725)', () => {
+  it('f(2) is the repeatability-limit factor 1.96·√2 = 2.772 (ISO 5725)', () => {
     // For two results the studentized range reduces to √2 times the normal quantile z(0.975).
     const z = jStat.normal.inv(0.975, 0, 1);
     expect(z).toBeCloseTo(1.959964, 6);

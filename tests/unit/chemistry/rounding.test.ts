@@ -23,7 +23,7 @@ function bigIntHalfEven(value: string, decimals: number): string {
 
 describe('roundHalfEven', () => {
   // ASTM E29 / ISO 80000-1 Annex B rule A pairs, as listed (and checked with decimal.js) in
-  // /work/shared/REFERENCES.md "Rounding for conformance".
+  // docs/references.md#rounding.
   it.each([
     ['56.748', 1, '56.7'],
     ['2.146', 2, '2.15'],
@@ -39,7 +39,7 @@ describe('roundHalfEven', () => {
     expect(roundHalfEven(value, decimals)).toBe(expected);
   });
 
-  it('does not fall into the toFixed traps (REFERENCES.md: JavaScript floats)', () => {
+  it('does not fall into the toFixed traps (JavaScript floats)', () => {
     // The traps are real in this runtime: binary 12.35 is 12.3499…, binary 42.85 is 42.850000…01.
     expect((12.35).toFixed(1)).toBe('12.3');
     expect((42.85).toFixed(1)).toBe('42.9');

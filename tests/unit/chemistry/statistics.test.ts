@@ -18,7 +18,7 @@ function naiveSd(values: number[]): number {
 
 describe('summarise against NIST StRD univariate certified values', () => {
   // Certified values: NIST StRD (https://www.itl.nist.gov/div898/strd/univ/), copied in
-  // /work/shared/REFERENCES.md; data: tests/fixtures/nist-strd-univariate.ts (sources named there).
+  // docs/references.md#statistics; data: tests/fixtures/nist-strd-univariate.ts (sources named there).
   // The mean is exact (decimal), so it must equal the certified value digit for digit. The SD is a
   // double: NIST calls 15 correct digits certified; we ask for 1e-13 relative.
   it.each(STRD_DATASETS.map((dataset) => [dataset.name, dataset] as const))('%s', (_name, dataset) => {
@@ -37,7 +37,7 @@ describe('summarise against NIST StRD univariate certified values', () => {
   });
 
   it('stays accurate on doubles too (the path for values that are not plain decimals)', () => {
-    // NumAcc4 through sampleStandardDeviation on doubles: REFERENCES.md says doubles reach about
+    // NumAcc4 through sampleStandardDeviation on doubles: docs/references.md#statistics says doubles reach about
     // 1e-7 relative on NumAcc4 and 1e-9 on NumAcc3 with a two-pass algorithm.
     const acc3 = STRD_DATASETS.find((dataset) => dataset.name === 'NumAcc3')!;
     const acc4 = STRD_DATASETS.find((dataset) => dataset.name === 'NumAcc4')!;
@@ -47,7 +47,7 @@ describe('summarise against NIST StRD univariate certified values', () => {
 });
 
 describe('exact mean', () => {
-  it('gives the exact tie that half-even rounding needs: mean(12.3, 12.4) = 12.35 (REFERENCES.md)', () => {
+  it('gives the exact tie that half-even rounding needs: mean(12.3, 12.4) = 12.35', () => {
     expect(exactMean(['12.3', '12.4'])).toBe('12.35');
     expect((12.3 + 12.4) / 2).not.toBe(12.35); // binary floats: 12.350000000000001
   });

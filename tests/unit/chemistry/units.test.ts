@@ -5,7 +5,7 @@ import { fromPercent, parseUnit, toPercent } from '../../../server/domain/chemis
 import { decimalString } from '../../helpers/decimal-arbitrary.ts';
 
 describe('mass-fraction conversions (SI brochure; NIST SP 811 §7.10)', () => {
-  // SP 811 / REFERENCES.md: 1 % = 0.01 = 10 g/kg = 10 000 mg/kg ("ppm") = 10 000 µg/g;
+  // SP 811 (docs/references.md#units): 1 % = 0.01 = 10 g/kg = 10 000 mg/kg ("ppm") = 10 000 µg/g;
   // 1 mg/kg = 0.0001 %; 1 µg/kg ("ppb") = 0.0000001 %.
   it('relates %, ppm, ppb and mass fraction exactly', () => {
     expect(fromPercent('1', 'ppm')).toBe('10000');

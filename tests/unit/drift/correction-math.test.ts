@@ -1,5 +1,5 @@
 // The arithmetic of drift correction, checked against decimal.js used independently here.
-// Math as practised (REFERENCES.md "Drift correction", from memory): two-point α = (H⁰ − L⁰)/(H − L),
+// Math as practised (docs/references.md#drift-correction, from memory): two-point α = (H⁰ − L⁰)/(H − L),
 // β = L⁰ − α·L; one-point factor α = N/M; one-point offset β = N − M.
 import { Decimal } from 'decimal.js';
 import fc from 'fast-check';

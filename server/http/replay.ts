@@ -3,12 +3,12 @@
 import type { RequestListener } from 'node:http';
 import type { Request } from 'express';
 import inject from 'light-my-request';
-import type { AppContext } from '../../context.ts';
-import { REPLAY_TOKEN_HEADER } from '../../http/request-log.ts';
-import { UnprocessableProblem } from '../../http/problem.ts';
-import { recorderFor } from './recorder.ts';
-import type { RequestLogRow } from './request-log.repository.ts';
-import { notReplayableReason } from './request-log.service.ts';
+import type { AppContext } from '../context.ts';
+import { REPLAY_TOKEN_HEADER } from './request-log.ts';
+import { UnprocessableProblem } from '../lib/problems.ts';
+import { recorderFor } from '../domain/request-log/recorder.ts';
+import type { RequestLogRow } from '../domain/request-log/request-log.repository.ts';
+import { notReplayableReason } from '../domain/request-log/request-log.service.ts';
 
 /** Logged request headers sent again; credentials come from the replay request instead. */
 const REPLAYED_HEADERS = ['content-type', 'accept', 'idempotency-key'];

@@ -3,7 +3,7 @@
 import { createHash, type Hash } from 'node:crypto';
 import { createReadStream } from 'node:fs';
 import type { Request } from 'express';
-import { uploadedFiles } from '../../http/uploaded-files.ts';
+import { uploadedFiles } from './uploaded-files.ts';
 
 /** JSON with object keys sorted, so {a,b} and {b,a} hash alike. */
 export function canonicalJson(value: unknown): string {

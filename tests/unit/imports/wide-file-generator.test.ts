@@ -1,6 +1,5 @@
-// The benchmark's generated file: deterministic, shaped as promised, and parsed completely and
-// quickly. The time bound is loose on purpose (shared CI machines); bench/parse-wide-file.ts
-// prints the real figure.
+// The benchmark's generated file: deterministic, shaped as promised, and parsed completely.
+// How fast is the bench's question (bench/parse-wide-file.ts), never a unit test's.
 import { Decimal } from 'decimal.js';
 import { describe, expect, it } from 'vitest';
 import { WIDE_FILE_ELEMENTS, wideCsv } from '../../../bench/generate-wide-file.ts';
@@ -26,9 +25,7 @@ describe('bench/generate-wide-file.ts', () => {
 
   it('20,000 burns parse into 500,000 values equal to the cells as written', () => {
     const text = wideCsv(20_000);
-    const start = performance.now();
     const parsed = parseResultFile(Buffer.from(text));
-    const ms = performance.now() - start;
     expect(parsed.counts).toEqual({ rows: 20_000, burns: 20_000, values: 500_000 });
     expect(parsed.samples).toHaveLength(6667);
     expect(parsed.rejected).toEqual([]);
@@ -36,7 +33,5 @@ describe('bench/generate-wide-file.ts', () => {
     const line = text.split('\n')[12_346].split(',');
     const burn = parsed.samples.flatMap((s) => s.burns).find((b) => b.line === 12_347)!;
     WIDE_FILE_ELEMENTS.forEach((symbol, i) => expect(burn.values[symbol].value).toBe(new Decimal(line[6 + i]).toFixed()));
-    console.info(`parsed 20,000 burns × 25 elements in ${Math.round(ms)} ms`);
-    expect(ms).toBeLessThan(5000);
   });
 });

@@ -1,12 +1,10 @@
 // What the request log keeps of a body: redacted first, then cut at the configured number of
 // bytes. Multipart uploads are described (field, file name, size, type), never stored.
 import type { Request } from 'express';
-import type { CapturedBody } from '../../http/response-capture.ts';
-import { uploadedFiles } from '../../http/uploaded-files.ts';
-import { redactJson, redactText } from './redact.ts';
-
-export const BODY_KINDS = ['none', 'json', 'text', 'multipart', 'binary', 'unread'] as const;
-export type BodyKind = (typeof BODY_KINDS)[number];
+import type { CapturedBody } from './response-capture.ts';
+import { uploadedFiles } from './uploaded-files.ts';
+import type { BodyKind } from '../domain/request-log/body-kinds.ts';
+import { redactJson, redactText } from '../domain/request-log/redact.ts';
 
 export interface BodySnapshot {
   kind: BodyKind;

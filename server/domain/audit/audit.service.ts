@@ -1,0 +1,17 @@
+// Reading the audit trail. Writing it is recordAudit, inside each change's own transaction.
+import type { AppContext } from '../../context.ts';
+import type { z } from '../../lib/zod.ts';
+import { listAudit } from './audit.repository.ts';
+import type { AuditQuerySchema } from './audit.schemas.ts';
+
+export function listAuditPage(ctx: AppContext, query: z.output<typeof AuditQuerySchema>) {
+  const filters = {
+    actorId: query.actor_id,
+    action: query.action,
+    targetType: query.target_type,
+    targetId: query.target_id,
+    since: query.since,
+    until: query.until,
+  };
+  return listAudit(ctx.db, filters, query);
+}
