@@ -5,7 +5,7 @@ import type { AppContext } from './context.ts';
 import { purgeExpiredIdempotencyKeys } from './domain/idempotency/idempotency.repository.ts';
 import { purgeRequestLog } from './domain/request-log/retention.ts';
 
-export const HOUSEKEEPING_INTERVAL_MS = 60 * 60_000;
+const HOUSEKEEPING_INTERVAL_MS = 60 * 60_000;
 
 export interface Housekeeping {
   /** The sweep started at start; resolves when it is done. */

@@ -6,7 +6,7 @@ import type { Request } from 'express';
 import { uploadedFiles } from './uploaded-files.ts';
 
 /** JSON with object keys sorted, so {a,b} and {b,a} hash alike. */
-export function canonicalJson(value: unknown): string {
+function canonicalJson(value: unknown): string {
   if (Array.isArray(value)) return `[${value.map(canonicalJson).join(',')}]`;
   if (value && typeof value === 'object' && !Buffer.isBuffer(value)) {
     const entries = Object.entries(value as Record<string, unknown>)

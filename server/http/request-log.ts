@@ -13,7 +13,7 @@ import { nowIso } from '../lib/time.ts';
 import { captureResponse } from './response-capture.ts';
 
 /** Paths below /api/v1 that are not recorded. */
-export const NOT_LOGGED = new Set(['/health', '/openapi.json']);
+const NOT_LOGGED = new Set(['/health', '/openapi.json']);
 /** Carries a replay's one-time token from the replay endpoint to the replayed request. */
 export const REPLAY_TOKEN_HEADER = 'x-meltwire-replay';
 /** Responses are captured up to this size so JSON can be parsed and redacted before it is cut. */

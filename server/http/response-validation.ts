@@ -9,7 +9,7 @@ import type { AnyRoute } from './route.ts';
 import { sendProblem } from './error-handler.ts';
 import { ProblemError } from '../lib/problems.ts';
 
-export class ResponseMismatchProblem extends ProblemError {
+class ResponseMismatchProblem extends ProblemError {
   constructor(detail: string) {
     super(500, 'response-mismatch', 'The response does not match the OpenAPI document', detail);
   }

@@ -83,7 +83,7 @@ export function defineRoute<P extends ZodType, Q extends ZodType, B extends ZodT
 /** Methods that accept Idempotency-Key. */
 export const WRITE_METHODS: ReadonlySet<RouteSpec['method']> = new Set(['post', 'put', 'patch', 'delete']);
 
-export function toExpressPath(path: string): string {
+function toExpressPath(path: string): string {
   return path.replace(/\{(\w+)\}/g, ':$1');
 }
 
@@ -91,7 +91,7 @@ export function requiredScope(access: Access): Scope | undefined {
   return typeof access === 'object' ? access.scope : undefined;
 }
 
-export function authorize(access: Access, req: Request): void {
+function authorize(access: Access, req: Request): void {
   if (access === 'public') return;
   if (!req.auth) throw new UnauthorizedProblem();
   const scope = requiredScope(access);

@@ -1,6 +1,6 @@
 import { z } from '../lib/zod.ts';
 
-export const FieldErrorSchema = z
+const FieldErrorSchema = z
   .object({
     location: z.string().openapi({ example: 'body.email' }),
     message: z.string(),

@@ -5,7 +5,8 @@ import { inTransaction } from '../db/transaction.ts';
 import { SYSTEM_ACTOR } from '../domain/audit/actor.ts';
 import { recordAudit } from '../domain/audit/audit.repository.ts';
 import { insertInstrument, type InstrumentRow } from '../domain/instruments/instruments.repository.ts';
-import { DEFAULT_DRIFT_LIMITS, insertMethod, type Method, type MethodElement } from '../domain/methods/methods.repository.ts';
+import { insertMethod, type Method, type MethodElement } from '../domain/methods/methods.repository.ts';
+import { DEFAULT_DRIFT_LIMITS } from '../domain/methods/methods.schemas.ts';
 import { newId } from '../lib/ids.ts';
 import { nowIso } from '../lib/time.ts';
 

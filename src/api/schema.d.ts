@@ -1393,7 +1393,7 @@ export interface components {
             import_id: string | null;
             burn_count: number;
             /** @description Every flag raised on any element result. */
-            flags: string[];
+            flags: components["schemas"]["ResultFlag"][];
             results: components["schemas"]["ElementResult"][];
             correction: components["schemas"]["SampleCorrection"];
             created_by: string;
@@ -1406,6 +1406,11 @@ export interface components {
         SampleKind: "preliminary" | "final" | "ladle" | "incoming" | "control" | null;
         /** @enum {string} */
         SampleStatus: "draft" | "released";
+        /**
+         * @description A flag on an element result.
+         * @enum {string}
+         */
+        ResultFlag: "not_measured" | "single_burn" | "repeatability_exceeded" | "repeatability_unchecked" | "below_detection_limit" | "below_working_range" | "above_working_range" | "burns_outside_working_range" | "all_burns_qualified" | "mixed_qualified_burns" | "not_detected" | "conflicting_qualified_burns" | "limit_missing" | "negative_after_correction" | "not_in_method";
         ElementResult: {
             /** @example Mn */
             element: string;
@@ -1435,7 +1440,7 @@ export interface components {
             /** @description Decimal places of `reported` in this unit: the method's decimals in %, shifted for ppm (−4) and ppb (−7). Negative = rounded to tens, hundreds … */
             decimals: number;
             /** @description See the result flags in the operation description. */
-            flags: string[];
+            flags: components["schemas"]["ResultFlag"][];
             /** @description ISO 5725-6 check of the burns' range against f(n)·σr, when the method sets σr and there are at least two burns. */
             repeatability: {
                 range: number;

@@ -2,7 +2,14 @@ import { readFileSync } from 'node:fs';
 import SwaggerParser from '@apidevtools/swagger-parser';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { CLIENT_TYPES_FILE, OPENAPI_FILE, renderClientTypes, renderOpenApiJson } from '../../server/openapi/write.ts';
+import {
+  CLIENT_ENUMS_FILE,
+  CLIENT_TYPES_FILE,
+  OPENAPI_FILE,
+  renderClientEnums,
+  renderClientTypes,
+  renderOpenApiJson,
+} from '../../server/openapi/write.ts';
 import { createTestApp, type TestApp } from '../helpers/test-app.ts';
 
 let t: TestApp;
@@ -16,6 +23,7 @@ describe('the OpenAPI document', () => {
     const json = renderOpenApiJson();
     expect(readFileSync(OPENAPI_FILE, 'utf8'), 'openapi/openapi.json is stale').toBe(json);
     expect(readFileSync(CLIENT_TYPES_FILE, 'utf8'), 'src/api/schema.d.ts is stale').toBe(await renderClientTypes(json));
+    expect(readFileSync(CLIENT_ENUMS_FILE, 'utf8'), 'src/api/openapi-enums.ts is stale').toBe(renderClientEnums(json));
   });
 
   it('is served at /api/v1/openapi.json without authentication, equal to the committed file', async () => {

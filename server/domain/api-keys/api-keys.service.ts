@@ -25,7 +25,7 @@ function assertGrantable(auth: AuthContext, scopes: Scope[]): void {
   }
 }
 
-export function canManageAllKeys(auth: AuthContext): boolean {
+function canManageAllKeys(auth: AuthContext): boolean {
   return auth.role === 'admin' && auth.kind === 'session';
 }
 

@@ -1,7 +1,7 @@
 import { listOf, paginationQuery } from '../../lib/pagination.ts';
 import { z } from '../../lib/zod.ts';
 
-export const AuditEventSchema = z
+const AuditEventSchema = z
   .object({
     id: z.string(),
     occurred_at: z.string().openapi({ format: 'date-time' }),

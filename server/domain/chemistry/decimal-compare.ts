@@ -9,7 +9,7 @@ import { Decimal } from 'decimal.js';
  * −1, 0 or 1 as a is less than, equal to or greater than b. Throws on a non-number. Callers that
  * compare one value many times may pass its double (x = Number(a), y = Number(b)) to save parsing.
  */
-export function compareDecimals(a: string, b: string, x = Number(a), y = Number(b)): -1 | 0 | 1 {
+function compareDecimals(a: string, b: string, x = Number(a), y = Number(b)): -1 | 0 | 1 {
   if (x < y) return -1;
   if (x > y) return 1;
   return new Decimal(a).cmp(b) as -1 | 0 | 1; // also throws for text that is not a number

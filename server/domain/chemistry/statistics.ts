@@ -51,7 +51,7 @@ export function sampleStandardDeviation(values: readonly number[], mean: number)
 }
 
 /** Relative standard deviation in % (coefficient of variation × 100); null when the mean is 0. */
-export function relativeStandardDeviation(sd: number | null, mean: number): number | null {
+function relativeStandardDeviation(sd: number | null, mean: number): number | null {
   if (sd === null) return null;
   const magnitude = Math.abs(mean);
   return magnitude === 0 ? null : (100 * sd) / magnitude;

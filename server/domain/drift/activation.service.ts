@@ -23,11 +23,10 @@ import {
   updateStandardizationActivation,
 } from './standardizations.repository.ts';
 import { getStandardization } from './standardizations.service.ts';
+import type { ActivateStandardizationRequestSchema } from './standardizations.schemas.ts';
+import type { z } from '../../lib/zod.ts';
 
-export interface ActivationInput {
-  effective_from?: string;
-  override_reason?: string;
-}
+export type ActivationInput = z.output<typeof ActivateStandardizationRequestSchema>;
 
 export async function activateStandardization(ctx: AppContext, auth: AuthContext, id: string, input: ActivationInput, requestId?: string) {
   await inTransaction(ctx.db, async (trx) => {

@@ -16,14 +16,14 @@ import { Decimal } from 'decimal.js';
 import { isAbove } from '../chemistry/decimal-compare.ts';
 import type { RepeatabilityCheck } from '../chemistry/repeatability.ts';
 import { roundHalfEven } from '../chemistry/rounding.ts';
-import type { DriftLimits } from '../methods/methods.repository.ts';
+import type { DriftLimits } from '../methods/methods.schemas.ts';
 import type { Correction, CorrectionMode, Level } from './correction-math.ts';
 
 export const CORRECTION_FLAGS = ['ok', 'warn', 'fail'] as const;
 export type CorrectionFlag = (typeof CORRECTION_FLAGS)[number];
 
 /** Measured levels closer than this fraction of the higher one make a two-point slope unreliable. */
-export const MIN_RELATIVE_SPAN = '0.1';
+const MIN_RELATIVE_SPAN = '0.1';
 
 const Exact = Decimal.clone({ precision: 200 });
 

@@ -23,8 +23,8 @@ import { Decimal } from 'decimal.js';
 import { formatScaled } from '../chemistry/exact-mean.ts';
 import type { StoredCell } from '../samples/samples.repository.ts';
 
-export const SLOPE_SIGNIFICANT_DIGITS = 20;
-export const OFFSET_DECIMALS = 20;
+const SLOPE_SIGNIFICANT_DIGITS = 20;
+const OFFSET_DECIMALS = 20;
 
 /** Wide enough for the quotients before they are rounded to the stored digits. */
 const Work = Decimal.clone({ precision: 60, rounding: Decimal.ROUND_HALF_EVEN });

@@ -16,11 +16,10 @@ import { correctBurn, correctionSetOf, type CorrectionSet, distinctSetIds, type 
 import { findStandardization } from './standardizations.repository.ts';
 import { decodeResults, encodeResults } from '../samples/results-codec.ts';
 import { inTransaction } from '../../db/transaction.ts';
+import type { RecomputeSampleRequestSchema } from './recompute.schemas.ts';
+import type { z } from '../../lib/zod.ts';
 
-export interface RecomputeInput {
-  correction_set_id: string | null;
-  reason: string;
-}
+export type RecomputeInput = z.output<typeof RecomputeSampleRequestSchema>;
 
 export async function recomputeSample(
   ctx: AppContext,

@@ -24,7 +24,7 @@ const NominalValueInput = z
   })
   .openapi('NominalValueInput');
 
-export const NominalValueSchema = z
+const NominalValueSchema = z
   .object({
     element: z.string().openapi({ example: 'Mn' }),
     nominal: z.string().openapi({ description: 'Certified value in %, exact decimal string.', example: '0.742' }),

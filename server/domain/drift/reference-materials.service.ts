@@ -8,14 +8,13 @@ import { newId } from '../../lib/ids.ts';
 import { nowIso } from '../../lib/time.ts';
 import { actorOf } from '../audit/actor.ts';
 import { recordAudit } from '../audit/audit.repository.ts';
-import { toPercent, type Unit } from '../chemistry/units.ts';
+import { toPercent } from '../chemistry/units.ts';
 import {
   codeKey,
   findReferenceMaterial,
   findReferenceMaterialByCode,
   insertReferenceMaterial,
   listReferenceMaterials,
-  type ReferenceKind,
   type ReferenceMaterial,
   type ReferenceMaterialRow,
   toReferenceMaterial,
@@ -23,16 +22,9 @@ import {
 import { inTransaction } from '../../db/transaction.ts';
 import { mapPage } from '../../lib/pagination.ts';
 import type { z } from '../../lib/zod.ts';
-import type { ReferenceMaterialListQuerySchema } from './reference-materials.schemas.ts';
+import type { CreateReferenceMaterialRequestSchema, ReferenceMaterialListQuerySchema } from './reference-materials.schemas.ts';
 
-export interface ReferenceMaterialInput {
-  code: string;
-  name: string;
-  matrix: string;
-  kind: ReferenceKind;
-  values: { element: string; nominal: string; unit: Unit }[];
-  certificate: string | null;
-}
+export type ReferenceMaterialInput = z.output<typeof CreateReferenceMaterialRequestSchema>;
 
 export function toReferenceMaterialView(material: ReferenceMaterial) {
   const { created_by_label, ...rest } = material;

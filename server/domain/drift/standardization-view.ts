@@ -71,7 +71,7 @@ export async function inForceIds(
   return ids;
 }
 
-export async function toStandardizationViews(db: Queryable, rows: readonly StandardizationRowWithRefs[]) {
+async function toStandardizationViews(db: Queryable, rows: readonly StandardizationRowWithRefs[]) {
   const ids = await inForceIds(db, rows);
   return rows.map((row) => toStandardizationView(row, ids.get(`${row.instrument_id}|${row.method_id}`) ?? null));
 }

@@ -7,18 +7,18 @@ import { CORRECTION_MODES } from './correction-math.ts';
 import { CORRECTION_FLAGS } from './correction-flags.ts';
 import { ReferenceKindSchema } from './reference-materials.schemas.ts';
 
-export const CorrectionModeSchema = z.enum(CORRECTION_MODES).openapi('CorrectionMode', {
+const CorrectionModeSchema = z.enum(CORRECTION_MODES).openapi('CorrectionMode', {
   description:
     "`two_point`: a `high` and a `low` reference; slope α = (H⁰ − L⁰)/(H − L), offset β = L⁰ − α·L. `one_point_factor`: one reference; α = N/M, β = 0. `one_point_offset`: one reference; α = 1, β = N − M. `type`: one reference of kind `type` (similar composition to the samples), multiplicative, on top of the set in force: t = N/(α₀·M + β₀), stored as α = t·α₀, β = t·β₀. (H⁰, L⁰, N nominal; H, L, M the mean of the reference's burns.)",
 });
-export const CorrectionFlagSchema = z
+const CorrectionFlagSchema = z
   .enum(CORRECTION_FLAGS)
   .openapi('CorrectionFlag', { description: '`ok`, `warn` (look before activating) or `fail` (activation needs an override reason).' });
-export const StandardizationStatusSchema = z.enum(['draft', 'activated']).openapi('StandardizationStatus');
+const StandardizationStatusSchema = z.enum(['draft', 'activated']).openapi('StandardizationStatus');
 
 const ref = z.object({ id: z.string(), code: z.string() });
 
-export const ElementLevelSchema = z
+const ElementLevelSchema = z
   .object({
     reference_material_id: z.string(),
     code: z.string(),
@@ -32,7 +32,7 @@ export const ElementLevelSchema = z
   })
   .openapi('ElementLevel');
 
-export const ElementCorrectionSchema = z
+const ElementCorrectionSchema = z
   .object({
     element: z.string().openapi({ example: 'Mn' }),
     slope: z.string().nullable().openapi({
@@ -58,7 +58,7 @@ const MeasuredCellSchema = z.object({
   raw_unit: z.string(),
 });
 
-export const StandardizationMeasurementSchema = z
+const StandardizationMeasurementSchema = z
   .object({
     reference_material: z.object({ id: z.string(), code: z.string(), name: z.string(), kind: ReferenceKindSchema }),
     burns: z.array(z.object({ values: z.record(z.string(), MeasuredCellSchema) })),
@@ -144,7 +144,7 @@ export const StandardizationListQuerySchema = paginationQuery.extend({
 export const InstrumentStandardizationParams = z.object({ id: z.string().min(1).max(40) });
 export const StandardizationIdParams = z.object({ id: z.string().min(1).max(40) });
 
-export const DriftPointSchema = z
+const DriftPointSchema = z
   .object({
     standardization_id: z.string(),
     method: ref,

@@ -9,12 +9,11 @@ import { newId } from '../../lib/ids.ts';
 import { nowIso } from '../../lib/time.ts';
 import { type Actor, actorOf } from '../audit/actor.ts';
 import { recordAudit } from '../audit/audit.repository.ts';
-import type { Unit } from '../chemistry/units.ts';
 import { recordEvent } from '../events/events.repository.ts';
 import { findInstrument } from '../instruments/instruments.repository.ts';
 import { assertInstrumentAllowed } from '../instruments/instruments.service.ts';
 import { findMethod, type Method } from '../methods/methods.repository.ts';
-import { normalisePushedBurns, type PushedBurn } from '../samples/pushed-sample.ts';
+import { normalisePushedBurns } from '../samples/pushed-sample.ts';
 import type { CorrectionMode } from './correction-math.ts';
 import { correctionSetOf } from './correction-timeline.ts';
 import { computeRun, type RunMeasurement } from './compute-run.ts';
@@ -27,15 +26,10 @@ import {
   insertStandardization,
   type StandardizationRow,
 } from './standardizations.repository.ts';
+import type { CreateStandardizationRequestSchema } from './standardizations.schemas.ts';
+import type { z } from '../../lib/zod.ts';
 
-export interface StandardizationInput {
-  method_id: string;
-  mode: CorrectionMode;
-  measured_at?: string;
-  unit?: Unit;
-  note?: string;
-  measurements: { reference_material_id: string; burns: PushedBurn[] }[];
-}
+export type StandardizationInput = z.output<typeof CreateStandardizationRequestSchema>;
 
 /** A few minutes of clock difference between the instrument PC and the server are tolerated. */
 const FUTURE_TOLERANCE_MS = 5 * 60_000;

@@ -37,7 +37,7 @@ function normalise(row: IdempotencyRow): IdempotencyRow {
   return { ...row, body_withheld: Boolean(row.body_withheld) };
 }
 
-export async function findIdempotencyRow(db: Queryable, caller: string, key: string): Promise<IdempotencyRow | undefined> {
+async function findIdempotencyRow(db: Queryable, caller: string, key: string): Promise<IdempotencyRow | undefined> {
   const row = await db<IdempotencyRow>('idempotency_keys').where({ caller, idempotency_key: key }).first();
   return row && normalise(row);
 }

@@ -32,7 +32,7 @@ const ElementInput = z
   )
   .openapi({ description: 'An element symbol in any case (`mn`, `MN` → `Mn`).', example: 'Mn' });
 
-export const UnitInput = z
+const UnitInput = z
   .string()
   .max(30)
   .transform(
@@ -47,7 +47,7 @@ export const UnitInput = z
     example: 'ppm',
   });
 
-export const FIELD_KEY_PATTERN = /^[a-z][a-z0-9_]{0,39}$/;
+const FIELD_KEY_PATTERN = /^[a-z][a-z0-9_]{0,39}$/;
 const RESERVED_FIELD_KEYS = ['sample_code', 'heat', 'grade', 'kind', 'burn_number', 'measured_at'];
 const FieldKey = z
   .string()

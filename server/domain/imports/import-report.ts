@@ -1,6 +1,6 @@
 import { z } from '../../lib/zod.ts';
 
-export const ImportIssueSchema = z
+const ImportIssueSchema = z
   .object({
     line: z.number().int().optional().openapi({ description: 'Physical line of the file (1 = first line, the header counts).' }),
     column: z.string().optional().openapi({ description: 'Header of the column concerned.' }),

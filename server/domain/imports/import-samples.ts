@@ -7,7 +7,7 @@ import { buildSampleRows, type NewBurn } from '../samples/sample-builder.ts';
 import type { ImportIssue } from './import-report.ts';
 import type { ParsedBurn, ParsedSample } from './parse/index.ts';
 
-export function toNewBurns(burns: ParsedBurn[]): NewBurn[] {
+function toNewBurns(burns: ParsedBurn[]): NewBurn[] {
   return burns.map((burn) => {
     const values: NewBurn['values'] = {};
     const raw: NewBurn['raw'] = {};

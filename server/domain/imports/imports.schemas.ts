@@ -2,7 +2,7 @@ import { listOf, paginationQuery } from '../../lib/pagination.ts';
 import { z } from '../../lib/zod.ts';
 import { ImportReportSchema } from './import-report.ts';
 
-export const IMPORT_MODES = ['all_or_nothing', 'per_sample'] as const;
+const IMPORT_MODES = ['all_or_nothing', 'per_sample'] as const;
 
 export const ImportSchema = z
   .object({

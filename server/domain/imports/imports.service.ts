@@ -17,18 +17,14 @@ import type { ImportIssue, ImportReport } from './import-report.ts';
 import { buildImportedSamples } from './import-samples.ts';
 import { getImportProfile } from './import-profiles.service.ts';
 import { findImportBySha, findImportFile, findImportMeta, insertImport, listImportRows, toImport } from './imports.repository.ts';
-import type { ImportListQuerySchema } from './imports.schemas.ts';
 import { mapPage } from '../../lib/pagination.ts';
 import type { z } from '../../lib/zod.ts';
 import { FileLayoutError, parseResultFile, type ParsedFile } from './parse/index.ts';
 import { inTransaction } from '../../db/transaction.ts';
+import type { ImportListQuerySchema, ImportPreviewRequestSchema } from './imports.schemas.ts';
 
-export interface UploadInput {
-  file: Express.Multer.File;
-  instrument_id: string;
-  method_id: string;
-  profile_id?: string;
-}
+/** The upload's form fields as validated, with the file multer received. */
+export type UploadInput = Omit<z.output<typeof ImportPreviewRequestSchema>, 'file'> & { file: Express.Multer.File };
 
 /** At most this many issues are listed in one problem; `errors_total` gives the full count. */
 const MAX_LISTED_ISSUES = 200;

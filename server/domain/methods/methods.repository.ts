@@ -3,6 +3,7 @@ import type { OutputUnit } from '../chemistry/units.ts';
 import { type KeysetColumn, keysetPage, type PageRequest } from '../../db/keyset.ts';
 import type { Queryable } from '../../db/transaction.ts';
 import { mapPage, type Page } from '../../lib/pagination.ts';
+import { DEFAULT_DRIFT_LIMITS, type DriftLimits } from './methods.schemas.ts';
 
 export interface MethodElement {
   element: string;
@@ -12,15 +13,6 @@ export interface MethodElement {
   detection_limit: string | null;
   repeatability_sd: string | null;
 }
-
-/** Limits on |slope − 1| of a standardization, as decimal strings. */
-export interface DriftLimits {
-  warn: string;
-  fail: string;
-}
-
-/** Common practice, no source: a slope more than 20 % from 1 deserves a look, more than 50 % is trouble. */
-export const DEFAULT_DRIFT_LIMITS: DriftLimits = { warn: '0.2', fail: '0.5' };
 
 export interface MethodRow {
   id: string;
@@ -40,7 +32,7 @@ export interface Method extends Omit<MethodRow, 'elements_json' | 'drift_limits_
   drift_limits: DriftLimits;
 }
 
-export function toMethod(row: MethodRow): Method {
+function toMethod(row: MethodRow): Method {
   const { elements_json, drift_limits_json, ...rest } = row;
   return {
     ...rest,
@@ -49,7 +41,7 @@ export function toMethod(row: MethodRow): Method {
   };
 }
 
-export function toMethodRow(method: Method): MethodRow {
+function toMethodRow(method: Method): MethodRow {
   const { elements, drift_limits, ...rest } = method;
   return { ...rest, elements_json: JSON.stringify(elements), drift_limits_json: JSON.stringify(drift_limits) };
 }

@@ -19,7 +19,7 @@ export const ElementSymbolSchema = z
   })
   .openapi({ type: 'string', example: 'Mn', description: 'Element symbol; any case is accepted and normalised (MN → Mn).' });
 
-export const MethodElementSchema = z
+const MethodElementSchema = z
   .object({
     element: ElementSymbolSchema,
     decimals: z.number().int().min(0).max(6).openapi({ description: 'Reporting decimals in % (rounded half to even, ASTM E29).' }),
@@ -36,12 +36,24 @@ export const MethodElementSchema = z
   })
   .openapi('MethodElement');
 
-export const DriftLimitsSchema = z
+/** Limits on |slope − 1| of a standardization, as decimal strings. */
+export interface DriftLimits {
+  warn: string;
+  fail: string;
+}
+
+/** Common practice, no source: a slope more than 20 % from 1 deserves a look, more than 50 % is trouble. */
+export const DEFAULT_DRIFT_LIMITS: DriftLimits = { warn: '0.2', fail: '0.5' };
+
+const DriftLimitsSchema = z
   .object({
-    warn: DecimalString.openapi({ description: 'Flag an element `warn` when |slope − 1| is above this.', example: '0.2' }),
+    warn: DecimalString.openapi({
+      description: 'Flag an element `warn` when |slope − 1| is above this.',
+      example: DEFAULT_DRIFT_LIMITS.warn,
+    }),
     fail: DecimalString.openapi({
       description: 'Flag an element `fail` when |slope − 1| is above this; activation then needs an override reason.',
-      example: '0.5',
+      example: DEFAULT_DRIFT_LIMITS.fail,
     }),
   })
   .refine(
@@ -52,8 +64,7 @@ export const DriftLimitsSchema = z
     },
   )
   .openapi('DriftLimits', {
-    description:
-      'Limits on the distance of a standardization slope from 1, as decimal strings. Defaults warn 0.2, fail 0.5 (a slope outside 0.8–1.2 deserves a look, outside 0.5–1.5 signals trouble): common practice, no source — set them from your own validation data.',
+    description: `Limits on the distance of a standardization slope from 1, as decimal strings. Defaults warn ${DEFAULT_DRIFT_LIMITS.warn}, fail ${DEFAULT_DRIFT_LIMITS.fail} (a slope outside 0.8–1.2 deserves a look, outside 0.5–1.5 signals trouble): common practice, no source — set them from your own validation data.`,
   });
 
 const elementList = z
@@ -104,7 +115,7 @@ export const CreateMethodRequestSchema = z
     matrix: ElementSymbolSchema,
     default_unit: z.enum(OUTPUT_UNITS).default('%'),
     elements: elementList,
-    drift_limits: DriftLimitsSchema.default({ warn: '0.2', fail: '0.5' }),
+    drift_limits: DriftLimitsSchema.default(DEFAULT_DRIFT_LIMITS),
   })
   .openapi('CreateMethodRequest');
 

@@ -11,7 +11,7 @@ export interface ReplayTicket {
   replayOf: string;
 }
 
-export class RequestLogRecorder {
+class RequestLogRecorder {
   private readonly pending = new Map<string, Promise<void>>();
   private readonly replays = new Map<string, ReplayTicket>();
 

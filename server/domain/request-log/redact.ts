@@ -2,7 +2,7 @@
 // names, and anything shaped like an API key, wherever it appears.
 import { KEY_PREFIX } from '../api-keys/key-format.ts';
 
-export const REDACTED = '[redacted]';
+const REDACTED = '[redacted]';
 
 /** Field, header and query names whose values are never logged. */
 const SECRET_NAME = /password|secret|token|api[-_]?key|authorization|cookie/i;
@@ -17,7 +17,7 @@ const KEY_TEXT = new RegExp(`${KEY_PREFIX}[0-9A-Za-z]{7,}`, 'g');
 const SECRET_PAIR =
   /("(?:[^"\\]*(?:password|secret|token|api[-_]?key|authorization|cookie)[^"\\]*)"\s*:\s*)("(?:[^"\\]|\\.)*(?:"|$)|[^,}\]\s]+)/gi;
 
-export function isSecretName(name: string): boolean {
+function isSecretName(name: string): boolean {
   return SECRET_NAME.test(name);
 }
 

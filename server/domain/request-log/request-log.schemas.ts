@@ -2,7 +2,7 @@ import { listOf, paginationQuery } from '../../lib/pagination.ts';
 import { z } from '../../lib/zod.ts';
 import { BODY_KINDS } from './body-kinds.ts';
 
-export const HTTP_METHODS = ['GET', 'POST', 'PUT', 'PATCH', 'DELETE', 'HEAD', 'OPTIONS'] as const;
+const HTTP_METHODS = ['GET', 'POST', 'PUT', 'PATCH', 'DELETE', 'HEAD', 'OPTIONS'] as const;
 
 const CallerSchema = z
   .object({
@@ -12,7 +12,7 @@ const CallerSchema = z
   })
   .openapi('RequestLogCaller');
 
-export const RequestLogSummarySchema = z
+const RequestLogSummarySchema = z
   .object({
     id: z.string(),
     occurred_at: z.string().openapi({ format: 'date-time' }),

@@ -12,14 +12,14 @@ import {
   type RequestLogSummaryRow,
 } from './request-log.repository.ts';
 
-export const API_BASE = '/api/v1';
+const API_BASE = '/api/v1';
 
 /** Admins see every entry; everyone else their own calls and the calls of keys they created. */
-export function seesAllEntries(auth: AuthContext): boolean {
+function seesAllEntries(auth: AuthContext): boolean {
   return auth.role === 'admin';
 }
 
-export function toSummary(row: RequestLogSummaryRow) {
+function toSummary(row: RequestLogSummaryRow) {
   return {
     id: row.id,
     occurred_at: row.occurred_at,

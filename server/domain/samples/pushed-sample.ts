@@ -6,11 +6,10 @@ import { normaliseElement } from '../chemistry/elements.ts';
 import { MeasuredValueError, parseMeasuredValue } from '../chemistry/measured-value.ts';
 import { toPercent, type Unit } from '../chemistry/units.ts';
 import type { NewBurn } from './sample-builder.ts';
+import type { PushedBurnSchema } from './samples.schemas.ts';
+import type { z } from '../../lib/zod.ts';
 
-export interface PushedBurn {
-  measured_at?: string;
-  values: Record<string, number | string>;
-}
+export type PushedBurn = z.output<typeof PushedBurnSchema>;
 
 export function normalisePushedBurns(burns: PushedBurn[], unit: Unit, location: string, errors: FieldError[]): NewBurn[] {
   return burns.map((burn, index) => {

@@ -8,7 +8,7 @@ import type { Method, MethodElement } from '../methods/methods.repository.ts';
 import type { StoredCell, StoredResult } from './samples.repository.ts';
 
 /** Reporting decimals for elements the method does not list (flag `not_in_method`). */
-export const DEFAULT_DECIMALS = 4;
+const DEFAULT_DECIMALS = 4;
 
 export interface BurnForResults {
   excluded: boolean;
@@ -41,7 +41,7 @@ function defaultSettings(element: string): MethodElement {
 }
 
 /** Method elements first (in the method's order), then any others alphabetically. */
-export function elementOrder(method: Method, burns: BurnForResults[]): string[] {
+function elementOrder(method: Method, burns: BurnForResults[]): string[] {
   const measured = new Set<string>();
   for (const burn of burns) for (const element in burn.values) measured.add(element);
   const ordered: string[] = [];
@@ -74,12 +74,12 @@ function negativeAfterCorrection(burns: BurnForResults[], element: string): bool
   return false;
 }
 
-export function computeSampleResults(burns: BurnForResults[], method: Method): { results: StoredResult[]; flags: string[] } {
+export function computeSampleResults(burns: BurnForResults[], method: Method): { results: StoredResult[]; flags: ResultFlag[] } {
   const included = burns.filter((b) => !b.excluded);
   const anyCorrected = included.some((b) => b.corrected != null);
   const settingsByElement = settingsOf(method);
   const results: StoredResult[] = [];
-  const flags = new Set<string>();
+  const flags = new Set<ResultFlag>();
   for (const element of elementOrder(method, burns)) {
     const known = settingsByElement.get(element);
     const settings = known ?? defaultSettings(element);

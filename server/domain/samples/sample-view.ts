@@ -7,11 +7,12 @@ import { findImportMeta } from '../imports/imports.repository.ts';
 import { loadSample } from './samples.service.ts';
 import { type BurnRow, findBurns, type RawCell, type SampleRowWithRefs, type StoredCell, type StoredResult } from './samples.repository.ts';
 import { decodeResults } from './results-codec.ts';
+import type { ResultFlag } from '../chemistry/result-rules.ts';
 import type { Queryable } from '../../db/transaction.ts';
 
 const toNumber = (value: string | null) => (value === null ? null : Number(value));
 
-export function toResultView(stored: StoredResult, unit: OutputUnit) {
+function toResultView(stored: StoredResult, unit: OutputUnit) {
   const converted = convertResult(stored, unit, stored.decimals);
   return {
     element: stored.element,
@@ -38,7 +39,7 @@ export function toResultView(stored: StoredResult, unit: OutputUnit) {
 }
 
 /** The stored correction record as the API shows it; set_id only when one set served every corrected burn. */
-export function toCorrectionView(json: string | null) {
+function toCorrectionView(json: string | null) {
   if (!json) return null;
   const stored = JSON.parse(json) as SampleCorrection;
   return { set_id: stored.set_ids.length === 1 ? stored.set_ids[0] : null, ...stored };
@@ -59,7 +60,7 @@ export function toSampleSummary(row: SampleRowWithRefs, unit: OutputUnit) {
     source: row.source,
     import_id: row.import_id,
     burn_count: Number(row.burn_count),
-    flags: JSON.parse(row.flags_json) as string[],
+    flags: JSON.parse(row.flags_json) as ResultFlag[],
     results: results.map((r) => toResultView(r, unit)),
     correction: toCorrectionView(row.correction_json),
     created_by: row.created_by_label,
@@ -68,7 +69,7 @@ export function toSampleSummary(row: SampleRowWithRefs, unit: OutputUnit) {
   };
 }
 
-export function toBurnView(burn: BurnRow, unit: OutputUnit) {
+function toBurnView(burn: BurnRow, unit: OutputUnit) {
   const values = JSON.parse(burn.values_json) as Record<string, StoredCell>;
   const raw = JSON.parse(burn.raw_json) as Record<string, RawCell>;
   const corrected = burn.corrected_json ? (JSON.parse(burn.corrected_json) as Record<string, StoredCell>) : null;

@@ -22,7 +22,7 @@ export interface CsvSample {
 const FORMULA_START = /^[=+\-@\t\r]/;
 
 /** Prefixes a quote to text a spreadsheet would evaluate (=, +, -, @, tab, CR). */
-export function guardCell(value: string): string {
+function guardCell(value: string): string {
   return FORMULA_START.test(value) ? `'${value}` : value;
 }
 

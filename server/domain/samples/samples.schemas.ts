@@ -1,11 +1,17 @@
 import { listOf, paginationQuery } from '../../lib/pagination.ts';
 import { z } from '../../lib/zod.ts';
 import { OUTPUT_UNITS, UNITS } from '../chemistry/units.ts';
+import { RESULT_FLAG_NAMES, RESULT_FLAGS, type ResultFlag } from '../chemistry/result-rules.ts';
+
+/** The flags a result can carry; `x-enum-descriptions` says what each means (the console shows these). */
+const ResultFlagSchema = z
+  .enum(RESULT_FLAG_NAMES as [ResultFlag, ...ResultFlag[]])
+  .openapi('ResultFlag', { description: 'A flag on an element result.', 'x-enum-descriptions': RESULT_FLAGS });
 
 export const SAMPLE_KINDS = ['preliminary', 'final', 'ladle', 'incoming', 'control'] as const;
-export const SampleKindSchema = z.enum(SAMPLE_KINDS).openapi('SampleKind');
-export const SampleStatusSchema = z.enum(['draft', 'released']).openapi('SampleStatus');
-export const OutputUnitSchema = z
+const SampleKindSchema = z.enum(SAMPLE_KINDS).openapi('SampleKind');
+const SampleStatusSchema = z.enum(['draft', 'released']).openapi('SampleStatus');
+const OutputUnitSchema = z
   .enum(OUTPUT_UNITS)
   .openapi('OutputUnit', { description: '`%` (mass fraction in percent, the default), `ppm` (mg/kg) or `ppb` (µg/kg).' });
 
@@ -48,7 +54,7 @@ export const PushSampleBatchRequestSchema = z
   .object({ samples: z.array(PushSampleRequestSchema).min(1).max(500) })
   .openapi('PushSampleBatchRequest', { description: 'Up to 500 samples, stored in one transaction: all or none.' });
 
-export const ResultSchema = z
+const ResultSchema = z
   .object({
     element: z.string().openapi({ example: 'Mn' }),
     mean: z.number().nullable().openapi({ description: 'Mean of the included burns after drift correction, in `unit`.' }),
@@ -71,14 +77,14 @@ export const ResultSchema = z
       description:
         "Decimal places of `reported` in this unit: the method's decimals in %, shifted for ppm (−4) and ppb (−7). Negative = rounded to tens, hundreds …",
     }),
-    flags: z.array(z.string()).openapi({ description: 'See the result flags in the operation description.' }),
+    flags: z.array(ResultFlagSchema).openapi({ description: 'See the result flags in the operation description.' }),
     repeatability: z.object({ range: z.number(), critical_range: z.number(), exceeded: z.boolean() }).nullable().openapi({
       description: "ISO 5725-6 check of the burns' range against f(n)·σr, when the method sets σr and there are at least two burns.",
     }),
   })
   .openapi('ElementResult');
 
-export const BurnValueSchema = z
+const BurnValueSchema = z
   .object({
     value: z.number().nullable().openapi({ description: 'Canonical value in the requested unit; null for "n.d.".' }),
     qualifier: z.enum(['<', '>', 'nd']).nullable(),
@@ -94,7 +100,7 @@ export const BurnValueSchema = z
   })
   .openapi('BurnValue');
 
-export const BurnSchema = z
+const BurnSchema = z
   .object({
     number: z.number().int(),
     measured_at: z.string().nullable().openapi({ format: 'date-time' }),
@@ -111,7 +117,7 @@ export const BurnSchema = z
 
 const ref = z.object({ id: z.string(), code: z.string() });
 
-export const SampleCorrectionSchema = z
+const SampleCorrectionSchema = z
   .object({
     set_id: z.string().nullable().openapi({
       description:
@@ -134,7 +140,7 @@ export const SampleCorrectionSchema = z
     description: 'Which drift correction produced the results. Raw values and `raw_mean` are always kept, so results can be recomputed.',
   });
 
-export const SampleSummarySchema = z
+const SampleSummarySchema = z
   .object({
     id: z.string(),
     sample_code: z.string(),
@@ -148,7 +154,7 @@ export const SampleSummarySchema = z
     source: z.enum(['push', 'import']),
     import_id: z.string().nullable(),
     burn_count: z.number().int(),
-    flags: z.array(z.string()).openapi({ description: 'Every flag raised on any element result.' }),
+    flags: z.array(ResultFlagSchema).openapi({ description: 'Every flag raised on any element result.' }),
     results: z.array(ResultSchema),
     correction: SampleCorrectionSchema.nullable().openapi({
       description: 'The drift correction behind `results`; null when no correction set was in force for any burn.',

@@ -8,12 +8,11 @@ import { parseJsonColumn } from '../../lib/json.ts';
 import { nowIso } from '../../lib/time.ts';
 import { type Actor, actorOf } from '../audit/actor.ts';
 import { recordAudit } from '../audit/audit.repository.ts';
-import type { Unit } from '../chemistry/units.ts';
 import { assertInstrumentAllowed } from '../instruments/instruments.service.ts';
 import { findInstrument } from '../instruments/instruments.repository.ts';
 import { findMethod, type Method } from '../methods/methods.repository.ts';
 import { timelineLoader } from '../drift/correction-timeline.ts';
-import { normalisePushedBurns, type PushedBurn } from './pushed-sample.ts';
+import { normalisePushedBurns } from './pushed-sample.ts';
 import { buildSampleRows } from './sample-builder.ts';
 import { computeSampleResults } from './sample-results.ts';
 import {
@@ -26,18 +25,10 @@ import {
   updateSampleResults,
 } from './samples.repository.ts';
 import { decodeResults, encodeResults } from './results-codec.ts';
+import type { PushSampleRequestSchema } from './samples.schemas.ts';
+import type { z } from '../../lib/zod.ts';
 
-export interface PushedSample {
-  sample_code: string;
-  heat?: string;
-  grade?: string;
-  kind?: string;
-  instrument_id: string;
-  method_id: string;
-  fields?: Record<string, string>;
-  unit?: Unit;
-  burns: PushedBurn[];
-}
+export type PushedSample = z.output<typeof PushSampleRequestSchema>;
 
 /** Loads each referenced method once; unknown or forbidden references become errors. */
 async function resolveReferences(

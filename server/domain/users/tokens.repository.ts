@@ -7,7 +7,7 @@ import type { Queryable } from '../../db/transaction.ts';
 
 export type TokenPurpose = 'invitation' | 'password_reset';
 
-export const TOKEN_LIFETIME_MINUTES: Record<TokenPurpose, number> = {
+const TOKEN_LIFETIME_MINUTES: Record<TokenPurpose, number> = {
   invitation: 7 * 24 * 60,
   password_reset: 60,
 };

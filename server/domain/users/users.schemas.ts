@@ -2,9 +2,9 @@ import { listOf, paginationQuery } from '../../lib/pagination.ts';
 import { z } from '../../lib/zod.ts';
 import { ROLES, SCOPES } from '../auth/scopes.ts';
 
-export const RoleSchema = z.enum(ROLES).openapi('Role');
+const RoleSchema = z.enum(ROLES).openapi('Role');
 export const ScopeSchema = z.enum(SCOPES).openapi('Scope');
-export const UserStatusSchema = z.enum(['invited', 'active', 'disabled']).openapi('UserStatus');
+const UserStatusSchema = z.enum(['invited', 'active', 'disabled']).openapi('UserStatus');
 
 const email = z.email('must be an e-mail address').max(320).openapi({ example: 'ada@kestrelbend.test' });
 

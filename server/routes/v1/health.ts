@@ -2,7 +2,7 @@ import { pingDb } from '../../db/knex.ts';
 import { defineRoute } from '../../http/route.ts';
 import { z } from '../../lib/zod.ts';
 
-export const HealthSchema = z
+const HealthSchema = z
   .object({
     status: z.enum(['ok', 'degraded']),
     version: z.string().openapi({ example: '0.1.0' }),

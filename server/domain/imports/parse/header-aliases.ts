@@ -33,7 +33,7 @@ export const ROLE_DESCRIPTIONS: Record<AliasRole, string> = {
   ignored: 'ignored (row counter)',
 };
 
-export function headerKey(header: string): string {
+function headerKey(header: string): string {
   const trimmed = header.trim().toLowerCase();
   if (trimmed === '#') return '#';
   return trimmed.replace(/[\s_\-./:#]+/g, ' ').trim();

@@ -32,7 +32,7 @@ export function rowColumns(columns: ColumnRole[]): RowColumns {
 }
 
 /** Too few cells, or extra cells that hold something: the row does not fit the header. */
-export function cellCountIssue(record: RawRecord, width: number): Issue | undefined {
+function cellCountIssue(record: RawRecord, width: number): Issue | undefined {
   const { cells, line } = record;
   if (cells.length === width) return undefined;
   if (cells.length > width && cells.slice(width).every((cell) => cell.trim() === '')) return undefined;
@@ -44,7 +44,7 @@ function cell(cells: string[], column: ColumnRole | undefined): string | undefin
   return text ? text : undefined;
 }
 
-export function readIdentity(cells: string[], line: number, columns: RowColumns): RowIdentity | Issue {
+function readIdentity(cells: string[], line: number, columns: RowColumns): RowIdentity | Issue {
   const sampleCode = cell(cells, columns.sampleCode);
   if (!sampleCode)
     return { line, column: columns.sampleCode.header, code: 'missing_sample_code', message: `Line ${line} has no sample code.` };

@@ -15,7 +15,7 @@ const PATTERNS: Record<Exclude<TimeFormat, 'auto'>, { regex: RegExp; order: 'ymd
 };
 
 /** Minutes east of UTC for "Z", "+01:00", "+0100", "-05". */
-export function offsetMinutes(offset: string): number | undefined {
+function offsetMinutes(offset: string): number | undefined {
   if (offset === 'Z') return 0;
   const sign = offset[0] === '-' ? -1 : 1;
   const digits = offset.slice(1).replace(':', '');
