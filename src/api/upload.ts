@@ -2,6 +2,19 @@
 // uploads go through XMLHttpRequest, whose `upload.onprogress` can; answers and problems are
 // handled exactly as `unwrap` handles them.
 import { ApiProblem, NETWORK_PROBLEM, problemFromResponse } from './problem.ts';
+import type { paths } from './schema';
+
+/** The paths whose POST takes multipart/form-data, read from the generated API types. */
+export type MultipartPath = {
+  [P in keyof paths]: paths[P] extends { post: { requestBody: { content: { 'multipart/form-data': unknown } } } } ? P : never;
+}[keyof paths];
+
+type Json<R> = R extends { content: { 'application/json': infer T } } ? T : never;
+type Responses<P extends MultipartPath> = paths[P] extends { post: { responses: infer R } } ? R : never;
+
+/** What a successful multipart POST to P answers: its 200 and 201 JSON bodies. */
+export type MultipartAnswer<P extends MultipartPath> =
+  Json<Responses<P>[200 & keyof Responses<P>]> | Json<Responses<P>[201 & keyof Responses<P>]>;
 
 export interface UploadProgress {
   /** Bytes of the request body sent so far. */
@@ -24,7 +37,11 @@ function parseJson(text: string): unknown {
 }
 
 /** POSTs `form` to `/api/v1<path>`; resolves with the status and JSON body, or rejects with an ApiProblem. */
-export function postMultipart<T>(path: string, form: FormData, onProgress?: (progress: UploadProgress) => void): Promise<UploadAnswer<T>> {
+export function postMultipart<P extends MultipartPath, T extends MultipartAnswer<P> = MultipartAnswer<P>>(
+  path: P,
+  form: FormData,
+  onProgress?: (progress: UploadProgress) => void,
+): Promise<UploadAnswer<T>> {
   return new Promise((resolve, reject) => {
     const xhr = new XMLHttpRequest();
     xhr.open('POST', `/api/v1${path}`);

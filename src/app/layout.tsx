@@ -2,8 +2,9 @@ import { NavLink, Outlet, useNavigate } from 'react-router';
 import { Button } from '../components/ui/button.tsx';
 import { Logo } from '../components/ui/logo.tsx';
 import { NAV_ITEMS } from '../config/nav.ts';
-import { hasScope, useMe } from '../features/auth/api/me.ts';
+import { hasScope, useMe } from '../api/me.ts';
 import { useLogout } from '../features/auth/api/session.ts';
+import { paths } from '../config/paths.ts';
 
 export function ConsoleLayout() {
   const { data: me } = useMe();
@@ -51,7 +52,7 @@ export function ConsoleLayout() {
               variant="ghost"
               className="mt-3 w-full !text-ash-100 hover:!bg-slag-800"
               disabled={logout.isPending}
-              onClick={() => logout.mutate(undefined, { onSettled: () => navigate('/sign-in') })}
+              onClick={() => logout.mutate(undefined, { onSettled: () => navigate(paths.signIn) })}
             >
               Sign out
             </Button>

@@ -1,7 +1,7 @@
 import type { QueryClient } from '@tanstack/react-query';
 import { createBrowserRouter, redirect } from 'react-router';
 import { Spinner } from '../components/ui/feedback.tsx';
-import { meQuery } from '../features/auth/api/me.ts';
+import { meQuery } from '../api/me.ts';
 import { ConsoleLayout } from './layout.tsx';
 import { AcceptInvitationPage } from './routes/accept-invitation.tsx';
 import { ApiKeysPage } from './routes/api-keys.tsx';

@@ -1,4 +1,5 @@
-import type { Scope } from '../features/auth/api/me.ts';
+import type { Scope } from '../api/me.ts';
+import { paths } from './paths.ts';
 
 export interface NavItem {
   to: string;
@@ -10,16 +11,16 @@ export interface NavItem {
 }
 
 export const NAV_ITEMS: NavItem[] = [
-  { to: '/', label: 'Overview', end: true },
-  { to: '/samples', label: 'Samples', scope: 'samples:read' },
-  { to: '/imports', label: 'Imports', scope: 'samples:read', end: true }, // not lit on /imports/new, which has its own entry
-  { to: '/imports/new', label: 'Upload results', scope: 'imports:write' },
-  { to: '/drift', label: 'Drift', scope: 'standardizations:read' },
-  { to: '/quick-start', label: 'Quick start' },
-  { to: '/api-keys', label: 'API keys', scope: 'api-keys:read' },
-  { to: '/reference', label: 'API reference' },
-  { to: '/request-log', label: 'Request log', scope: 'request-log:read' },
-  { to: '/users', label: 'Users', scope: 'users:read' },
-  { to: '/audit', label: 'Audit trail', scope: 'audit:read' },
-  { to: '/outbox', label: 'Outbox', scope: 'users:write' },
+  { to: paths.home, label: 'Overview', end: true },
+  { to: paths.samples, label: 'Samples', scope: 'samples:read' },
+  { to: paths.imports, label: 'Imports', scope: 'samples:read', end: true }, // not lit on /imports/new, which has its own entry
+  { to: paths.upload, label: 'Upload results', scope: 'imports:write' },
+  { to: paths.drift, label: 'Drift', scope: 'standardizations:read' },
+  { to: paths.quickStart, label: 'Quick start' },
+  { to: paths.apiKeys, label: 'API keys', scope: 'api-keys:read' },
+  { to: paths.reference, label: 'API reference' },
+  { to: paths.requestLog, label: 'Request log', scope: 'request-log:read' },
+  { to: paths.users, label: 'Users', scope: 'users:read' },
+  { to: paths.audit, label: 'Audit trail', scope: 'audit:read' },
+  { to: paths.outbox, label: 'Outbox', scope: 'users:write' },
 ];

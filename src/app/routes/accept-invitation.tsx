@@ -3,6 +3,7 @@ import { Alert } from '../../components/ui/feedback.tsx';
 import { useAcceptInvitation } from '../../features/auth/api/session.ts';
 import { AuthFrame } from '../../features/auth/components/auth-frame.tsx';
 import { ChoosePasswordForm } from '../../features/auth/components/choose-password-form.tsx';
+import { paths } from '../../config/paths.ts';
 
 export function AcceptInvitationPage() {
   const [params] = useSearchParams();
@@ -13,7 +14,7 @@ export function AcceptInvitationPage() {
       {!token && <Alert title="This link has no invitation token">Open the link from your invitation e-mail again.</Alert>}
       {token && accept.isSuccess && (
         <Alert tone="success" title="Your account is active">
-          <Link to="/sign-in" className="text-copper-700 underline">
+          <Link to={paths.signIn} className="text-copper-700 underline">
             Sign in
           </Link>{' '}
           with {accept.data.email}.

@@ -3,7 +3,7 @@ import { Button } from '../../components/ui/button.tsx';
 import { PageHeader } from '../../components/ui/layout.tsx';
 import { ApiKeysTable } from '../../features/api-keys/components/api-keys-table.tsx';
 import { CreateKeyDialog } from '../../features/api-keys/components/create-key-dialog.tsx';
-import { hasScope, useMe } from '../../features/auth/api/me.ts';
+import { hasScope, useMe } from '../../api/me.ts';
 import { RequireScope } from '../../features/auth/components/require-scope.tsx';
 
 export function ApiKeysPage() {

@@ -1,7 +1,7 @@
 import { ProblemAlert, Spinner } from '../../components/ui/feedback.tsx';
 import { PageHeader } from '../../components/ui/layout.tsx';
 import { RequireScope } from '../../features/auth/components/require-scope.tsx';
-import { useInstruments, useMethods, useReferenceMaterials } from '../../features/drift/api/lookups.ts';
+import { useInstruments, useMethods, useReferenceMaterials } from '../../api/lookups.ts';
 import { RunForm } from '../../features/drift/components/run-form.tsx';
 
 export function DriftNewRunPage() {

@@ -3,13 +3,14 @@ import { Link, useParams } from 'react-router';
 import { Button } from '../../components/ui/button.tsx';
 import { Alert, ProblemAlert, Spinner } from '../../components/ui/feedback.tsx';
 import { Card, PageHeader } from '../../components/ui/layout.tsx';
-import { hasScope, useMe } from '../../features/auth/api/me.ts';
+import { hasScope, useMe } from '../../api/me.ts';
 import { RequireScope } from '../../features/auth/components/require-scope.tsx';
 import { useCorrectionsInForce, useRun } from '../../features/drift/api/standardizations.ts';
 import { formatTime } from '../../features/drift/chart-data.ts';
 import { ActivateDialog } from '../../features/drift/components/activate-dialog.tsx';
 import { CorrectionsTable } from '../../features/drift/components/corrections-table.tsx';
 import { FlagBadge, StatusText } from '../../features/drift/components/flag-badge.tsx';
+import { paths } from '../../config/paths.ts';
 
 export function DriftRunPage() {
   const { id = '' } = useParams();
@@ -35,7 +36,7 @@ export function DriftRunPage() {
             description={
               <>
                 Measured {formatTime(run.data.measured_at)} by {run.data.created_by}.{' '}
-                <Link className="text-copper-700 underline" to={`/drift?instrument=${run.data.instrument.id}&method=${run.data.method.id}`}>
+                <Link className="text-copper-700 underline" to={paths.driftOf(run.data.instrument.id, run.data.method.id)}>
                   Back to the drift history
                 </Link>
               </>

@@ -1,14 +1,15 @@
 import { Link, useSearchParams } from 'react-router';
 import { EmptyState, ProblemAlert, Spinner } from '../../components/ui/feedback.tsx';
 import { Card, PageHeader } from '../../components/ui/layout.tsx';
-import { hasScope, useMe } from '../../features/auth/api/me.ts';
+import { hasScope, useMe } from '../../api/me.ts';
 import { RequireScope } from '../../features/auth/components/require-scope.tsx';
-import { useInstruments, useMethods } from '../../features/drift/api/lookups.ts';
+import { useInstruments, useMethods } from '../../api/lookups.ts';
 import { useCorrectionsInForce, useDrift } from '../../features/drift/api/standardizations.ts';
 import { DriftChart } from '../../features/drift/components/drift-chart.tsx';
 import { DriftFilters, type DriftSelection } from '../../features/drift/components/drift-filters.tsx';
 import { InForceCard } from '../../features/drift/components/in-force-card.tsx';
 import { RunsTable } from '../../features/drift/components/runs-table.tsx';
+import { paths } from '../../config/paths.ts';
 
 function DriftHistory({ selection, instrumentCode }: { selection: DriftSelection; instrumentCode: string }) {
   const drift = useDrift(selection.instrumentId, selection.element, selection.methodId);
@@ -39,7 +40,7 @@ export function DriftPage() {
         description="Standardization runs per instrument and method: slope and offset of each element over time, their flags, and the correction set in force. Corrections are applied to concentrations (result files carry no intensity ratios)."
         actions={
           hasScope(me, 'standardizations:write') && (
-            <Link className="rounded-md bg-ember-600 px-3.5 py-2 text-sm font-medium text-white hover:bg-ember-700" to="/drift/new">
+            <Link className="rounded-md bg-ember-600 px-3.5 py-2 text-sm font-medium text-white hover:bg-ember-700" to={paths.driftNewRun}>
               Run a standardization
             </Link>
           )

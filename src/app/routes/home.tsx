@@ -1,9 +1,10 @@
 import { Link } from 'react-router';
 import { Alert } from '../../components/ui/feedback.tsx';
 import { Card, PageHeader } from '../../components/ui/layout.tsx';
-import { hasScope, useMe } from '../../features/auth/api/me.ts';
+import { hasScope, useMe } from '../../api/me.ts';
 import { HealthCard } from '../../features/health/health-card.tsx';
 import { RecentSamplesCard } from '../../features/samples/components/recent-samples-card.tsx';
+import { paths } from '../../config/paths.ts';
 
 export function HomePage() {
   const { data: me } = useMe();
@@ -34,25 +35,25 @@ export function HomePage() {
           <ol className="list-decimal space-y-1 pl-5 text-sm">
             <li>
               Issue a key with only the scopes your integration needs on{' '}
-              <Link className="text-copper-700 underline" to="/api-keys">
+              <Link className="text-copper-700 underline" to={paths.apiKeys}>
                 API keys
               </Link>
               .
             </li>
             <li>
               Make your first call with the copy-paste examples on{' '}
-              <Link className="text-copper-700 underline" to="/quick-start">
+              <Link className="text-copper-700 underline" to={paths.quickStart}>
                 Quick start
               </Link>
               ; every operation is on{' '}
-              <Link className="text-copper-700 underline" to="/reference">
+              <Link className="text-copper-700 underline" to={paths.reference}>
                 API reference
               </Link>
               .
             </li>
             <li>
               Every error is an RFC 9457 problem (<code>application/problem+json</code>) with a request id to quote; the{' '}
-              <Link className="text-copper-700 underline" to="/request-log">
+              <Link className="text-copper-700 underline" to={paths.requestLog}>
                 Request log
               </Link>{' '}
               shows each call and replays it.

@@ -5,6 +5,7 @@ import { RequireScope } from '../../features/auth/components/require-scope.tsx';
 import { useImport } from '../../features/imports/api/imports.ts';
 import { ImportReportView } from '../../features/imports/components/import-report.tsx';
 import { SamplesTable } from '../../features/samples/components/samples-table.tsx';
+import { paths } from '../../config/paths.ts';
 
 export function ImportPage() {
   const { id = '' } = useParams();
@@ -15,7 +16,7 @@ export function ImportPage() {
         title={record.data ? `Import of ${record.data.file.name}` : 'Import'}
         description={<span className="font-mono">{id}</span>}
         actions={
-          <Link to="/imports" className="text-sm text-copper-700 underline">
+          <Link to={paths.imports} className="text-sm text-copper-700 underline">
             ← All imports
           </Link>
         }

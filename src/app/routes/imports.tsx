@@ -1,8 +1,9 @@
 import { Link } from 'react-router';
 import { PageHeader } from '../../components/ui/layout.tsx';
-import { hasScope, useMe } from '../../features/auth/api/me.ts';
+import { hasScope, useMe } from '../../api/me.ts';
 import { RequireScope } from '../../features/auth/components/require-scope.tsx';
 import { ImportsTable } from '../../features/imports/components/imports-table.tsx';
+import { paths } from '../../config/paths.ts';
 
 export function ImportsPage() {
   const { data: me } = useMe();
@@ -14,7 +15,7 @@ export function ImportsPage() {
         actions={
           hasScope(me, 'imports:write') && (
             <Link
-              to="/imports/new"
+              to={paths.upload}
               className="inline-flex items-center rounded-md bg-ember-600 px-3.5 py-2 text-sm font-medium text-white hover:bg-ember-700"
             >
               Upload results

@@ -3,6 +3,7 @@ import { CodeBlock } from '../../components/ui/code-block.tsx';
 import { Alert } from '../../components/ui/feedback.tsx';
 import { Card, PageHeader } from '../../components/ui/layout.tsx';
 import { quickStartExamples } from '../../features/quick-start/examples.ts';
+import { paths } from '../../config/paths.ts';
 
 export function QuickStartPage() {
   const examples = quickStartExamples(window.location.origin);
@@ -13,15 +14,15 @@ export function QuickStartPage() {
         description={
           <>
             Copy-paste examples for this server. Issue a key on{' '}
-            <Link className="text-copper-700 underline" to="/api-keys">
+            <Link className="text-copper-700 underline" to={paths.apiKeys}>
               API keys
             </Link>
             , run them, then find each call in the{' '}
-            <Link className="text-copper-700 underline" to="/request-log">
+            <Link className="text-copper-700 underline" to={paths.requestLog}>
               Request log
             </Link>
             . Every operation is in the{' '}
-            <Link className="text-copper-700 underline" to="/reference">
+            <Link className="text-copper-700 underline" to={paths.reference}>
               API reference
             </Link>
             .

@@ -3,7 +3,7 @@ import '../../features/reference/swagger-theme.css';
 import SwaggerUI from 'swagger-ui-react';
 import { Alert } from '../../components/ui/feedback.tsx';
 import { PageHeader } from '../../components/ui/layout.tsx';
-import { useMe } from '../../features/auth/api/me.ts';
+import { useMe } from '../../api/me.ts';
 
 /** Sends "Try it out" calls with the console's session cookie (same origin, httpOnly). */
 function withSession(request: { credentials?: RequestCredentials; [key: string]: unknown }) {

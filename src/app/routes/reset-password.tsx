@@ -7,6 +7,7 @@ import { TextField } from '../../components/ui/field.tsx';
 import { useConfirmPasswordReset, useRequestPasswordReset } from '../../features/auth/api/session.ts';
 import { AuthFrame } from '../../features/auth/components/auth-frame.tsx';
 import { ChoosePasswordForm } from '../../features/auth/components/choose-password-form.tsx';
+import { paths } from '../../config/paths.ts';
 
 function RequestResetForm() {
   const [email, setEmail] = useState('');
@@ -50,7 +51,7 @@ export function ResetPasswordPage() {
       {!token && <RequestResetForm />}
       {token && confirm.isSuccess && (
         <Alert tone="success" title="Your password is changed">
-          <Link to="/sign-in" className="text-copper-700 underline">
+          <Link to={paths.signIn} className="text-copper-700 underline">
             Sign in
           </Link>{' '}
           with the new password.
@@ -65,7 +66,7 @@ export function ResetPasswordPage() {
         />
       )}
       <p className="mt-6 text-center text-sm">
-        <Link to="/sign-in" className="text-copper-700 hover:underline">
+        <Link to={paths.signIn} className="text-copper-700 hover:underline">
           Back to sign-in
         </Link>
       </p>

@@ -1,5 +1,6 @@
 import { isRouteErrorResponse, Link, useRouteError } from 'react-router';
 import { Alert } from '../../components/ui/feedback.tsx';
+import { paths } from '../../config/paths.ts';
 
 export function RouteError() {
   const error = useRouteError();
@@ -13,7 +14,7 @@ export function RouteError() {
       <Alert title="This page failed to load">
         <p>{message}</p>
         <p className="mt-2">
-          <Link to="/" className="text-copper-700 underline">
+          <Link to={paths.home} className="text-copper-700 underline">
             Back to the overview
           </Link>
         </p>

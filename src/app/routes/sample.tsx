@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { Link, useParams, useSearchParams } from 'react-router';
 import { Alert, ProblemAlert, Spinner } from '../../components/ui/feedback.tsx';
 import { PageHeader } from '../../components/ui/layout.tsx';
-import { hasScope, useMe } from '../../features/auth/api/me.ts';
+import { hasScope, useMe } from '../../api/me.ts';
 import { RequireScope } from '../../features/auth/components/require-scope.tsx';
 import { useSample, type Burn } from '../../features/samples/api/samples.ts';
 import { BurnExclusionDialog } from '../../features/samples/components/burn-exclusion-dialog.tsx';
@@ -13,6 +13,7 @@ import { SampleIdentity } from '../../features/samples/components/sample-identit
 import { SampleProvenance } from '../../features/samples/components/sample-provenance.tsx';
 import { UnitSwitch } from '../../features/samples/components/unit-switch.tsx';
 import { readUnit, type OutputUnit } from '../../features/samples/filters.ts';
+import { paths } from '../../config/paths.ts';
 
 export function SamplePage() {
   const { id = '' } = useParams();
@@ -32,7 +33,7 @@ export function SamplePage() {
         title={s ? `Sample ${s.sample_code}` : 'Sample'}
         description={s ? [s.heat && `Heat ${s.heat}`, s.grade, s.kind].filter(Boolean).join(' · ') : undefined}
         actions={
-          <Link to="/samples" className="text-sm text-copper-700 underline">
+          <Link to={paths.samples} className="text-sm text-copper-700 underline">
             ← All samples
           </Link>
         }

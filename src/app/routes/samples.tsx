@@ -5,6 +5,7 @@ import { SampleFilterForm } from '../../features/samples/components/sample-filte
 import { SamplesTable } from '../../features/samples/components/samples-table.tsx';
 import { UnitSwitch } from '../../features/samples/components/unit-switch.tsx';
 import { csvHref, readFilters, readUnit, writeFilters, type SampleFilters } from '../../features/samples/filters.ts';
+import { paths } from '../../config/paths.ts';
 
 export function SamplesPage() {
   const [params, setParams] = useSearchParams();
@@ -34,7 +35,7 @@ export function SamplesPage() {
           {importId ? (
             <p className="text-sm">
               Only samples of import{' '}
-              <Link to={`/imports/${importId}`} className="font-mono text-copper-700 underline">
+              <Link to={paths.import(importId)} className="font-mono text-copper-700 underline">
                 {importId}
               </Link>{' '}
               <button

@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { Button } from '../../components/ui/button.tsx';
 import { PageHeader } from '../../components/ui/layout.tsx';
-import { hasScope, useMe } from '../../features/auth/api/me.ts';
+import { hasScope, useMe } from '../../api/me.ts';
 import { RequireScope } from '../../features/auth/components/require-scope.tsx';
 import { InviteUserDialog } from '../../features/users/components/invite-user-dialog.tsx';
 import { UsersTable } from '../../features/users/components/users-table.tsx';

@@ -5,10 +5,11 @@ import { Button } from '../../components/ui/button.tsx';
 import { EmptyState, ProblemAlert, Spinner } from '../../components/ui/feedback.tsx';
 import { TextField } from '../../components/ui/field.tsx';
 import { Table } from '../../components/ui/layout.tsx';
+import { auditKeys } from '../../api/query-keys.ts';
 
 const auditQuery = (action: string, targetId: string) =>
   infiniteQueryOptions({
-    queryKey: ['audit-events', { action, targetId }],
+    queryKey: auditKeys.list({ action, targetId }),
     queryFn: ({ pageParam }) =>
       unwrap(
         api.GET('/audit-events', {

@@ -2,9 +2,10 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api, unwrap } from '../../api/client.ts';
 import { Badge, Card } from '../../components/ui/layout.tsx';
 import { ProblemAlert, Spinner } from '../../components/ui/feedback.tsx';
+import { systemKeys } from '../../api/query-keys.ts';
 
-export const healthQuery = queryOptions({
-  queryKey: ['health'],
+const healthQuery = queryOptions({
+  queryKey: systemKeys.health(),
   queryFn: () => unwrap(api.GET('/health')),
   refetchInterval: 30_000,
 });

@@ -22,6 +22,12 @@ export function roleInWords(role: string): string {
 export function elementsOf(columns: { role: string; element?: string }[], valueRecords: Record<string, string>[]): string[] {
   const elements = columns.filter((c) => c.role === 'element' && c.element).map((c) => c.element as string);
   const seen = new Set(elements);
-  for (const record of valueRecords) for (const el of Object.keys(record)) if (!seen.has(el)) (seen.add(el), elements.push(el));
+  for (const record of valueRecords) {
+    for (const el of Object.keys(record)) {
+      if (seen.has(el)) continue;
+      seen.add(el);
+      elements.push(el);
+    }
+  }
   return elements;
 }

@@ -2,9 +2,10 @@ import { useQuery } from '@tanstack/react-query';
 import { api, unwrap } from '../../api/client.ts';
 import { isProblem } from '../../api/problem.ts';
 import { Alert, EmptyState, ProblemAlert, Spinner } from '../../components/ui/feedback.tsx';
+import { systemKeys } from '../../api/query-keys.ts';
 
 export function OutboxList() {
-  const outbox = useQuery({ queryKey: ['outbox'], queryFn: () => unwrap(api.GET('/dev/outbox')), refetchInterval: 5000 });
+  const outbox = useQuery({ queryKey: systemKeys.outbox(), queryFn: () => unwrap(api.GET('/dev/outbox')), refetchInterval: 5000 });
   if (outbox.isPending) return <Spinner label="Loading captured e-mail…" />;
   if (isProblem(outbox.error, 404)) {
     return (

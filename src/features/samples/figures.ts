@@ -5,8 +5,8 @@
 // 0.135 differently).
 import { Decimal } from 'decimal.js';
 
-export const NO_VALUE = '—';
-export const GUARD_DIGITS = 2;
+const NO_VALUE = '—';
+const GUARD_DIGITS = 2;
 
 type Qualifier = '<' | '>' | 'nd' | null;
 

@@ -2,24 +2,20 @@
 // URL form: the API's own names (heat, grade, …), dates as YYYY-MM-DD in the reader's time zone,
 // `unit` only when not %. The API wants instants, so a day becomes [its local start, the next
 // day's local start) — `created_to` is exclusive on the server.
+import { OutputUnitValues, SampleKindValues, SampleStatusValues } from '../../api/openapi-enums.ts';
 import type { components } from '../../api/schema';
 
 export type SampleKind = NonNullable<components['schemas']['SampleKind']>;
 export type SampleStatus = components['schemas']['SampleStatus'];
 export type OutputUnit = components['schemas']['OutputUnit'];
 
-export const SAMPLE_KINDS = ['preliminary', 'final', 'ladle', 'incoming', 'control'] as const satisfies readonly SampleKind[];
-export const SAMPLE_STATUSES = ['draft', 'released'] as const satisfies readonly SampleStatus[];
-export const OUTPUT_UNITS = ['%', 'ppm', 'ppb'] as const satisfies readonly OutputUnit[];
-// Compile-time guards: a kind, status or unit added to the API must be added here too.
-type Exhaustive<Listed, All> = [Exclude<All, Listed>] extends [never] ? true : never;
-const _kinds: Exhaustive<(typeof SAMPLE_KINDS)[number], SampleKind> = true;
-const _statuses: Exhaustive<(typeof SAMPLE_STATUSES)[number], SampleStatus> = true;
-const _units: Exhaustive<(typeof OUTPUT_UNITS)[number], OutputUnit> = true;
-void [_kinds, _statuses, _units];
+// The allowed values, generated from the OpenAPI document by `npm run openapi`.
+export const SAMPLE_KINDS: readonly SampleKind[] = SampleKindValues;
+export const SAMPLE_STATUSES: readonly SampleStatus[] = SampleStatusValues;
+export const OUTPUT_UNITS: readonly OutputUnit[] = OutputUnitValues;
 
-export const TEXT_FILTERS = ['sample_code', 'heat', 'grade', 'instrument_id', 'method_id', 'import_id', 'flag'] as const;
-export const FILTER_KEYS = [...TEXT_FILTERS, 'kind', 'status', 'created_from', 'created_to'] as const;
+const TEXT_FILTERS = ['sample_code', 'heat', 'grade', 'instrument_id', 'method_id', 'import_id', 'flag'] as const;
+const FILTER_KEYS = [...TEXT_FILTERS, 'kind', 'status', 'created_from', 'created_to'] as const;
 export type FilterKey = (typeof FILTER_KEYS)[number];
 
 export interface SampleFilters {

@@ -1,13 +1,14 @@
 import { infiniteQueryOptions, useInfiniteQuery, useMutation, useQueryClient } from '@tanstack/react-query';
 import { api, unwrap } from '../../../api/client.ts';
 import type { components } from '../../../api/schema';
+import { apiKeyKeys } from '../../../api/query-keys.ts';
 
 export type ApiKey = components['schemas']['ApiKey'];
 export type CreateApiKeyRequest = components['schemas']['CreateApiKeyRequest'];
 
-export const apiKeysQuery = (includeRevoked: boolean) =>
+const apiKeysQuery = (includeRevoked: boolean) =>
   infiniteQueryOptions({
-    queryKey: ['api-keys', { includeRevoked }],
+    queryKey: apiKeyKeys.list(includeRevoked),
     queryFn: ({ pageParam }) =>
       unwrap(
         api.GET('/api-keys', { params: { query: { limit: 50, cursor: pageParam, include_revoked: includeRevoked ? 'true' : 'false' } } }),
@@ -22,7 +23,7 @@ export function useApiKeys(includeRevoked: boolean) {
 
 function useKeyMutation<TInput, TOutput>(fn: (input: TInput) => Promise<TOutput>) {
   const queryClient = useQueryClient();
-  return useMutation({ mutationFn: fn, onSuccess: () => queryClient.invalidateQueries({ queryKey: ['api-keys'] }) });
+  return useMutation({ mutationFn: fn, onSuccess: () => queryClient.invalidateQueries({ queryKey: apiKeyKeys.all }) });
 }
 
 export function useCreateApiKey() {

@@ -4,7 +4,7 @@ import { Button } from '../../../components/ui/button.tsx';
 import { Dialog } from '../../../components/ui/dialog.tsx';
 import { ProblemAlert } from '../../../components/ui/feedback.tsx';
 import { TextField } from '../../../components/ui/field.tsx';
-import type { Scope } from '../../auth/api/me.ts';
+import type { Scope } from '../../../api/me.ts';
 import { useCreateApiKey } from '../api/api-keys.ts';
 import { SecretOnce } from './secret-once.tsx';
 

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api, unwrap } from '../../../api/client.ts';
-import { meQuery } from './me.ts';
+import { meQuery } from '../../../api/me.ts';
 
 export function useLogin() {
   const queryClient = useQueryClient();

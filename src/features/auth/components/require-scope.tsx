@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
 import { Alert } from '../../../components/ui/feedback.tsx';
-import { hasScope, useMe, type Scope } from '../api/me.ts';
+import { hasScope, useMe, type Scope } from '../../../api/me.ts';
 
 /** Renders its children only for callers holding the scope; others see why not. */
 export function RequireScope({ scope, children }: { scope: Scope; children: ReactNode }) {

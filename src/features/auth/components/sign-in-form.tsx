@@ -5,6 +5,7 @@ import { Button } from '../../../components/ui/button.tsx';
 import { ProblemAlert } from '../../../components/ui/feedback.tsx';
 import { TextField } from '../../../components/ui/field.tsx';
 import { useLogin } from '../api/session.ts';
+import { paths } from '../../../config/paths.ts';
 
 /** Only same-site paths are followed after sign-in. */
 function safeNext(next: string | null): string {
@@ -51,7 +52,7 @@ export function SignInForm() {
         {login.isPending ? 'Signing in…' : 'Sign in'}
       </Button>
       <p className="text-center text-sm">
-        <Link to="/reset-password" className="text-copper-700 underline-offset-2 hover:underline">
+        <Link to={paths.resetPassword} className="text-copper-700 underline-offset-2 hover:underline">
           Forgot your password?
         </Link>
       </p>

@@ -2,6 +2,7 @@
 import { infiniteQueryOptions, queryOptions, useInfiniteQuery, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api, unwrap } from '../../../api/client.ts';
 import type { components } from '../../../api/schema';
+import { driftKeys } from '../../../api/query-keys.ts';
 
 export type Standardization = components['schemas']['Standardization'];
 export type ElementCorrection = components['schemas']['ElementCorrection'];
@@ -9,9 +10,9 @@ export type CorrectionFlag = components['schemas']['CorrectionFlag'];
 export type DriftPoint = components['schemas']['DriftPoint'];
 export type CreateStandardizationRequest = components['schemas']['CreateStandardizationRequest'];
 
-export const runsQuery = (instrumentId: string, methodId?: string) =>
+const runsQuery = (instrumentId: string, methodId?: string) =>
   infiniteQueryOptions({
-    queryKey: ['standardizations', 'list', instrumentId, methodId ?? null],
+    queryKey: driftKeys.runList(instrumentId, methodId ?? null),
     queryFn: ({ pageParam }) =>
       unwrap(
         api.GET('/instruments/{id}/standardizations', {
@@ -25,17 +26,17 @@ export const runsQuery = (instrumentId: string, methodId?: string) =>
 export const useRuns = (instrumentId: string, methodId?: string) =>
   useInfiniteQuery({ ...runsQuery(instrumentId, methodId), enabled: !!instrumentId });
 
-export const runQuery = (id: string) =>
+const runQuery = (id: string) =>
   queryOptions({
-    queryKey: ['standardizations', 'one', id],
+    queryKey: driftKeys.run(id),
     queryFn: () => unwrap(api.GET('/standardizations/{id}', { params: { path: { id } } })),
   });
 
 export const useRun = (id: string) => useQuery(runQuery(id));
 
-export const driftQuery = (instrumentId: string, element: string, methodId?: string) =>
+const driftQuery = (instrumentId: string, element: string, methodId?: string) =>
   queryOptions({
-    queryKey: ['drift', instrumentId, element, methodId ?? null],
+    queryKey: driftKeys.seriesOf(instrumentId, element, methodId ?? null),
     queryFn: () =>
       unwrap(
         api.GET('/instruments/{id}/drift', {
@@ -47,9 +48,9 @@ export const driftQuery = (instrumentId: string, element: string, methodId?: str
 export const useDrift = (instrumentId: string, element: string, methodId?: string) =>
   useQuery({ ...driftQuery(instrumentId, element, methodId), enabled: !!instrumentId && !!element });
 
-export const correctionsQuery = (instrumentId: string) =>
+const correctionsQuery = (instrumentId: string) =>
   queryOptions({
-    queryKey: ['corrections', instrumentId],
+    queryKey: driftKeys.correctionsOf(instrumentId),
     queryFn: () => unwrap(api.GET('/instruments/{id}/corrections', { params: { path: { id: instrumentId } } })),
   });
 
@@ -57,7 +58,8 @@ export const useCorrectionsInForce = (instrumentId: string) => useQuery({ ...cor
 
 function useInvalidateDrift() {
   const queryClient = useQueryClient();
-  return () => Promise.all(['standardizations', 'drift', 'corrections'].map((key) => queryClient.invalidateQueries({ queryKey: [key] })));
+  return () =>
+    Promise.all([driftKeys.runs, driftKeys.series, driftKeys.corrections].map((queryKey) => queryClient.invalidateQueries({ queryKey })));
 }
 
 export function useCreateRun() {

@@ -7,6 +7,7 @@ import { Table } from '../../../components/ui/layout.tsx';
 import type { DriftPoint } from '../api/standardizations.ts';
 import { type ChartRow, formatDay, formatTime, shortDecimal, toChartRows } from '../chart-data.ts';
 import { FlagBadge, StatusText } from './flag-badge.tsx';
+import { paths } from '../../../config/paths.ts';
 
 const AXIS = new Intl.NumberFormat('en-US', { maximumSignificantDigits: 3, useGrouping: false });
 
@@ -119,7 +120,7 @@ export function DriftChart({ points, element, instrumentCode }: { points: DriftP
               <td className="px-3 py-1.5 text-right">
                 <Link
                   className="text-sm text-copper-700 underline"
-                  to={`/drift/runs/${p.standardization_id}`}
+                  to={paths.driftRun(p.standardization_id)}
                   aria-label={`Open the run of ${formatTime(p.measured_at)}`}
                 >
                   Open

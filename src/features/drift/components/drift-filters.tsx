@@ -1,5 +1,6 @@
 import { SelectField } from '../../../components/ui/field.tsx';
-import type { Instrument, Method } from '../api/lookups.ts';
+import type { Instrument, Method } from '../../../api/lookups.ts';
+import { InstrumentOptions, MethodOptions } from '../../../components/lookup-options.tsx';
 
 export interface DriftSelection {
   instrumentId: string;
@@ -22,11 +23,7 @@ export function DriftFilters({
   return (
     <div className="grid max-w-3xl gap-4 sm:grid-cols-3">
       <SelectField label="Instrument" value={value.instrumentId} onChange={(e) => onChange({ ...value, instrumentId: e.target.value })}>
-        {instruments.map((i) => (
-          <option key={i.id} value={i.id}>
-            {i.code} — {i.name}
-          </option>
-        ))}
+        <InstrumentOptions instruments={instruments} />
       </SelectField>
       <SelectField
         label="Method"
@@ -39,11 +36,7 @@ export function DriftFilters({
           })
         }
       >
-        {methods.map((m) => (
-          <option key={m.id} value={m.id}>
-            {m.code} ({m.matrix} base)
-          </option>
-        ))}
+        <MethodOptions methods={methods} label={(m) => `${m.code} (${m.matrix} base)`} />
       </SelectField>
       <SelectField label="Element" value={value.element} onChange={(e) => onChange({ ...value, element: e.target.value })}>
         {method?.elements.map((e) => (

@@ -3,6 +3,7 @@ import { Card } from '../../../components/ui/layout.tsx';
 import { useCorrectionsInForce } from '../api/standardizations.ts';
 import { formatTime } from '../chart-data.ts';
 import { FlagBadge } from './flag-badge.tsx';
+import { paths } from '../../../config/paths.ts';
 
 /** The set in force now for an instrument and method, or a plain statement that there is none. */
 export function InForceCard({ instrumentId, methodId }: { instrumentId: string; methodId: string }) {
@@ -29,7 +30,7 @@ export function InForceCard({ instrumentId, methodId }: { instrumentId: string; 
             <FlagBadge flag={entry.set.flag} />
           </dd>
           <dd className="col-span-2 pt-1">
-            <Link className="text-copper-700 underline" to={`/drift/runs/${entry.set.id}`}>
+            <Link className="text-copper-700 underline" to={paths.driftRun(entry.set.id)}>
               Open the set
             </Link>
           </dd>

@@ -6,9 +6,10 @@ import { ApiProblem } from '../../../api/problem.ts';
 import { Button } from '../../../components/ui/button.tsx';
 import { ProblemAlert } from '../../../components/ui/feedback.tsx';
 import { SelectField, TextField } from '../../../components/ui/field.tsx';
-import { type Instrument, type Method, type ReferenceMaterial } from '../api/lookups.ts';
+import { type Instrument, type Method, type ReferenceMaterial } from '../../../api/lookups.ts';
 import { type CreateStandardizationRequest, useCreateRun } from '../api/standardizations.ts';
 import { parseBurnsJson } from '../burns-json.ts';
+import { paths } from '../../../config/paths.ts';
 
 type Mode = CreateStandardizationRequest['mode'];
 const MODES: { value: Mode; label: string; kinds: ReferenceMaterial['kind'][][] }[] = [
@@ -103,7 +104,7 @@ export function RunForm({
       ...(note.trim() ? { note: note.trim() } : {}),
       measurements: kinds.map((_, i) => ({ reference_material_id: refIds[i], burns: parsed[i].burns!.map((values) => ({ values })) })),
     };
-    create.mutate({ instrumentId, body }, { onSuccess: (run) => navigate(`/drift/runs/${run.id}`) });
+    create.mutate({ instrumentId, body }, { onSuccess: (run) => navigate(paths.driftRun(run.id)) });
   }
 
   const problem = create.error instanceof ApiProblem ? create.error : undefined;

@@ -5,6 +5,7 @@ import { Table } from '../../../components/ui/layout.tsx';
 import { useRuns } from '../api/standardizations.ts';
 import { formatTime } from '../chart-data.ts';
 import { FlagBadge, StatusText } from './flag-badge.tsx';
+import { paths } from '../../../config/paths.ts';
 
 const MODES: Record<string, string> = {
   two_point: 'Two-point',
@@ -40,7 +41,7 @@ export function RunsTable({ instrumentId, methodId }: { instrumentId: string; me
               <td className="px-3 py-2 text-right">
                 <Link
                   className="text-sm font-medium text-copper-700 underline"
-                  to={`/drift/runs/${run.id}`}
+                  to={paths.driftRun(run.id)}
                   aria-label={`Open the run of ${formatTime(run.measured_at)}`}
                 >
                   Open

@@ -3,14 +3,15 @@ import { useState } from 'react';
 import { api, unwrap } from '../../../api/client.ts';
 import type { components } from '../../../api/schema';
 import { postMultipart, type UploadAnswer, type UploadProgress } from '../../../api/upload.ts';
+import { importKeys, sampleKeys } from '../../../api/query-keys.ts';
 
 export type Import = components['schemas']['Import'];
 export type ImportPreview = components['schemas']['ImportPreview'];
 export type ImportIssue = components['schemas']['ImportIssue'];
 export type ImportMode = Import['mode'];
 
-export const importsQuery = infiniteQueryOptions({
-  queryKey: ['imports', 'list'],
+const importsQuery = infiniteQueryOptions({
+  queryKey: importKeys.list(),
   queryFn: ({ pageParam }) => unwrap(api.GET('/imports', { params: { query: { limit: 50, cursor: pageParam } } })),
   initialPageParam: undefined as string | undefined,
   getNextPageParam: (page) => page.next_cursor ?? undefined,
@@ -20,9 +21,9 @@ export function useImports() {
   return useInfiniteQuery(importsQuery);
 }
 
-export const importQuery = (id: string) =>
+const importQuery = (id: string) =>
   queryOptions({
-    queryKey: ['imports', 'detail', id],
+    queryKey: importKeys.detail(id),
     queryFn: () => unwrap(api.GET('/imports/{id}', { params: { path: { id } } })),
     staleTime: Infinity, // an import's report never changes
   });
@@ -66,7 +67,7 @@ function useUploadMutation<TInput, TOutput>(
 
 export function usePreviewImport() {
   return useUploadMutation((choice: UploadChoice, onProgress) =>
-    postMultipart<ImportPreview>('/imports/preview', formOf(choice), onProgress).then((answer) => answer.data),
+    postMultipart('/imports/preview', formOf(choice), onProgress).then((answer) => answer.data),
   );
 }
 
@@ -75,12 +76,12 @@ export function useCommitImport() {
   const queryClient = useQueryClient();
   return useUploadMutation(
     ({ mode, ...choice }: UploadChoice & { mode: ImportMode }, onProgress) =>
-      postMultipart<Import>('/imports', formOf(choice, { mode }), onProgress),
+      postMultipart('/imports', formOf(choice, { mode }), onProgress),
     (answer: UploadAnswer<Import>) => {
       queryClient.setQueryData(importQuery(answer.data.id).queryKey, answer.data);
       return Promise.all([
-        queryClient.invalidateQueries({ queryKey: ['imports', 'list'] }),
-        queryClient.invalidateQueries({ queryKey: ['samples'] }),
+        queryClient.invalidateQueries({ queryKey: importKeys.list() }),
+        queryClient.invalidateQueries({ queryKey: sampleKeys.all }),
       ]);
     },
   );

@@ -5,6 +5,7 @@ import type { ImportPreview } from '../api/imports.ts';
 import { elementsOf, roleInWords } from '../column-roles.ts';
 import { IssuesSection } from './import-issues-table.tsx';
 import { LayoutSummary } from './layout-summary.tsx';
+import { paths } from '../../../config/paths.ts';
 
 /** Samples whose burns the preview shows (the server sends up to 20). */
 const SHOWN_SAMPLES = 5;
@@ -21,7 +22,7 @@ export function ImportPreviewView({ preview }: { preview: ImportPreview }) {
       {preview.duplicate_of && (
         <Alert tone="info" title="These bytes were imported before">
           An earlier upload holds exactly this file:{' '}
-          <Link to={`/imports/${preview.duplicate_of}`} className="font-mono text-copper-700 underline">
+          <Link to={paths.import(preview.duplicate_of)} className="font-mono text-copper-700 underline">
             {preview.duplicate_of}
           </Link>
           . Importing it again creates nothing and shows that import&apos;s report.

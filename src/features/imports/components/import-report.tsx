@@ -2,14 +2,15 @@ import { Link } from 'react-router';
 import { Card } from '../../../components/ui/layout.tsx';
 import { formatBytes } from '../../../lib/format-bytes.ts';
 import { utcSecond } from '../../../lib/utc-time.ts';
-import { useInstruments, useMethods } from '../../lab/api/lab-lists.ts';
+import { useInstruments, useMethods } from '../../../api/lookups.ts';
 import type { Import } from '../api/imports.ts';
 import { IssuesSection } from './import-issues-table.tsx';
 import { LayoutSummary } from './layout-summary.tsx';
+import { paths } from '../../../config/paths.ts';
 
 const MODE_WORDS: Record<Import['mode'], string> = { all_or_nothing: 'all or nothing', per_sample: 'per sample' };
 
-export function rawFileHref(importId: string): string {
+function rawFileHref(importId: string): string {
   return `/api/v1/imports/${encodeURIComponent(importId)}/file`;
 }
 
@@ -55,7 +56,7 @@ export function ImportReportView({ record }: { record: Import }) {
             ⤓ Download the raw file
           </a>
           {counts.samples_created > 0 && (
-            <Link to={`/samples?import_id=${encodeURIComponent(record.id)}`} className="text-copper-700 underline">
+            <Link to={paths.samplesOfImport(record.id)} className="text-copper-700 underline">
               Open {counts.samples_created === 1 ? 'its sample' : `its ${counts.samples_created} samples`} in the samples table
             </Link>
           )}

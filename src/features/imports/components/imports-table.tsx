@@ -3,8 +3,9 @@ import { EmptyState, ProblemAlert, Spinner } from '../../../components/ui/feedba
 import { LoadMore } from '../../../components/ui/load-more.tsx';
 import { Table } from '../../../components/ui/layout.tsx';
 import { utcMinute } from '../../../lib/utc-time.ts';
-import { useInstruments } from '../../lab/api/lab-lists.ts';
+import { useInstruments } from '../../../api/lookups.ts';
 import { useImports } from '../api/imports.ts';
+import { paths } from '../../../config/paths.ts';
 
 const figure = 'px-3 py-2 text-right font-mono tabular-nums';
 const right = (text: string) => (
@@ -53,7 +54,7 @@ export function ImportsTable() {
               <td className="px-3 py-2 text-xs">{record.created_by}</td>
               <td className="px-3 py-2 text-right">
                 <Link
-                  to={`/imports/${record.id}`}
+                  to={paths.import(record.id)}
                   className="text-copper-700 underline"
                   aria-label={`Report of ${record.file.name}, uploaded ${record.created_at}`}
                 >

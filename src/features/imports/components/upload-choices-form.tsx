@@ -1,8 +1,9 @@
 import { useState, type FormEvent } from 'react';
 import { Button } from '../../../components/ui/button.tsx';
 import { SelectField } from '../../../components/ui/field.tsx';
-import { useImportProfiles, useInstruments, useMethods } from '../../lab/api/lab-lists.ts';
+import { useImportProfiles, useInstruments, useMethods } from '../../../api/lookups.ts';
 import { FileDropZone } from './file-drop-zone.tsx';
+import { InstrumentOptions, MethodOptions } from '../../../components/lookup-options.tsx';
 
 export interface UploadDraft {
   instrumentId: string;
@@ -64,11 +65,7 @@ export function UploadChoicesForm({
           disabled={busy}
         >
           <option value="">{instruments.isPending ? 'Loading…' : 'Choose an instrument…'}</option>
-          {instruments.data?.map((i) => (
-            <option key={i.id} value={i.id}>
-              {i.code} — {i.name}
-            </option>
-          ))}
+          <InstrumentOptions instruments={instruments.data} />
         </SelectField>
         <SelectField
           label="Method"
@@ -78,11 +75,7 @@ export function UploadChoicesForm({
           disabled={busy}
         >
           <option value="">{methods.isPending ? 'Loading…' : 'Choose a method…'}</option>
-          {methods.data?.map((m) => (
-            <option key={m.id} value={m.id}>
-              {m.code} — {m.name}
-            </option>
-          ))}
+          <MethodOptions methods={methods.data} />
         </SelectField>
         <SelectField
           label="Import profile (optional)"

@@ -1,6 +1,7 @@
 import { infiniteQueryOptions, queryOptions, useInfiniteQuery, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api, unwrap } from '../../../api/client.ts';
 import type { components, operations } from '../../../api/schema';
+import { requestLogKeys } from '../../../api/query-keys.ts';
 
 export type RequestLogSummary = components['schemas']['RequestLogSummary'];
 export type RequestLogEntry = components['schemas']['RequestLogEntry'];
@@ -11,9 +12,9 @@ function present(filters: RequestLogFilters): RequestLogFilters {
   return Object.fromEntries(Object.entries(filters).filter(([, value]) => value !== undefined && value !== '')) as RequestLogFilters;
 }
 
-export const requestLogQuery = (filters: RequestLogFilters) =>
+const requestLogQuery = (filters: RequestLogFilters) =>
   infiniteQueryOptions({
-    queryKey: ['request-log', 'list', present(filters)],
+    queryKey: requestLogKeys.list(present(filters)),
     queryFn: ({ pageParam }) =>
       unwrap(api.GET('/request-log', { params: { query: { limit: 50, cursor: pageParam, ...present(filters) } } })),
     initialPageParam: undefined as string | undefined,
@@ -24,9 +25,9 @@ export function useRequestLog(filters: RequestLogFilters) {
   return useInfiniteQuery(requestLogQuery(filters));
 }
 
-export const requestLogEntryQuery = (id: string) =>
+const requestLogEntryQuery = (id: string) =>
   queryOptions({
-    queryKey: ['request-log', 'entry', id],
+    queryKey: requestLogKeys.entry(id),
     queryFn: () => unwrap(api.GET('/request-log/{id}', { params: { path: { id } } })),
     staleTime: Infinity, // entries never change
   });
@@ -41,7 +42,7 @@ export function useReplay() {
     mutationFn: (id: string) => unwrap(api.POST('/request-log/{id}/replay', { params: { path: { id } } })),
     onSuccess: (entry) => {
       queryClient.setQueryData(requestLogEntryQuery(entry.id).queryKey, entry);
-      return queryClient.invalidateQueries({ queryKey: ['request-log', 'list'] });
+      return queryClient.invalidateQueries({ queryKey: requestLogKeys.lists() });
     },
   });
 }

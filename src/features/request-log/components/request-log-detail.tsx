@@ -6,6 +6,7 @@ import { Badge } from '../../../components/ui/layout.tsx';
 import { useReplay, useRequestLogEntry, type RequestLogEntry } from '../api/request-log.ts';
 import { curlCommand } from '../curl.ts';
 import { StatusBadge } from './status-badge.tsx';
+import { paths } from '../../../config/paths.ts';
 
 type Message = RequestLogEntry['request'];
 
@@ -75,7 +76,7 @@ function ReplayPanel({ entry }: { entry: RequestLogEntry }) {
           <span>Replayed:</span>
           <StatusBadge status={replay.data.status} />
           <span className="font-mono text-xs">{replay.data.duration_ms.toFixed(1)} ms</span>
-          <Link to={`?entry=${replay.data.id}`} className="text-copper-700 underline">
+          <Link to={paths.requestLogEntry(replay.data.id)} className="text-copper-700 underline">
             Open the new entry
           </Link>
         </div>
@@ -109,7 +110,7 @@ export function RequestLogDetail({ id }: { id: string }) {
           <>
             <dt className="text-slag-500">Replay of</dt>
             <dd>
-              <Link to={`?entry=${e.replay_of}`} className="font-mono text-xs text-copper-700 underline">
+              <Link to={paths.requestLogEntry(e.replay_of)} className="font-mono text-xs text-copper-700 underline">
                 {e.replay_of}
               </Link>{' '}
               <Badge tone="accent">replay</Badge>

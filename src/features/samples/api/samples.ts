@@ -2,15 +2,16 @@ import { infiniteQueryOptions, queryOptions, useInfiniteQuery, useMutation, useQ
 import { api, unwrap } from '../../../api/client.ts';
 import type { components } from '../../../api/schema';
 import { toApiQuery, type OutputUnit, type SampleFilters } from '../filters.ts';
+import { sampleKeys } from '../../../api/query-keys.ts';
 
 export type SampleSummary = components['schemas']['SampleSummary'];
 export type Sample = components['schemas']['Sample'];
 export type ElementResult = components['schemas']['ElementResult'];
 export type Burn = components['schemas']['Burn'];
 
-export const samplesQuery = (filters: SampleFilters, unit: OutputUnit, pageSize = 50) =>
+const samplesQuery = (filters: SampleFilters, unit: OutputUnit, pageSize = 50) =>
   infiniteQueryOptions({
-    queryKey: ['samples', 'list', filters, unit, pageSize],
+    queryKey: sampleKeys.list(filters, unit, pageSize),
     queryFn: ({ pageParam }) =>
       unwrap(api.GET('/samples', { params: { query: { ...toApiQuery(filters, unit), limit: pageSize, cursor: pageParam } } })),
     initialPageParam: undefined as string | undefined,
@@ -21,9 +22,9 @@ export function useSamples(filters: SampleFilters, unit: OutputUnit, pageSize?: 
   return useInfiniteQuery(samplesQuery(filters, unit, pageSize));
 }
 
-export const sampleQuery = (id: string, unit: OutputUnit) =>
+const sampleQuery = (id: string, unit: OutputUnit) =>
   queryOptions({
-    queryKey: ['samples', 'detail', id, unit],
+    queryKey: sampleKeys.detail(id, unit),
     queryFn: () => unwrap(api.GET('/samples/{id}', { params: { path: { id }, query: { unit } } })),
   });
 
@@ -46,8 +47,8 @@ export function useSetBurnExclusion() {
       unwrap(api.PATCH('/samples/{id}/burns/{n}', { params: { path: { id: sampleId, n: burn } }, body: { excluded, reason } })),
     onSuccess: (_sample, input) =>
       Promise.all([
-        queryClient.invalidateQueries({ queryKey: ['samples', 'detail', input.sampleId] }),
-        queryClient.invalidateQueries({ queryKey: ['samples', 'list'] }),
+        queryClient.invalidateQueries({ queryKey: sampleKeys.details(input.sampleId) }),
+        queryClient.invalidateQueries({ queryKey: sampleKeys.lists() }),
       ]),
   });
 }

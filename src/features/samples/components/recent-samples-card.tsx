@@ -4,6 +4,7 @@ import { Card } from '../../../components/ui/layout.tsx';
 import { utcMinute } from '../../../lib/utc-time.ts';
 import { useSamples } from '../api/samples.ts';
 import { FlagList } from './flag-badges.tsx';
+import { paths } from '../../../config/paths.ts';
 
 const RECENT = 5;
 
@@ -20,7 +21,7 @@ export function RecentSamplesCard() {
           {rows.map((s) => (
             <li key={s.id} className="flex flex-wrap items-center justify-between gap-2 py-1.5">
               <span>
-                <Link to={`/samples/${s.id}`} className="font-mono text-copper-700 underline">
+                <Link to={paths.sample(s.id)} className="font-mono text-copper-700 underline">
                   {s.sample_code}
                 </Link>
                 <span className="ml-2 text-slag-500">{[s.heat, s.grade].filter(Boolean).join(' · ')}</span>
@@ -33,7 +34,7 @@ export function RecentSamplesCard() {
           ))}
         </ul>
       )}
-      <Link to="/samples" className="mt-3 inline-block text-sm text-copper-700 underline">
+      <Link to={paths.samples} className="mt-3 inline-block text-sm text-copper-700 underline">
         All samples →
       </Link>
     </Card>

@@ -1,5 +1,6 @@
 import { Link } from 'react-router';
 import type { Sample } from '../api/samples.ts';
+import { paths } from '../../../config/paths.ts';
 
 /** Which drift correction produced the results: the set(s), how they were chosen, and on what. */
 export function SampleCorrection({ correction }: { correction: Sample['correction'] }) {
@@ -21,7 +22,7 @@ export function SampleCorrection({ correction }: { correction: Sample['correctio
           : sets.map((id, i) => (
               <span key={id}>
                 {i > 0 && ', '}
-                <Link to={`/drift/runs/${id}`} className="font-mono text-copper-700 underline">
+                <Link to={paths.driftRun(id)} className="font-mono text-copper-700 underline">
                   {id}
                 </Link>
               </span>

@@ -1,9 +1,10 @@
 import { useState, type FormEvent } from 'react';
 import { Button } from '../../../components/ui/button.tsx';
 import { SelectField, TextField } from '../../../components/ui/field.tsx';
-import { useInstruments, useMethods } from '../../lab/api/lab-lists.ts';
+import { useInstruments, useMethods } from '../../../api/lookups.ts';
 import { SAMPLE_KINDS, SAMPLE_STATUSES, type SampleFilters } from '../filters.ts';
 import { flagInfo, RESULT_FLAG_NAMES } from '../result-flags.ts';
+import { InstrumentOptions, MethodOptions } from '../../../components/lookup-options.tsx';
 
 type Draft = Record<Exclude<keyof SampleFilters, 'import_id'>, string>;
 
@@ -55,11 +56,7 @@ export function SampleFilterForm({ filters, onApply }: { filters: SampleFilters;
         hint={instruments.error ? 'Instruments could not be loaded.' : undefined}
       >
         <option value="">any</option>
-        {instruments.data?.map((i) => (
-          <option key={i.id} value={i.id}>
-            {i.code} — {i.name}
-          </option>
-        ))}
+        <InstrumentOptions instruments={instruments.data} />
       </SelectField>
       <SelectField
         label="Method"
@@ -68,11 +65,7 @@ export function SampleFilterForm({ filters, onApply }: { filters: SampleFilters;
         hint={methods.error ? 'Methods could not be loaded.' : undefined}
       >
         <option value="">any</option>
-        {methods.data?.map((m) => (
-          <option key={m.id} value={m.id}>
-            {m.code} — {m.name}
-          </option>
-        ))}
+        <MethodOptions methods={methods.data} />
       </SelectField>
       <SelectField label="Kind" value={draft.kind} onChange={set('kind')}>
         <option value="">any</option>

@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
 import { Card } from '../../../components/ui/layout.tsx';
-import { useInstruments, useMethods } from '../../lab/api/lab-lists.ts';
+import { useInstruments, useMethods } from '../../../api/lookups.ts';
 import type { Sample } from '../api/samples.ts';
 import { utcSecond } from '../../../lib/utc-time.ts';
 import { StatusBadge } from './status-badge.tsx';

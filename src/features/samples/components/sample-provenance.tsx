@@ -3,6 +3,7 @@ import { Card } from '../../../components/ui/layout.tsx';
 import type { Sample } from '../api/samples.ts';
 import { lineRanges } from '../figures.ts';
 import { SampleCorrection } from './sample-correction.tsx';
+import { paths } from '../../../config/paths.ts';
 
 export function SampleProvenance({ sample }: { sample: Sample }) {
   const p = sample.provenance;
@@ -19,7 +20,7 @@ export function SampleProvenance({ sample }: { sample: Sample }) {
           <dt className="text-slag-500">Import</dt>
           <dd>
             {p.import_id ? (
-              <Link to={`/imports/${p.import_id}`} className="font-mono text-copper-700 underline">
+              <Link to={paths.import(p.import_id)} className="font-mono text-copper-700 underline">
                 {p.import_id}
               </Link>
             ) : (

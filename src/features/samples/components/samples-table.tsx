@@ -8,6 +8,7 @@ import { reportedFigure } from '../figures.ts';
 import type { OutputUnit, SampleFilters } from '../filters.ts';
 import { FlagList } from './flag-badges.tsx';
 import { StatusBadge } from './status-badge.tsx';
+import { paths } from '../../../config/paths.ts';
 
 /** How many reported values the table previews per sample. */
 const PREVIEW_ELEMENTS = 3;
@@ -61,10 +62,7 @@ export function SamplesTable({ filters, unit, emptyHint }: { filters: SampleFilt
           {rows.map((s) => (
             <tr key={s.id} className="align-top hover:bg-ash-50" data-testid="sample-row">
               <td className={cell}>
-                <Link
-                  to={`/samples/${s.id}${unit === '%' ? '' : `?unit=${encodeURIComponent(unit)}`}`}
-                  className="font-mono font-medium text-copper-700 underline"
-                >
+                <Link to={paths.sample(s.id, unit)} className="font-mono font-medium text-copper-700 underline">
                   {s.sample_code}
                 </Link>
               </td>

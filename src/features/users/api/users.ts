@@ -1,13 +1,15 @@
 import { infiniteQueryOptions, useInfiniteQuery, useMutation, useQueryClient } from '@tanstack/react-query';
 import { api, unwrap } from '../../../api/client.ts';
+import { RoleValues } from '../../../api/openapi-enums.ts';
 import type { components } from '../../../api/schema';
+import { userKeys } from '../../../api/query-keys.ts';
 
 export type User = components['schemas']['User'];
 export type Role = components['schemas']['Role'];
-export const ROLES: Role[] = ['admin', 'manager', 'analyst', 'integrator', 'viewer'];
+export const ROLES: readonly Role[] = RoleValues;
 
-export const usersQuery = infiniteQueryOptions({
-  queryKey: ['users'],
+const usersQuery = infiniteQueryOptions({
+  queryKey: userKeys.all,
   queryFn: ({ pageParam }) => unwrap(api.GET('/users', { params: { query: { limit: 50, cursor: pageParam } } })),
   initialPageParam: undefined as string | undefined,
   getNextPageParam: (page) => page.next_cursor ?? undefined,
@@ -21,7 +23,7 @@ export function useInviteUser() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (body: { email: string; name: string; role: Role }) => unwrap(api.POST('/users', { body })),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['users'] }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: userKeys.all }),
   });
 }
 
@@ -30,7 +32,7 @@ export function useUpdateUser() {
   return useMutation({
     mutationFn: ({ id, ...body }: { id: string; role?: Role; status?: 'active' | 'disabled'; name?: string }) =>
       unwrap(api.PATCH('/users/{id}', { params: { path: { id } }, body })),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['users'] }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: userKeys.all }),
   });
 }
 

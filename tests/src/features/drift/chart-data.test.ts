@@ -37,7 +37,7 @@ describe('drift chart data', () => {
         id: 'std_a',
         time: Date.UTC(2026, 2, 2, 5, 10),
         slope: 1.0239520958083832,
-        offset: -0.0042335329341317365,
+        offset: -0.004233532934131736,
         flag: 'ok',
         status: 'activated',
         inForce: true,

@@ -13,8 +13,8 @@ import {
 import { decimalString } from '../../../helpers/decimal-arbitrary.ts';
 
 describe('roundedFigure', () => {
-  // ASTM E29 / ISO 80000-1 Annex B rule A pairs, as listed in /work/shared/REFERENCES.md
-  // "Rounding for conformance". Given as numbers, as the API's statistics are: 12.35 and 42.85
+  // ASTM E29 / ISO 80000-1 Annex B rule A pairs, as listed in docs/references.md#rounding.
+  // Given as numbers, as the API's statistics are: 12.35 and 42.85
   // are not exact binary floats, and (12.35).toFixed(1) would give "12.3".
   it.each([
     [56.748, 1, '56.7'],

@@ -3,7 +3,7 @@ import { RESULT_FLAGS } from '../../../../server/domain/chemistry/result-rules.t
 import { flagInfo, RESULT_FLAG_DESCRIPTIONS, RESULT_FLAG_NAMES } from '../../../../src/features/samples/result-flags.ts';
 
 describe('result flags in the console', () => {
-  it("are a faithful copy of the server's list: same names, same order, same words", () => {
+  it("are the server's list as the OpenAPI document carries it: same names, same order, same words", () => {
     expect(RESULT_FLAG_DESCRIPTIONS).toEqual(RESULT_FLAGS);
     expect(RESULT_FLAG_NAMES).toEqual(Object.keys(RESULT_FLAGS));
   });

@@ -1,14 +1,15 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { api, unwrap } from '../../../api/client.ts';
-import { isProblem } from '../../../api/problem.ts';
-import type { components } from '../../../api/schema';
+import { api, unwrap } from './client.ts';
+import { isProblem } from './problem.ts';
+import type { components } from './schema';
+import { authKeys } from './query-keys.ts';
 
 export type Me = components['schemas']['Me'];
 export type Scope = components['schemas']['Scope'];
 
 /** The signed-in caller, or null when there is no session (a 401 is an answer, not an error). */
 export const meQuery = queryOptions({
-  queryKey: ['auth', 'me'],
+  queryKey: authKeys.me(),
   queryFn: async (): Promise<Me | null> => {
     try {
       return await unwrap(api.GET('/auth/me'));

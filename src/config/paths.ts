@@ -1,0 +1,29 @@
+// Every console address, in one place: links and redirects take them from here instead of typing
+// "/…" by hand. The route table (src/app/router.tsx) declares the same addresses.
+const id = (value: string) => encodeURIComponent(value);
+
+export const paths = {
+  home: '/',
+  signIn: '/sign-in',
+  resetPassword: '/reset-password',
+  acceptInvitation: '/accept-invitation',
+  samples: '/samples',
+  /** A sample, in a unit other than % when asked. */
+  sample: (sampleId: string, unit?: string) => `/samples/${id(sampleId)}${unit && unit !== '%' ? `?unit=${id(unit)}` : ''}`,
+  samplesOfImport: (importId: string) => `/samples?import_id=${id(importId)}`,
+  imports: '/imports',
+  upload: '/imports/new',
+  import: (importId: string) => `/imports/${id(importId)}`,
+  drift: '/drift',
+  driftOf: (instrumentId: string, methodId: string) => `/drift?instrument=${id(instrumentId)}&method=${id(methodId)}`,
+  driftNewRun: '/drift/new',
+  driftRun: (runId: string) => `/drift/runs/${id(runId)}`,
+  quickStart: '/quick-start',
+  apiKeys: '/api-keys',
+  reference: '/reference',
+  requestLog: '/request-log',
+  requestLogEntry: (entryId: string) => `/request-log?entry=${id(entryId)}`,
+  users: '/users',
+  audit: '/audit',
+  outbox: '/outbox',
+} as const;
