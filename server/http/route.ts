@@ -9,7 +9,11 @@ import { idempotency } from './idempotency.ts';
 import { ForbiddenProblem, UnauthorizedProblem, ValidationProblem } from '../lib/problems.ts';
 import type { AuthContext } from '../domain/auth/auth-context.ts';
 
-export type Access = { scope: Scope } | 'public' | 'signed-in';
+/**
+ * Who may call an operation. `labWide`: it changes what every instrument shares (instruments,
+ * methods, profiles, reference materials, users), so an API key restricted to instruments may not.
+ */
+export type Access = { scope: Scope; labWide?: true } | 'public' | 'signed-in';
 
 export interface ResponseSpec {
   description: string;
@@ -91,12 +95,21 @@ export function requiredScope(access: Access): Scope | undefined {
   return typeof access === 'object' ? access.scope : undefined;
 }
 
+export function isLabWide(access: Access): boolean {
+  return typeof access === 'object' && access.labWide === true;
+}
+
 function authorize(access: Access, req: Request): void {
   if (access === 'public') return;
   if (!req.auth) throw new UnauthorizedProblem();
   const scope = requiredScope(access);
   if (scope && !req.auth.scopes.has(scope)) {
     throw new ForbiddenProblem(`This action needs the scope "${scope}".`, { required_scope: scope });
+  }
+  if (isLabWide(access) && req.auth.instrumentIds) {
+    throw new ForbiddenProblem('This API key is restricted to some instruments; lab-wide settings need a key without that restriction.', {
+      restricted_to_instruments: req.auth.instrumentIds,
+    });
   }
 }
 

@@ -2,7 +2,7 @@
 import { OpenAPIRegistry, OpenApiGeneratorV31, type ResponseConfig } from '@asteasolutions/zod-to-openapi';
 import { APP_VERSION } from '../config.ts';
 import { IDEMPOTENCY_HEADER, IDEMPOTENCY_KEY_MAX, REPLAYED_HEADER } from '../http/idempotency.ts';
-import { type AnyRoute, requiredScope, WRITE_METHODS } from '../http/route.ts';
+import { type AnyRoute, isLabWide, requiredScope, WRITE_METHODS } from '../http/route.ts';
 import { PROBLEM_CONTENT_TYPE } from '../lib/problems.ts';
 import { ProblemSchema } from './problem.schemas.ts';
 import { z } from '../lib/zod.ts';
@@ -74,7 +74,14 @@ function responsesFor(route: AnyRoute): Record<number, ResponseConfig> {
       ? 'An Authorization header was sent with a malformed, unknown, revoked or expired API key.'
       : 'No valid session or API key.',
   );
-  if (requiredScope(route.access)) add(403, `The caller lacks the scope \`${requiredScope(route.access)}\`.`);
+  if (requiredScope(route.access)) {
+    add(
+      403,
+      isLabWide(route.access)
+        ? `The caller lacks the scope \`${requiredScope(route.access)}\`, or is an API key restricted to instruments.`
+        : `The caller lacks the scope \`${requiredScope(route.access)}\`.`,
+    );
+  }
   add(429, 'Rate limit exceeded; see `Retry-After`.');
   add(500, 'Unexpected server error.');
   return responses;
@@ -86,7 +93,7 @@ function describe(route: AnyRoute): string | undefined {
     route.access === 'public'
       ? 'No authentication.'
       : scope
-        ? `Requires the scope \`${scope}\`.`
+        ? `Requires the scope \`${scope}\`.${isLabWide(route.access) ? ' A lab-wide change: not open to API keys restricted to instruments.' : ''}`
         : 'Requires a signed-in user or an API key.';
   return [route.description, access].filter(Boolean).join('\n\n');
 }
@@ -117,6 +124,7 @@ export function buildOpenApiDocument(routes: AnyRoute[]) {
       description: describe(route),
       tags: [route.tag],
       ...(scope ? { 'x-required-scope': scope } : {}),
+      ...(isLabWide(route.access) ? { 'x-lab-wide': true } : {}),
       security: route.access === 'public' ? [] : [{ [BEARER]: roles }, { [SESSION]: roles }],
       request: {
         ...(WRITE_METHODS.has(route.method) ? { headers: z.object({ [IDEMPOTENCY_HEADER]: IdempotencyKeyHeader }) } : {}),

@@ -185,7 +185,7 @@ export interface paths {
          * Invite a user by e-mail
          * @description Creates the user with status `invited` and e-mails a link to choose a password (valid 7 days). `invitation_mail.delivered` says whether the SMTP server took the message.
          *
-         *     Requires the scope `users:write`.
+         *     Requires the scope `users:write`. A lab-wide change: not open to API keys restricted to instruments.
          */
         post: operations["inviteUser"];
         delete?: never;
@@ -215,7 +215,7 @@ export interface paths {
          * Change a user's name, role or status
          * @description Changing the role or disabling the user ends their sessions. The last active admin cannot be demoted or disabled (409).
          *
-         *     Requires the scope `users:write`.
+         *     Requires the scope `users:write`. A lab-wide change: not open to API keys restricted to instruments.
          */
         patch: operations["updateUser"];
         trace?: never;
@@ -233,7 +233,7 @@ export interface paths {
          * Send a new invitation e-mail
          * @description Replaces any earlier invitation link of this user.
          *
-         *     Requires the scope `users:write`.
+         *     Requires the scope `users:write`. A lab-wide change: not open to API keys restricted to instruments.
          */
         post: operations["resendInvitation"];
         delete?: never;
@@ -333,7 +333,7 @@ export interface paths {
         put?: never;
         /**
          * Register an instrument
-         * @description Requires the scope `instruments:write`.
+         * @description Requires the scope `instruments:write`. A lab-wide change: not open to API keys restricted to instruments.
          */
         post: operations["createInstrument"];
         delete?: never;
@@ -361,7 +361,7 @@ export interface paths {
         head?: never;
         /**
          * Change an instrument's code, name or site
-         * @description Requires the scope `instruments:write`.
+         * @description Requires the scope `instruments:write`. A lab-wide change: not open to API keys restricted to instruments.
          */
         patch: operations["updateInstrument"];
         trace?: never;
@@ -381,7 +381,7 @@ export interface paths {
         put?: never;
         /**
          * Define an analytical method
-         * @description Requires the scope `methods:write`.
+         * @description Requires the scope `methods:write`. A lab-wide change: not open to API keys restricted to instruments.
          */
         post: operations["createMethod"];
         delete?: never;
@@ -411,7 +411,7 @@ export interface paths {
          * Change a method's name, default unit or element settings
          * @description Results already stored keep the settings they were computed with.
          *
-         *     Requires the scope `methods:write`.
+         *     Requires the scope `methods:write`. A lab-wide change: not open to API keys restricted to instruments.
          */
         patch: operations["updateMethod"];
         trace?: never;
@@ -644,7 +644,7 @@ export interface paths {
          * Describe how to read a family of result files
          * @description Every field but `name` has a default; an empty profile detects everything. Without a profile (and for whatever a profile leaves open) the parser detects: the encoding (UTF-8 with or without BOM, else Windows-1252); the delimiter (`,` `;` or tab: the one that splits the header into most columns and the data lines into as many); the decimal separator (`.` in comma-delimited files; otherwise `,` when more element cells write a digit-comma-digit than a digit-dot-digit); the header (the first non-blank line); the layout (long when an element column and a value column are named and no header is an element, else wide); element columns (a real element symbol in any case with an optional unit: `Mn`, `Mn %`, `%Mn`, `Mn [%]`, `C [ppm]`, `Si(%)`, `Cu mg/kg`; unit from the header, else the profile's default unit, else the caller's, else %); identification headers, ignoring case and treating `_ - . / :` as spaces — sample code (required): `sample`, `sample code`, `sample id`, `sample no`, `sample number`, `sample name`, `specimen`, `specimen id`; heat or lot number: `heat`, `heat no`, `heat number`, `heat id`, `lot`, `lot no`, `lot number`, `batch`, `cast`, `cast no`, `melt`, `melt no`; grade: `grade`, `steel grade`, `alloy`, `alloy grade`, `material`; sample kind (preliminary, final, ladle, incoming, control …): `kind`, `sample kind`, `sample type`, `type`; burn (replicate) number; without it burns count 1, 2, 3 … within a sample: `burn`, `burn no`, `burn number`, `replicate`, `rep`, `spark`, `spark no`; time of the burn: `time`, `timestamp`, `date time`, `datetime`, `measured at`, `measurement time`, `analysed at`, `analyzed at`; long layout: the element symbol: `element`, `analyte`; long layout: the value: `value`, `result`, `concentration`, `conc`; long layout: the unit of the value: `unit`, `units`; ignored (row counter): `no`, `nr`, `row`, `line`, `index`, `#`. Any other header becomes an identification field in `fields`. A header with a unit whose symbol is no element (`Xx %`) rejects the file.
          *
-         *     Requires the scope `imports:write`.
+         *     Requires the scope `imports:write`. A lab-wide change: not open to API keys restricted to instruments.
          */
         post: operations["createImportProfile"];
         delete?: never;
@@ -674,7 +674,7 @@ export interface paths {
          * Change an import profile
          * @description Top-level fields replace the stored ones (`columns` is replaced whole); the changed profile is validated as a whole and its `revision` goes up by one.
          *
-         *     Requires the scope `imports:write`.
+         *     Requires the scope `imports:write`. A lab-wide change: not open to API keys restricted to instruments.
          */
         patch: operations["updateImportProfile"];
         trace?: never;
@@ -788,7 +788,7 @@ export interface paths {
          * Register a reference material with its nominal values
          * @description Nominal values are decimal strings in `unit` (default %), converted exactly to % and kept as given as well. A material is not edited afterwards: register a new one for a new certificate, so that past runs keep the values they used. Kinds `high`/`low` serve two-point standardizations, `type` type standardizations; `control` materials cannot standardize.
          *
-         *     Requires the scope `standardizations:write`.
+         *     Requires the scope `standardizations:write`. A lab-wide change: not open to API keys restricted to instruments.
          */
         post: operations["createReferenceMaterial"];
         delete?: never;
@@ -960,7 +960,7 @@ export interface paths {
         };
         /**
          * The audit trail, newest first
-         * @description Every state-changing call: who (user or API key), what, which record, when, and the record before and after where it applies.
+         * @description Every state-changing call: who (user or API key), what, which record, when, and the record before and after where it applies. An API key restricted to instruments sees only the events it caused.
          *
          *     Requires the scope `audit:read`.
          */
@@ -982,7 +982,7 @@ export interface paths {
         };
         /**
          * Calls to the API, newest first
-         * @description Admins see every entry; everyone else sees their own calls and the calls made with keys they created. Bodies are cut at `REQUEST_LOG_BODY_LIMIT` bytes; Authorization, Cookie and Set-Cookie headers, fields named like password, secret or token, and anything shaped like an API key are redacted. Health checks and the OpenAPI document are not logged.
+         * @description Admins see every entry; everyone else sees their own calls and the calls made with keys they created; an API key restricted to instruments sees only its own calls. Bodies are cut at `REQUEST_LOG_BODY_LIMIT` bytes; Authorization, Cookie and Set-Cookie headers, fields named like password, secret or token, and anything shaped like an API key are redacted. Health checks and the OpenAPI document are not logged.
          *
          *     Requires the scope `request-log:read`.
          */
@@ -1004,7 +1004,7 @@ export interface paths {
         };
         /**
          * One call with its request and response
-         * @description Admins see every entry; everyone else sees their own calls and the calls made with keys they created. Bodies are cut at `REQUEST_LOG_BODY_LIMIT` bytes; Authorization, Cookie and Set-Cookie headers, fields named like password, secret or token, and anything shaped like an API key are redacted. Health checks and the OpenAPI document are not logged.
+         * @description Admins see every entry; everyone else sees their own calls and the calls made with keys they created; an API key restricted to instruments sees only its own calls. Bodies are cut at `REQUEST_LOG_BODY_LIMIT` bytes; Authorization, Cookie and Set-Cookie headers, fields named like password, secret or token, and anything shaped like an API key are redacted. Health checks and the OpenAPI document are not logged.
          *
          *     Requires the scope `request-log:read`.
          */
@@ -3113,7 +3113,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `users:write`. */
+            /** @description The caller lacks the scope `users:write`, or is an API key restricted to instruments. */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -3295,7 +3295,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `users:write`. */
+            /** @description The caller lacks the scope `users:write`, or is an API key restricted to instruments. */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -3406,7 +3406,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `users:write`. */
+            /** @description The caller lacks the scope `users:write`, or is an API key restricted to instruments. */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -4071,7 +4071,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `instruments:write`. */
+            /** @description The caller lacks the scope `instruments:write`, or is an API key restricted to instruments. */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -4253,7 +4253,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `instruments:write`. */
+            /** @description The caller lacks the scope `instruments:write`, or is an API key restricted to instruments. */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -4440,7 +4440,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `methods:write`. */
+            /** @description The caller lacks the scope `methods:write`, or is an API key restricted to instruments. */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -4622,7 +4622,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `methods:write`. */
+            /** @description The caller lacks the scope `methods:write`, or is an API key restricted to instruments. */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -5504,7 +5504,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `imports:write`. */
+            /** @description The caller lacks the scope `imports:write`, or is an API key restricted to instruments. */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -5686,7 +5686,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `imports:write`. */
+            /** @description The caller lacks the scope `imports:write`, or is an API key restricted to instruments. */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -6337,7 +6337,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `standardizations:write`. */
+            /** @description The caller lacks the scope `standardizations:write`, or is an API key restricted to instruments. */
             403: {
                 headers: {
                     [name: string]: unknown;

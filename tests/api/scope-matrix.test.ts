@@ -11,6 +11,7 @@ interface Operation {
   operationId: string;
   security?: Record<string, string[]>[];
   'x-required-scope'?: Scope;
+  'x-lab-wide'?: boolean;
 }
 
 const document = JSON.parse(readFileSync(OPENAPI_FILE, 'utf8')) as { paths: Record<string, Record<string, Operation>> };
@@ -24,6 +25,7 @@ const operations = Object.entries(document.paths).flatMap(([path, methods]) =>
 );
 const guarded = operations.filter(({ operation }) => operation.security?.length !== 0);
 const scoped = guarded.filter(({ operation }) => operation['x-required-scope']);
+const labWide = scoped.filter(({ operation }) => operation['x-lab-wide']);
 
 // Operations that are public on purpose. Adding one here is a decision, not a default.
 const PUBLIC = ['getHealth', 'getOpenApiDocument', 'login', 'logout', 'acceptInvitation', 'requestPasswordReset', 'confirmPasswordReset'];
@@ -32,6 +34,7 @@ let t: TestApp;
 let revoked: string;
 let expired: string;
 let keysWithout: Map<Scope, string>;
+let restricted: string;
 
 beforeAll(async () => {
   t = await createTestApp();
@@ -44,6 +47,7 @@ beforeAll(async () => {
     .where({ id: expiredKey.id })
     .update({ expires_at: new Date(Date.now() - 1000).toISOString() });
   expired = expiredKey.secret;
+  restricted = (await issueKey(t, [...SCOPES], { instrument_ids: ['ins_somewhere'] })).secret;
   keysWithout = new Map();
   for (const scope of SCOPES)
     keysWithout.set(
@@ -90,6 +94,32 @@ describe('scope matrix', () => {
       const res = await call(method, url).set('authorization', `Bearer ${keysWithout.get(scope)}`);
       expectProblem(res, 403);
       expect(JSON.parse(res.text).required_scope).toBe(scope);
+    },
+  );
+
+  it('lab-wide writes are exactly the intended ones', () => {
+    expect(labWide.map(({ operation }) => operation.operationId).sort()).toEqual(
+      [
+        'createImportProfile',
+        'updateImportProfile',
+        'createInstrument',
+        'updateInstrument',
+        'createMethod',
+        'updateMethod',
+        'createReferenceMaterial',
+        'inviteUser',
+        'updateUser',
+        'resendInvitation',
+      ].sort(),
+    );
+  });
+
+  it.each(labWide.map((o) => [`${o.method.toUpperCase()} ${o.path}`, o] as const))(
+    '%s → 403 with an all-scope key restricted to instruments',
+    async (_name, { method, url }) => {
+      const res = await call(method, url).set('authorization', `Bearer ${restricted}`);
+      expectProblem(res, 403);
+      expect(JSON.parse(res.text).restricted_to_instruments).toEqual(['ins_somewhere']);
     },
   );
 });

@@ -111,13 +111,14 @@ export async function signedInAgent(t: TestApp, role: Role): Promise<{ agent: re
 export async function issueKey(
   t: TestApp,
   scopes: Scope[],
-  options: { expires_at?: string; owner?: UserRow } = {},
+  options: { expires_at?: string; owner?: UserRow; instrument_ids?: string[] } = {},
 ): Promise<{ id: string; secret: string }> {
   const owner = options.owner ?? (await createUser(t.db, 'admin'));
   const key = await createApiKey(t.ctx, sessionAuthContext(owner, 'test'), {
     name: `key ${++counter}`,
     scopes,
     expires_at: options.expires_at,
+    instrument_ids: options.instrument_ids,
   });
   return { id: key.id, secret: key.secret };
 }

@@ -6,7 +6,7 @@ import type { AuthContext } from '../auth/auth-context.ts';
 import { parseJsonColumn } from '../../lib/json.ts';
 import { sha256Hex } from '../../lib/secrets.ts';
 import { findUserById } from '../users/users.repository.ts';
-import { type Scope } from '../auth/scopes.ts';
+import { ROLE_SCOPES, type Scope } from '../auth/scopes.ts';
 import { findApiKeyByHash, updateApiKey } from './api-keys.repository.ts';
 import { isWellFormedKey } from './key-format.ts';
 
@@ -31,8 +31,10 @@ export async function authenticateApiKey(ctx: AppContext, secret: string): Promi
     userId: owner.id,
     email: owner.email,
     role: owner.role,
-    scopes: new Set(parseJsonColumn<Scope[]>(row.scopes_json) ?? []),
+    // What the key was granted, cut down to what its owner's role holds now: a demotion takes effect at once.
+    scopes: new Set((parseJsonColumn<Scope[]>(row.scopes_json) ?? []).filter((scope) => ROLE_SCOPES[owner.role].has(scope))),
     apiKeyId: row.id,
+    keyExpiresAt: row.expires_at,
     instrumentIds: parseJsonColumn<string[]>(row.instrument_ids_json),
     label: `${row.name} (${row.prefix}…)`,
   };

@@ -1,29 +1,22 @@
 // Issue, list, revoke and roll API keys. A caller grants only scopes it holds itself;
 // non-admins see and manage only the keys they created.
 import type { AppContext } from '../../context.ts';
-import { ForbiddenProblem, NotFoundProblem, ConflictProblem } from '../../lib/problems.ts';
+import { NotFoundProblem, ConflictProblem } from '../../lib/problems.ts';
 import type { AuthContext } from '../auth/auth-context.ts';
 import { newId } from '../../lib/ids.ts';
 import { sha256Hex } from '../../lib/secrets.ts';
 import { nowIso } from '../../lib/time.ts';
 import { actorOf } from '../audit/actor.ts';
 import { recordAudit } from '../audit/audit.repository.ts';
-import type { Scope } from '../auth/scopes.ts';
 import { type ApiKey, type ApiKeyRow, findApiKey, insertApiKey, listApiKeyRows, toApiKey, updateApiKey } from './api-keys.repository.ts';
 import type { ApiKeyListQuerySchema, CreateApiKeyRequestSchema } from './api-keys.schemas.ts';
 import { displayPrefix, generateKeySecret } from './key-format.ts';
+import { boundByCaller } from './key-bounds.ts';
 import { inTransaction, type Queryable } from '../../db/transaction.ts';
 import { mapPage, type Page } from '../../lib/pagination.ts';
 import type { z } from '../../lib/zod.ts';
 
 export type NewKeyInput = z.output<typeof CreateApiKeyRequestSchema>;
-
-function assertGrantable(auth: AuthContext, scopes: Scope[]): void {
-  const missing = scopes.filter((scope) => !auth.scopes.has(scope));
-  if (missing.length > 0) {
-    throw new ForbiddenProblem(`You cannot grant scopes you do not hold: ${missing.join(', ')}.`, { scopes_not_held: missing });
-  }
-}
 
 function canManageAllKeys(auth: AuthContext): boolean {
   return auth.role === 'admin' && auth.kind === 'session';
@@ -73,8 +66,7 @@ export async function createApiKey(
   input: NewKeyInput,
   requestId?: string,
 ): Promise<ApiKey & { secret: string }> {
-  assertGrantable(auth, input.scopes);
-  const { row, secret } = newKeyRow(input, auth.userId, nowIso());
+  const { row, secret } = newKeyRow(boundByCaller(auth, input, { inherit: true }), auth.userId, nowIso());
   await inTransaction(ctx.db, async (trx) => {
     await insertApiKey(trx, row);
     await recordAudit(trx, {
@@ -121,18 +113,14 @@ export async function rollApiKey(
   const old = await loadManageable(ctx.db, auth, id);
   const current = toApiKey(old);
   if (current.status !== 'active') throw new ConflictProblem(`Only an active key can be rolled; this one is ${current.status}.`);
-  assertGrantable(auth, current.scopes);
+  const grant = {
+    name: old.name,
+    scopes: current.scopes,
+    instrument_ids: current.instrument_ids ?? undefined,
+    expires_at: old.expires_at ?? undefined,
+  };
   const now = nowIso();
-  const { row, secret } = newKeyRow(
-    {
-      name: old.name,
-      scopes: current.scopes,
-      instrument_ids: current.instrument_ids ?? undefined,
-      expires_at: old.expires_at ?? undefined,
-    },
-    auth.userId,
-    now,
-  );
+  const { row, secret } = newKeyRow(boundByCaller(auth, grant, { inherit: false }), auth.userId, now);
   const overlapEnd = new Date(Date.now() + overlapMinutes * 60_000).toISOString();
   const oldExpiry = old.expires_at && old.expires_at < overlapEnd ? old.expires_at : overlapEnd;
   await inTransaction(ctx.db, async (trx) => {

@@ -33,6 +33,8 @@ interface AuditRow {
 
 export interface AuditFilters {
   actorId?: string;
+  /** A second actor condition the reader cannot lift. */
+  onlyActorId?: string;
   action?: string;
   targetType?: string;
   targetId?: string;
@@ -79,6 +81,7 @@ function toAuditEvent(row: AuditRow) {
 export async function listAudit(db: Queryable, filters: AuditFilters, page: PageRequest) {
   const query = db<AuditRow>('audit_events');
   if (filters.actorId) query.where('actor_id', filters.actorId);
+  if (filters.onlyActorId) query.where('actor_id', filters.onlyActorId);
   if (filters.action) query.where('action', filters.action);
   if (filters.targetType) query.where('target_type', filters.targetType);
   if (filters.targetId) query.where('target_id', filters.targetId);

@@ -3,10 +3,13 @@ import type { AppContext } from '../../context.ts';
 import type { z } from '../../lib/zod.ts';
 import { listAudit } from './audit.repository.ts';
 import type { AuditQuerySchema } from './audit.schemas.ts';
+import type { AuthContext } from '../auth/auth-context.ts';
 
-export function listAuditPage(ctx: AppContext, query: z.output<typeof AuditQuerySchema>) {
+/** A key restricted to instruments reads only the events it caused: others may concern other instruments. */
+export function listAuditPage(ctx: AppContext, auth: AuthContext, query: z.output<typeof AuditQuerySchema>) {
   const filters = {
     actorId: query.actor_id,
+    onlyActorId: auth.instrumentIds ? (auth.apiKeyId ?? auth.userId) : undefined,
     action: query.action,
     targetType: query.target_type,
     targetId: query.target_id,

@@ -10,6 +10,8 @@ export interface AuthContext {
   scopes: ReadonlySet<Scope>;
   sessionId?: string;
   apiKeyId?: string;
+  /** When the calling API key expires; keys it issues may not outlive it. */
+  keyExpiresAt?: string | null;
   /** An API key restricted to some instruments; null or absent = all instruments. */
   instrumentIds?: string[] | null;
   /** Text recorded as the actor in audit events and logs. */

@@ -1,5 +1,5 @@
 // Scopes (`resource:action`) and the scopes each role holds. A session gets its role's scopes;
-// an API key gets the scopes it was issued with (never more than its creator's role holds).
+// an API key gets the scopes it was issued with that its owner's role still holds, checked on every call.
 export const SCOPES = [
   'samples:read',
   'samples:write',

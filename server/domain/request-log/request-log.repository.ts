@@ -41,6 +41,8 @@ export interface RequestLogFilters {
   status?: number | [number, number];
   pathPrefix?: string;
   callerId?: string;
+  /** A second caller condition the viewer cannot lift (a restricted key sees only its own calls). */
+  onlyCallerId?: string;
   since?: string;
   until?: string;
 }
@@ -93,6 +95,7 @@ export function listRequestLogRows(db: Queryable, filters: RequestLogFilters, pa
   // substr rather than LIKE: exact on SQLite and PostgreSQL alike, no wildcard escaping.
   if (filters.pathPrefix) query.whereRaw('substr(path, 1, ?) = ?', [filters.pathPrefix.length, filters.pathPrefix]);
   if (filters.callerId) query.where('caller_id', filters.callerId);
+  if (filters.onlyCallerId) query.where('caller_id', filters.onlyCallerId);
   if (filters.since) query.where('occurred_at', '>=', filters.since);
   if (filters.until) query.where('occurred_at', '<', filters.until);
   return keysetPage(query, REQUEST_LOG_KEYSET, page);

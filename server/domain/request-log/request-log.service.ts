@@ -16,7 +16,18 @@ const API_BASE = '/api/v1';
 
 /** Admins see every entry; everyone else their own calls and the calls of keys they created. */
 function seesAllEntries(auth: AuthContext): boolean {
-  return auth.role === 'admin';
+  return auth.role === 'admin' && !auth.instrumentIds;
+}
+
+/** A key restricted to instruments sees only its own calls: others' calls may concern other instruments. */
+function onlyOwnCalls(auth: AuthContext): string | undefined {
+  return auth.instrumentIds ? (auth.apiKeyId ?? auth.userId) : undefined;
+}
+
+function visible(auth: AuthContext, row: RequestLogRow): boolean {
+  const caller = onlyOwnCalls(auth);
+  if (caller && row.caller_id !== caller) return false;
+  return seesAllEntries(auth) || row.owner_user_id === auth.userId;
 }
 
 function toSummary(row: RequestLogSummaryRow) {
@@ -87,7 +98,7 @@ export function toEntry(row: RequestLogRow, bodyLimit: number) {
 export async function getVisibleEntry(ctx: AppContext, auth: AuthContext, id: string): Promise<RequestLogRow> {
   await recorderFor(ctx).drain();
   const row = await findRequestLogRow(ctx.db, id);
-  if (!row || (!seesAllEntries(auth) && row.owner_user_id !== auth.userId)) throw new NotFoundProblem(`No request log entry ${id}.`);
+  if (!row || !visible(auth, row)) throw new NotFoundProblem(`No request log entry ${id}.`);
   return row;
 }
 
@@ -120,6 +131,7 @@ export async function listEntries(ctx: AppContext, auth: AuthContext, query: Lis
     status: statusFilter(query.status),
     pathPrefix: query.path_prefix,
     callerId: query.caller_id,
+    onlyCallerId: onlyOwnCalls(auth),
     since: query.since,
     until: query.until,
   };

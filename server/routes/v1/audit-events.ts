@@ -9,13 +9,13 @@ export const auditRoutes = [
     operationId: 'listAuditEvents',
     summary: 'The audit trail, newest first',
     description:
-      'Every state-changing call: who (user or API key), what, which record, when, and the record before and after where it applies.',
+      'Every state-changing call: who (user or API key), what, which record, when, and the record before and after where it applies. An API key restricted to instruments sees only the events it caused.',
     tag: 'Audit',
     access: { scope: 'audit:read' },
     query: AuditQuerySchema,
     responses: { 200: { description: 'A page of audit events.', schema: AuditEventListSchema } },
-    async handler({ query, ctx, reply }) {
-      reply(200, await listAuditPage(ctx, query));
+    async handler({ query, auth, ctx, reply }) {
+      reply(200, await listAuditPage(ctx, auth, query));
     },
   }),
 ];

@@ -38,7 +38,7 @@ export const importProfileRoutes = [
     summary: 'Describe how to read a family of result files',
     description: `Every field but \`name\` has a default; an empty profile detects everything. ${AUTO_DETECTION_DESCRIPTION}`,
     tag: 'Import profiles',
-    access: { scope: 'imports:write' },
+    access: { scope: 'imports:write', labWide: true },
     body: CreateImportProfileRequestSchema,
     responses: {
       201: { description: 'Created.', schema: ImportProfileSchema, headers: { Location: 'The new profile.' } },
@@ -70,7 +70,7 @@ export const importProfileRoutes = [
     description:
       'Top-level fields replace the stored ones (`columns` is replaced whole); the changed profile is validated as a whole and its `revision` goes up by one.',
     tag: 'Import profiles',
-    access: { scope: 'imports:write' },
+    access: { scope: 'imports:write', labWide: true },
     params: ImportProfileIdParams,
     body: UpdateImportProfileRequestSchema,
     responses: {

@@ -30,7 +30,7 @@ export const instrumentRoutes = [
     operationId: 'createInstrument',
     summary: 'Register an instrument',
     tag: 'Instruments',
-    access: { scope: 'instruments:write' },
+    access: { scope: 'instruments:write', labWide: true },
     body: CreateInstrumentRequestSchema,
     responses: {
       201: { description: 'Registered.', schema: InstrumentSchema, headers: { Location: 'The new instrument.' } },
@@ -60,7 +60,7 @@ export const instrumentRoutes = [
     operationId: 'updateInstrument',
     summary: "Change an instrument's code, name or site",
     tag: 'Instruments',
-    access: { scope: 'instruments:write' },
+    access: { scope: 'instruments:write', labWide: true },
     params: InstrumentIdParams,
     body: UpdateInstrumentRequestSchema,
     responses: {

@@ -29,7 +29,7 @@ export const methodRoutes = [
     operationId: 'createMethod',
     summary: 'Define an analytical method',
     tag: 'Methods',
-    access: { scope: 'methods:write' },
+    access: { scope: 'methods:write', labWide: true },
     body: CreateMethodRequestSchema,
     responses: {
       201: { description: 'Defined.', schema: MethodSchema, headers: { Location: 'The new method.' } },
@@ -60,7 +60,7 @@ export const methodRoutes = [
     summary: "Change a method's name, default unit or element settings",
     description: 'Results already stored keep the settings they were computed with.',
     tag: 'Methods',
-    access: { scope: 'methods:write' },
+    access: { scope: 'methods:write', labWide: true },
     params: MethodIdParams,
     body: UpdateMethodRequestSchema,
     responses: { 200: { description: 'The updated method.', schema: MethodSchema }, 404: { description: 'No such method.' } },

@@ -36,7 +36,7 @@ export const referenceMaterialRoutes = [
     description:
       'Nominal values are decimal strings in `unit` (default %), converted exactly to % and kept as given as well. A material is not edited afterwards: register a new one for a new certificate, so that past runs keep the values they used. Kinds `high`/`low` serve two-point standardizations, `type` type standardizations; `control` materials cannot standardize.',
     tag: 'Drift correction',
-    access: { scope: 'standardizations:write' },
+    access: { scope: 'standardizations:write', labWide: true },
     body: CreateReferenceMaterialRequestSchema,
     responses: {
       201: { description: 'Registered.', schema: ReferenceMaterialSchema, headers: { Location: 'The new reference material.' } },

@@ -9,7 +9,7 @@ import { getVisibleEntry, listEntries, toEntry } from '../../domain/request-log/
 import { defineRoute } from '../../http/route.ts';
 
 const WHO_SEES =
-  'Admins see every entry; everyone else sees their own calls and the calls made with keys they created. ' +
+  'Admins see every entry; everyone else sees their own calls and the calls made with keys they created; an API key restricted to instruments sees only its own calls. ' +
   'Bodies are cut at `REQUEST_LOG_BODY_LIMIT` bytes; Authorization, Cookie and Set-Cookie headers, fields named like password, secret or token, and anything shaped like an API key are redacted. ' +
   'Health checks and the OpenAPI document are not logged.';
 

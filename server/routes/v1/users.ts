@@ -34,7 +34,7 @@ export const userRoutes = [
     description:
       'Creates the user with status `invited` and e-mails a link to choose a password (valid 7 days). `invitation_mail.delivered` says whether the SMTP server took the message.',
     tag: 'Users',
-    access: { scope: 'users:write' },
+    access: { scope: 'users:write', labWide: true },
     body: InviteUserRequestSchema,
     responses: {
       201: { description: 'Invited.', schema: InvitedUserSchema, headers: { Location: 'The new user.' } },
@@ -65,7 +65,7 @@ export const userRoutes = [
     summary: "Change a user's name, role or status",
     description: 'Changing the role or disabling the user ends their sessions. The last active admin cannot be demoted or disabled (409).',
     tag: 'Users',
-    access: { scope: 'users:write' },
+    access: { scope: 'users:write', labWide: true },
     params: UserIdParams,
     body: UpdateUserRequestSchema,
     responses: {
@@ -84,7 +84,7 @@ export const userRoutes = [
     summary: 'Send a new invitation e-mail',
     description: 'Replaces any earlier invitation link of this user.',
     tag: 'Users',
-    access: { scope: 'users:write' },
+    access: { scope: 'users:write', labWide: true },
     params: UserIdParams,
     responses: {
       202: { description: 'Sent (see `delivered`).', schema: MailOutcomeSchema },
