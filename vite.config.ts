@@ -3,10 +3,12 @@ import react from '@vitejs/plugin-react';
 import { defineConfig } from 'vite';
 
 // The console. `npm start` serves the built files from dist/ on the API's port;
-// `npx vite` serves it with hot reload and forwards /api to a running server on :3000.
+// `npm run dev` serves it with hot reload and forwards /api to the API on :3000.
 export default defineConfig({
   plugins: [react(), tailwindcss()],
-  server: { proxy: { '/api': 'http://localhost:3000' } },
+  // The Host header is kept (changeOrigin: false) so the API's cross-site check sees the console's
+  // own origin on writes sent from it.
+  server: { proxy: { '/api': { target: 'http://localhost:3000', changeOrigin: false } } },
   build: {
     outDir: 'dist',
     emptyOutDir: true,

@@ -11,6 +11,7 @@ import type { Config } from './config.ts';
 import type { AppContext } from './context.ts';
 import type { Db } from './db/knex.ts';
 import { authenticate } from './http/authenticate.ts';
+import { crossSiteGuard } from './http/cross-site.ts';
 import { errorHandler, notFoundHandler } from './http/error-handler.ts';
 import { apiLimiter } from './http/rate-limit.ts';
 import { requestId } from './http/request-id.ts';
@@ -85,6 +86,7 @@ export function createApp(options: AppOptions): Express & { locals: { ctx: AppCo
   if (options.validateResponses) api.use(responseValidation(routes));
   api.use(express.json({ limit: config.bodyLimit }));
   api.use(cookieParser());
+  api.use(crossSiteGuard(config));
   api.use(authenticate(ctx));
   api.use(apiLimiter(ctx));
   mountRoutes(api, routes, ctx);

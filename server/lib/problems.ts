@@ -71,6 +71,12 @@ export class ForbiddenProblem extends ProblemError {
   }
 }
 
+export class CrossSiteProblem extends ProblemError {
+  constructor(detail: string) {
+    super(403, 'cross-site-request', 'Cross-site request refused', detail);
+  }
+}
+
 export class NotFoundProblem extends ProblemError {
   constructor(detail = 'No such resource.') {
     super(404, 'not-found', 'Not found', detail);

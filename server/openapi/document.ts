@@ -74,14 +74,13 @@ function responsesFor(route: AnyRoute): Record<number, ResponseConfig> {
       ? 'An Authorization header was sent with a malformed, unknown, revoked or expired API key.'
       : 'No valid session or API key.',
   );
-  if (requiredScope(route.access)) {
-    add(
-      403,
-      isLabWide(route.access)
-        ? `The caller lacks the scope \`${requiredScope(route.access)}\`, or is an API key restricted to instruments.`
-        : `The caller lacks the scope \`${requiredScope(route.access)}\`.`,
-    );
-  }
+  const forbidden = [
+    requiredScope(route.access) && `The caller lacks the scope \`${requiredScope(route.access)}\`.`,
+    isLabWide(route.access) && 'The caller is an API key restricted to instruments.',
+    WRITE_METHODS.has(route.method) &&
+      "Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`).",
+  ].filter(Boolean);
+  if (forbidden.length > 0) add(403, forbidden.join(' Or: '));
   add(429, 'Rate limit exceeded; see `Retry-After`.');
   add(500, 'Unexpected server error.');
   return responses;

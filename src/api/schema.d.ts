@@ -2527,6 +2527,15 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description A request with the same `Idempotency-Key` is still being processed. */
             409: {
                 headers: {
@@ -2609,6 +2618,15 @@ export interface operations {
             };
             /** @description An Authorization header was sent with a malformed, unknown, revoked or expired API key. */
             401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
+            403: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -2758,6 +2776,15 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description A request with the same `Idempotency-Key` is still being processed. */
             409: {
                 headers: {
@@ -2851,6 +2878,15 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description A request with the same `Idempotency-Key` is still being processed. */
             409: {
                 headers: {
@@ -2937,6 +2973,15 @@ export interface operations {
             };
             /** @description An Authorization header was sent with a malformed, unknown, revoked or expired API key. */
             401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
+            403: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -3113,7 +3158,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `users:write`, or is an API key restricted to instruments. */
+            /** @description The caller lacks the scope `users:write`. Or: The caller is an API key restricted to instruments. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -3295,7 +3340,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `users:write`, or is an API key restricted to instruments. */
+            /** @description The caller lacks the scope `users:write`. Or: The caller is an API key restricted to instruments. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -3406,7 +3451,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `users:write`, or is an API key restricted to instruments. */
+            /** @description The caller lacks the scope `users:write`. Or: The caller is an API key restricted to instruments. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -3593,7 +3638,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `api-keys:write`. */
+            /** @description The caller lacks the scope `api-keys:write`. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -3769,7 +3814,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `api-keys:write`. */
+            /** @description The caller lacks the scope `api-keys:write`. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -3886,7 +3931,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `api-keys:write`. */
+            /** @description The caller lacks the scope `api-keys:write`. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -4071,7 +4116,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `instruments:write`, or is an API key restricted to instruments. */
+            /** @description The caller lacks the scope `instruments:write`. Or: The caller is an API key restricted to instruments. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -4253,7 +4298,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `instruments:write`, or is an API key restricted to instruments. */
+            /** @description The caller lacks the scope `instruments:write`. Or: The caller is an API key restricted to instruments. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -4440,7 +4485,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `methods:write`, or is an API key restricted to instruments. */
+            /** @description The caller lacks the scope `methods:write`. Or: The caller is an API key restricted to instruments. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -4622,7 +4667,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `methods:write`, or is an API key restricted to instruments. */
+            /** @description The caller lacks the scope `methods:write`. Or: The caller is an API key restricted to instruments. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -4823,7 +4868,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `samples:write`. */
+            /** @description The caller lacks the scope `samples:write`. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -5018,7 +5063,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `samples:write`. */
+            /** @description The caller lacks the scope `samples:write`. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -5204,7 +5249,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `samples:write`. */
+            /** @description The caller lacks the scope `samples:write`. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -5319,7 +5364,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `samples:write`. */
+            /** @description The caller lacks the scope `samples:write`. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -5504,7 +5549,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `imports:write`, or is an API key restricted to instruments. */
+            /** @description The caller lacks the scope `imports:write`. Or: The caller is an API key restricted to instruments. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -5686,7 +5731,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `imports:write`, or is an API key restricted to instruments. */
+            /** @description The caller lacks the scope `imports:write`. Or: The caller is an API key restricted to instruments. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -5883,7 +5928,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `imports:write`. */
+            /** @description The caller lacks the scope `imports:write`. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -5996,7 +6041,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `imports:write`. */
+            /** @description The caller lacks the scope `imports:write`. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -6337,7 +6382,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `standardizations:write`, or is an API key restricted to instruments. */
+            /** @description The caller lacks the scope `standardizations:write`. Or: The caller is an API key restricted to instruments. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -6606,7 +6651,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `standardizations:write`. */
+            /** @description The caller lacks the scope `standardizations:write`. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -6797,7 +6842,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `standardizations:activate`. */
+            /** @description The caller lacks the scope `standardizations:activate`. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
             403: {
                 headers: {
                     [name: string]: unknown;
@@ -7310,7 +7355,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The caller lacks the scope `request-log:read`. */
+            /** @description The caller lacks the scope `request-log:read`. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
             403: {
                 headers: {
                     [name: string]: unknown;
