@@ -12,6 +12,7 @@ import type { AppContext } from './context.ts';
 import type { Db } from './db/knex.ts';
 import { authenticate } from './http/authenticate.ts';
 import { crossSiteGuard } from './http/cross-site.ts';
+import { logSerializers } from './http/log-serializers.ts';
 import { errorHandler, notFoundHandler } from './http/error-handler.ts';
 import { apiLimiter } from './http/rate-limit.ts';
 import { requestId } from './http/request-id.ts';
@@ -40,6 +41,12 @@ export interface AppOptions {
   routes?: AnyRoute[];
 }
 
+/** API answers are never kept by browsers or proxies: they carry results, identities and, once, secrets. */
+const noStore: express.RequestHandler = (_req, res, next) => {
+  res.setHeader('Cache-Control', 'no-store');
+  next();
+};
+
 export const DEFAULT_CONSOLE_DIR = resolve(import.meta.dirname, '../dist');
 
 export function createApp(options: AppOptions): Express & { locals: { ctx: AppContext } } {
@@ -57,6 +64,7 @@ export function createApp(options: AppOptions): Express & { locals: { ctx: AppCo
     pinoHttp({
       logger,
       genReqId: (req) => (req as express.Request).requestId,
+      serializers: logSerializers,
       autoLogging: { ignore: (req) => req.url === '/api/v1/health' },
     }),
   );
@@ -83,6 +91,7 @@ export function createApp(options: AppOptions): Express & { locals: { ctx: AppCo
   const api = express.Router();
   // First, so that calls refused by body parsing, authentication or rate limits are logged too.
   api.use(requestLog(ctx));
+  api.use(noStore);
   if (options.validateResponses) api.use(responseValidation(routes));
   api.use(express.json({ limit: config.bodyLimit }));
   api.use(cookieParser());

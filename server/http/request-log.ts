@@ -6,7 +6,7 @@ import type { Request, RequestHandler, Response } from 'express';
 import type { AppContext } from '../context.ts';
 import { type BodySnapshot, snapshotRequestBody, snapshotResponseBody } from './body-snapshot.ts';
 import { recorderFor } from '../domain/request-log/recorder.ts';
-import { redactHeaders, redactQuery } from '../domain/request-log/redact.ts';
+import { redactHeaders, redactQuery, redactText } from '../domain/request-log/redact.ts';
 import type { RequestLogRow } from '../domain/request-log/request-log.repository.ts';
 import { newId } from '../lib/ids.ts';
 import { nowIso } from '../lib/time.ts';
@@ -35,13 +35,14 @@ function buildRow(
   response: BodySnapshot,
   limit: number,
 ): RequestLogRow {
-  const [path, rawQuery = ''] = req.originalUrl.split(/\?(.*)/s, 2);
+  const [rawPath, rawQuery = ''] = req.originalUrl.split(/\?(.*)/s, 2);
+  const path = redactText(rawPath);
   const query = redactQuery(rawQuery);
   const request = snapshotRequestBody(req, limit);
   return {
     ...base,
     method: req.method,
-    path: path.slice(0, 2000),
+    path: path.value.slice(0, 2000),
     query: query.value,
     status: res.statusCode,
     duration_ms: Math.round(durationMs * 1000) / 1000,
@@ -53,7 +54,7 @@ function buildRow(
     request_body: request.body,
     request_body_size: request.size,
     request_body_truncated: request.truncated,
-    request_redacted: request.redacted || query.redacted,
+    request_redacted: request.redacted || query.redacted || path.redacted,
     response_headers_json: JSON.stringify(redactHeaders(res.getHeaders() as Record<string, string | string[] | number>)),
     response_content_type: response.contentType?.slice(0, 200) ?? null,
     response_body_kind: response.kind,

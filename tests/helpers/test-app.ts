@@ -4,6 +4,7 @@
 // migrations and queries on PostgreSQL.
 import { randomBytes } from 'node:crypto';
 import type { Express } from 'express';
+import type { Logger } from 'pino';
 import request from 'supertest';
 import { createApp } from '../../server/app.ts';
 import { type Config, testConfig } from '../../server/config.ts';
@@ -36,14 +37,25 @@ export interface TestApp {
  * a response that does not match answers 500, so the test that caused it fails.
  * `routes` replaces the /api/v1 operations (tests that need an extra or a broken one).
  */
-export async function createTestApp(overrides: Partial<Config> = {}, options: { routes?: AnyRoute[] } = {}): Promise<TestApp> {
+export async function createTestApp(
+  overrides: Partial<Config> = {},
+  options: { routes?: AnyRoute[]; logger?: Logger } = {},
+): Promise<TestApp> {
   const smtp = await startFakeSmtp();
   const config = testConfig({ smtpUrl: smtp.url, ...overrides });
   const pg =
     process.env.TEST_DATABASE_URL && !overrides.databaseFile ? await createPostgresSchema(process.env.TEST_DATABASE_URL) : undefined;
   const db = pg ? createDb({ ...config, databaseUrl: pg.url }, { schema: pg.schema }) : createDb(config);
   await migrateLatest(db);
-  const app = createApp({ db, config, outbox: smtp.outbox, consoleDir: '/nonexistent', validateResponses: true, routes: options.routes });
+  const app = createApp({
+    db,
+    config,
+    logger: options.logger,
+    outbox: smtp.outbox,
+    consoleDir: '/nonexistent',
+    validateResponses: true,
+    routes: options.routes,
+  });
   return {
     app,
     db,

@@ -13,6 +13,9 @@ const SECRET_NAME = /password|secret|token|api[-_]?key|authorization|cookie/i;
  */
 const KEY_TEXT = new RegExp(`${KEY_PREFIX}[0-9A-Za-z]{7,}`, 'g');
 
+/** `?token=…` / `&api_key=…` in links inside any text (an e-mail's invitation link, a Referer). */
+const SECRET_URL_PARAM = /([?&](?:[\w.-]*(?:password|secret|token|api[-_]?key)[\w.-]*)=)[^&#\s"'<>]+/gi;
+
 /** `"password": "…"` pairs in text that is not parseable JSON (a truncated body). */
 const SECRET_PAIR =
   /("(?:[^"\\]*(?:password|secret|token|api[-_]?key|authorization|cookie)[^"\\]*)"\s*:\s*)("(?:[^"\\]|\\.)*(?:"|$)|[^,}\]\s]+)/gi;
@@ -28,7 +31,10 @@ export interface Redacted<T> {
 }
 
 export function redactText(text: string): Redacted<string> {
-  const value = text.replace(KEY_TEXT, `${KEY_PREFIX}${REDACTED}`).replace(SECRET_PAIR, `$1"${REDACTED}"`);
+  const value = text
+    .replace(KEY_TEXT, `${KEY_PREFIX}${REDACTED}`)
+    .replace(SECRET_PAIR, `$1"${REDACTED}"`)
+    .replace(SECRET_URL_PARAM, `$1${REDACTED}`);
   return { value, redacted: value !== text };
 }
 
@@ -90,4 +96,33 @@ export function redactQuery(query: string): Redacted<string> {
     }
   }
   return redacted ? { value: out.toString(), redacted } : { value: query, redacted: false };
+}
+
+/** A request URL (path and query): key-shaped text anywhere, query parameters by name. */
+export function redactUrl(url: string): Redacted<string> {
+  const [path, query] = url.split(/\?(.*)/s, 2);
+  const cleanPath = redactText(path);
+  const cleanQuery = query === undefined ? undefined : redactQuery(query);
+  return {
+    value: cleanQuery === undefined ? cleanPath.value : `${cleanPath.value}?${cleanQuery.value}`,
+    redacted: cleanPath.redacted || (cleanQuery?.redacted ?? false),
+  };
+}
+
+/** Headers a log line may show; every other header is left out of the process log. */
+const LOGGED_HEADERS = new Set([
+  'host',
+  'user-agent',
+  'content-type',
+  'content-length',
+  'accept',
+  'origin',
+  'x-request-id',
+  'idempotency-key',
+]);
+
+/** The allow-listed headers, redacted like the request log's: what the process log shows of a request or response. */
+export function headersForLog(headers: Record<string, string | string[] | number | undefined>): Record<string, string> {
+  const kept = Object.fromEntries(Object.entries(headers).filter(([name]) => LOGGED_HEADERS.has(name.toLowerCase())));
+  return redactHeaders(kept);
 }
