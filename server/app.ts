@@ -58,7 +58,7 @@ export function createApp(options: AppOptions): Express & { locals: { ctx: AppCo
   const app = express();
   app.locals.ctx = ctx;
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  app.set('trust proxy', config.trustProxy);
   app.use(requestId());
   app.use(
     pinoHttp({

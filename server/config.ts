@@ -48,7 +48,22 @@ const envSchema = z.object({
     .max(1024 * 1024)
     .default(16384),
   REQUEST_LOG_RETENTION_DAYS: z.coerce.number().int().min(1).max(3650).default(30),
+  TRUST_PROXY: z
+    .string()
+    .regex(
+      /^(true|false|\d+|[\w.:/, -]+)$/,
+      'must be false, true, a number of proxy hops, or addresses/subnets such as loopback or 10.0.0.0/8',
+    )
+    .default('false'),
 });
+
+/** Express's `trust proxy`: off unless the operator says which proxies may set X-Forwarded-For. */
+function trustProxy(value: string): boolean | number | string {
+  if (value === 'false') return false;
+  if (value === 'true') return true;
+  if (/^\d+$/.test(value)) return Number(value);
+  return value;
+}
 
 export interface Config {
   env: 'development' | 'production' | 'test';
@@ -69,6 +84,8 @@ export interface Config {
   /** Bytes of each request and response body kept in the request log. */
   requestLogBodyLimit: number;
   requestLogRetentionDays: number;
+  /** Which proxies' X-Forwarded-For is believed for the client address (rate limits, logs). */
+  trustProxy: boolean | number | string;
   version: string;
 }
 
@@ -110,6 +127,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     importMaxBytes: e.IMPORT_MAX_BYTES,
     requestLogBodyLimit: e.REQUEST_LOG_BODY_LIMIT,
     requestLogRetentionDays: e.REQUEST_LOG_RETENTION_DAYS,
+    trustProxy: trustProxy(e.TRUST_PROXY),
     version: APP_VERSION,
   };
 }

@@ -10,6 +10,7 @@ import {
   completeIdempotencyKey,
   type IdempotencyRow,
   releaseIdempotencyKey,
+  renewIdempotencyClaim,
 } from '../domain/idempotency/idempotency.repository.ts';
 import { ConflictProblem, UnprocessableProblem, ValidationProblem } from '../lib/problems.ts';
 import { captureResponse } from './response-capture.ts';
@@ -19,7 +20,10 @@ export const IDEMPOTENCY_HEADER = 'Idempotency-Key';
 export const REPLAYED_HEADER = 'Idempotent-Replayed';
 export const IDEMPOTENCY_TTL_MS = 24 * 60 * 60_000;
 export const IDEMPOTENCY_KEY_MAX = 255;
-const STALE_CLAIM_MS = 10 * 60_000;
+/** An in-flight claim not renewed for this long belongs to a request that died with its process. */
+export const STALE_CLAIM_MS = 30_000;
+/** A request still running renews its claim this often, so only a dead one's claim goes stale. */
+const CLAIM_RENEWAL_MS = 10_000;
 /** Responses larger than this are not kept (writes answer with small documents). */
 const MAX_STORED_BYTES = 5 * 1024 * 1024;
 /** Response headers a replay repeats. */
@@ -99,7 +103,15 @@ export function idempotency(ctx: AppContext, options: IdempotencyOptions = {}): 
     if (claim.kind === 'existing') return answerExisting(req, res, claim.row, fingerprint);
 
     let settled = false;
+    const renewal = setInterval(() => {
+      renewIdempotencyClaim(ctx.db, caller, key, new Date()).catch((error: unknown) =>
+        ctx.logger.error({ err: error }, 'idempotency claim renewal failed'),
+      );
+    }, CLAIM_RENEWAL_MS);
+    renewal.unref();
+    res.on('finish', () => clearInterval(renewal));
     const release = async () => {
+      clearInterval(renewal);
       if (settled) return;
       settled = true;
       await releaseIdempotencyKey(ctx.db, caller, key);
@@ -119,6 +131,7 @@ export function idempotency(ctx: AppContext, options: IdempotencyOptions = {}): 
     });
     // A client that hangs up before the answer leaves the key free for its retry.
     res.on('close', () => {
+      clearInterval(renewal);
       if (!res.writableFinished) release().catch((error: unknown) => ctx.logger.error({ err: error }, 'idempotency release failed'));
     });
     next();

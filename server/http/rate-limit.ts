@@ -6,23 +6,44 @@ import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
 import type { AppContext } from '../context.ts';
 import { RateLimitedProblem } from '../lib/problems.ts';
 
-const credentialLimiters = new WeakMap<AppContext, RequestHandler>();
+const credentialLimiters = new WeakMap<AppContext, RequestHandler[]>();
 
-/** Shared by sign-in, invitation and password-reset endpoints of one app. */
+/** The account a credential call is about (sign-in, password reset), by its e-mail ignoring case. */
+function accountKey(req: Request): string {
+  const email: unknown = (req.body as { email?: unknown } | undefined)?.email;
+  return typeof email === 'string' ? `account:${email.trim().toLowerCase()}` : 'account:none';
+}
+
+/**
+ * Shared by sign-in, invitation and password-reset endpoints of one app: one budget per client
+ * address, and one per account, so guessing one user's password from many addresses is slowed too.
+ */
 export function credentialLimiter(ctx: AppContext): RequestHandler[] {
-  let limiter = credentialLimiters.get(ctx);
-  if (!limiter) {
-    limiter = rateLimit({
+  let limiters = credentialLimiters.get(ctx);
+  if (!limiters) {
+    const common = {
       windowMs: 60_000,
       limit: ctx.config.loginRateLimitPerMinute,
       standardHeaders: 'draft-8',
       legacyHeaders: false,
-      identifier: 'credentials',
-      handler: (_req, _res, next) => next(new RateLimitedProblem('Too many sign-in attempts from this address; wait a minute.')),
-    });
-    credentialLimiters.set(ctx, limiter);
+    } as const;
+    limiters = [
+      rateLimit({
+        ...common,
+        identifier: 'credentials',
+        handler: (_req, _res, next) => next(new RateLimitedProblem('Too many sign-in attempts from this address; wait a minute.')),
+      }),
+      rateLimit({
+        ...common,
+        identifier: 'credentials-account',
+        keyGenerator: accountKey,
+        skip: (req) => accountKey(req) === 'account:none',
+        handler: (_req, _res, next) => next(new RateLimitedProblem('Too many sign-in attempts for this account; wait a minute.')),
+      }),
+    ];
+    credentialLimiters.set(ctx, limiters);
   }
-  return [limiter];
+  return limiters;
 }
 
 function callerKey(req: Request): string {

@@ -100,4 +100,36 @@ describe('sign-in rate limit', () => {
       await limited.close();
     }
   });
+
+  it('counts per account too: one user attacked from many addresses is slowed as well', async () => {
+    const limited = await createTestApp({ loginRateLimitPerMinute: 3, trustProxy: 1 });
+    try {
+      const attempt = (from: string, email = 'target@kestrelbend.test') =>
+        request(limited.app).post('/api/v1/auth/login').set('x-forwarded-for', from).send({ email, password: 'nope-nope-nope' });
+      for (let i = 0; i < 3; i++) expect((await attempt(`203.0.113.${i + 1}`)).status).toBe(401);
+      const res = await attempt('203.0.113.99', 'TARGET@kestrelbend.test');
+      expectProblem(res, 429);
+      expect(JSON.parse(res.text).detail).toMatch(/for this account/);
+      expect((await attempt('203.0.113.100', 'someone.else@kestrelbend.test')).status).toBe(401);
+    } finally {
+      await limited.close();
+    }
+  });
+
+  it('does not believe X-Forwarded-For unless TRUST_PROXY says so', async () => {
+    const limited = await createTestApp({ loginRateLimitPerMinute: 3 });
+    try {
+      const attempt = (i: number) =>
+        request(limited.app)
+          .post('/api/v1/auth/login')
+          .set('x-forwarded-for', `198.51.100.${i}`)
+          .send({ email: `user${i}@kestrelbend.test`, password: 'nope-nope-nope' });
+      for (let i = 0; i < 3; i++) expect((await attempt(i)).status).toBe(401);
+      const res = await attempt(9);
+      expectProblem(res, 429);
+      expect(JSON.parse(res.text).detail).toMatch(/from this address/);
+    } finally {
+      await limited.close();
+    }
+  });
 });

@@ -2,7 +2,7 @@
 import { readFileSync } from 'node:fs';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { IDEMPOTENCY_TTL_MS } from '../../server/http/idempotency.ts';
+import { IDEMPOTENCY_TTL_MS, STALE_CLAIM_MS } from '../../server/http/idempotency.ts';
 import { OPENAPI_FILE } from '../../server/openapi/write.ts';
 import { v1Routes } from '../../server/routes/v1/index.ts';
 import { countRows, createTestApp, expectProblem, issueKey, problemBody, signedInAgent, type TestApp } from '../helpers/test-app.ts';
@@ -69,6 +69,28 @@ describe('Idempotency-Key', () => {
     expect(after.status).toBe(201);
     expect(after.headers['idempotent-replayed']).toBe('true');
     expect(after.body).toEqual(done.body);
+  });
+
+  it('frees a claim nobody renews after a 30 s lease (its request died), not before', async () => {
+    const held = extra.hold();
+    const first = post('/test/slow-write', 'lease-1')
+      .send({ value: 'x' })
+      .then((res) => res);
+    await held.inside;
+    const claimedAgo = (ms: number) =>
+      t
+        .db('idempotency_keys')
+        .where({ idempotency_key: 'lease-1' })
+        .update({ locked_at: new Date(Date.now() - ms).toISOString() });
+    await claimedAgo(20_000);
+    expectProblem(await post('/test/slow-write', 'lease-1').send({ value: 'x' }), 409);
+    await claimedAgo(STALE_CLAIM_MS + 1000);
+    const retry = post('/test/slow-write', 'lease-1')
+      .send({ value: 'x' })
+      .then((res) => res);
+    held.release();
+    expect((await retry).status).toBe(201);
+    await first;
   });
 
   it('keeps keys per caller: two keys using the same Idempotency-Key each get their own write', async () => {

@@ -95,6 +95,11 @@ export async function completeIdempotencyKey(
     });
 }
 
+/** Keeps a running request's claim fresh: only a claim nobody renews goes stale. */
+export async function renewIdempotencyClaim(db: Queryable, caller: string, key: string, now: Date): Promise<void> {
+  await db('idempotency_keys').where({ caller, idempotency_key: key, state: 'in_flight' }).update({ locked_at: now.toISOString() });
+}
+
 /** Frees the key (the request failed with 5xx or never finished), so the client can retry. */
 export async function releaseIdempotencyKey(db: Queryable, caller: string, key: string): Promise<void> {
   await db('idempotency_keys').where({ caller, idempotency_key: key, state: 'in_flight' }).delete();
