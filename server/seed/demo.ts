@@ -1,6 +1,7 @@
 import type { Db } from '../db/knex.ts';
 import { countUsers } from '../domain/users/users.repository.ts';
 import { seedDemoDrift } from './demo-drift.ts';
+import { seedDemoGrades } from './demo-grades.ts';
 import { seedDemoLab } from './demo-lab.ts';
 import { seedDemoReferences } from './demo-references.ts';
 import { seedDemoSamples } from './demo-samples.ts';
@@ -11,6 +12,7 @@ export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
   if ((await countUsers(db)) > 0) return false;
   await seedDemoUsers(db);
   const lab = await seedDemoLab(db);
+  await seedDemoGrades(db);
   // Drift history before the samples, so that each demo sample records the set in force when it was measured.
   const now = new Date();
   const references = await seedDemoReferences(db, now);

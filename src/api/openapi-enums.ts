@@ -38,3 +38,7 @@ export const CorrectionModeValues = ["two_point","one_point_factor","one_point_o
 export const StandardizationStatusValues = ["draft","activated"] as const;
 
 export const CorrectionFlagValues = ["ok","warn","fail"] as const;
+
+export const DecisionRuleValues = ["rounding","absolute"] as const;
+
+export const VerdictValues = ["within","below_min","above_max","not_measured","undetermined"] as const;

@@ -951,6 +951,144 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/grades": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * List grades (latest versions)
+         * @description Ordered by code, ignoring case.
+         *
+         *     Requires the scope `grades:read`.
+         */
+        get: operations["listGrades"];
+        put?: never;
+        /**
+         * Define a grade: its limits and the decision rule
+         * @description Limits, aims and "others" are decimal strings: their written decimals set the rounding place (a JSON number there is a 400). Limits come from the grade as entered: verify them against your licensed copy of the standard. A verdict supports, and never replaces, release under your laboratory’s accredited procedures.
+         *
+         *     Requires the scope `grades:write`. A lab-wide change: not open to API keys restricted to instruments.
+         */
+        post: operations["createGrade"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/grades/{code}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Get a grade (its latest version)
+         * @description Requires the scope `grades:read`.
+         */
+        get: operations["getGrade"];
+        /**
+         * Replace a grade’s definition as a new version
+         * @description The earlier versions stay readable, and verdicts keep naming the version they used. Limits come from the grade as entered: verify them against your licensed copy of the standard. A verdict supports, and never replaces, release under your laboratory’s accredited procedures.
+         *
+         *     Requires the scope `grades:write`. A lab-wide change: not open to API keys restricted to instruments.
+         */
+        put: operations["updateGrade"];
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/grades/{code}/versions": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Every version of a grade, oldest first
+         * @description Requires the scope `grades:read`.
+         */
+        get: operations["listGradeVersions"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/grades/{code}/versions/{version}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * One version of a grade
+         * @description Requires the scope `grades:read`.
+         */
+        get: operations["getGradeVersion"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/grades/{code}/evaluate": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Judge a composition against a grade
+         * @description Each limited element gets a verdict with the value as given, the value rounded to the limit’s place (rounding rule), the limits and the margin. A JSON number is read as its shortest decimal form (0.145 is 0.145). A qualified value decides only when every value it allows gives the same answer; otherwise it is `undetermined` and `conforms` is null, never true. Outside an aim is a warning, not a failure. Limits come from the grade as entered: verify them against your licensed copy of the standard. A verdict supports, and never replaces, release under your laboratory’s accredited procedures.
+         *
+         *     Requires the scope `grades:read`.
+         */
+        post: operations["evaluateGrade"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/grades/match": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Every grade a composition meets (regrading)
+         * @description Evaluates the composition against every grade of its matrix (given, or its largest element) and lists those it conforms to, the one with the largest smallest margin first — so a heat that missed its grade can be sold as another. Limits come from the grade as entered: verify them against your licensed copy of the standard. A verdict supports, and never replaces, release under your laboratory’s accredited procedures.
+         *
+         *     Requires the scope `grades:read`.
+         */
+        post: operations["matchGrades"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/audit-events": {
         parameters: {
             query?: never;
@@ -2251,6 +2389,257 @@ export interface components {
                 };
                 set: components["schemas"]["Standardization"];
             }[];
+        };
+        GradeList: {
+            data: components["schemas"]["Grade"][];
+            /** @description Pass as `cursor` to get the next page; null on the last page. */
+            next_cursor: string | null;
+        };
+        Grade: {
+            code: string;
+            /** @description Starts at 1; every PUT adds one and keeps the earlier versions. */
+            version: number;
+            title: string;
+            standard: string;
+            edition: string | null;
+            matrix: string;
+            decision_rule: components["schemas"]["DecisionRule"];
+            remainder_element?: string;
+            limits: components["schemas"]["ElementLimit"][];
+            others_each?: string;
+            others_total?: string;
+            aims?: components["schemas"]["ElementLimit"][];
+            source_note?: string;
+            created_by: string;
+            created_at: string;
+        };
+        /**
+         * @description `rounding` (ASTM E29, ISO 80000-1 rule A): the result is rounded half to even, once, to the last place written in the limit, then compared. `absolute`: any value beyond the limit fails.
+         * @enum {string}
+         */
+        DecisionRule: "rounding" | "absolute";
+        ElementLimit: {
+            element: string;
+            min?: string;
+            max?: string;
+        };
+        CreateGradeRequest: {
+            /** @example SAE 1045 */
+            code: string;
+            /** @example Medium-carbon steel, long products */
+            title: string;
+            /** @example SAE J403 */
+            standard: string;
+            /**
+             * @description Edition or year of the standard the limits were read from.
+             * @default null
+             */
+            edition: string | null;
+            /**
+             * @description Element symbol; any case is accepted and normalised (MN → Mn).
+             * @example Mn
+             */
+            matrix: string;
+            decision_rule: components["schemas"]["DecisionRule"];
+            /**
+             * @description The balance element, computed by difference (100 % minus the others).
+             * @example Mn
+             */
+            remainder_element?: string;
+            limits: {
+                /**
+                 * @description Element symbol; any case is accepted and normalised (MN → Mn).
+                 * @example Mn
+                 */
+                element: string;
+                /** @example 0.40 */
+                min?: string;
+                /** @example 0.40 */
+                max?: string;
+            }[];
+            /**
+             * @description Maximum for each element the grade does not list (aluminium practice).
+             * @example 0.40
+             */
+            others_each?: string;
+            /**
+             * @description Maximum for the sum of unlisted elements present at ≥ 0.010 %, each first rounded to two decimals.
+             * @example 0.40
+             */
+            others_total?: string;
+            /** @description The melt shop's internal windows inside the limits: outside one is a warning, not a failure. */
+            aims?: {
+                /**
+                 * @description Element symbol; any case is accepted and normalised (MN → Mn).
+                 * @example Mn
+                 */
+                element: string;
+                /** @example 0.40 */
+                min?: string;
+                /** @example 0.40 */
+                max?: string;
+            }[];
+            /** @description Where the limits come from; verify them against your licensed copy of the standard. */
+            source_note?: string;
+        };
+        UpdateGradeRequest: {
+            /** @example Medium-carbon steel, long products */
+            title: string;
+            /** @example SAE J403 */
+            standard: string;
+            /**
+             * @description Edition or year of the standard the limits were read from.
+             * @default null
+             */
+            edition: string | null;
+            /**
+             * @description Element symbol; any case is accepted and normalised (MN → Mn).
+             * @example Mn
+             */
+            matrix: string;
+            decision_rule: components["schemas"]["DecisionRule"];
+            /**
+             * @description The balance element, computed by difference (100 % minus the others).
+             * @example Mn
+             */
+            remainder_element?: string;
+            limits: {
+                /**
+                 * @description Element symbol; any case is accepted and normalised (MN → Mn).
+                 * @example Mn
+                 */
+                element: string;
+                /** @example 0.40 */
+                min?: string;
+                /** @example 0.40 */
+                max?: string;
+            }[];
+            /**
+             * @description Maximum for each element the grade does not list (aluminium practice).
+             * @example 0.40
+             */
+            others_each?: string;
+            /**
+             * @description Maximum for the sum of unlisted elements present at ≥ 0.010 %, each first rounded to two decimals.
+             * @example 0.40
+             */
+            others_total?: string;
+            /** @description The melt shop's internal windows inside the limits: outside one is a warning, not a failure. */
+            aims?: {
+                /**
+                 * @description Element symbol; any case is accepted and normalised (MN → Mn).
+                 * @example Mn
+                 */
+                element: string;
+                /** @example 0.40 */
+                min?: string;
+                /** @example 0.40 */
+                max?: string;
+            }[];
+            /** @description Where the limits come from; verify them against your licensed copy of the standard. */
+            source_note?: string;
+        };
+        GradeEvaluation: {
+            /** @description true: every check passed; false: one failed; null: cannot decide (undetermined or not measured). */
+            conforms: boolean | null;
+            decision_rule: components["schemas"]["DecisionRule"];
+            grade: {
+                code: string;
+                version: number;
+            };
+            elements: components["schemas"]["ElementVerdict"][];
+            /** @description The balance element, 100 % minus every other value: computed, not measured. */
+            remainder?: {
+                element: string;
+                value: string;
+                /** @enum {boolean} */
+                by_difference: true;
+                approximate: boolean;
+            };
+            /** @description Elements the grade does not list: each against `others_each`; the sum of those ≥ 0.010 %, each rounded to two decimals, against `others_total`. */
+            others?: {
+                each: components["schemas"]["ElementVerdict"][];
+                total?: {
+                    verdict: components["schemas"]["Verdict"];
+                    /** @description The value as given, e.g. "0.452" or "<0.002". */
+                    value: string | null;
+                    /** @description Rounded half to even to the place of the limit (rounding rule only). */
+                    rounded: string | null;
+                    limit_min: string | null;
+                    limit_max: string | null;
+                    /** @description Distance to the nearest limit, ≥ 0 within and < 0 beyond; null for qualified values. */
+                    margin: string | null;
+                };
+            };
+            aims: {
+                element: string;
+                value: string | null;
+                aim_min: string | null;
+                aim_max: string | null;
+                within: boolean | null;
+            }[];
+            warnings: string[];
+        };
+        ElementVerdict: {
+            element: string;
+            verdict: components["schemas"]["Verdict"];
+            /** @description The value as given, e.g. "0.452" or "<0.002". */
+            value: string | null;
+            /** @description Rounded half to even to the place of the limit (rounding rule only). */
+            rounded: string | null;
+            limit_min: string | null;
+            limit_max: string | null;
+            /** @description Distance to the nearest limit, ≥ 0 within and < 0 beyond; null for qualified values. */
+            margin: string | null;
+        };
+        /**
+         * @description `undetermined`: a qualified value ("<0.05") allows both answers, so no verdict is possible; `not_measured`: the composition has no value for the element.
+         * @enum {string}
+         */
+        Verdict: "within" | "below_min" | "above_max" | "not_measured" | "undetermined";
+        EvaluateGradeRequest: {
+            /**
+             * @description Element symbol → value in %: a number, or a string such as "0.45", "<0.002" or ">1.5".
+             * @example {
+             *       "C": 0.45,
+             *       "Mn": "0.71",
+             *       "S": "<0.002"
+             *     }
+             */
+            composition: {
+                [key: string]: number | string;
+            };
+        };
+        GradeMatchList: {
+            matrix: string | null;
+            data: {
+                grade: {
+                    code: string;
+                    version: number;
+                    title: string;
+                };
+                decision_rule: components["schemas"]["DecisionRule"];
+                smallest_margin: string | null;
+                warnings: string[];
+            }[];
+        };
+        MatchGradesRequest: {
+            /**
+             * @description Element symbol → value in %: a number, or a string such as "0.45", "<0.002" or ">1.5".
+             * @example {
+             *       "C": 0.45,
+             *       "Mn": "0.71",
+             *       "S": "<0.002"
+             *     }
+             */
+            composition: {
+                [key: string]: number | string;
+            };
+            /**
+             * @description Default: the largest element of the composition.
+             * @example Mn
+             */
+            matrix?: string;
         };
         AuditEventList: {
             data: components["schemas"]["AuditEvent"][];
@@ -7044,6 +7433,749 @@ export interface operations {
             };
             /** @description No such instrument. */
             404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    listGrades: {
+        parameters: {
+            query?: {
+                /** @description Page size (1–200). */
+                limit?: number;
+                /** @description Opaque cursor from the previous page's `next_cursor`. */
+                cursor?: string;
+                /** @description Element symbol; any case is accepted and normalised (MN → Mn). */
+                matrix?: string;
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description A page of grades. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["GradeList"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `grades:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    createGrade: {
+        parameters: {
+            query?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["CreateGradeRequest"];
+            };
+        };
+        responses: {
+            /** @description Created as version 1. */
+            201: {
+                headers: {
+                    /** @description The new grade. */
+                    Location?: string;
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Grade"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `grades:write`. Or: The caller is an API key restricted to instruments. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A grade with this code exists (codes are unique ignoring case). */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    getGrade: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                code: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The grade. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Grade"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `grades:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such grade. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    updateGrade: {
+        parameters: {
+            query?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
+            path: {
+                code: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["UpdateGradeRequest"];
+            };
+        };
+        responses: {
+            /** @description The new version. */
+            200: {
+                headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Grade"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `grades:write`. Or: The caller is an API key restricted to instruments. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such grade. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Another version was added meanwhile. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    listGradeVersions: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                code: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The versions. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": {
+                        data: components["schemas"]["Grade"][];
+                    };
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `grades:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such grade. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    getGradeVersion: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                code: string;
+                version: number;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description That version. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Grade"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `grades:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such grade or version. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    evaluateGrade: {
+        parameters: {
+            query?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
+            path: {
+                code: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["EvaluateGradeRequest"];
+            };
+        };
+        responses: {
+            /** @description The evaluation. */
+            200: {
+                headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["GradeEvaluation"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `grades:read`. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such grade. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    matchGrades: {
+        parameters: {
+            query?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["MatchGradesRequest"];
+            };
+        };
+        responses: {
+            /** @description The grades met. */
+            200: {
+                headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["GradeMatchList"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `grades:read`. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
                 headers: {
                     [name: string]: unknown;
                 };

@@ -100,6 +100,8 @@ describe('scope matrix', () => {
   it('lab-wide writes are exactly the intended ones', () => {
     expect(labWide.map(({ operation }) => operation.operationId).sort()).toEqual(
       [
+        'createGrade',
+        'updateGrade',
         'createImportProfile',
         'updateImportProfile',
         'createInstrument',
