@@ -5892,7 +5892,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            /** @description Correction sets for the instrument and method were activated again and again while the file was being imported (its samples are built against the sets in force when they are stored): upload it again. Or a request with the same `Idempotency-Key` is still being processed. */
             409: {
                 headers: {
                     [name: string]: unknown;

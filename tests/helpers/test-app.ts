@@ -15,6 +15,7 @@ import { sessionAuthContext } from '../../server/domain/auth/auth.service.ts';
 import type { Role, Scope } from '../../server/domain/auth/scopes.ts';
 import { hashPassword } from '../../server/domain/users/passwords.ts';
 import { emailKey, insertUser, type UserRow } from '../../server/domain/users/users.repository.ts';
+import type { ImportWorkers } from '../../server/domain/imports/import-workers.ts';
 import type { AnyRoute } from '../../server/http/route.ts';
 import { newId } from '../../server/lib/ids.ts';
 import { nowIso } from '../../server/lib/time.ts';
@@ -34,16 +35,28 @@ export interface TestApp {
 /**
  * The app as served, except that every JSON response is checked against the OpenAPI document:
  * a response that does not match answers 500, so the test that caused it fails.
- * `routes` replaces the /api/v1 operations (tests that need an extra or a broken one).
+ * `routes` replaces the /api/v1 operations (tests that need an extra or a broken one);
+ * `importWorkers` replaces the import worker pool (tests of a worker that fails).
  */
-export async function createTestApp(overrides: Partial<Config> = {}, options: { routes?: AnyRoute[] } = {}): Promise<TestApp> {
+export async function createTestApp(
+  overrides: Partial<Config> = {},
+  options: { routes?: AnyRoute[]; importWorkers?: ImportWorkers } = {},
+): Promise<TestApp> {
   const smtp = await startFakeSmtp();
   const config = testConfig({ smtpUrl: smtp.url, ...overrides });
   const pg =
     process.env.TEST_DATABASE_URL && !overrides.databaseFile ? await createPostgresSchema(process.env.TEST_DATABASE_URL) : undefined;
   const db = pg ? createDb({ ...config, databaseUrl: pg.url }, { schema: pg.schema }) : createDb(config);
   await migrateLatest(db);
-  const app = createApp({ db, config, outbox: smtp.outbox, consoleDir: '/nonexistent', validateResponses: true, routes: options.routes });
+  const app = createApp({
+    db,
+    config,
+    outbox: smtp.outbox,
+    consoleDir: '/nonexistent',
+    validateResponses: true,
+    routes: options.routes,
+    importWorkers: options.importWorkers,
+  });
   return {
     app,
     db,
@@ -52,6 +65,7 @@ export async function createTestApp(overrides: Partial<Config> = {}, options: { 
     config,
     async close() {
       app.locals.ctx.mailer.close();
+      await app.locals.ctx.importWorkers.close();
       await smtp.close();
       await db.destroy();
       await pg?.drop();

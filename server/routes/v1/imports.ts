@@ -38,6 +38,10 @@ export const importRoutes = [
         schema: ImportSchema,
         headers: { Location: 'The new import.' },
       },
+      409: {
+        description:
+          'Correction sets for the instrument and method were activated again and again while the file was being imported (its samples are built against the sets in force when they are stored): upload it again. Or a request with the same `Idempotency-Key` is still being processed.',
+      },
       413: { description: "The file exceeds IMPORT_MAX_BYTES; the problem's `limit_bytes` gives the limit." },
       415: { description: 'Not a multipart/form-data request.' },
       422: {
