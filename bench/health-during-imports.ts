@@ -40,6 +40,7 @@ async function timedHealth(url: string): Promise<number> {
 async function main(): Promise<void> {
   const server = await startLiveServer({
     console: false,
+    validateResponses: false,
     config: { importMaxBytes: 100 * 1024 * 1024, rateLimitPerMinute: 10_000_000 },
   });
   try {
