@@ -9,6 +9,7 @@ import {
 } from '../../domain/imports/imports.schemas.ts';
 import { getImport, getImportFile, listImportsPage, previewImport, uploadImport } from '../../domain/imports/imports.service.ts';
 import { AUTO_DETECTION_DESCRIPTION } from '../../domain/imports/import-profiles.schemas.ts';
+import { SAMPLE_TEXT_LIMITS as L } from '../../domain/samples/sample-limits.ts';
 import { defineRoute } from '../../http/route.ts';
 import { z } from '../../lib/zod.ts';
 import { singleFileUpload } from '../../http/upload.ts';
@@ -25,6 +26,7 @@ export const importRoutes = [
     summary: 'Upload an instrument result file',
     description:
       'The raw bytes are kept with their SHA-256. Uploading the same bytes again returns the earlier import with 200 and creates nothing. By default a file is imported all or nothing: one unreadable value answers 422 with `errors[]` naming line and column (`file:line 12:Mn`), and the database is unchanged.\n\n' +
+      `Cells obey the limits of a JSON push: sample code, heat and grade at most ${L.identification} characters, identification field names ${L.fieldName} and values ${L.fieldValue}, at most ${L.fields} fields per line, element cells ${L.value}; a longer cell is an issue of its line and column (\`too_long\`, \`too_many_fields\`, \`invalid_value\`).\n\n` +
       AUTO_DETECTION_DESCRIPTION,
     tag: 'Imports',
     access: { scope: 'imports:write' },
