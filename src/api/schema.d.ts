@@ -760,7 +760,9 @@ export interface paths {
         };
         /**
          * Download the raw file exactly as uploaded
-         * @description Requires the scope `samples:read`.
+         * @description Always an attachment, served as `text/csv` with the charset the file was read in (`utf-8` or `windows-1252`) and `X-Content-Type-Options: nosniff`, whatever Content-Type the uploader sent (it stays in `file.content_type` of the import), so that no browser runs the bytes as a page or script.
+         *
+         *     Requires the scope `samples:read`.
          */
         get: operations["downloadImportFile"];
         put?: never;
@@ -6150,13 +6152,13 @@ export interface operations {
         };
         requestBody?: never;
         responses: {
-            /** @description The bytes as uploaded, with their SHA-256 in the `x-content-sha256` header. */
+            /** @description The bytes as uploaded, as an attachment, with their SHA-256 in the `x-content-sha256` header. */
             200: {
                 headers: {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/octet-stream": string;
+                    "text/csv": string;
                 };
             };
             /** @description The request is not valid; `errors[]` names each field. */

@@ -14,7 +14,7 @@ import { assertInstrumentAllowed } from '../instruments/instruments.service.ts';
 import { findMethod } from '../methods/methods.repository.ts';
 import { timelineRows, type TimelineRow } from '../drift/correction-timeline.ts';
 import { storeNewSamples } from '../samples/samples.service.ts';
-import type { ImportIssue } from './import-report.ts';
+import type { ImportIssue, ImportReport } from './import-report.ts';
 import type { ImportTask } from './import-work.ts';
 import { runImportWork } from './import-workers.ts';
 import { getImportProfile } from './import-profiles.service.ts';
@@ -172,9 +172,15 @@ export async function getImport(ctx: AppContext, auth: AuthContext, id: string) 
   return toImport(row);
 }
 
-/** The raw file exactly as it was uploaded. */
+/**
+ * The raw file exactly as it was uploaded, and the media type to serve it as: it was read as
+ * delimited text, so text/csv in the encoding it was read in — never the Content-Type the
+ * uploader sent, which could make a browser run the bytes as a page or script of this origin.
+ */
 export async function getImportFile(ctx: AppContext, auth: AuthContext, id: string) {
   const file = await findImportFile(ctx.db, id);
   if (!visible(auth, file)) throw new NotFoundProblem(`No import ${id}.`);
-  return file;
+  const { report_json, ...rest } = file;
+  const encoding = (JSON.parse(report_json) as ImportReport).layout.encoding.startsWith('windows-1252') ? 'windows-1252' : 'utf-8';
+  return { ...rest, media_type: `text/csv; charset=${encoding}` };
 }

@@ -109,22 +109,26 @@ export const importRoutes = [
     path: '/imports/{id}/file',
     operationId: 'downloadImportFile',
     summary: 'Download the raw file exactly as uploaded',
+    description:
+      'Always an attachment, served as `text/csv` with the charset the file was read in (`utf-8` or `windows-1252`) and `X-Content-Type-Options: nosniff`, whatever Content-Type the uploader sent (it stays in `file.content_type` of the import), so that no browser runs the bytes as a page or script.',
     tag: 'Imports',
     access: { scope: 'samples:read' },
     params: ImportIdParams,
     responses: {
       200: {
-        description: 'The bytes as uploaded, with their SHA-256 in the `x-content-sha256` header.',
-        contentType: 'application/octet-stream',
+        description: 'The bytes as uploaded, as an attachment, with their SHA-256 in the `x-content-sha256` header.',
+        contentType: 'text/csv',
         schema: z.string().openapi({ format: 'binary' }),
       },
       404: { description: 'No such import.' },
     },
     async handler({ params, auth, res, ctx }) {
       const file = await getImportFile(ctx, auth, params.id);
-      res.setHeader('Content-Type', file.content_type);
-      res.setHeader('x-content-sha256', file.sha256);
+      // attachment() first: it would set a Content-Type from the file name's extension.
       res.attachment(file.file_name);
+      res.setHeader('Content-Type', file.media_type);
+      res.setHeader('X-Content-Type-Options', 'nosniff');
+      res.setHeader('x-content-sha256', file.sha256);
       res.send(Buffer.from(file.content));
     },
   }),
