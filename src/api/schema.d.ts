@@ -486,7 +486,7 @@ export interface paths {
         };
         /**
          * Export samples as CSV
-         * @description The same filters as the list, every matching sample (up to 100000), newest first: one row per sample, one column per element holding the reported value with its qualifier (e.g. "<0.002"). Text cells that a spreadsheet would evaluate (starting with =, +, -, @) are prefixed with a quote.
+         * @description The same filters as the list, every matching sample (up to 100000), newest first: one row per sample, one column per element holding the reported value with its qualifier (e.g. "<0.002"). Text cells that a spreadsheet would evaluate (starting with =, +, -, @) are prefixed with a quote. The matching samples are counted first, so a refusal comes at once; the CSV is then streamed (chunked), a page of samples at a time.
          *
          *     Requires the scope `samples:read`.
          */
