@@ -18,6 +18,7 @@ import { listen } from '../server/index.ts';
 import { createLogger } from '../server/logger.ts';
 import { seedDemoLab } from '../server/seed/demo-lab.ts';
 import { seedDemoUsers } from '../server/seed/demo-users.ts';
+import { createImportWorkers } from '../server/domain/imports/import-workers.ts';
 import { insertMethod } from '../server/domain/methods/methods.repository.ts';
 import { newId } from '../server/lib/ids.ts';
 import { WIDE_FILE_ELEMENTS, wideCsv } from './generate-wide-file.ts';
@@ -96,7 +97,13 @@ async function apiRun(text: string, dir: string, run: number): Promise<{ ms: num
   await insertMethod(db, method);
   const admin = await db('users').where({ role: 'admin' }).first();
   const key = await createApiKey(
-    { db, config, logger: createLogger('silent'), mailer: { send: async () => ({ delivered: false }), close() {} } },
+    {
+      db,
+      config,
+      logger: createLogger('silent'),
+      mailer: { send: async () => ({ delivered: false }), close() {} },
+      importWorkers: createImportWorkers(),
+    },
     sessionAuthContext(admin, 'bench'),
     { name: 'bench', scopes: ['imports:write', 'samples:read'] },
   );

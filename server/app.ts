@@ -10,6 +10,7 @@ import type { Logger } from 'pino';
 import type { Config } from './config.ts';
 import type { AppContext } from './context.ts';
 import type { Db } from './db/knex.ts';
+import { createImportWorkers, type ImportWorkers } from './domain/imports/import-workers.ts';
 import { authenticate } from './http/authenticate.ts';
 import { crossSiteGuard } from './http/cross-site.ts';
 import { logSerializers } from './http/log-serializers.ts';
@@ -30,6 +31,8 @@ export interface AppOptions {
   logger?: Logger;
   mailer?: Mailer;
   outbox?: Outbox;
+  /** Default: a pool of import workers of its own (createImportWorkers). */
+  importWorkers?: ImportWorkers;
   /** Folder of the built console; served with a single-page fallback when it exists. */
   consoleDir?: string;
   /**
@@ -53,7 +56,8 @@ export function createApp(options: AppOptions): Express & { locals: { ctx: AppCo
   const { db, config } = options;
   const logger = options.logger ?? createLogger(config.logLevel);
   const mailer = options.mailer ?? createMailer({ smtpUrl: config.smtpUrl, from: config.mailFrom, logger });
-  const ctx: AppContext = { db, config, logger, mailer, outbox: options.outbox };
+  const importWorkers = options.importWorkers ?? createImportWorkers();
+  const ctx: AppContext = { db, config, logger, mailer, importWorkers, outbox: options.outbox };
 
   const app = express();
   app.locals.ctx = ctx;

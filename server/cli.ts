@@ -10,6 +10,7 @@ import { PasswordSchema } from './domain/users/users.schemas.ts';
 import { ensureAdmin } from './domain/users/users.service.ts';
 import { findFirstActiveAdmin, findUserByEmail, type UserRow } from './domain/users/users.repository.ts';
 import { createLogger } from './logger.ts';
+import { createImportWorkers } from './domain/imports/import-workers.ts';
 import { createMailer } from './mail/mailer.ts';
 
 const USAGE = `Usage: npm run cli -- <command> [options]
@@ -77,7 +78,8 @@ async function run(argv: string[]): Promise<void> {
       if (unknown.length) throw new UsageError(`unknown scopes: ${unknown.join(', ')}`);
       const owner = await findOwner(db, values.owner);
       const logger = createLogger('silent');
-      const ctx = { db, config, logger, mailer: createMailer({ from: config.mailFrom, logger }) };
+      // The import workers start only when an import runs; issuing a key runs none.
+      const ctx = { db, config, logger, mailer: createMailer({ from: config.mailFrom, logger }), importWorkers: createImportWorkers() };
       const key = await createApiKey(ctx, sessionAuthContext(owner, 'cli'), {
         name,
         scopes: scopes as Scope[],

@@ -1,6 +1,7 @@
 import type { Logger } from 'pino';
 import type { Config } from './config.ts';
 import type { Db } from './db/knex.ts';
+import type { ImportWorkers } from './domain/imports/import-workers.ts';
 import type { Outbox } from './mail/fake-smtp.ts';
 import type { Mailer } from './mail/mailer.ts';
 
@@ -10,6 +11,8 @@ export interface AppContext {
   config: Config;
   logger: Logger;
   mailer: Mailer;
+  /** Worker threads that read imported files; started on first use, stopped with the server. */
+  importWorkers: ImportWorkers;
   /** Present when the in-process SMTP server captures mail (development and tests). */
   outbox?: Outbox;
 }

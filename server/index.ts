@@ -1,7 +1,9 @@
-// Listens and shuts down gracefully: stop accepting, finish in-flight requests, close the database.
+// Listens and shuts down gracefully: stop accepting, finish in-flight requests, stop the import
+// workers, close the database.
 import type { Server } from 'node:http';
 import type { Express } from 'express';
 import type { Logger } from 'pino';
+import type { AppContext } from './context.ts';
 import type { Db } from './db/knex.ts';
 
 export interface RunningServer {
@@ -33,6 +35,7 @@ export async function listen(app: Express, db: Db, logger: Logger, port: number,
         server.closeIdleConnections();
       });
       await onStop?.();
+      await (app.locals.ctx as AppContext | undefined)?.importWorkers.close();
       await db.destroy();
       logger.info('stopped');
     })());

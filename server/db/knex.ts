@@ -1,6 +1,7 @@
 // The one Knex instance factory: SQLite (embedded default) or PostgreSQL when DATABASE_URL is set.
 import { mkdirSync } from 'node:fs';
 import { dirname } from 'node:path';
+import Database from 'better-sqlite3';
 import knexFactory, { type Knex } from 'knex';
 import type { Config } from '../config.ts';
 
@@ -38,10 +39,31 @@ export function createDb(config: Pick<Config, 'databaseFile' | 'databaseUrl'>, o
   });
 }
 
-/** True when the database answers a trivial query. */
+/**
+ * A SQLite file is pinged on a short-lived read-only connection of its own: the pool's single
+ * connection stays with a write transaction for as long as it runs (a large import: a second or
+ * more), and WAL lets a second connection read meanwhile. In-memory databases use the pool.
+ */
+function sqliteFileOf(db: Db): string | undefined {
+  const config = db.client.config as Knex.Config;
+  const filename = (config.connection as { filename?: string } | undefined)?.filename;
+  return config.client === 'better-sqlite3' && filename && filename !== ':memory:' ? filename : undefined;
+}
+
+/** True when the database answers a query that reads it. */
 export async function pingDb(db: Db): Promise<boolean> {
   try {
-    await db.raw('select 1 as ok');
+    const file = sqliteFileOf(db);
+    if (!file) {
+      await db.raw('select 1 as ok');
+      return true;
+    }
+    const probe = new Database(file, { readonly: true, fileMustExist: true, timeout: 200 });
+    try {
+      probe.prepare('select count(*) as n from sqlite_master').get();
+    } finally {
+      probe.close();
+    }
     return true;
   } catch {
     return false;

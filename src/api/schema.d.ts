@@ -486,7 +486,7 @@ export interface paths {
         };
         /**
          * Export samples as CSV
-         * @description The same filters as the list, every matching sample (up to 100000), newest first: one row per sample, one column per element holding the reported value with its qualifier (e.g. "<0.002"). Text cells that a spreadsheet would evaluate (starting with =, +, -, @) are prefixed with a quote.
+         * @description The same filters as the list, every matching sample (up to 100000), newest first: one row per sample, one column per element holding the reported value with its qualifier (e.g. "<0.002"). Text cells that a spreadsheet would evaluate (starting with =, +, -, @) are prefixed with a quote. The matching samples are counted first, so a refusal comes at once; the CSV is then streamed (chunked), a page of samples at a time.
          *
          *     Requires the scope `samples:read`.
          */
@@ -696,6 +696,8 @@ export interface paths {
          * Upload an instrument result file
          * @description The raw bytes are kept with their SHA-256. Uploading the same bytes again returns the earlier import with 200 and creates nothing. By default a file is imported all or nothing: one unreadable value answers 422 with `errors[]` naming line and column (`file:line 12:Mn`), and the database is unchanged.
          *
+         *     Cells obey the limits of a JSON push: sample code, heat and grade at most 100 characters, identification field names 60 and values 500, at most 30 fields per line, element cells 40; a longer cell is an issue of its line and column (`too_long`, `too_many_fields`, `invalid_value`).
+         *
          *     Without a profile (and for whatever a profile leaves open) the parser detects: the encoding (UTF-8 with or without BOM, else Windows-1252); the delimiter (`,` `;` or tab: the one that splits the header into most columns and the data lines into as many); the decimal separator (`.` in comma-delimited files; otherwise `,` when more element cells write a digit-comma-digit than a digit-dot-digit); the header (the first non-blank line); the layout (long when an element column and a value column are named and no header is an element, else wide); element columns (a real element symbol in any case with an optional unit: `Mn`, `Mn %`, `%Mn`, `Mn [%]`, `C [ppm]`, `Si(%)`, `Cu mg/kg`; unit from the header, else the profile's default unit, else the caller's, else %); identification headers, ignoring case and treating `_ - . / :` as spaces — sample code (required): `sample`, `sample code`, `sample id`, `sample no`, `sample number`, `sample name`, `specimen`, `specimen id`; heat or lot number: `heat`, `heat no`, `heat number`, `heat id`, `lot`, `lot no`, `lot number`, `batch`, `cast`, `cast no`, `melt`, `melt no`; grade: `grade`, `steel grade`, `alloy`, `alloy grade`, `material`; sample kind (preliminary, final, ladle, incoming, control …): `kind`, `sample kind`, `sample type`, `type`; burn (replicate) number; without it burns count 1, 2, 3 … within a sample: `burn`, `burn no`, `burn number`, `replicate`, `rep`, `spark`, `spark no`; time of the burn: `time`, `timestamp`, `date time`, `datetime`, `measured at`, `measurement time`, `analysed at`, `analyzed at`; long layout: the element symbol: `element`, `analyte`; long layout: the value: `value`, `result`, `concentration`, `conc`; long layout: the unit of the value: `unit`, `units`; ignored (row counter): `no`, `nr`, `row`, `line`, `index`, `#`. Any other header becomes an identification field in `fields`. A header with a unit whose symbol is no element (`Xx %`) rejects the file.
          *
          *     Requires the scope `imports:write`.
@@ -758,7 +760,9 @@ export interface paths {
         };
         /**
          * Download the raw file exactly as uploaded
-         * @description Requires the scope `samples:read`.
+         * @description Always an attachment, served as `text/csv` with the charset the file was read in (`utf-8` or `windows-1252`) and `X-Content-Type-Options: nosniff`, whatever Content-Type the uploader sent (it stays in `file.content_type` of the import), so that no browser runs the bytes as a page or script.
+         *
+         *     Requires the scope `samples:read`.
          */
         get: operations["downloadImportFile"];
         put?: never;
@@ -6326,7 +6330,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            /** @description Correction sets for the instrument and method were activated again and again while the file was being imported (its samples are built against the sets in force when they are stored): upload it again. Or a request with the same `Idempotency-Key` is still being processed. */
             409: {
                 headers: {
                     [name: string]: unknown;
@@ -6582,13 +6586,13 @@ export interface operations {
         };
         requestBody?: never;
         responses: {
-            /** @description The bytes as uploaded, with their SHA-256 in the `x-content-sha256` header. */
+            /** @description The bytes as uploaded, as an attachment, with their SHA-256 in the `x-content-sha256` header. */
             200: {
                 headers: {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/octet-stream": string;
+                    "text/csv": string;
                 };
             };
             /** @description The request is not valid; `errors[]` names each field. */

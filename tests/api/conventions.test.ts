@@ -1,4 +1,7 @@
 // API conventions every route inherits: problem responses, request ids, headers, health.
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, expectProblem, problemBody, signedInAgent, type TestApp } from '../helpers/test-app.ts';
@@ -16,6 +19,31 @@ describe('GET /api/v1/health', () => {
     expect(res.headers['content-type']).toMatch(/^application\/json/);
     expect(res.body).toMatchObject({ status: 'ok', version: t.config.version, database: { ok: true, client: 'sqlite' } });
     expect(Date.parse(res.body.time)).not.toBeNaN();
+  });
+
+  it('answers while a write transaction holds the database connection (SQLite file, WAL)', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'meltwire-health-'));
+    const file = await createTestApp({ databaseFile: join(dir, 'health.db') });
+    try {
+      let release!: () => void;
+      const held = new Promise<void>((resolve) => (release = resolve));
+      const order: string[] = [];
+      const writing = file.db.transaction(async (trx) => {
+        await trx('audit_events').count({ n: '*' });
+        await held;
+        order.push('transaction');
+      });
+      const res = await request(file.app).get('/api/v1/health');
+      order.push('health');
+      release();
+      await writing;
+      expect(res.status).toBe(200);
+      expect(res.body.database.ok).toBe(true);
+      expect(order).toEqual(['health', 'transaction']);
+    } finally {
+      await file.close();
+      rmSync(dir, { recursive: true, force: true });
+    }
   });
 });
 

@@ -13,7 +13,7 @@ import { createLogger } from '../../server/logger.ts';
 import { startFakeSmtp } from '../../server/mail/fake-smtp.ts';
 import { seedDemoIfEmpty } from '../../server/seed/demo.ts';
 
-export async function startLiveServer(options: { console?: boolean; config?: Partial<Config> } = {}) {
+export async function startLiveServer(options: { console?: boolean; config?: Partial<Config>; validateResponses?: boolean } = {}) {
   const withConsole = options.console ?? true;
   if (withConsole && !existsSync(join(DEFAULT_CONSOLE_DIR, 'index.html')))
     throw new Error('dist/ is missing: run `npm run build` first (npm test does)');
@@ -24,13 +24,14 @@ export async function startLiveServer(options: { console?: boolean; config?: Par
   await migrateLatest(db);
   await seedDemoIfEmpty(db);
   const logger = createLogger('silent');
-  // Responses are checked against the OpenAPI document here too (see tests/helpers/test-app.ts).
+  // Responses are checked against the OpenAPI document here too (see tests/helpers/test-app.ts),
+  // unless a benchmark turns that off to measure the server as served.
   const app = createApp({
     db,
     config,
     logger,
     outbox: smtp.outbox,
-    validateResponses: true,
+    validateResponses: options.validateResponses ?? true,
     ...(withConsole ? {} : { consoleDir: '/nonexistent' }),
   });
   const running = await listen(app, db, logger, 0, () => smtp.close());

@@ -16,6 +16,7 @@ import { sessionAuthContext } from '../../server/domain/auth/auth.service.ts';
 import type { Role, Scope } from '../../server/domain/auth/scopes.ts';
 import { hashPassword } from '../../server/domain/users/passwords.ts';
 import { emailKey, insertUser, type UserRow } from '../../server/domain/users/users.repository.ts';
+import type { ImportWorkers } from '../../server/domain/imports/import-workers.ts';
 import type { AnyRoute } from '../../server/http/route.ts';
 import { newId } from '../../server/lib/ids.ts';
 import { nowIso } from '../../server/lib/time.ts';
@@ -35,11 +36,12 @@ export interface TestApp {
 /**
  * The app as served, except that every JSON response is checked against the OpenAPI document:
  * a response that does not match answers 500, so the test that caused it fails.
- * `routes` replaces the /api/v1 operations (tests that need an extra or a broken one).
+ * `routes` replaces the /api/v1 operations (tests that need an extra or a broken one);
+ * `importWorkers` replaces the import worker pool (tests of a worker that fails).
  */
 export async function createTestApp(
   overrides: Partial<Config> = {},
-  options: { routes?: AnyRoute[]; logger?: Logger } = {},
+  options: { routes?: AnyRoute[]; logger?: Logger; importWorkers?: ImportWorkers } = {},
 ): Promise<TestApp> {
   const smtp = await startFakeSmtp();
   const config = testConfig({ smtpUrl: smtp.url, ...overrides });
@@ -55,6 +57,7 @@ export async function createTestApp(
     consoleDir: '/nonexistent',
     validateResponses: true,
     routes: options.routes,
+    importWorkers: options.importWorkers,
   });
   return {
     app,
@@ -64,6 +67,7 @@ export async function createTestApp(
     config,
     async close() {
       app.locals.ctx.mailer.close();
+      await app.locals.ctx.importWorkers.close();
       await smtp.close();
       await db.destroy();
       await pg?.drop();

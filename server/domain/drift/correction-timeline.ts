@@ -19,11 +19,14 @@ export function correctionSetOf(row: Pick<StandardizationRow, 'id' | 'correction
   return { id: row.id, corrections };
 }
 
+/** What a timeline is made of: the activated sets ordered by effective_from, then activated_at. */
+export type TimelineRow = Pick<StandardizationRow, 'id' | 'corrections_json' | 'effective_from'>;
+
 export class CorrectionTimeline {
   private readonly entries: { from: number; set: CorrectionSet }[];
 
-  /** `rows`: activated sets ordered by effective_from, then activated_at (listActivatedRows). */
-  constructor(rows: readonly Pick<StandardizationRow, 'id' | 'corrections_json' | 'effective_from'>[]) {
+  /** `rows`: as timelineRows() returns them. */
+  constructor(rows: readonly TimelineRow[]) {
     this.entries = rows.map((row) => ({ from: Date.parse(row.effective_from as string), set: correctionSetOf(row) }));
   }
 
@@ -41,6 +44,12 @@ export class CorrectionTimeline {
   get isEmpty(): boolean {
     return this.entries.length === 0;
   }
+}
+
+/** The rows of the instrument's and method's timeline, as plain data (e.g. for a worker thread). */
+export async function timelineRows(db: Queryable, instrumentId: string, methodId: string): Promise<TimelineRow[]> {
+  const rows = await listActivatedRows(db, instrumentId, methodId);
+  return rows.map(({ id, corrections_json, effective_from }) => ({ id, corrections_json, effective_from }));
 }
 
 /** Loads the timelines of the (instrument, method) pairs asked for, each once. Call it inside the

@@ -76,8 +76,8 @@ export function findImportBySha(db: Queryable, sha256: string): Promise<ImportMe
 export function findImportFile(
   db: Queryable,
   id: string,
-): Promise<Pick<ImportRow, 'instrument_id' | 'file_name' | 'content_type' | 'content' | 'sha256'> | undefined> {
-  return db<ImportRow>('imports').select('instrument_id', 'file_name', 'content_type', 'content', 'sha256').where({ id }).first();
+): Promise<Pick<ImportRow, 'instrument_id' | 'file_name' | 'content' | 'sha256' | 'report_json'> | undefined> {
+  return db<ImportRow>('imports').select('instrument_id', 'file_name', 'content', 'sha256', 'report_json').where({ id }).first();
 }
 
 const IMPORT_KEYSET: KeysetColumn<ImportMeta>[] = [{ column: 'id', order: 'desc', key: 'id', valueOf: (row) => row.id }];

@@ -1,7 +1,8 @@
-// Uploading a result file: deduplicated by SHA-256, parsed, and stored in one transaction —
-// all or nothing per file by default, or per sample when asked. The raw bytes are kept.
+// Uploading a result file: deduplicated by SHA-256, read and built in an import worker thread
+// (import-work.ts), and stored in one transaction — all or nothing per file by default, or per
+// sample when asked. The raw bytes are kept.
 import type { AppContext } from '../../context.ts';
-import { type FieldError, NotFoundProblem, UnprocessableProblem } from '../../lib/problems.ts';
+import { ConflictProblem, type FieldError, NotFoundProblem, UnprocessableProblem } from '../../lib/problems.ts';
 import type { AuthContext } from '../auth/auth-context.ts';
 import { newId } from '../../lib/ids.ts';
 import { sha256Hex } from '../../lib/secrets.ts';
@@ -10,16 +11,16 @@ import { actorOf } from '../audit/actor.ts';
 import { recordAudit } from '../audit/audit.repository.ts';
 import { findInstrument } from '../instruments/instruments.repository.ts';
 import { assertInstrumentAllowed } from '../instruments/instruments.service.ts';
-import { findMethod, type Method } from '../methods/methods.repository.ts';
-import { timelineLoader } from '../drift/correction-timeline.ts';
+import { findMethod } from '../methods/methods.repository.ts';
+import { timelineRows, type TimelineRow } from '../drift/correction-timeline.ts';
 import { storeNewSamples } from '../samples/samples.service.ts';
 import type { ImportIssue, ImportReport } from './import-report.ts';
-import { buildImportedSamples } from './import-samples.ts';
+import type { ImportTask } from './import-work.ts';
+import { runImportWork } from './import-workers.ts';
 import { getImportProfile } from './import-profiles.service.ts';
 import { findImportBySha, findImportFile, findImportMeta, insertImport, listImportRows, toImport } from './imports.repository.ts';
 import { mapPage } from '../../lib/pagination.ts';
 import type { z } from '../../lib/zod.ts';
-import { FileLayoutError, parseResultFile, type ParsedFile } from './parse/index.ts';
 import { inTransaction } from '../../db/transaction.ts';
 import type { ImportListQuerySchema, ImportPreviewRequestSchema } from './imports.schemas.ts';
 
@@ -42,7 +43,8 @@ function fileProblem(detail: string, issues: ImportIssue[]): UnprocessableProble
   return problem;
 }
 
-async function prepare(ctx: AppContext, auth: AuthContext, input: UploadInput): Promise<{ method: Method; parsed: ParsedFile }> {
+/** The instrument, method and profile the upload names; every unknown reference is reported at once. */
+async function resolveReferences(ctx: AppContext, auth: AuthContext, input: UploadInput) {
   const errors: FieldError[] = [];
   const instrument = await findInstrument(ctx.db, input.instrument_id);
   if (!instrument)
@@ -60,53 +62,31 @@ async function prepare(ctx: AppContext, auth: AuthContext, input: UploadInput): 
     }
   }
   if (errors.length) throw new UnprocessableProblem('The upload refers to an instrument, method or profile that does not exist.', errors);
-  try {
-    return { method: method!, parsed: parseResultFile(input.file.buffer, { profile, defaultUnit: method!.default_unit }) };
-  } catch (error) {
-    if (error instanceof FileLayoutError) throw fileProblem(`The file cannot be read as result data: ${error.message}`, error.issues);
-    throw error;
-  }
+  return { method: method!, options: { profile, defaultUnit: method!.default_unit } };
 }
 
-function layoutOf(parsed: ParsedFile): ImportReport['layout'] {
-  return {
-    encoding: parsed.bom ? `${parsed.encoding} (BOM)` : parsed.encoding,
-    delimiter: parsed.delimiter === '\t' ? 'tab' : parsed.delimiter,
-    decimal_separator: parsed.decimal_separator,
-    layout: parsed.layout,
-    columns: parsed.columns.map((c) => ({
-      header: c.header,
-      role: c.role,
-      ...(c.element ? { element: c.element } : {}),
-      ...(c.unit ? { unit: c.unit } : {}),
-    })),
-  };
+/** Reads the file in an import worker; an unreadable or refused file becomes its 422 problem. */
+async function work(ctx: AppContext, task: ImportTask) {
+  const { outcome, built } = await runImportWork(ctx.importWorkers, task);
+  if (outcome.kind === 'unreadable' || outcome.kind === 'refused') throw fileProblem(outcome.detail, outcome.issues);
+  return { outcome, built };
 }
 
 export async function previewImport(ctx: AppContext, auth: AuthContext, input: UploadInput) {
-  const { parsed } = await prepare(ctx, auth, input);
+  const { options } = await resolveReferences(ctx, auth, input);
+  const { outcome } = await work(ctx, { kind: 'preview', bytes: input.file.buffer, options });
+  if (outcome.kind !== 'preview') throw new Error(`an import preview came back as ${outcome.kind}`);
   const duplicate = await findImportBySha(ctx.db, sha256Hex(input.file.buffer));
-  return {
-    layout: layoutOf(parsed),
-    counts: { rows: parsed.counts.rows, samples: parsed.samples.length, burns: parsed.counts.burns, values: parsed.counts.values },
-    samples: parsed.samples.slice(0, 20).map((s) => ({
-      sample_code: s.sample_code,
-      heat: s.heat ?? null,
-      grade: s.grade ?? null,
-      kind: s.kind ?? null,
-      first_line: s.first_line,
-      burns: s.burns.map((b) => ({
-        line: b.line,
-        burn_number: b.burn_number,
-        measured_at: b.measured_at ?? null,
-        values: Object.fromEntries(Object.entries(b.values).map(([el, v]) => [el, v.raw])),
-      })),
-    })),
-    warnings: parsed.warnings,
-    rejected: parsed.rejected,
-    duplicate_of: duplicate?.id ?? null,
-  };
+  return { ...outcome.preview, duplicate_of: duplicate?.id ?? null };
 }
+
+/** Samples are built outside the storing transaction against the activated correction sets read
+ * before it; if an activation lands in between, they are built again (at most this many times). */
+const BUILD_ATTEMPTS = 3;
+
+class CorrectionsChanged extends Error {}
+
+const fingerprint = (rows: TimelineRow[]) => rows.map((row) => `${row.id}@${String(row.effective_from)}`).join('|');
 
 /** Stores the file and its samples; an identical earlier upload is returned instead (created = false). */
 export async function uploadImport(
@@ -121,42 +101,16 @@ export async function uploadImport(
     assertInstrumentAllowed(auth, existing.instrument_id);
     return { created: false, record: toImport(existing) };
   }
-  const { method, parsed } = await prepare(ctx, auth, input);
-  if (input.mode === 'all_or_nothing' && parsed.rejected.length > 0) {
-    throw fileProblem(
-      `${parsed.rejected.length} value(s) cannot be read, so nothing was imported. Fix the lines listed in errors[], or upload with mode=per_sample to import the other samples.`,
-      parsed.rejected,
-    );
-  }
-  const accepted = parsed.samples.filter((s) => s.rejected.length === 0);
-  if (accepted.length === 0) throw fileProblem('No sample in this file can be imported.', parsed.rejected);
-
+  const { method, options } = await resolveReferences(ctx, auth, input);
   const id = newId('imp');
   const actor = actorOf(auth);
   const now = nowIso();
-  const row = await inTransaction(ctx.db, async (trx) => {
-    // The correction sets are read in the storing transaction: an activation lands wholly before or after.
-    const corrections = await timelineLoader(trx)(input.instrument_id, method.id);
-    const warnings: ImportIssue[] = [...parsed.warnings];
-    const built = buildImportedSamples(
-      accepted,
-      { instrumentId: input.instrument_id, method, importId: id, createdBy: actor.label, now, corrections },
-      warnings,
-    );
-    const report: ImportReport = {
-      layout: layoutOf(parsed),
-      counts: {
-        rows: parsed.counts.rows,
-        samples_created: built.length,
-        samples_rejected: parsed.samples.length - accepted.length,
-        lines_rejected: new Set(parsed.rejected.map((issue) => issue.line)).size,
-        burns: built.reduce((sum, b) => sum + b.burns.length, 0),
-        values: accepted.reduce((sum, s) => sum + s.burns.reduce((n, b) => n + Object.keys(b.values).length, 0), 0),
-      },
-      sample_ids: built.map((b) => b.sample.id),
-      warnings,
-      rejected: parsed.rejected,
-    };
+  for (let attempt = 1; attempt <= BUILD_ATTEMPTS; attempt++) {
+    const corrections = await timelineRows(ctx.db, input.instrument_id, method.id);
+    const context = { instrumentId: input.instrument_id, method, importId: id, createdBy: actor.label, now, corrections };
+    const { outcome, built } = await work(ctx, { kind: 'build', bytes: input.file.buffer, options, mode: input.mode, context });
+    if (outcome.kind !== 'built') throw new Error(`an import build came back as ${outcome.kind}`);
+    const report = outcome.report;
     const row = {
       id,
       instrument_id: input.instrument_id,
@@ -174,20 +128,32 @@ export async function uploadImport(
       created_by_label: actor.label,
       created_at: now,
     };
-    await insertImport(trx, row);
-    await storeNewSamples(trx, built, actor, requestId, { auditEach: false });
-    await recordAudit(trx, {
-      actor,
-      requestId,
-      action: 'import.completed',
-      targetType: 'import',
-      targetId: id,
-      after: { file_name: row.file_name, sha256, mode: input.mode, counts: report.counts },
-    });
-    return row;
-  });
-  const { content: _content, ...meta } = row;
-  return { created: true, record: toImport(meta) };
+    try {
+      await inTransaction(ctx.db, async (trx) => {
+        // Read again in the storing transaction: an activation lands wholly before or after.
+        if (fingerprint(await timelineRows(trx, input.instrument_id, method.id)) !== fingerprint(corrections))
+          throw new CorrectionsChanged();
+        await insertImport(trx, row);
+        await storeNewSamples(trx, built, actor, requestId, { auditEach: false });
+        await recordAudit(trx, {
+          actor,
+          requestId,
+          action: 'import.completed',
+          targetType: 'import',
+          targetId: id,
+          after: { file_name: row.file_name, sha256, mode: input.mode, counts: report.counts },
+        });
+      });
+    } catch (error) {
+      if (error instanceof CorrectionsChanged) continue;
+      throw error;
+    }
+    const { content: _content, ...meta } = row;
+    return { created: true, record: toImport(meta) };
+  }
+  throw new ConflictProblem(
+    'Correction sets for this instrument and method were activated while the file was being imported; upload it again.',
+  );
 }
 
 /** Newest first; a key restricted to instruments sees only their imports. */
@@ -206,9 +172,15 @@ export async function getImport(ctx: AppContext, auth: AuthContext, id: string) 
   return toImport(row);
 }
 
-/** The raw file exactly as it was uploaded. */
+/**
+ * The raw file exactly as it was uploaded, and the media type to serve it as: it was read as
+ * delimited text, so text/csv in the encoding it was read in — never the Content-Type the
+ * uploader sent, which could make a browser run the bytes as a page or script of this origin.
+ */
 export async function getImportFile(ctx: AppContext, auth: AuthContext, id: string) {
   const file = await findImportFile(ctx.db, id);
   if (!visible(auth, file)) throw new NotFoundProblem(`No import ${id}.`);
-  return file;
+  const { report_json, ...rest } = file;
+  const encoding = (JSON.parse(report_json) as ImportReport).layout.encoding.startsWith('windows-1252') ? 'windows-1252' : 'utf-8';
+  return { ...rest, media_type: `text/csv; charset=${encoding}` };
 }

@@ -1,6 +1,7 @@
 // CSV export of samples: one row per sample, identification columns, then one column per
 // element with the reported value (qualifier included, e.g. "<0.002"). Text cells that a
-// spreadsheet would run as a formula are neutralised (OWASP "CSV injection").
+// spreadsheet would run as a formula are neutralised (OWASP "CSV injection"). Written in pieces
+// — the header, then lines a page of samples at a time — so that an export can be streamed.
 import { stringify } from 'csv-stringify/sync';
 
 export interface CsvSample {
@@ -26,13 +27,33 @@ function guardCell(value: string): string {
   return FORMULA_START.test(value) ? `'${value}` : value;
 }
 
-export function samplesToCsv(samples: CsvSample[], unit: string): string {
-  const elements: string[] = [];
-  const fieldNames: string[] = [];
-  for (const sample of samples) {
-    for (const r of sample.results) if (!elements.includes(r.element)) elements.push(r.element);
-    for (const f of Object.keys(sample.fields)) if (!fieldNames.includes(f)) fieldNames.push(f);
+/** The CSV's element and field columns: every element and field of the exported samples, in
+ * order of first appearance (samples in export order, each sample's results in its order). */
+export class CsvColumns {
+  // Sets iterate in insertion order: first appearance.
+  private readonly elements = new Set<string>();
+  private readonly fields = new Set<string>();
+
+  add(elements: Iterable<string>, fieldNames: Iterable<string>): void {
+    for (const element of elements) this.elements.add(element);
+    for (const field of fieldNames) this.fields.add(field);
   }
+
+  covers(sample: CsvSample): boolean {
+    return sample.results.every((r) => this.elements.has(r.element)) && Object.keys(sample.fields).every((f) => this.fields.has(f));
+  }
+
+  get elementNames(): string[] {
+    return [...this.elements];
+  }
+
+  get fieldNames(): string[] {
+    return [...this.fields];
+  }
+}
+
+/** The header line. */
+export function csvHeader(columns: CsvColumns, unit: string): string {
   const header = [
     'id',
     'sample_code',
@@ -42,12 +63,18 @@ export function samplesToCsv(samples: CsvSample[], unit: string): string {
     'status',
     'instrument',
     'method',
-    ...fieldNames,
+    ...columns.fieldNames,
     'created_at',
     'updated_at',
     'flags',
-    ...elements.map((e) => `${e} [${unit}]`),
+    ...columns.elementNames.map((e) => `${e} [${unit}]`),
   ];
+  return stringify([header.map(guardCell)]);
+}
+
+/** One line per sample; every element and field of theirs must be among the columns. */
+export function csvLines(samples: CsvSample[], columns: CsvColumns): string {
+  const { elementNames, fieldNames } = columns;
   const rows = samples.map((s) => {
     const byElement = new Map(s.results.map((r) => [r.element, r]));
     const cells = [
@@ -64,12 +91,12 @@ export function samplesToCsv(samples: CsvSample[], unit: string): string {
       s.updated_at,
       s.flags.join(' '),
     ];
-    const values = elements.map((e) => {
+    const values = elementNames.map((e) => {
       const r = byElement.get(e);
       return r?.reported == null ? '' : `${r.qualifier ?? ''}${r.reported}`;
     });
     // Reported chemistry may legitimately start with "<" or ">"; only text columns are guarded.
     return [...cells.map(guardCell), ...values];
   });
-  return stringify([header.map(guardCell), ...rows]);
+  return rows.length ? stringify(rows) : '';
 }

@@ -2,6 +2,7 @@
 import { bulkInsert } from '../../db/bulk-insert.ts';
 import type { ElementResult } from '../chemistry/element-result.ts';
 import type { Unit } from '../chemistry/units.ts';
+import type { Knex } from 'knex';
 import type { Queryable } from '../../db/transaction.ts';
 import { type KeysetColumn, keysetPage, type PageRequest } from '../../db/keyset.ts';
 import type { Page } from '../../lib/pagination.ts';
@@ -127,7 +128,8 @@ export interface SampleFilters {
 
 export type SampleOrder = 'created_desc' | 'updated_asc';
 
-const SAMPLE_KEYSETS: Record<SampleOrder, KeysetColumn<SampleRowWithRefs>[]> = {
+/** Keyset orders of sample lists; they read only what every sample row has (id and times). */
+const SAMPLE_KEYSETS: Record<SampleOrder, KeysetColumn<Pick<SampleRow, 'id' | 'created_at' | 'updated_at'>>[]> = {
   created_desc: [
     { column: 'samples.created_at', order: 'desc', key: 't', valueOf: (row) => row.created_at },
     { column: 'samples.id', order: 'desc', key: 'id', valueOf: (row) => row.id },
@@ -138,14 +140,8 @@ const SAMPLE_KEYSETS: Record<SampleOrder, KeysetColumn<SampleRowWithRefs>[]> = {
   ],
 };
 
-/** Filtered samples in a stable order. */
-export function listSampleRows(
-  db: Queryable,
-  filters: SampleFilters,
-  order: SampleOrder,
-  page: PageRequest,
-): Promise<Page<SampleRowWithRefs>> {
-  const query = withRefs(db);
+/** The filters of GET /samples, the one place they are turned into SQL: lists, counts and exports share it. */
+function whereSamples(query: Knex.QueryBuilder, filters: SampleFilters): Knex.QueryBuilder {
   if (filters.heat) query.where('samples.heat', filters.heat);
   if (filters.grade) query.where('samples.grade', filters.grade);
   if (filters.sample_code) query.where('samples.sample_code', filters.sample_code);
@@ -159,5 +155,34 @@ export function listSampleRows(
   if (filters.created_to) query.where('samples.created_at', '<', filters.created_to);
   if (filters.updated_since) query.where('samples.updated_at', '>=', filters.updated_since);
   if (filters.onlyInstrumentIds) query.whereIn('samples.instrument_id', filters.onlyInstrumentIds);
-  return keysetPage(query, SAMPLE_KEYSETS[order], { ...page, order });
+  return query;
+}
+
+/** Filtered samples in a stable order. */
+export function listSampleRows(
+  db: Queryable,
+  filters: SampleFilters,
+  order: SampleOrder,
+  page: PageRequest,
+): Promise<Page<SampleRowWithRefs>> {
+  return keysetPage<SampleRowWithRefs>(whereSamples(withRefs(db), filters), SAMPLE_KEYSETS[order], { ...page, order });
+}
+
+/** How many samples match the filters. */
+export async function countSampleRows(db: Queryable, filters: SampleFilters): Promise<number> {
+  const [row] = await whereSamples(db<SampleRow>('samples'), filters).count({ n: '*' });
+  return Number(row.n);
+}
+
+export type SampleColumnsRow = Pick<SampleRow, 'id' | 'results_json' | 'fields_json' | 'created_at' | 'updated_at'>;
+
+/** The same samples in the same order as listSampleRows, with only what names their results and fields. */
+export function listSampleColumnRows(
+  db: Queryable,
+  filters: SampleFilters,
+  order: SampleOrder,
+  page: PageRequest,
+): Promise<Page<SampleColumnsRow>> {
+  const query = db<SampleRow>('samples').select('id', 'results_json', 'fields_json', 'created_at', 'updated_at');
+  return keysetPage<SampleColumnsRow>(whereSamples(query, filters), SAMPLE_KEYSETS[order], { ...page, order });
 }

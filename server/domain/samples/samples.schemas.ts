@@ -2,6 +2,7 @@ import { listOf, paginationQuery } from '../../lib/pagination.ts';
 import { z } from '../../lib/zod.ts';
 import { OUTPUT_UNITS, UNITS } from '../chemistry/units.ts';
 import { RESULT_FLAG_NAMES, RESULT_FLAGS, type ResultFlag } from '../chemistry/result-rules.ts';
+import { SAMPLE_TEXT_LIMITS } from './sample-limits.ts';
 
 /** The flags a result can carry; `x-enum-descriptions` says what each means (the console shows these). */
 const ResultFlagSchema = z
@@ -17,12 +18,12 @@ const OutputUnitSchema = z
 
 const text = (max: number) => z.string().trim().min(1).max(max);
 const fieldsSchema = z
-  .record(z.string().trim().min(1).max(60), z.string().max(500))
-  .refine((fields) => Object.keys(fields).length <= 30, 'at most 30 identification fields')
+  .record(z.string().trim().min(1).max(SAMPLE_TEXT_LIMITS.fieldName), z.string().max(SAMPLE_TEXT_LIMITS.fieldValue))
+  .refine((fields) => Object.keys(fields).length <= SAMPLE_TEXT_LIMITS.fields, `at most ${SAMPLE_TEXT_LIMITS.fields} identification fields`)
   .openapi({ description: 'Further identification fields (furnace, customer order …).', example: { furnace: 'EAF-2' } });
 
 export const PushedValueSchema = z
-  .union([z.number(), z.string().max(40)])
+  .union([z.number(), z.string().max(SAMPLE_TEXT_LIMITS.value)])
   .openapi({ description: 'A number, or a string: "0.75", "<0.0005" (below), ">1.5" (above), "n.d." (not detected).', example: 0.75 });
 
 export const PushedBurnSchema = z
@@ -36,9 +37,9 @@ export const PushedBurnSchema = z
 
 export const PushSampleRequestSchema = z
   .object({
-    sample_code: text(100).openapi({ example: 'K24-0412-F1' }),
-    heat: text(100).optional().openapi({ example: 'K24-0412' }),
-    grade: text(100).optional().openapi({ example: 'SAE 1045' }),
+    sample_code: text(SAMPLE_TEXT_LIMITS.identification).openapi({ example: 'K24-0412-F1' }),
+    heat: text(SAMPLE_TEXT_LIMITS.identification).optional().openapi({ example: 'K24-0412' }),
+    grade: text(SAMPLE_TEXT_LIMITS.identification).optional().openapi({ example: 'SAE 1045' }),
     kind: SampleKindSchema.optional(),
     instrument_id: z.string().min(1).max(40),
     method_id: z.string().min(1).max(40),

@@ -9,6 +9,7 @@ import {
 } from '../../domain/imports/imports.schemas.ts';
 import { getImport, getImportFile, listImportsPage, previewImport, uploadImport } from '../../domain/imports/imports.service.ts';
 import { AUTO_DETECTION_DESCRIPTION } from '../../domain/imports/import-profiles.schemas.ts';
+import { SAMPLE_TEXT_LIMITS as L } from '../../domain/samples/sample-limits.ts';
 import { defineRoute } from '../../http/route.ts';
 import { z } from '../../lib/zod.ts';
 import { singleFileUpload } from '../../http/upload.ts';
@@ -25,6 +26,7 @@ export const importRoutes = [
     summary: 'Upload an instrument result file',
     description:
       'The raw bytes are kept with their SHA-256. Uploading the same bytes again returns the earlier import with 200 and creates nothing. By default a file is imported all or nothing: one unreadable value answers 422 with `errors[]` naming line and column (`file:line 12:Mn`), and the database is unchanged.\n\n' +
+      `Cells obey the limits of a JSON push: sample code, heat and grade at most ${L.identification} characters, identification field names ${L.fieldName} and values ${L.fieldValue}, at most ${L.fields} fields per line, element cells ${L.value}; a longer cell is an issue of its line and column (\`too_long\`, \`too_many_fields\`, \`invalid_value\`).\n\n` +
       AUTO_DETECTION_DESCRIPTION,
     tag: 'Imports',
     access: { scope: 'imports:write' },
@@ -37,6 +39,10 @@ export const importRoutes = [
         description: 'Imported; the report lists what was created, warnings and rejected lines.',
         schema: ImportSchema,
         headers: { Location: 'The new import.' },
+      },
+      409: {
+        description:
+          'Correction sets for the instrument and method were activated again and again while the file was being imported (its samples are built against the sets in force when they are stored): upload it again. Or a request with the same `Idempotency-Key` is still being processed.',
       },
       413: { description: "The file exceeds IMPORT_MAX_BYTES; the problem's `limit_bytes` gives the limit." },
       415: { description: 'Not a multipart/form-data request.' },
@@ -103,22 +109,26 @@ export const importRoutes = [
     path: '/imports/{id}/file',
     operationId: 'downloadImportFile',
     summary: 'Download the raw file exactly as uploaded',
+    description:
+      'Always an attachment, served as `text/csv` with the charset the file was read in (`utf-8` or `windows-1252`) and `X-Content-Type-Options: nosniff`, whatever Content-Type the uploader sent (it stays in `file.content_type` of the import), so that no browser runs the bytes as a page or script.',
     tag: 'Imports',
     access: { scope: 'samples:read' },
     params: ImportIdParams,
     responses: {
       200: {
-        description: 'The bytes as uploaded, with their SHA-256 in the `x-content-sha256` header.',
-        contentType: 'application/octet-stream',
+        description: 'The bytes as uploaded, as an attachment, with their SHA-256 in the `x-content-sha256` header.',
+        contentType: 'text/csv',
         schema: z.string().openapi({ format: 'binary' }),
       },
       404: { description: 'No such import.' },
     },
     async handler({ params, auth, res, ctx }) {
       const file = await getImportFile(ctx, auth, params.id);
-      res.setHeader('Content-Type', file.content_type);
-      res.setHeader('x-content-sha256', file.sha256);
+      // attachment() first: it would set a Content-Type from the file name's extension.
       res.attachment(file.file_name);
+      res.setHeader('Content-Type', file.media_type);
+      res.setHeader('X-Content-Type-Options', 'nosniff');
+      res.setHeader('x-content-sha256', file.sha256);
       res.send(Buffer.from(file.content));
     },
   }),

@@ -1,3 +1,5 @@
+import { Readable } from 'node:stream';
+import { pipeline } from 'node:stream/promises';
 import {
   BurnParams,
   PushSampleBatchRequestSchema,
@@ -39,7 +41,7 @@ export const sampleRoutes = [
     path: '/samples.csv',
     operationId: 'exportSamplesCsv',
     summary: 'Export samples as CSV',
-    description: `The same filters as the list, every matching sample (up to ${CSV_MAX_ROWS}), newest first: one row per sample, one column per element holding the reported value with its qualifier (e.g. "<0.002"). Text cells that a spreadsheet would evaluate (starting with =, +, -, @) are prefixed with a quote.`,
+    description: `The same filters as the list, every matching sample (up to ${CSV_MAX_ROWS}), newest first: one row per sample, one column per element holding the reported value with its qualifier (e.g. "<0.002"). Text cells that a spreadsheet would evaluate (starting with =, +, -, @) are prefixed with a quote. The matching samples are counted first, so a refusal comes at once; the CSV is then streamed (chunked), a page of samples at a time.`,
     tag: 'Samples',
     access: { scope: 'samples:read' },
     query: SampleListQuerySchema.omit({ cursor: true, limit: true }),
@@ -48,10 +50,11 @@ export const sampleRoutes = [
       422: { description: `More than ${CSV_MAX_ROWS} samples match: narrow the filters.` },
     },
     async handler({ query, auth, res, ctx }) {
+      // Refusals (422) come before the first byte; then the CSV streams, a page of samples at a time.
       const csv = await exportSamplesCsv(ctx, auth, query);
       res.type('text/csv; charset=utf-8');
       res.attachment(`samples-${new Date().toISOString().slice(0, 10)}.csv`);
-      res.send(csv);
+      await pipeline(Readable.from(csv), res);
     },
   }),
   defineRoute({

@@ -81,6 +81,45 @@ describe('POST /api/v1/imports', () => {
     expect(file.headers['x-content-sha256']).toBe(first.body.file.sha256);
   });
 
+  it('serves a raw file as a CSV attachment, never as the page or script its uploader said it was', async () => {
+    const download = (id: string) =>
+      analyst
+        .get(`/api/v1/imports/${id}/file`)
+        .buffer(true)
+        .parse((res, done) => {
+          const chunks: Buffer[] = [];
+          res.on('data', (c: Buffer) => chunks.push(c));
+          res.on('end', () => done(null, Buffer.concat(chunks)));
+        });
+    const page = Buffer.from('Sample,Mn %\n<script>alert(document.cookie)</script>,0.75\n');
+    const uploaded = await analyst
+      .post('/api/v1/imports')
+      .field('instrument_id', lab.foundry.id)
+      .field('method_id', lab.feMethod.id)
+      .attach('file', page, { filename: 'page.html', contentType: 'text/html' });
+    expect(uploaded.status).toBe(201);
+    expect(uploaded.body.file.content_type).toBe('text/html');
+    const res = await download(uploaded.body.id);
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toBe('text/csv; charset=utf-8');
+    expect(res.headers['content-disposition']).toBe('attachment; filename=page.html');
+    expect(res.headers['x-content-type-options']).toBe('nosniff');
+    expect((res.body as Buffer).equals(page)).toBe(true);
+
+    // A Windows-1252 file is labelled as what it was read as.
+    const script = Buffer.from('Sample,Mn %,Bemerkung\nK24-0760-F1,0.75,gepr\xfcft\n', 'latin1');
+    const js = await analyst
+      .post('/api/v1/imports')
+      .field('instrument_id', lab.foundry.id)
+      .field('method_id', lab.feMethod.id)
+      .attach('file', script, { filename: 'run.js', contentType: 'application/javascript' });
+    expect(js.status).toBe(201);
+    const served = await download(js.body.id);
+    expect(served.headers['content-type']).toBe('text/csv; charset=windows-1252');
+    expect(served.headers['content-disposition']).toBe('attachment; filename=run.js');
+    expect((served.body as Buffer).equals(script)).toBe(true);
+  });
+
   it('reads the every-quirk fixture (BOM, ";", decimal comma, units in headers, qualified values)', async () => {
     const res = await upload(readFileSync(resolve(FIXTURES, 'quirks-wide.utf8-bom.csv')), {}, 'quirks.csv');
     expect(res.status).toBe(201);

@@ -5,6 +5,7 @@
 import { Decimal } from 'decimal.js';
 import { MeasuredValueError, parseMeasuredValue } from '../../chemistry/measured-value.ts';
 import { toPercent, type Unit } from '../../chemistry/units.ts';
+import { SAMPLE_TEXT_LIMITS } from '../../samples/sample-limits.ts';
 import type { DecimalSeparator, ParsedValue } from './types.ts';
 
 export class CellError extends Error {}
@@ -54,6 +55,9 @@ function inPercent(value: string, unit: Unit): string {
 export function readCell(raw: string, decimalSeparator: DecimalSeparator, unit: Unit): ParsedValue | null {
   const text = raw.trim();
   if (text === '') return null;
+  // The cell is kept as written (raw), so it obeys the limit of a value pushed as text.
+  if (raw.length > SAMPLE_TEXT_LIMITS.value)
+    throw new CellError(`the cell has ${raw.length} characters, at most ${SAMPLE_TEXT_LIMITS.value} are accepted`);
   if (unit === '%' && (decimalSeparator === '.' ? PLAIN_DOT : PLAIN_COMMA).test(text)) {
     return { value: plainPercent(text, decimalSeparator), qualifier: null, raw, unit };
   }

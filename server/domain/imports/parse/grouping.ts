@@ -33,10 +33,11 @@ export class SampleGrouper {
     private readonly headerOf: (key: string) => string | undefined,
   ) {}
 
-  enter(identity: RowIdentity, line: number): SampleState {
+  /** The row's sample; `compare: false` for a rejected row, whose identification is not compared. */
+  enter(identity: RowIdentity, line: number, options: { compare: boolean } = { compare: true }): SampleState {
     const key = `${identity.sample_code}\u0000${identity.heat ?? ''}`;
     if (this.current && key === this.currentKey) {
-      this.checkSame(this.current, identity, line);
+      if (options.compare) this.checkSame(this.current, identity, line);
       return this.current;
     }
     const earlier = this.firstLine.get(key);

@@ -1,20 +1,16 @@
 // Reading the non-chemistry cells of a data row: cell count, identification, burn number, time.
 // Shared by the wide and long row readers. Each reader returns an Issue instead of throwing,
 // so one row can report every broken cell at once.
+import { checkIdentity, type IdentityColumns } from './identity-limits.ts';
 import type { RawRecord } from './read-records.ts';
 import { parseBurnTime, type TimeFormat } from './times.ts';
 import type { RowIdentity, SampleGrouper, SampleState } from './grouping.ts';
 import type { ColumnRole, DecimalSeparator, Issue } from './types.ts';
 
-export interface RowColumns {
+export interface RowColumns extends IdentityColumns {
   width: number;
-  sampleCode: ColumnRole;
-  heat?: ColumnRole;
-  grade?: ColumnRole;
-  kind?: ColumnRole;
   burnNumber?: ColumnRole;
   measuredAt?: ColumnRole;
-  fields: ColumnRole[];
 }
 
 export function rowColumns(columns: ColumnRole[]): RowColumns {
@@ -118,12 +114,19 @@ export interface RowReading {
   warnings: Issue[];
 }
 
-/** Checks the cell count and the sample code and puts the row into its sample; undefined when rejected. */
+/**
+ * Checks the cell count and the identification and puts the row into its sample; undefined when
+ * rejected. A row whose identification is too long is rejected with its sample (per_sample mode
+ * leaves that sample out) or, when the sample code or heat itself is too long, on its own.
+ */
 export function enterRow(record: RawRecord, reading: RowReading): { identity: RowIdentity; state: SampleState } | undefined {
   const { columns, grouper } = reading;
   const countIssue = cellCountIssue(record, columns.width);
   if (countIssue) return void grouper.reject([countIssue]);
-  const identity = readIdentity(record.cells, record.line, columns);
-  if (isIssue(identity)) return void grouper.reject([identity]);
+  const read = readIdentity(record.cells, record.line, columns);
+  if (isIssue(read)) return void grouper.reject([read]);
+  const { identity, issues, unidentified } = checkIdentity(read, record.line, columns);
+  if (unidentified) return void grouper.reject(issues);
+  if (issues.length > 0) return void grouper.reject(issues, grouper.enter(identity, record.line, { compare: false }));
   return { identity, state: grouper.enter(identity, record.line) };
 }
