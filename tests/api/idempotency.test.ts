@@ -196,7 +196,7 @@ describe('Idempotency-Key', () => {
     expectProblem(await upload('C,Mn\n0.22,0.80\n'), 422);
   });
 
-  it('is documented as an optional header on every POST, PATCH and DELETE', () => {
+  it('is documented as an optional header on every POST, PUT, PATCH and DELETE', () => {
     const document = JSON.parse(readFileSync(OPENAPI_FILE, 'utf8')) as {
       paths: Record<
         string,
@@ -207,7 +207,7 @@ describe('Idempotency-Key', () => {
     for (const [path, operations] of Object.entries(document.paths)) {
       for (const [method, operation] of Object.entries(operations)) {
         const header = operation.parameters?.find((p) => p.name === 'Idempotency-Key');
-        if (['post', 'patch', 'delete'].includes(method)) {
+        if (['post', 'put', 'patch', 'delete'].includes(method)) {
           writes += 1;
           expect(header, `${method} ${path}`).toMatchObject({ in: 'header', required: false });
           expect(operation.responses, `${method} ${path}`).toHaveProperty('422');
