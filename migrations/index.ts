@@ -21,6 +21,7 @@ import * as addMethodsDriftLimits from './20261201500400_add_methods_drift_limit
 import * as addSamplesCorrection from './20261201500500_add_samples_correction.ts';
 import * as addBurnsCorrection from './20261201500600_add_burns_correction.ts';
 import * as createGradeVersions from './20261202200100_create_grade_versions.ts';
+import * as addSamplesConformance from './20261202200200_add_samples_conformance.ts';
 
 export interface Migration {
   up(knex: Knex): Promise<void>;
@@ -48,4 +49,5 @@ export const migrations: Record<string, Migration> = {
   '20261201500500_add_samples_correction': addSamplesCorrection,
   '20261201500600_add_burns_correction': addBurnsCorrection,
   '20261202200100_create_grade_versions': createGradeVersions,
+  '20261202200200_add_samples_conformance': addSamplesConformance,
 };

@@ -31,6 +31,10 @@ export const ResultFlagDescriptions = {
 
 export const OutputUnitValues = ["%","ppm","ppb"] as const;
 
+export const DecisionRuleValues = ["rounding","absolute"] as const;
+
+export const VerdictValues = ["within","below_min","above_max","not_measured","undetermined"] as const;
+
 export const ReferenceKindValues = ["high","low","type","control"] as const;
 
 export const CorrectionModeValues = ["two_point","one_point_factor","one_point_offset","type"] as const;
@@ -38,7 +42,3 @@ export const CorrectionModeValues = ["two_point","one_point_factor","one_point_o
 export const StandardizationStatusValues = ["draft","activated"] as const;
 
 export const CorrectionFlagValues = ["ok","warn","fail"] as const;
-
-export const DecisionRuleValues = ["rounding","absolute"] as const;
-
-export const VerdictValues = ["within","below_min","above_max","not_measured","undetermined"] as const;

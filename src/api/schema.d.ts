@@ -1538,6 +1538,7 @@ export interface components {
             flags: components["schemas"]["ResultFlag"][];
             results: components["schemas"]["ElementResult"][];
             correction: components["schemas"]["SampleCorrection"];
+            conformance: components["schemas"]["GradeEvaluation"];
             created_by: string;
             /** Format: date-time */
             created_at: string;
@@ -1617,6 +1618,70 @@ export interface components {
             /** Format: date-time */
             recomputed_at: string | null;
         } | null;
+        /** @description The verdict against the grade the sample names (GET /grades/{code}), judged from the corrected mean of each element at full precision, and the grade version used. Draft samples follow the latest version; null when the sample names no grade defined here. A verdict supports, and never replaces, release under your laboratory’s accredited procedures. */
+        GradeEvaluation: {
+            /** @description true: every check passed; false: one failed; null: cannot decide (undetermined or not measured). */
+            conforms: boolean | null;
+            decision_rule: components["schemas"]["DecisionRule"];
+            grade: {
+                code: string;
+                version: number;
+            };
+            elements: components["schemas"]["ElementVerdict"][];
+            /** @description The balance element, 100 % minus every other value: computed, not measured. */
+            remainder?: {
+                element: string;
+                value: string;
+                /** @enum {boolean} */
+                by_difference: true;
+                approximate: boolean;
+            };
+            /** @description Elements the grade does not list: each against `others_each`; the sum of those ≥ 0.010 %, each rounded to two decimals, against `others_total`. */
+            others?: {
+                each: components["schemas"]["ElementVerdict"][];
+                total?: {
+                    verdict: components["schemas"]["Verdict"];
+                    /** @description The value as given, e.g. "0.452" or "<0.002". */
+                    value: string | null;
+                    /** @description Rounded half to even to the place of the limit (rounding rule only). */
+                    rounded: string | null;
+                    limit_min: string | null;
+                    limit_max: string | null;
+                    /** @description Distance to the nearest limit, ≥ 0 within and < 0 beyond; null for qualified values. */
+                    margin: string | null;
+                };
+            };
+            aims: {
+                element: string;
+                value: string | null;
+                aim_min: string | null;
+                aim_max: string | null;
+                within: boolean | null;
+            }[];
+            warnings: string[];
+        } | null;
+        /**
+         * @description `rounding` (ASTM E29, ISO 80000-1 rule A): the result is rounded half to even, once, to the last place written in the limit, then compared. `absolute`: any value beyond the limit fails.
+         * @enum {string}
+         */
+        DecisionRule: "rounding" | "absolute";
+        ElementVerdict: {
+            element: string;
+            verdict: components["schemas"]["Verdict"];
+            /** @description The value as given, e.g. "0.452" or "<0.002". */
+            value: string | null;
+            /** @description Rounded half to even to the place of the limit (rounding rule only). */
+            rounded: string | null;
+            limit_min: string | null;
+            limit_max: string | null;
+            /** @description Distance to the nearest limit, ≥ 0 within and < 0 beyond; null for qualified values. */
+            margin: string | null;
+        };
+        /**
+         * @description `undetermined`: a qualified value ("<0.05") allows both answers, so no verdict is possible; `not_measured`: the composition has no value for the element.
+         * @enum {string}
+         */
+        Verdict: "within" | "below_min" | "above_max" | "not_measured" | "undetermined";
         Sample: components["schemas"]["SampleSummary"] & {
             burns: components["schemas"]["Burn"][];
             provenance: {
@@ -2417,11 +2482,6 @@ export interface components {
             created_by: string;
             created_at: string;
         };
-        /**
-         * @description `rounding` (ASTM E29, ISO 80000-1 rule A): the result is rounded half to even, once, to the last place written in the limit, then compared. `absolute`: any value beyond the limit fails.
-         * @enum {string}
-         */
-        DecisionRule: "rounding" | "absolute";
         ElementLimit: {
             element: string;
             min?: string;
@@ -2543,64 +2603,6 @@ export interface components {
             /** @description Where the limits come from; verify them against your licensed copy of the standard. */
             source_note?: string;
         };
-        GradeEvaluation: {
-            /** @description true: every check passed; false: one failed; null: cannot decide (undetermined or not measured). */
-            conforms: boolean | null;
-            decision_rule: components["schemas"]["DecisionRule"];
-            grade: {
-                code: string;
-                version: number;
-            };
-            elements: components["schemas"]["ElementVerdict"][];
-            /** @description The balance element, 100 % minus every other value: computed, not measured. */
-            remainder?: {
-                element: string;
-                value: string;
-                /** @enum {boolean} */
-                by_difference: true;
-                approximate: boolean;
-            };
-            /** @description Elements the grade does not list: each against `others_each`; the sum of those ≥ 0.010 %, each rounded to two decimals, against `others_total`. */
-            others?: {
-                each: components["schemas"]["ElementVerdict"][];
-                total?: {
-                    verdict: components["schemas"]["Verdict"];
-                    /** @description The value as given, e.g. "0.452" or "<0.002". */
-                    value: string | null;
-                    /** @description Rounded half to even to the place of the limit (rounding rule only). */
-                    rounded: string | null;
-                    limit_min: string | null;
-                    limit_max: string | null;
-                    /** @description Distance to the nearest limit, ≥ 0 within and < 0 beyond; null for qualified values. */
-                    margin: string | null;
-                };
-            };
-            aims: {
-                element: string;
-                value: string | null;
-                aim_min: string | null;
-                aim_max: string | null;
-                within: boolean | null;
-            }[];
-            warnings: string[];
-        };
-        ElementVerdict: {
-            element: string;
-            verdict: components["schemas"]["Verdict"];
-            /** @description The value as given, e.g. "0.452" or "<0.002". */
-            value: string | null;
-            /** @description Rounded half to even to the place of the limit (rounding rule only). */
-            rounded: string | null;
-            limit_min: string | null;
-            limit_max: string | null;
-            /** @description Distance to the nearest limit, ≥ 0 within and < 0 beyond; null for qualified values. */
-            margin: string | null;
-        };
-        /**
-         * @description `undetermined`: a qualified value ("<0.05") allows both answers, so no verdict is possible; `not_measured`: the composition has no value for the element.
-         * @enum {string}
-         */
-        Verdict: "within" | "below_min" | "above_max" | "not_measured" | "undetermined";
         EvaluateGradeRequest: {
             /**
              * @description Element symbol → value in %: a number, or a string such as "0.45", "<0.002" or ">1.5".
@@ -5142,6 +5144,8 @@ export interface operations {
                 kind?: components["schemas"]["SampleKind"];
                 /** @description Only samples with this flag on some element. */
                 flag?: string;
+                /** @description Only samples whose verdict against their grade is this (`undecided`: a value could not be judged or was not measured). */
+                conforms?: "true" | "false" | "undecided";
                 created_from?: string;
                 created_to?: string;
                 /** @description Samples changed at or after this time; the list is then ordered oldest change first, so a client can resume from its last `updated_at`. */
@@ -5330,6 +5334,8 @@ export interface operations {
                 kind?: components["schemas"]["SampleKind"];
                 /** @description Only samples with this flag on some element. */
                 flag?: string;
+                /** @description Only samples whose verdict against their grade is this (`undecided`: a value could not be judged or was not measured). */
+                conforms?: "true" | "false" | "undecided";
                 created_from?: string;
                 created_to?: string;
                 /** @description Samples changed at or after this time; the list is then ordered oldest change first, so a client can resume from its last `updated_at`. */

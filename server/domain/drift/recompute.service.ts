@@ -10,7 +10,7 @@ import { actorOf } from '../audit/actor.ts';
 import { recordAudit } from '../audit/audit.repository.ts';
 import { findMethod } from '../methods/methods.repository.ts';
 import { computeSampleResults } from '../samples/sample-results.ts';
-import { loadSample } from '../samples/samples.service.ts';
+import { loadSample, recordOutOfSpec } from '../samples/samples.service.ts';
 import { findBurns, type StoredCell, updateBurn, updateSampleResults } from '../samples/samples.repository.ts';
 import { correctBurn, correctionSetOf, type CorrectionSet, distinctSetIds, type SampleCorrection } from './correction-timeline.ts';
 import { findStandardization } from './standardizations.repository.ts';
@@ -18,6 +18,7 @@ import { decodeResults, encodeResults } from '../samples/results-codec.ts';
 import { inTransaction } from '../../db/transaction.ts';
 import type { RecomputeSampleRequestSchema } from './recompute.schemas.ts';
 import type { z } from '../../lib/zod.ts';
+import { conformanceJudge } from '../grades/sample-conformance.ts';
 
 export type RecomputeInput = z.output<typeof RecomputeSampleRequestSchema>;
 
@@ -67,12 +68,15 @@ export async function recomputeSample(
         corrected_json: corrected[i].corrected && JSON.stringify(corrected[i].corrected),
       });
     }
+    const verdict = await conformanceJudge(trx)(sample.grade, results);
     await updateSampleResults(trx, sampleId, {
       results_json: encodeResults(results),
       flags_json: JSON.stringify(flags),
       correction_json: JSON.stringify(correction),
       updated_at: now,
+      ...verdict,
     });
+    await recordOutOfSpec(trx, { ...sample, ...verdict }, sample.conforms);
     await recordAudit(trx, {
       actor,
       requestId,

@@ -1,7 +1,6 @@
 import { listOf, paginationQuery } from '../../lib/pagination.ts';
 import { z } from '../../lib/zod.ts';
 import { ElementSymbolSchema } from '../methods/methods.schemas.ts';
-import { PushedValueSchema } from '../samples/samples.schemas.ts';
 import { isAbove } from '../chemistry/decimal-compare.ts';
 
 export const DECISION_RULES = ['rounding', 'absolute'] as const;
@@ -107,8 +106,12 @@ export const GradeListQuerySchema = paginationQuery.extend({ matrix: ElementSymb
 export const GradeCodeParams = z.object({ code: z.string().min(1).max(60) });
 export const GradeVersionParams = GradeCodeParams.extend({ version: z.coerce.number().int().min(1) });
 
+const CompositionValueSchema = z
+  .union([z.number(), z.string().max(40)])
+  .openapi({ description: 'A number, or a string: "0.45", "<0.002" (below), ">1.5" (above), "n.d." (not detected).', example: 0.45 });
+
 export const CompositionSchema = z
-  .record(z.string().min(1).max(10), PushedValueSchema)
+  .record(z.string().min(1).max(10), CompositionValueSchema)
   .refine((composition) => Object.keys(composition).length > 0, 'give at least one element')
   .openapi({
     description: 'Element symbol → value in %: a number, or a string such as "0.45", "<0.002" or ">1.5".',

@@ -2,7 +2,7 @@
 // A PUT appends a version; verdicts name the version they used. Every change is audited.
 import type { AppContext } from '../../context.ts';
 import { isUniqueViolation } from '../../db/errors.ts';
-import { inTransaction } from '../../db/transaction.ts';
+import { inTransaction, type Transaction } from '../../db/transaction.ts';
 import { newId } from '../../lib/ids.ts';
 import type { Page } from '../../lib/pagination.ts';
 import { ConflictProblem, NotFoundProblem } from '../../lib/problems.ts';
@@ -11,7 +11,11 @@ import type { z } from '../../lib/zod.ts';
 import { actorOf } from '../audit/actor.ts';
 import { recordAudit } from '../audit/audit.repository.ts';
 import type { AuthContext } from '../auth/auth-context.ts';
+import { decodeResults } from '../samples/results-codec.ts';
+import { findDraftSamplesOfGrade, updateSampleConformance } from '../samples/samples.repository.ts';
+import { recordOutOfSpec } from '../samples/samples.service.ts';
 import { largestElement, parseComposition } from './composition.ts';
+import { conformanceOf } from './sample-conformance.ts';
 import { evaluateComposition, smallestMargin } from './grade-evaluation.ts';
 import type { GradeDefinitionInput } from './grade-types.ts';
 import {
@@ -49,6 +53,16 @@ export async function getGradeVersion(ctx: AppContext, code: string, version: nu
   return grade;
 }
 
+/** Draft samples naming the grade follow its latest version; released ones keep the verdict they were released with. */
+async function rejudgeDrafts(trx: Transaction, grade: StoredGrade): Promise<void> {
+  const now = nowIso();
+  for (const sample of await findDraftSamplesOfGrade(trx, grade.code)) {
+    const verdict = conformanceOf(grade, decodeResults(sample.results_json));
+    await updateSampleConformance(trx, sample.id, { ...verdict, updated_at: now });
+    await recordOutOfSpec(trx, { ...sample, ...verdict }, sample.conforms);
+  }
+}
+
 async function storeVersion(
   ctx: AppContext,
   auth: AuthContext,
@@ -71,6 +85,7 @@ async function storeVersion(
   try {
     await inTransaction(ctx.db, async (trx) => {
       await insertGradeVersion(trx, row);
+      await rejudgeDrafts(trx, grade);
       await recordAudit(trx, {
         actor: actorOf(auth),
         requestId,

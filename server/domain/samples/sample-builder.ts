@@ -59,6 +59,9 @@ export function buildSampleRows(input: NewSample, now: string): { sample: Sample
       results_json: encodeResults(results),
       flags_json: JSON.stringify(flags),
       correction_json: correction && JSON.stringify(correction),
+      // Judged against the grade when stored (storeNewSamples): the grade is in the database.
+      conformance_json: null,
+      conforms: null,
       created_by_label: input.created_by_label,
       created_at: now,
       updated_at: now,

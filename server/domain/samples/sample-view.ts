@@ -9,6 +9,8 @@ import { type BurnRow, findBurns, type RawCell, type SampleRowWithRefs, type Sto
 import { decodeResults } from './results-codec.ts';
 import type { ResultFlag } from '../chemistry/result-rules.ts';
 import type { Queryable } from '../../db/transaction.ts';
+import type { GradeEvaluationSchema } from '../grades/evaluation.schemas.ts';
+import type { z } from '../../lib/zod.ts';
 
 const toNumber = (value: string | null) => (value === null ? null : Number(value));
 
@@ -45,6 +47,9 @@ function toCorrectionView(json: string | null) {
   return { set_id: stored.set_ids.length === 1 ? stored.set_ids[0] : null, ...stored };
 }
 
+/** The stored verdict, shaped by GradeEvaluationSchema when it was written. */
+type SampleConformanceView = z.input<typeof GradeEvaluationSchema>;
+
 export function toSampleSummary(row: SampleRowWithRefs, unit: OutputUnit) {
   const results = decodeResults(row.results_json);
   return {
@@ -63,6 +68,7 @@ export function toSampleSummary(row: SampleRowWithRefs, unit: OutputUnit) {
     flags: JSON.parse(row.flags_json) as ResultFlag[],
     results: results.map((r) => toResultView(r, unit)),
     correction: toCorrectionView(row.correction_json),
+    conformance: row.conformance_json ? (JSON.parse(row.conformance_json) as SampleConformanceView) : null,
     created_by: row.created_by_label,
     created_at: row.created_at,
     updated_at: row.updated_at,

@@ -15,6 +15,7 @@ export interface CsvSample {
   method: { code: string };
   fields: Record<string, string>;
   flags: string[];
+  conformance: { conforms: boolean | null; grade: { version: number } } | null;
   created_at: string;
   updated_at: string;
   results: { element: string; reported: string | null; qualifier: string | null }[];
@@ -67,6 +68,7 @@ export function csvHeader(columns: CsvColumns, unit: string): string {
     'created_at',
     'updated_at',
     'flags',
+    'conforms',
     ...columns.elementNames.map((e) => `${e} [${unit}]`),
   ];
   return stringify([header.map(guardCell)]);
@@ -90,6 +92,7 @@ export function csvLines(samples: CsvSample[], columns: CsvColumns): string {
       s.created_at,
       s.updated_at,
       s.flags.join(' '),
+      s.conformance ? (s.conformance.conforms === null ? 'undecided' : String(s.conformance.conforms)) : '',
     ];
     const values = elementNames.map((e) => {
       const r = byElement.get(e);

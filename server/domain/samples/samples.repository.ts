@@ -45,6 +45,9 @@ export interface SampleRow {
   flags_json: string;
   /** SampleCorrection as JSON (server/domain/drift/correction-timeline.ts); null = no correction applied. */
   correction_json: string | null;
+  /** The GradeEvaluation against the grade named, with the version used; null when the grade is not defined. */
+  conformance_json: string | null;
+  conforms: 'true' | 'false' | 'undecided' | null;
   created_by_label: string;
   created_at: string;
   updated_at: string;
@@ -105,7 +108,27 @@ export async function updateBurn(db: Queryable, id: string, changes: Partial<Bur
 export async function updateSampleResults(
   db: Queryable,
   id: string,
-  changes: Pick<SampleRow, 'results_json' | 'flags_json' | 'updated_at'> & Partial<Pick<SampleRow, 'correction_json'>>,
+  changes: Pick<SampleRow, 'results_json' | 'flags_json' | 'updated_at'> &
+    Partial<Pick<SampleRow, 'correction_json' | 'conformance_json' | 'conforms'>>,
+): Promise<void> {
+  await db<SampleRow>('samples').where({ id }).update(changes);
+}
+
+/** Draft samples naming a grade (any case): their verdicts follow the grade's latest version. */
+export function findDraftSamplesOfGrade(
+  db: Queryable,
+  gradeCode: string,
+): Promise<Pick<SampleRow, 'id' | 'sample_code' | 'heat' | 'grade' | 'instrument_id' | 'results_json' | 'conforms'>[]> {
+  return db<SampleRow>('samples')
+    .select('id', 'sample_code', 'heat', 'grade', 'instrument_id', 'results_json', 'conforms')
+    .where('status', 'draft')
+    .whereRaw('lower(grade) = ?', [gradeCode.trim().toLowerCase()]);
+}
+
+export async function updateSampleConformance(
+  db: Queryable,
+  id: string,
+  changes: Pick<SampleRow, 'conformance_json' | 'conforms' | 'updated_at'>,
 ): Promise<void> {
   await db<SampleRow>('samples').where({ id }).update(changes);
 }
@@ -120,6 +143,7 @@ export interface SampleFilters {
   status?: string;
   kind?: string;
   flag?: string;
+  conforms?: 'true' | 'false' | 'undecided';
   created_from?: string;
   created_to?: string;
   updated_since?: string;
@@ -151,6 +175,7 @@ function whereSamples(query: Knex.QueryBuilder, filters: SampleFilters): Knex.Qu
   if (filters.status) query.where('samples.status', filters.status);
   if (filters.kind) query.where('samples.kind', filters.kind);
   if (filters.flag) query.where('samples.flags_json', 'like', `%${JSON.stringify(filters.flag)}%`);
+  if (filters.conforms) query.where('samples.conforms', filters.conforms);
   if (filters.created_from) query.where('samples.created_at', '>=', filters.created_from);
   if (filters.created_to) query.where('samples.created_at', '<', filters.created_to);
   if (filters.updated_since) query.where('samples.updated_at', '>=', filters.updated_since);

@@ -1,6 +1,7 @@
 import { listOf, paginationQuery } from '../../lib/pagination.ts';
 import { z } from '../../lib/zod.ts';
 import { OUTPUT_UNITS, UNITS } from '../chemistry/units.ts';
+import { GradeEvaluationSchema } from '../grades/evaluation.schemas.ts';
 import { RESULT_FLAG_NAMES, RESULT_FLAGS, type ResultFlag } from '../chemistry/result-rules.ts';
 import { SAMPLE_TEXT_LIMITS } from './sample-limits.ts';
 
@@ -160,6 +161,10 @@ const SampleSummarySchema = z
     correction: SampleCorrectionSchema.nullable().openapi({
       description: 'The drift correction behind `results`; null when no correction set was in force for any burn.',
     }),
+    conformance: GradeEvaluationSchema.nullable().openapi({
+      description:
+        'The verdict against the grade the sample names (GET /grades/{code}), judged from the corrected mean of each element at full precision, and the grade version used. Draft samples follow the latest version; null when the sample names no grade defined here. A verdict supports, and never replaces, release under your laboratory’s accredited procedures.',
+    }),
     created_by: z.string(),
     created_at: z.string().openapi({ format: 'date-time' }),
     updated_at: z.string().openapi({ format: 'date-time' }),
@@ -209,6 +214,9 @@ export const SampleListQuerySchema = paginationQuery.extend({
   status: SampleStatusSchema.optional(),
   kind: SampleKindSchema.optional(),
   flag: z.string().max(60).optional().openapi({ description: 'Only samples with this flag on some element.' }),
+  conforms: z.enum(['true', 'false', 'undecided']).optional().openapi({
+    description: 'Only samples whose verdict against their grade is this (`undecided`: a value could not be judged or was not measured).',
+  }),
   created_from: utcTime.optional(),
   created_to: utcTime.optional(),
   updated_since: utcTime.optional().openapi({

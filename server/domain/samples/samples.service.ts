@@ -27,6 +27,8 @@ import {
 import { decodeResults, encodeResults } from './results-codec.ts';
 import type { PushSampleRequestSchema } from './samples.schemas.ts';
 import type { z } from '../../lib/zod.ts';
+import { conformanceJudge } from '../grades/sample-conformance.ts';
+import { recordEvent } from '../events/events.repository.ts';
 
 export type PushedSample = z.output<typeof PushSampleRequestSchema>;
 
@@ -104,11 +106,14 @@ export async function storeNewSamples(
   requestId?: string,
   options: { auditEach: boolean } = { auditEach: true },
 ): Promise<void> {
+  const judge = conformanceJudge(trx);
+  for (const { sample } of built) Object.assign(sample, await judge(sample.grade, decodeResults(sample.results_json)));
   await insertSamples(
     trx,
     built.map((b) => b.sample),
     built.flatMap((b) => b.burns),
   );
+  for (const { sample } of built) await recordOutOfSpec(trx, sample, null);
   // A file import is audited once, as import.completed, naming the import that holds the samples.
   if (!options.auditEach) return;
   for (const { sample } of built) {
@@ -127,6 +132,19 @@ export async function storeNewSamples(
       },
     });
   }
+}
+
+/** Records sample.out_of_spec when a verdict has just become "does not conform". */
+export async function recordOutOfSpec(
+  trx: Transaction,
+  sample: Pick<SampleRow, 'id' | 'sample_code' | 'heat' | 'grade' | 'instrument_id' | 'conforms' | 'conformance_json'>,
+  before: SampleRow['conforms'],
+): Promise<void> {
+  if (sample.conforms !== 'false' || before === 'false') return;
+  await recordEvent(trx, 'sample.out_of_spec', {
+    sample: { id: sample.id, sample_code: sample.sample_code, heat: sample.heat, grade: sample.grade, instrument_id: sample.instrument_id },
+    conformance: JSON.parse(sample.conformance_json!) as unknown,
+  });
 }
 
 export async function loadSample(db: Queryable, auth: AuthContext, id: string) {
@@ -180,7 +198,14 @@ export async function setBurnExclusion(
       excluded_by: actor.label,
       excluded_at: now,
     });
-    await updateSampleResults(trx, sampleId, { results_json: encodeResults(results), flags_json: JSON.stringify(flags), updated_at: now });
+    const verdict = await conformanceJudge(trx)(sample.grade, results);
+    await updateSampleResults(trx, sampleId, {
+      results_json: encodeResults(results),
+      flags_json: JSON.stringify(flags),
+      updated_at: now,
+      ...verdict,
+    });
+    await recordOutOfSpec(trx, { ...sample, ...verdict }, sample.conforms);
     await recordAudit(trx, {
       actor,
       requestId,

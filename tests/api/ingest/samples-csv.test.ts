@@ -53,6 +53,7 @@ interface Summary {
   method: { code: string };
   fields: Record<string, string>;
   flags: string[];
+  conformance: { conforms: boolean | null } | null;
   created_at: string;
   updated_at: string;
   results: { element: string; reported: string | null; qualifier: string | null }[];
@@ -84,12 +85,13 @@ async function expectedCsv(query: Record<string, string>): Promise<string> {
     'created_at',
     'updated_at',
     'flags',
+    'conforms',
   ];
   const rows = samples.map((s) => [
     ...[s.id, s.sample_code, s.heat ?? '', s.grade ?? '', s.kind ?? '', s.status, s.instrument.code, s.method.code]
       .concat(
         fields.map((f) => s.fields[f] ?? ''),
-        [s.created_at, s.updated_at, s.flags.join(' ')],
+        [s.created_at, s.updated_at, s.flags.join(' '), s.conformance ? String(s.conformance.conforms ?? 'undecided') : ''],
       )
       .map(guard),
     ...elements.map((e) => {
@@ -113,9 +115,9 @@ describe('GET /api/v1/samples.csv', () => {
       expect(res.text).toBe(expected);
     }
     const [header] = (await analyst.get('/api/v1/samples.csv')).text.split('\n');
-    expect(header.startsWith('id,sample_code,heat,grade,kind,status,instrument,method,Furnace,created_at,updated_at,flags,C [%],')).toBe(
-      true,
-    );
+    expect(
+      header.startsWith('id,sample_code,heat,grade,kind,status,instrument,method,Furnace,created_at,updated_at,flags,conforms,C [%],'),
+    ).toBe(true);
     // Ta comes last: only the oldest samples, on the last page, have it.
     expect(header.endsWith(',W [%],Zr [%],Ta [%]')).toBe(true);
   });
@@ -125,7 +127,7 @@ describe('GET /api/v1/samples.csv', () => {
     expect(one.text).toBe(await expectedCsv({ heat: 'K24-0002' }));
     expect(one.text.split('\n')[1]).toMatch(/^smp_\w+,'@cmd,K24-0002,,,draft,OES-1,FE-LA,'-1\+1,/);
     const none = await analyst.get('/api/v1/samples.csv').query({ heat: 'K99-9999' });
-    expect(none.text).toBe('id,sample_code,heat,grade,kind,status,instrument,method,created_at,updated_at,flags\n');
+    expect(none.text).toBe('id,sample_code,heat,grade,kind,status,instrument,method,created_at,updated_at,flags,conforms\n');
   });
 });
 

@@ -241,7 +241,7 @@ describe('GET /api/v1/samples.csv', () => {
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/^text\/csv/);
     const [header, row] = res.text.trim().split('\n');
-    expect(header).toBe('id,sample_code,heat,grade,kind,status,instrument,method,created_at,updated_at,flags,Mn [%],S [%]');
+    expect(header).toBe('id,sample_code,heat,grade,kind,status,instrument,method,created_at,updated_at,flags,conforms,Mn [%],S [%]');
     expect(row).toContain(`"'=HYPERLINK(""http://x.test"")"`);
     expect(row.endsWith(',0.71,<0.002')).toBe(true);
   });
