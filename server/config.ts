@@ -48,6 +48,7 @@ const envSchema = z.object({
     .max(1024 * 1024)
     .default(16384),
   REQUEST_LOG_RETENTION_DAYS: z.coerce.number().int().min(1).max(3650).default(30),
+  RELEASE_REQUIRES_SECOND_PERSON: booleanFlag.default(true),
   TRUST_PROXY: z
     .string()
     .regex(
@@ -84,6 +85,8 @@ export interface Config {
   /** Bytes of each request and response body kept in the request log. */
   requestLogBodyLimit: number;
   requestLogRetentionDays: number;
+  /** The person who releases a sample must not be the one who created it or last changed its burns. */
+  releaseRequiresSecondPerson: boolean;
   /** Which proxies' X-Forwarded-For is believed for the client address (rate limits, logs). */
   trustProxy: boolean | number | string;
   version: string;
@@ -128,6 +131,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     requestLogBodyLimit: e.REQUEST_LOG_BODY_LIMIT,
     requestLogRetentionDays: e.REQUEST_LOG_RETENTION_DAYS,
     trustProxy: trustProxy(e.TRUST_PROXY),
+    releaseRequiresSecondPerson: e.RELEASE_REQUIRES_SECOND_PERSON,
     version: APP_VERSION,
   };
 }

@@ -625,6 +625,50 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/samples/{id}/release": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Release a sample's results
+         * @description A released sample no longer changes: burn exclusion and recompute answer 409. A sample that does not conform to its grade, or could not be judged, is released only as a concession (`accept_nonconforming: true` with a `comment`). When the lab requires independent release (`RELEASE_REQUIRES_SECOND_PERSON`, on by default), whoever created the sample or last changed its burns — for an API key, its owner — cannot release it. Records `sample.released`. Release follows your laboratory’s accredited review and authorisation procedures; Meltwire records them.
+         *
+         *     Requires the scope `samples:release`.
+         */
+        post: operations["releaseSample"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/samples/release": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Release several samples (a heat) together, all or none
+         * @description Every listed sample is released in one transaction, or none: the 422 names each one that cannot be in `errors[]`. A released sample no longer changes: burn exclusion and recompute answer 409. A sample that does not conform to its grade, or could not be judged, is released only as a concession (`accept_nonconforming: true` with a `comment`). When the lab requires independent release (`RELEASE_REQUIRES_SECOND_PERSON`, on by default), whoever created the sample or last changed its burns — for an API key, its owner — cannot release it. Records `sample.released`. Release follows your laboratory’s accredited review and authorisation procedures; Meltwire records them.
+         *
+         *     Requires the scope `samples:release`.
+         */
+        post: operations["releaseSamples"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/import-profiles": {
         parameters: {
             query?: never;
@@ -1539,6 +1583,17 @@ export interface components {
             results: components["schemas"]["ElementResult"][];
             correction: components["schemas"]["SampleCorrection"];
             conformance: components["schemas"]["GradeEvaluation"];
+            /** @description 1 as first stored and released; each amendment adds one. */
+            revision: number;
+            /** @description Who authorised the results and when; null while the sample is a draft. */
+            release: {
+                by: string;
+                /** Format: date-time */
+                at: string;
+                comment: string | null;
+                /** @description Released although it did not conform to its grade, or could not be judged. */
+                concession: boolean;
+            } | null;
             created_by: string;
             /** Format: date-time */
             created_at: string;
@@ -1788,6 +1843,20 @@ export interface components {
             /** @description An activated standardization of the sample's instrument and method, or null for no correction. */
             correction_set_id: string | null;
             reason: string;
+        };
+        ReleaseRequest: {
+            comment?: string;
+            /**
+             * @description Release a sample that does not conform (or could not be judged) as a concession; needs a comment.
+             * @default false
+             */
+            accept_nonconforming: boolean;
+        };
+        ReleasedSamples: {
+            data: components["schemas"]["Sample"][];
+        };
+        ReleaseBatchRequest: components["schemas"]["ReleaseRequest"] & {
+            sample_ids: string[];
         };
         ImportProfileList: {
             data: components["schemas"]["ImportProfile"][];
@@ -5800,6 +5869,225 @@ export interface operations {
                 };
             };
             /** @description The set does not exist, is a draft, or belongs to another instrument or method. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    releaseSample: {
+        parameters: {
+            query?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["ReleaseRequest"];
+            };
+        };
+        responses: {
+            /** @description Released. */
+            200: {
+                headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Sample"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller created the sample or last changed its burns, and this lab requires another person to release it. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such sample. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Already released: amend it instead. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description It does not conform (or could not be judged) and was not released as a concession. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    releaseSamples: {
+        parameters: {
+            query?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["ReleaseBatchRequest"];
+            };
+        };
+        responses: {
+            /** @description All released, in the order listed. */
+            200: {
+                headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ReleasedSamples"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `samples:release`. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description None was released; see errors[]. */
             422: {
                 headers: {
                     [name: string]: unknown;

@@ -134,7 +134,7 @@ export async function uploadImport(
         if (fingerprint(await timelineRows(trx, input.instrument_id, method.id)) !== fingerprint(corrections))
           throw new CorrectionsChanged();
         await insertImport(trx, row);
-        await storeNewSamples(trx, built, actor, requestId, { auditEach: false });
+        await storeNewSamples(trx, built, actor, requestId, { auditEach: false, userId: auth.userId });
         await recordAudit(trx, {
           actor,
           requestId,

@@ -62,6 +62,13 @@ export function buildSampleRows(input: NewSample, now: string): { sample: Sample
       // Judged against the grade when stored (storeNewSamples): the grade is in the database.
       conformance_json: null,
       conforms: null,
+      changed_by_user_id: null, // set when stored (storeNewSamples)
+      released_by_user_id: null,
+      released_by_label: null,
+      released_at: null,
+      release_comment: null,
+      concession: false,
+      revision: 1,
       created_by_label: input.created_by_label,
       created_at: now,
       updated_at: now,

@@ -69,6 +69,11 @@ export function toSampleSummary(row: SampleRowWithRefs, unit: OutputUnit) {
     results: results.map((r) => toResultView(r, unit)),
     correction: toCorrectionView(row.correction_json),
     conformance: row.conformance_json ? (JSON.parse(row.conformance_json) as SampleConformanceView) : null,
+    revision: row.revision,
+    release:
+      row.status === 'released' && row.released_at
+        ? { by: row.released_by_label ?? '', at: row.released_at, comment: row.release_comment, concession: Boolean(row.concession) }
+        : null,
     created_by: row.created_by_label,
     created_at: row.created_at,
     updated_at: row.updated_at,

@@ -48,6 +48,15 @@ export interface SampleRow {
   /** The GradeEvaluation against the grade named, with the version used; null when the grade is not defined. */
   conformance_json: string | null;
   conforms: 'true' | 'false' | 'undecided' | null;
+  /** Who created the sample or last changed its burns (an API key's owner); null for the demo seed. */
+  changed_by_user_id: string | null;
+  released_by_user_id: string | null;
+  released_by_label: string | null;
+  released_at: string | null;
+  release_comment: string | null;
+  /** Released although it did not conform (or could not be judged): a concession. */
+  concession: boolean;
+  revision: number;
   created_by_label: string;
   created_at: string;
   updated_at: string;
@@ -109,7 +118,7 @@ export async function updateSampleResults(
   db: Queryable,
   id: string,
   changes: Pick<SampleRow, 'results_json' | 'flags_json' | 'updated_at'> &
-    Partial<Pick<SampleRow, 'correction_json' | 'conformance_json' | 'conforms'>>,
+    Partial<Pick<SampleRow, 'correction_json' | 'conformance_json' | 'conforms' | 'changed_by_user_id'>>,
 ): Promise<void> {
   await db<SampleRow>('samples').where({ id }).update(changes);
 }
@@ -123,6 +132,16 @@ export function findDraftSamplesOfGrade(
     .select('id', 'sample_code', 'heat', 'grade', 'instrument_id', 'results_json', 'conforms')
     .where('status', 'draft')
     .whereRaw('lower(grade) = ?', [gradeCode.trim().toLowerCase()]);
+}
+
+export async function markSampleReleased(
+  db: Queryable,
+  id: string,
+  release: Pick<SampleRow, 'released_by_user_id' | 'released_by_label' | 'released_at' | 'release_comment' | 'concession' | 'updated_at'>,
+): Promise<void> {
+  await db<SampleRow>('samples')
+    .where({ id, status: 'draft' })
+    .update({ ...release, status: 'released' });
 }
 
 export async function updateSampleConformance(

@@ -165,6 +165,16 @@ const SampleSummarySchema = z
       description:
         'The verdict against the grade the sample names (GET /grades/{code}), judged from the corrected mean of each element at full precision, and the grade version used. Draft samples follow the latest version; null when the sample names no grade defined here. A verdict supports, and never replaces, release under your laboratory’s accredited procedures.',
     }),
+    revision: z.number().int().openapi({ description: '1 as first stored and released; each amendment adds one.' }),
+    release: z
+      .object({
+        by: z.string(),
+        at: z.string().openapi({ format: 'date-time' }),
+        comment: z.string().nullable(),
+        concession: z.boolean().openapi({ description: 'Released although it did not conform to its grade, or could not be judged.' }),
+      })
+      .nullable()
+      .openapi({ description: 'Who authorised the results and when; null while the sample is a draft.' }),
     created_by: z.string(),
     created_at: z.string().openapi({ format: 'date-time' }),
     updated_at: z.string().openapi({ format: 'date-time' }),
@@ -225,3 +235,21 @@ export const SampleListQuerySchema = paginationQuery.extend({
   }),
   unit: OutputUnitSchema.default('%'),
 });
+
+export const ReleaseRequestSchema = z
+  .object({
+    comment: z.string().trim().min(1).max(2000).optional(),
+    accept_nonconforming: z
+      .boolean()
+      .default(false)
+      .openapi({ description: 'Release a sample that does not conform (or could not be judged) as a concession; needs a comment.' }),
+  })
+  .openapi('ReleaseRequest');
+
+export const ReleaseBatchRequestSchema = ReleaseRequestSchema.extend({
+  sample_ids: z
+    .array(z.string().min(1).max(40))
+    .min(1)
+    .max(200)
+    .refine((ids) => new Set(ids).size === ids.length, 'list each sample once'),
+}).openapi('ReleaseBatchRequest');

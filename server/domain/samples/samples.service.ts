@@ -93,7 +93,7 @@ export async function pushSamples(
       const corrections = await timelineOf(sample.instrument_id, method.id);
       built.push(buildSampleRows({ ...sample, method, source: 'push', created_by_label: actor.label, burns, corrections }, now));
     }
-    await storeNewSamples(trx, built, actor, requestId);
+    await storeNewSamples(trx, built, actor, requestId, { userId: auth.userId });
     return built.map((b) => b.sample.id);
   });
 }
@@ -104,10 +104,12 @@ export async function storeNewSamples(
   built: ReturnType<typeof buildSampleRows>[],
   actor: Actor,
   requestId?: string,
-  options: { auditEach: boolean } = { auditEach: true },
+  options: { auditEach?: boolean; userId?: string } = {},
 ): Promise<void> {
   const judge = conformanceJudge(trx);
-  for (const { sample } of built) Object.assign(sample, await judge(sample.grade, decodeResults(sample.results_json)));
+  for (const { sample } of built) {
+    Object.assign(sample, await judge(sample.grade, decodeResults(sample.results_json)), { changed_by_user_id: options.userId ?? null });
+  }
   await insertSamples(
     trx,
     built.map((b) => b.sample),
@@ -115,7 +117,7 @@ export async function storeNewSamples(
   );
   for (const { sample } of built) await recordOutOfSpec(trx, sample, null);
   // A file import is audited once, as import.completed, naming the import that holds the samples.
-  if (!options.auditEach) return;
+  if (options.auditEach === false) return;
   for (const { sample } of built) {
     await recordAudit(trx, {
       actor,
@@ -203,6 +205,7 @@ export async function setBurnExclusion(
       results_json: encodeResults(results),
       flags_json: JSON.stringify(flags),
       updated_at: now,
+      changed_by_user_id: auth.userId,
       ...verdict,
     });
     await recordOutOfSpec(trx, { ...sample, ...verdict }, sample.conforms);

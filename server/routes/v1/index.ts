@@ -14,6 +14,7 @@ import { outboxRoutes } from './outbox.ts';
 import { referenceMaterialRoutes } from './reference-materials.ts';
 import { requestLogRoutes } from './request-log.ts';
 import { sampleRecomputeRoutes } from './sample-recompute.ts';
+import { sampleReleaseRoutes } from './sample-release.ts';
 import { sampleRoutes } from './samples.ts';
 import { standardizationRoutes } from './standardizations.ts';
 import { userRoutes } from './users.ts';
@@ -29,6 +30,7 @@ export const v1Routes: AnyRoute[] = [
   ...methodRoutes,
   ...sampleRoutes,
   ...sampleRecomputeRoutes,
+  ...sampleReleaseRoutes,
   ...importProfileRoutes,
   ...importRoutes,
   ...referenceMaterialRoutes,
