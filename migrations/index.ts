@@ -23,6 +23,7 @@ import * as addBurnsCorrection from './20261201500600_add_burns_correction.ts';
 import * as createGradeVersions from './20261202200100_create_grade_versions.ts';
 import * as addSamplesConformance from './20261202200200_add_samples_conformance.ts';
 import * as addSamplesRelease from './20261202200300_add_samples_release.ts';
+import * as createSampleRevisions from './20261202200400_create_sample_revisions.ts';
 
 export interface Migration {
   up(knex: Knex): Promise<void>;
@@ -52,4 +53,5 @@ export const migrations: Record<string, Migration> = {
   '20261202200100_create_grade_versions': createGradeVersions,
   '20261202200200_add_samples_conformance': addSamplesConformance,
   '20261202200300_add_samples_release': addSamplesRelease,
+  '20261202200400_create_sample_revisions': createSampleRevisions,
 };

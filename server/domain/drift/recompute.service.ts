@@ -31,7 +31,8 @@ export async function recomputeSample(
 ): Promise<void> {
   await inTransaction(ctx.db, async (trx) => {
     const sample = await loadSample(trx, auth, sampleId);
-    if (sample.status === 'released') throw new ConflictProblem('This sample is released; amend it instead of recomputing it.');
+    if (sample.status === 'released')
+      throw new ConflictProblem(`This sample is released; change it with an amendment: POST /api/v1/samples/${sampleId}/amendments.`);
     let set: CorrectionSet | null = null;
     if (input.correction_set_id !== null) {
       const row = await findStandardization(trx, input.correction_set_id);

@@ -11,6 +11,7 @@ import { actorOf } from '../audit/actor.ts';
 import { recordAudit } from '../audit/audit.repository.ts';
 import type { AuthContext } from '../auth/auth-context.ts';
 import { recordEvent } from '../events/events.repository.ts';
+import { recordReleasedRevision } from './amendments.service.ts';
 import { loadSampleDetail } from './sample-view.ts';
 import { findSample, markSampleReleased, type SampleRowWithRefs } from './samples.repository.ts';
 import type { ReleaseBatchRequestSchema, ReleaseRequestSchema } from './samples.schemas.ts';
@@ -70,6 +71,7 @@ async function release(
     updated_at: now,
   });
   const document = await loadSampleDetail(trx, auth, sample.id, '%');
+  await recordReleasedRevision(trx, document, actor.label, now);
   await recordAudit(trx, {
     actor,
     requestId,

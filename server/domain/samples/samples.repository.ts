@@ -144,6 +144,18 @@ export async function markSampleReleased(
     .update({ ...release, status: 'released' });
 }
 
+/** An amendment's changes to a released sample: its identity, results and verdict, and the next revision. */
+export async function updateAmendedSample(
+  db: Queryable,
+  id: string,
+  changes: Pick<
+    SampleRow,
+    'heat' | 'grade' | 'fields_json' | 'results_json' | 'flags_json' | 'conformance_json' | 'conforms' | 'revision' | 'updated_at'
+  >,
+): Promise<void> {
+  await db<SampleRow>('samples').where({ id, status: 'released' }).update(changes);
+}
+
 export async function updateSampleConformance(
   db: Queryable,
   id: string,

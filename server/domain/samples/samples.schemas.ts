@@ -253,3 +253,43 @@ export const ReleaseBatchRequestSchema = ReleaseRequestSchema.extend({
     .max(200)
     .refine((ids) => new Set(ids).size === ids.length, 'list each sample once'),
 }).openapi('ReleaseBatchRequest');
+
+const burnNumbers = z.array(z.number().int().min(1).max(1000)).max(50);
+
+export const AmendmentRequestSchema = z
+  .object({
+    reason: z.string().trim().min(3, 'say why, in a few words').max(2000),
+    exclude_burns: burnNumbers.optional(),
+    include_burns: burnNumbers.optional(),
+    heat: text(SAMPLE_TEXT_LIMITS.identification).nullable().optional(),
+    grade: text(SAMPLE_TEXT_LIMITS.identification)
+      .nullable()
+      .optional()
+      .openapi({ description: 'Regrading: the verdict is judged again against this grade.' }),
+    fields: fieldsSchema.optional().openapi({ description: 'Replaces every custom field.' }),
+  })
+  .refine(
+    (a) => [a.exclude_burns?.length, a.include_burns?.length, a.heat, a.grade, a.fields].some((v) => v !== undefined && v !== 0),
+    'change at least one thing',
+  )
+  .refine((a) => !(a.exclude_burns ?? []).some((n) => (a.include_burns ?? []).includes(n)), {
+    message: 'a burn cannot be excluded and included at once',
+    path: ['include_burns'],
+  })
+  .openapi('AmendmentRequest');
+
+export const RevisionParams = SampleIdParams.extend({ n: z.coerce.number().int().min(1).max(100_000) });
+
+export const RevisionListSchema = z
+  .object({
+    data: z.array(
+      z.object({
+        revision: z.number().int(),
+        reason: z.string().nullable().openapi({ description: 'Why it was amended; null for revision 1, the release.' }),
+        by: z.string(),
+        at: z.string().openapi({ format: 'date-time' }),
+        changed_elements: z.array(z.object({ element: z.string(), before: z.string().nullable(), after: z.string().nullable() })),
+      }),
+    ),
+  })
+  .openapi('SampleRevisionList');

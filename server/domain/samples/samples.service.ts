@@ -155,6 +155,14 @@ export async function loadSample(db: Queryable, auth: AuthContext, id: string) {
   return sample;
 }
 
+/** The results of a sample's burns as they stand (excluded ones left out), each with the correction it was stored with. */
+export function resultsOfBurns(burns: readonly BurnRow[], method: Method) {
+  return computeSampleResults(
+    burns.map((b) => ({ excluded: Boolean(b.excluded), values: JSON.parse(b.values_json), corrected: parseJsonColumn(b.corrected_json) })),
+    method,
+  );
+}
+
 function burnState(burn: BurnRow) {
   return { number: burn.burn_number, excluded: Boolean(burn.excluded), reason: burn.exclusion_reason };
 }
@@ -170,7 +178,8 @@ export async function setBurnExclusion(
 ): Promise<void> {
   await inTransaction(ctx.db, async (trx) => {
     const sample = await loadSample(trx, auth, sampleId);
-    if (sample.status === 'released') throw new ConflictProblem('This sample is released; amend it instead of changing its burns.');
+    if (sample.status === 'released')
+      throw new ConflictProblem(`This sample is released; change it with an amendment: POST /api/v1/samples/${sampleId}/amendments.`);
     const burns = await findBurns(trx, sampleId);
     const burn = burns.find((b) => b.burn_number === burnNumber);
     if (!burn) throw new NotFoundProblem(`Sample ${sampleId} has no burn ${burnNumber}.`);
@@ -190,10 +199,7 @@ export async function setBurnExclusion(
     };
     const next = burns.map((b) => (b.id === burn.id ? updated : b));
     // The burns keep the correction they were stored with: excluding one never changes the set applied.
-    const { results, flags } = computeSampleResults(
-      next.map((b) => ({ excluded: Boolean(b.excluded), values: JSON.parse(b.values_json), corrected: parseJsonColumn(b.corrected_json) })),
-      method!,
-    );
+    const { results, flags } = resultsOfBurns(next, method!);
     await updateBurn(trx, burn.id, {
       excluded: change.excluded,
       exclusion_reason: change.reason,

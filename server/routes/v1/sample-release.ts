@@ -1,5 +1,14 @@
+import { amendSample, getRevision, getRevisions } from '../../domain/samples/amendments.service.ts';
 import { releaseSample, releaseSamples } from '../../domain/samples/release.service.ts';
-import { ReleaseBatchRequestSchema, ReleaseRequestSchema, SampleIdParams, SampleSchema } from '../../domain/samples/samples.schemas.ts';
+import {
+  AmendmentRequestSchema,
+  ReleaseBatchRequestSchema,
+  ReleaseRequestSchema,
+  RevisionListSchema,
+  RevisionParams,
+  SampleIdParams,
+  SampleSchema,
+} from '../../domain/samples/samples.schemas.ts';
 import { defineRoute } from '../../http/route.ts';
 import { z } from '../../lib/zod.ts';
 
@@ -46,6 +55,60 @@ export const sampleReleaseRoutes = [
     },
     async handler({ body, auth, req, ctx, reply }) {
       reply(200, await releaseSamples(ctx, auth, body, req.requestId));
+    },
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/samples/{id}/amendments',
+    operationId: 'amendSample',
+    summary: 'Amend a released sample: a new revision, the earlier ones kept',
+    description:
+      'Exclude or include burns again, correct heat, grade (regrading) or fields, with a reason. The sample stays released; `revision` goes from n to n + 1, every revision stays readable exactly as it was served, and `sample.amended` carries both revision numbers and the changed elements.',
+    tag: 'Samples',
+    access: { scope: 'samples:release' },
+    params: SampleIdParams,
+    body: AmendmentRequestSchema,
+    responses: {
+      201: { description: 'Amended: the new revision.', schema: SampleSchema, headers: { Location: 'The new revision.' } },
+      404: { description: 'No such sample.' },
+      409: { description: 'The sample is a draft: change it directly.' },
+      422: { description: 'A burn that does not exist, or no burn left included; nothing was amended.' },
+    },
+    async handler({ params, body, auth, req, ctx, reply }) {
+      const sample = await amendSample(ctx, auth, params.id, body, req.requestId);
+      reply(201, sample, { Location: `/api/v1/samples/${sample.id}/revisions/${sample.revision}` });
+    },
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/samples/{id}/revisions',
+    operationId: 'listSampleRevisions',
+    summary: "A released sample's revisions: who, when, why and what changed",
+    tag: 'Samples',
+    access: { scope: 'samples:read' },
+    params: SampleIdParams,
+    responses: {
+      200: { description: 'Oldest first; empty while the sample is a draft.', schema: RevisionListSchema },
+      404: { description: 'No such sample.' },
+    },
+    async handler({ params, auth, ctx, reply }) {
+      reply(200, await getRevisions(ctx, auth, params.id));
+    },
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/samples/{id}/revisions/{n}',
+    operationId: 'getSampleRevision',
+    summary: 'One revision of a sample, exactly as it was served',
+    tag: 'Samples',
+    access: { scope: 'samples:read' },
+    params: RevisionParams,
+    responses: {
+      200: { description: 'That revision (results in %).', schema: SampleSchema },
+      404: { description: 'No such sample or revision.' },
+    },
+    async handler({ params, auth, ctx, reply }) {
+      reply(200, await getRevision(ctx, auth, params.id, params.n));
     },
   }),
 ];
