@@ -12,6 +12,7 @@ import type { AppContext } from './context.ts';
 import type { Db } from './db/knex.ts';
 import { authenticate } from './http/authenticate.ts';
 import { errorHandler, notFoundHandler } from './http/error-handler.ts';
+import { jsonBody } from './http/json-body.ts';
 import { apiLimiter } from './http/rate-limit.ts';
 import { requestId } from './http/request-id.ts';
 import { requestLog } from './http/request-log.ts';
@@ -83,7 +84,7 @@ export function createApp(options: AppOptions): Express & { locals: { ctx: AppCo
   // First, so that calls refused by body parsing, authentication or rate limits are logged too.
   api.use(requestLog(ctx));
   if (options.validateResponses) api.use(responseValidation(routes));
-  api.use(express.json({ limit: config.bodyLimit }));
+  api.use(jsonBody(config.bodyLimit));
   api.use(cookieParser());
   api.use(authenticate(ctx));
   api.use(apiLimiter(ctx));

@@ -59,6 +59,15 @@ export class MalformedJsonProblem extends ProblemError {
   }
 }
 
+/** Objects and arrays nested deeper than the server reads (see server/http/json-body.ts). */
+export class JsonTooDeepProblem extends ProblemError {
+  constructor(maxDepth: number) {
+    super(400, 'json-too-deep', 'JSON body nested too deeply', `The body nests objects and arrays more than ${maxDepth} levels deep.`, {
+      max_depth: maxDepth,
+    });
+  }
+}
+
 export class UnauthorizedProblem extends ProblemError {
   constructor(detail = 'Sign in or send an API key as "Authorization: Bearer <key>".') {
     super(401, 'unauthorized', 'Authentication required', detail);
