@@ -26,13 +26,20 @@ function guardCell(value: string): string {
   return FORMULA_START.test(value) ? `'${value}` : value;
 }
 
+/** A sample's own field value: a field named like an Object member ("constructor") is data, not code. */
+function fieldValue(fields: Record<string, string>, name: string): string {
+  return Object.hasOwn(fields, name) ? fields[name] : '';
+}
+
 export function samplesToCsv(samples: CsvSample[], unit: string): string {
-  const elements: string[] = [];
-  const fieldNames: string[] = [];
+  const elementSet = new Set<string>();
+  const fieldSet = new Set<string>();
   for (const sample of samples) {
-    for (const r of sample.results) if (!elements.includes(r.element)) elements.push(r.element);
-    for (const f of Object.keys(sample.fields)) if (!fieldNames.includes(f)) fieldNames.push(f);
+    for (const r of sample.results) elementSet.add(r.element);
+    for (const f of Object.keys(sample.fields)) fieldSet.add(f);
   }
+  const elements = [...elementSet];
+  const fieldNames = [...fieldSet];
   const header = [
     'id',
     'sample_code',
@@ -59,7 +66,7 @@ export function samplesToCsv(samples: CsvSample[], unit: string): string {
       s.status,
       s.instrument.code,
       s.method.code,
-      ...fieldNames.map((f) => s.fields[f] ?? ''),
+      ...fieldNames.map((f) => fieldValue(s.fields, f)),
       s.created_at,
       s.updated_at,
       s.flags.join(' '),
