@@ -2545,6 +2545,15 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description The `Idempotency-Key` was already used for a different request. */
             422: {
                 headers: {
@@ -2627,6 +2636,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -2776,6 +2794,15 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description The invitation is unknown, used or expired. */
             422: {
                 headers: {
@@ -2869,6 +2896,15 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description The `Idempotency-Key` was already used for a different request. */
             422: {
                 headers: {
@@ -2955,6 +2991,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -3133,6 +3178,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -3331,6 +3385,15 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description The `Idempotency-Key` was already used for a different request. */
             422: {
                 headers: {
@@ -3435,6 +3498,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -3613,6 +3685,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -3805,6 +3886,15 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description The `Idempotency-Key` was already used for a different request. */
             422: {
                 headers: {
@@ -3915,6 +4005,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -4091,6 +4190,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -4289,6 +4397,15 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description The `Idempotency-Key` was already used for a different request. */
             422: {
                 headers: {
@@ -4460,6 +4577,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -4658,6 +4784,15 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description The `Idempotency-Key` was already used for a different request. */
             422: {
                 headers: {
@@ -4843,6 +4978,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -5045,6 +5189,15 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description An instrument or method does not exist. */
             422: {
                 headers: {
@@ -5240,6 +5393,15 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description The `Idempotency-Key` was already used for a different request. */
             422: {
                 headers: {
@@ -5348,6 +5510,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -5524,6 +5695,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -5715,6 +5895,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -6364,6 +6553,15 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description The `Idempotency-Key` was already used for a different request. */
             422: {
                 headers: {
@@ -6642,6 +6840,15 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description Unknown method or reference material; references that do not fit the mode (e.g. two_point without a high and a low, a control sample, another matrix); or no correction can be computed for an element (H = L): `errors[]` names each. */
             422: {
                 headers: {
@@ -6826,6 +7033,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -7339,6 +7555,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };

@@ -34,16 +34,27 @@ export interface TestApp {
 /**
  * The app as served, except that every JSON response is checked against the OpenAPI document:
  * a response that does not match answers 500, so the test that caused it fails.
- * `routes` replaces the /api/v1 operations (tests that need an extra or a broken one).
+ * `routes` replaces the /api/v1 operations (tests that need an extra or a broken one); `consoleDir`
+ * serves a console build (by default none).
  */
-export async function createTestApp(overrides: Partial<Config> = {}, options: { routes?: AnyRoute[] } = {}): Promise<TestApp> {
+export async function createTestApp(
+  overrides: Partial<Config> = {},
+  options: { routes?: AnyRoute[]; consoleDir?: string } = {},
+): Promise<TestApp> {
   const smtp = await startFakeSmtp();
   const config = testConfig({ smtpUrl: smtp.url, ...overrides });
   const pg =
     process.env.TEST_DATABASE_URL && !overrides.databaseFile ? await createPostgresSchema(process.env.TEST_DATABASE_URL) : undefined;
   const db = pg ? createDb({ ...config, databaseUrl: pg.url }, { schema: pg.schema }) : createDb(config);
   await migrateLatest(db);
-  const app = createApp({ db, config, outbox: smtp.outbox, consoleDir: '/nonexistent', validateResponses: true, routes: options.routes });
+  const app = createApp({
+    db,
+    config,
+    outbox: smtp.outbox,
+    consoleDir: options.consoleDir ?? '/nonexistent',
+    validateResponses: true,
+    routes: options.routes,
+  });
   return {
     app,
     db,
