@@ -94,6 +94,14 @@ describe('Object member names are data', () => {
     const res = await upload('Sample,Mn constructor,Mn %\nPK-U1,a,0.70\n', 'unit-word.csv');
     expect(res.status, res.text).toBe(201);
     expect(res.body.report.layout.columns.map((c: { role: string }) => c.role)).toEqual(['sample_code', 'field', 'element']);
+    const proto = await upload('Sample,Mn __proto__,Mn %\nPK-U3,a,0.70\n', 'unit-proto.csv');
+    expect(proto.status, proto.text).toBe(201);
+    const preview = await analyst
+      .post('/api/v1/imports/preview')
+      .field('instrument_id', lab.foundry.id)
+      .field('method_id', lab.feMethod.id)
+      .attach('file', Buffer.from('Sample,Heat,Mn __proto__,P [ppm]\nPK-U4,H1,0.2,0.5\n'), 'unit-proto.csv');
+    expect(preview.status, preview.text).toBe(200);
     const bracketed = await upload('Sample,Mn [constructor],C [__proto__]\nPK-U2,0.70,0.1\n', 'unit-bracket.csv');
     expectProblem(bracketed, 422);
     expect(problemBody(bracketed).errors?.map((e) => e.code)).toEqual(['unknown_unit_header', 'unknown_unit_header']);
