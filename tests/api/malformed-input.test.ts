@@ -1,7 +1,7 @@
 // Input the server cannot even read is the client's mistake, answered 4xx with a problem that
 // says what is wrong: malformed percent-encoding in the path, a body that is not in its
 // Content-Encoding (or in one we do not accept), malformed JSON and malformed multipart.
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { gzipSync } from 'node:zlib';
@@ -12,14 +12,18 @@ import { createTestApp, expectProblem, issueKey, problemBody, type TestApp } fro
 
 let t: TestApp;
 let key: string;
+let consoleDir: string;
 
 beforeAll(async () => {
-  const consoleDir = mkdtempSync(join(tmpdir(), 'wt-fuzz-console-'));
+  consoleDir = mkdtempSync(join(tmpdir(), 'meltwire-console-'));
   writeFileSync(join(consoleDir, 'index.html'), '<!doctype html><title>console</title>');
   t = await createTestApp({}, { consoleDir });
   key = (await issueKey(t, [...SCOPES])).secret;
 });
-afterAll(() => t.close());
+afterAll(async () => {
+  await t.close();
+  rmSync(consoleDir, { recursive: true, force: true });
+});
 
 const get = (url: string) => request(t.app).get(url).set('authorization', `Bearer ${key}`);
 const post = (url: string) => request(t.app).post(url).set('authorization', `Bearer ${key}`);
