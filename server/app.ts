@@ -15,6 +15,7 @@ import { authenticate } from './http/authenticate.ts';
 import { crossSiteGuard } from './http/cross-site.ts';
 import { logSerializers } from './http/log-serializers.ts';
 import { errorHandler, notFoundHandler } from './http/error-handler.ts';
+import { jsonBody } from './http/json-body.ts';
 import { apiLimiter } from './http/rate-limit.ts';
 import { requestId } from './http/request-id.ts';
 import { requestLog } from './http/request-log.ts';
@@ -97,7 +98,7 @@ export function createApp(options: AppOptions): Express & { locals: { ctx: AppCo
   api.use(requestLog(ctx));
   api.use(noStore);
   if (options.validateResponses) api.use(responseValidation(routes));
-  api.use(express.json({ limit: config.bodyLimit }));
+  api.use(jsonBody(config.bodyLimit));
   api.use(cookieParser());
   api.use(crossSiteGuard(config));
   api.use(authenticate(ctx));

@@ -5,6 +5,7 @@ import type { CapturedBody } from './response-capture.ts';
 import { uploadedFiles } from './uploaded-files.ts';
 import type { BodyKind } from '../domain/request-log/body-kinds.ts';
 import { redactJson, redactText } from '../domain/request-log/redact.ts';
+import { boundDepth } from '../lib/json-shape.ts';
 
 export interface BodySnapshot {
   kind: BodyKind;
@@ -41,9 +42,15 @@ function textSnapshot(
   return { kind, contentType, body, size, truncated: truncated || cutBefore, redacted: redacted || r.redacted };
 }
 
-function jsonSnapshot(kind: BodyKind, contentType: string | null, value: unknown, size: number, limit: number): BodySnapshot {
-  const r = redactJson(value);
-  return textSnapshot(kind, contentType, JSON.stringify(r.value), size, limit, false, r.redacted);
+/** Levels of JSON the log keeps; deeper parts become a marker (and the entry is marked truncated). */
+const KEPT_DEPTH = 64;
+
+/** `size` undefined: the size of the JSON text. Depth-safe: redaction and JSON.stringify see KEPT_DEPTH levels at most. */
+function jsonSnapshot(kind: BodyKind, contentType: string | null, value: unknown, size: number | undefined, limit: number): BodySnapshot {
+  const bounded = boundDepth(value, KEPT_DEPTH, `[nested deeper than ${KEPT_DEPTH} levels]`);
+  const r = redactJson(bounded.value);
+  const text = JSON.stringify(r.value) ?? 'null';
+  return textSnapshot(kind, contentType, text, size ?? Buffer.byteLength(text), limit, bounded.cut, r.redacted);
 }
 
 const none = (contentType: string | null): BodySnapshot => ({
@@ -76,7 +83,7 @@ export function snapshotRequestBody(req: Request, limit: number): BodySnapshot {
     return { kind: 'binary', contentType, body: null, size: body.length, truncated: false, redacted: false };
   }
   if (typeof body === 'string') return textSnapshot('text', contentType, body, Buffer.byteLength(body), limit);
-  return jsonSnapshot('json', contentType, body, declared || Buffer.byteLength(JSON.stringify(body)), limit);
+  return jsonSnapshot('json', contentType, body, declared || undefined, limit);
 }
 
 export function snapshotResponseBody(contentType: string | null, captured: CapturedBody, limit: number): BodySnapshot {

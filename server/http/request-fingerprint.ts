@@ -5,17 +5,49 @@ import { createReadStream } from 'node:fs';
 import type { Request } from 'express';
 import { uploadedFiles } from './uploaded-files.ts';
 
-/** JSON with object keys sorted, so {a,b} and {b,a} hash alike. */
-function canonicalJson(value: unknown): string {
-  if (Array.isArray(value)) return `[${value.map(canonicalJson).join(',')}]`;
-  if (value && typeof value === 'object' && !Buffer.isBuffer(value)) {
-    const entries = Object.entries(value as Record<string, unknown>)
-      .filter(([, v]) => v !== undefined)
-      .sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));
-    return `{${entries.map(([k, v]) => `${JSON.stringify(k)}:${canonicalJson(v)}`).join(',')}}`;
+/** Text written as is by canonicalJson (brackets, separators, encoded keys). */
+class Token {
+  constructor(readonly text: string) {}
+}
+
+/**
+ * JSON with object keys sorted, so {a,b} and {b,a} hash alike. Written with an explicit stack:
+ * a body nested thousands of levels deep must not overflow the call stack.
+ */
+function canonicalJson(root: unknown): string {
+  const out: string[] = [];
+  const stack: unknown[] = [root];
+  /** An array element or an object member: the key token (none in arrays), then the value. */
+  type Item = [Token | null, unknown];
+  const pushReversed = (open: string, close: string, items: Item[]) => {
+    stack.push(new Token(close));
+    for (let i = items.length - 1; i >= 0; i -= 1) {
+      stack.push(items[i][1]);
+      if (items[i][0]) stack.push(items[i][0]);
+      if (i > 0) stack.push(new Token(','));
+    }
+    stack.push(new Token(open));
+  };
+  while (stack.length > 0) {
+    const value = stack.pop();
+    if (value instanceof Token) {
+      out.push(value.text);
+    } else if (Buffer.isBuffer(value)) {
+      out.push(JSON.stringify(`base64:${value.toString('base64')}`));
+    } else if (Array.isArray(value)) {
+      const items = value.map((v): Item => [null, v]);
+      pushReversed('[', ']', items);
+    } else if (value && typeof value === 'object') {
+      const entries = Object.entries(value as Record<string, unknown>)
+        .filter(([, v]) => v !== undefined)
+        .sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));
+      const items = entries.map(([k, v]): Item => [new Token(`${JSON.stringify(k)}:`), v]);
+      pushReversed('{', '}', items);
+    } else {
+      out.push(JSON.stringify(value) ?? 'null');
+    }
   }
-  if (Buffer.isBuffer(value)) return JSON.stringify(`base64:${value.toString('base64')}`);
-  return JSON.stringify(value) ?? 'null';
+  return out.join('');
 }
 
 async function hashFileContent(hash: Hash, file: Express.Multer.File): Promise<void> {

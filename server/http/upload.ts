@@ -1,9 +1,9 @@
 // Multipart uploads (multer, in memory: the bytes are hashed and stored whole anyway).
-// Multer's errors become problems; the file is moved onto req.body so the route's zod
+// Multer's and busboy's errors become problems; the file is moved onto req.body so the route's zod
 // schema checks it with the other fields.
 import type { RequestHandler } from 'express';
 import multer from 'multer';
-import { ProblemError, ValidationProblem } from '../lib/problems.ts';
+import { MalformedBodyProblem, ProblemError, ValidationProblem } from '../lib/problems.ts';
 
 export function singleFileUpload(field: string, maxBytes: number): RequestHandler {
   const upload = multer({
@@ -29,7 +29,12 @@ export function singleFileUpload(field: string, maxBytes: number): RequestHandle
           new ValidationProblem([{ location: `body.${error.field ?? field}`, message: error.message, code: error.code.toLowerCase() }]),
         );
       }
-      if (error) return next(error);
+      // Anything else comes from reading the multipart stream (busboy): no boundary, a truncated
+      // body, a broken part header. The client sent it, so it is a 400, not a server error.
+      if (error) {
+        const reason = error instanceof Error ? error.message : String(error);
+        return next(new MalformedBodyProblem('Malformed multipart body', `The multipart/form-data body cannot be read: ${reason}.`));
+      }
       if (!req.is('multipart/form-data')) {
         return next(
           new ProblemError(

@@ -59,6 +59,29 @@ export class MalformedJsonProblem extends ProblemError {
   }
 }
 
+/** Objects and arrays nested deeper than the server reads (see server/http/json-body.ts). */
+export class JsonTooDeepProblem extends ProblemError {
+  constructor(maxDepth: number) {
+    super(400, 'json-too-deep', 'JSON body nested too deeply', `The body nests objects and arrays more than ${maxDepth} levels deep.`, {
+      max_depth: maxDepth,
+    });
+  }
+}
+
+/** A body that is not what its headers say: not gzip though sent as gzip, broken multipart. */
+export class MalformedBodyProblem extends ProblemError {
+  constructor(title: string, detail: string) {
+    super(400, 'malformed-body', title, detail);
+  }
+}
+
+/** A path or query that cannot be decoded (percent-encoding such as "%ZZ"). */
+export class MalformedUrlProblem extends ProblemError {
+  constructor(detail: string) {
+    super(400, 'malformed-url', 'Malformed URL', detail);
+  }
+}
+
 export class UnauthorizedProblem extends ProblemError {
   constructor(detail = 'Sign in or send an API key as "Authorization: Bearer <key>".') {
     super(401, 'unauthorized', 'Authentication required', detail);

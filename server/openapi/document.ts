@@ -57,7 +57,10 @@ function responsesFor(route: AnyRoute): Record<number, ResponseConfig> {
   };
   const write = WRITE_METHODS.has(route.method);
   if (route.params || route.query || route.body || write) add(400, 'The request is not valid; `errors[]` names each field.');
-  if (route.body || write) add(413, 'The body is larger than the server accepts (`BODY_LIMIT`).');
+  if (route.body || write) {
+    add(413, 'The body is larger than the server accepts (`BODY_LIMIT`).');
+    add(415, 'The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8.');
+  }
   if (write) {
     add(
       409,

@@ -3112,6 +3112,15 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description The `Idempotency-Key` was already used for a different request. */
             422: {
                 headers: {
@@ -3203,6 +3212,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -3361,6 +3379,15 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description The invitation is unknown, used or expired. */
             422: {
                 headers: {
@@ -3463,6 +3490,15 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description The `Idempotency-Key` was already used for a different request. */
             422: {
                 headers: {
@@ -3558,6 +3594,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -3736,6 +3781,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -3934,6 +3988,15 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description The `Idempotency-Key` was already used for a different request. */
             422: {
                 headers: {
@@ -4038,6 +4101,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -4216,6 +4288,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -4408,6 +4489,15 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description The `Idempotency-Key` was already used for a different request. */
             422: {
                 headers: {
@@ -4518,6 +4608,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -4694,6 +4793,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -4892,6 +5000,15 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description The `Idempotency-Key` was already used for a different request. */
             422: {
                 headers: {
@@ -5063,6 +5180,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -5261,6 +5387,15 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description The `Idempotency-Key` was already used for a different request. */
             422: {
                 headers: {
@@ -5448,6 +5583,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -5652,6 +5796,15 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description An instrument or method does not exist. */
             422: {
                 headers: {
@@ -5847,6 +6000,15 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description The `Idempotency-Key` was already used for a different request. */
             422: {
                 headers: {
@@ -5955,6 +6117,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -6077,6 +6248,15 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description It does not conform (or could not be judged) and was not released as a concession. */
             422: {
                 headers: {
@@ -6174,6 +6354,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -6291,6 +6480,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -6627,6 +6825,15 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description The `Idempotency-Key` was already used for a different request. */
             422: {
                 headers: {
@@ -6811,6 +7018,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -7460,6 +7676,15 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description The `Idempotency-Key` was already used for a different request. */
             422: {
                 headers: {
@@ -7738,6 +7963,15 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description Unknown method or reference material; references that do not fit the mode (e.g. two_point without a high and a low, a control sample, another matrix); or no correction can be computed for an element (H = L): `errors[]` names each. */
             422: {
                 headers: {
@@ -7922,6 +8156,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -8271,6 +8514,15 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description The `Idempotency-Key` was already used for a different request. */
             422: {
                 headers: {
@@ -8455,6 +8707,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -8732,6 +8993,15 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
             /** @description The `Idempotency-Key` was already used for a different request. */
             422: {
                 headers: {
@@ -8829,6 +9099,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -9178,6 +9457,15 @@ export interface operations {
             };
             /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
             413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
                 headers: {
                     [name: string]: unknown;
                 };

@@ -37,11 +37,12 @@ export interface TestApp {
  * The app as served, except that every JSON response is checked against the OpenAPI document:
  * a response that does not match answers 500, so the test that caused it fails.
  * `routes` replaces the /api/v1 operations (tests that need an extra or a broken one);
- * `importWorkers` replaces the import worker pool (tests of a worker that fails).
+ * `importWorkers` replaces the import worker pool (tests of a worker that fails); `consoleDir`
+ * serves a console build (by default none).
  */
 export async function createTestApp(
   overrides: Partial<Config> = {},
-  options: { routes?: AnyRoute[]; logger?: Logger; importWorkers?: ImportWorkers } = {},
+  options: { routes?: AnyRoute[]; logger?: Logger; importWorkers?: ImportWorkers; consoleDir?: string } = {},
 ): Promise<TestApp> {
   const smtp = await startFakeSmtp();
   const config = testConfig({ smtpUrl: smtp.url, ...overrides });
@@ -54,7 +55,7 @@ export async function createTestApp(
     config,
     logger: options.logger,
     outbox: smtp.outbox,
-    consoleDir: '/nonexistent',
+    consoleDir: options.consoleDir ?? '/nonexistent',
     validateResponses: true,
     routes: options.routes,
     importWorkers: options.importWorkers,
@@ -171,7 +172,7 @@ export function problemBody(res: request.Response): {
   status: number;
   detail?: string;
   request_id?: string;
-  errors?: { location: string; message: string }[];
+  errors?: { location: string; message: string; code?: string }[];
   [extension: string]: unknown;
 } {
   return JSON.parse(res.text);

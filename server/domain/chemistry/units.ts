@@ -46,10 +46,12 @@ const ALIASES: Record<string, Unit> = {
   'kg/kg': 'fraction',
   'g/g': 'fraction',
 };
+/** Looked up through a Map: a header "Mn constructor" must not find Object's members in ALIASES. */
+const ALIAS_LOOKUP = new Map(Object.entries(ALIASES));
 
 /** Recognises a unit as written in a header, profile or request; undefined when unknown. */
 export function parseUnit(text: string): Unit | undefined {
-  return ALIASES[text.trim().toLowerCase().replace(/\s+/g, ' ')];
+  return ALIAS_LOOKUP.get(text.trim().toLowerCase().replace(/\s+/g, ' '));
 }
 
 /** A decimal string in `unit` → the same quantity in percent, as an exact decimal string. */

@@ -28,6 +28,11 @@ function guardCell(value: string): string {
   return FORMULA_START.test(value) ? `'${value}` : value;
 }
 
+/** A sample's own field value: a field named like an Object member ("constructor") is data, not code. */
+function fieldValue(fields: Record<string, string>, name: string): string {
+  return Object.hasOwn(fields, name) ? fields[name] : '';
+}
+
 /** The CSV's element and field columns: every element and field of the exported samples, in
  * order of first appearance (samples in export order, each sample's results in its order). */
 export class CsvColumns {
@@ -88,7 +93,7 @@ export function csvLines(samples: CsvSample[], columns: CsvColumns): string {
       s.status,
       s.instrument.code,
       s.method.code,
-      ...fieldNames.map((f) => s.fields[f] ?? ''),
+      ...fieldNames.map((f) => fieldValue(s.fields, f)),
       s.created_at,
       s.updated_at,
       s.flags.join(' '),

@@ -26,6 +26,14 @@ describe('element symbols (IUPAC periodic table, elements 1–118, names of 2016
     expect(normaliseElement('OG')).toBe('Og');
   });
 
+  it('no symbol, in any casing, is the name of an Object member: element-keyed records need no own-property checks', () => {
+    const members = new Set(Object.getOwnPropertyNames(Object.prototype));
+    for (const symbol of ELEMENT_SYMBOLS) {
+      for (const text of [symbol, symbol.toUpperCase(), symbol.toLowerCase()]) expect(members.has(text)).toBe(false);
+    }
+    for (const name of members) expect(normaliseElement(name)).toBeUndefined();
+  });
+
   it('rejects what is not an element symbol', () => {
     for (const text of ['Xx', 'Mnn', 'M', 'J', 'Q', '', ' ', 'Mn%', 'Uuo', 'Fe2']) expect(normaliseElement(text)).toBeUndefined();
   });

@@ -94,4 +94,9 @@ describe('parseUnit', () => {
   it('refuses units that are not mass fractions', () => {
     for (const text of ['mol%', 'at%', 'g', 'mg/l', 'ppt', '']) expect(parseUnit(text)).toBeUndefined();
   });
+
+  it('refuses the names of Object\'s members (a header "Mn constructor" names no unit)', () => {
+    for (const text of ['constructor', '__proto__', 'toString', 'valueOf', 'hasOwnProperty', '__defineGetter__'])
+      expect(parseUnit(text)).toBeUndefined();
+  });
 });

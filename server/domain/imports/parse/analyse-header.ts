@@ -4,6 +4,7 @@
 import type { Unit } from '../../chemistry/units.ts';
 import type { ImportProfileDefinition } from '../import-profiles.schemas.ts';
 import { namedHeaders } from '../import-profiles.rules.ts';
+import { isReservedKey } from '../../../lib/reserved-keys.ts';
 import { aliasRole, profileHeaderKey } from './header-aliases.ts';
 import { parseElementHeader } from './element-header.ts';
 import { type ColumnRole, type ColumnRoleName, FileLayoutError, type Issue, type Layout } from './types.ts';
@@ -175,6 +176,14 @@ function nameFields(columns: ColumnRole[]): void {
 function checkRequired(columns: ColumnRole[], layout: Layout, line: number): void {
   const has = (role: ColumnRoleName) => columns.some((c) => c.role === role);
   const issues: Issue[] = [];
+  for (const column of columns.filter((c) => c.role === 'field' && isReservedKey(c.field!))) {
+    issues.push({
+      line,
+      column: column.header,
+      code: 'reserved_header',
+      message: `"${column.header}" cannot name an identification field; rename the column or ignore it in an import profile.`,
+    });
+  }
   if (!has('sample_code')) {
     issues.push({
       line,

@@ -85,8 +85,8 @@ export class SampleGrouper {
       ['kind', sample.kind, identity.kind],
       ...Object.keys({ ...sample.fields, ...identity.fields }).map((k): [string, string | undefined, string | undefined] => [
         `fields.${k}`,
-        sample.fields[k],
-        identity.fields[k],
+        ownField(sample.fields, k),
+        ownField(identity.fields, k),
       ]),
     ];
     for (const [key, first, now] of pairs) {
@@ -100,6 +100,11 @@ export class SampleGrouper {
       });
     }
   }
+}
+
+/** A field the row has: a column named "constructor" must not read Object's constructor. */
+function ownField(fields: Record<string, string>, key: string): string | undefined {
+  return Object.hasOwn(fields, key) ? fields[key] : undefined;
 }
 
 function describe(identity: RowIdentity): string {
