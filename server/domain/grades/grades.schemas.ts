@@ -9,17 +9,21 @@ export const DecisionRuleSchema = z.enum(DECISION_RULES).openapi('DecisionRule',
     '`rounding` (ASTM E29, ISO 80000-1 rule A): the result is rounded half to even, once, to the last place written in the limit, then compared. `absolute`: any value beyond the limit fails.',
 });
 
+const DECIMAL = /^\d+(\.\d+)?$/;
+/** Refinements run on values whose own checks may have failed: compare only what is a decimal. */
+const isDecimal = (value: unknown): value is string => typeof value === 'string' && DECIMAL.test(value.trim());
+
 /** A limit as written: a JSON number would lose the trailing zeros that set the rounding place. */
 export const LimitValue = z
   .string({ error: 'write limits as decimal strings such as "0.40": their written decimals set the rounding place' })
   .trim()
-  .regex(/^\d+(\.\d+)?$/, 'must be a non-negative decimal written as a string, e.g. "0.40"')
+  .regex(DECIMAL, 'must be a non-negative decimal written as a string, e.g. "0.40"')
   .openapi({ example: '0.40' });
 
 const ElementLimitSchema = z
   .object({ element: ElementSymbolSchema, min: LimitValue.optional(), max: LimitValue.optional() })
   .refine((limit) => limit.min !== undefined || limit.max !== undefined, 'give min, max or both')
-  .refine((limit) => limit.min === undefined || limit.max === undefined || !isAbove(limit.min, limit.max), {
+  .refine((limit) => !isDecimal(limit.min) || !isDecimal(limit.max) || !isAbove(limit.min, limit.max), {
     message: 'min must not be above max',
     path: ['max'],
   });
