@@ -85,5 +85,13 @@ describe('samples for a viewer', () => {
     const figureFont = await mn.getByTestId('reported').evaluate((el) => [getComputedStyle(el).fontFamily, getComputedStyle(el).textAlign]);
     expect(figureFont[0]).toMatch(/^"?JetBrains Mono"?/);
     expect(figureFont[1]).toBe('right');
+
+    // The verdict against the grade, with the rule stated and the caution.
+    const conformance = page.getByTestId('conformance');
+    expect(await conformance.innerText()).toMatch(/✓ Conforms[\s\S]*against SAE 1045 \(version 1\)[\s\S]*Rounding rule \(ASTM E29\)/);
+    const carbon = conformance.getByRole('row').filter({ has: page.getByRole('rowheader', { name: 'C', exact: true }) });
+    expect(await carbon.innerText()).toMatch(/✓\s*Within[\s\S]*0\.43–0\.50/);
+    await page.getByText('A verdict is not a release').waitFor();
+    expect(await page.getByText('Draft: not released.').count()).toBe(1);
   });
 });

@@ -5,6 +5,7 @@ import { PageHeader } from '../../components/ui/layout.tsx';
 import { hasScope, useMe } from '../../api/me.ts';
 import { RequireScope } from '../../features/auth/components/require-scope.tsx';
 import { useSample, type Burn } from '../../features/samples/api/samples.ts';
+import { ConformancePanel, ReleaseSummary } from '../../features/samples/components/conformance-panel.tsx';
 import { BurnExclusionDialog } from '../../features/samples/components/burn-exclusion-dialog.tsx';
 import { burnElements, BurnsTable } from '../../features/samples/components/burns-table.tsx';
 import { FlagLegend } from '../../features/samples/components/flag-badges.tsx';
@@ -50,6 +51,14 @@ export function SamplePage() {
             <SampleIdentity sample={s} />
             <SampleProvenance sample={s} />
           </div>
+
+          <section aria-labelledby="conformance-heading" className="space-y-3">
+            <h2 id="conformance-heading" className="text-lg font-semibold">
+              Grade and release
+            </h2>
+            <ReleaseSummary sample={s} />
+            <ConformancePanel sample={s} />
+          </section>
 
           <section aria-labelledby="results-heading" className="space-y-3">
             <div className="flex flex-wrap items-center justify-between gap-3">
