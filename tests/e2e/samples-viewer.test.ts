@@ -29,6 +29,18 @@ describe('samples for a viewer', () => {
     expect(await page.getByLabel('Result file').count()).toBe(0);
   });
 
+  it('filters by verdict: the preliminary samples, taken before alloying, are out of spec', async () => {
+    await page.goto(`${server.url}/samples`);
+    await page.getByLabel('Verdict').selectOption('false');
+    await page.getByRole('button', { name: 'Apply filters' }).click();
+    await page.waitForURL(/conforms=false/);
+    await expect.poll(async () => (await codes()).length).toBe(10);
+    expect((await codes()).every((code) => code.endsWith('-P1'))).toBe(true);
+    expect(await page.getByTestId('sample-row').first().innerText()).toContain('Out of spec');
+    await page.getByRole('button', { name: 'Reset' }).click();
+    await expect.poll(async () => (await codes()).length).toBe(26);
+  });
+
   it('filters the table by heat, keeps the filter in the address and across a reload', async () => {
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Samples', exact: true }).click();
     await page.getByTestId('sample-row').first().waitFor();

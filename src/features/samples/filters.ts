@@ -12,10 +12,15 @@ export type OutputUnit = components['schemas']['OutputUnit'];
 // The allowed values, generated from the OpenAPI document by `npm run openapi`.
 export const SAMPLE_KINDS: readonly SampleKind[] = SampleKindValues;
 export const SAMPLE_STATUSES: readonly SampleStatus[] = SampleStatusValues;
+/** The verdicts a sample list can be filtered by (GET /samples?conforms=). */
+export const VERDICTS = ['true', 'false', 'undecided'] as const;
+export type Verdict = (typeof VERDICTS)[number];
+export const VERDICT_LABELS: Record<Verdict, string> = { true: 'conforms', false: 'out of spec', undecided: 'cannot decide' };
+
 export const OUTPUT_UNITS: readonly OutputUnit[] = OutputUnitValues;
 
 const TEXT_FILTERS = ['sample_code', 'heat', 'grade', 'instrument_id', 'method_id', 'import_id', 'flag'] as const;
-const FILTER_KEYS = [...TEXT_FILTERS, 'kind', 'status', 'created_from', 'created_to'] as const;
+const FILTER_KEYS = [...TEXT_FILTERS, 'kind', 'status', 'conforms', 'created_from', 'created_to'] as const;
 export type FilterKey = (typeof FILTER_KEYS)[number];
 
 export interface SampleFilters {
@@ -28,6 +33,8 @@ export interface SampleFilters {
   flag?: string;
   kind?: SampleKind;
   status?: SampleStatus;
+  /** The verdict against the sample's grade. */
+  conforms?: Verdict;
   /** YYYY-MM-DD, first day included. */
   created_from?: string;
   /** YYYY-MM-DD, last day included. */
@@ -55,6 +62,8 @@ export function readFilters(params: URLSearchParams): SampleFilters {
   if (isOneOf(SAMPLE_KINDS, kind)) filters.kind = kind;
   const status = params.get('status') ?? '';
   if (isOneOf(SAMPLE_STATUSES, status)) filters.status = status;
+  const conforms = params.get('conforms') ?? '';
+  if (isOneOf(VERDICTS, conforms)) filters.conforms = conforms;
   for (const key of ['created_from', 'created_to'] as const) {
     const value = params.get(key) ?? '';
     if (isDay(value)) filters[key] = value;

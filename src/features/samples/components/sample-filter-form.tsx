@@ -2,7 +2,7 @@ import { useState, type FormEvent } from 'react';
 import { Button } from '../../../components/ui/button.tsx';
 import { SelectField, TextField } from '../../../components/ui/field.tsx';
 import { useInstruments, useMethods } from '../../../api/lookups.ts';
-import { SAMPLE_KINDS, SAMPLE_STATUSES, type SampleFilters } from '../filters.ts';
+import { SAMPLE_KINDS, SAMPLE_STATUSES, type SampleFilters, VERDICT_LABELS, VERDICTS } from '../filters.ts';
 import { flagInfo, RESULT_FLAG_NAMES } from '../result-flags.ts';
 import { InstrumentOptions, MethodOptions } from '../../../components/lookup-options.tsx';
 
@@ -17,6 +17,7 @@ function draftOf(filters: SampleFilters): Draft {
     method_id: filters.method_id ?? '',
     kind: filters.kind ?? '',
     status: filters.status ?? '',
+    conforms: filters.conforms ?? '',
     flag: filters.flag ?? '',
     created_from: filters.created_from ?? '',
     created_to: filters.created_to ?? '',
@@ -77,6 +78,14 @@ export function SampleFilterForm({ filters, onApply }: { filters: SampleFilters;
         <option value="">any</option>
         {SAMPLE_STATUSES.map((status) => (
           <option key={status}>{status}</option>
+        ))}
+      </SelectField>
+      <SelectField label="Verdict" value={draft.conforms} onChange={set('conforms')}>
+        <option value="">any</option>
+        {VERDICTS.map((verdict) => (
+          <option key={verdict} value={verdict}>
+            {VERDICT_LABELS[verdict]}
+          </option>
         ))}
       </SelectField>
       <SelectField label="Flag" value={draft.flag} onChange={set('flag')}>

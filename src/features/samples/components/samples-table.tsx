@@ -1,7 +1,7 @@
 import { Link } from 'react-router';
 import { EmptyState, ProblemAlert, Spinner } from '../../../components/ui/feedback.tsx';
 import { LoadMore } from '../../../components/ui/load-more.tsx';
-import { Table } from '../../../components/ui/layout.tsx';
+import { Badge, Table } from '../../../components/ui/layout.tsx';
 import { useSamples, type SampleSummary } from '../api/samples.ts';
 import { utcMinute } from '../../../lib/utc-time.ts';
 import { reportedFigure } from '../figures.ts';
@@ -72,6 +72,16 @@ export function SamplesTable({ filters, unit, emptyHint }: { filters: SampleFilt
               <td className={`${cell} font-mono`}>{s.instrument.code}</td>
               <td className={cell}>
                 <StatusBadge status={s.status} />
+                {s.conformance?.conforms === false && (
+                  <span className="ml-1">
+                    <Badge tone="bad">✕ Out of spec</Badge>
+                  </span>
+                )}
+                {s.conformance && s.conformance.conforms === null && (
+                  <span className="ml-1">
+                    <Badge tone="accent">? Cannot decide</Badge>
+                  </span>
+                )}
               </td>
               <td className={figure}>{s.burn_count}</td>
               <td className="min-w-48 px-3 py-2">
