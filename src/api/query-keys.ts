@@ -19,6 +19,7 @@ export const sampleKeys = {
   list: (filters: object, unit: string, pageSize: number) => [...sampleKeys.lists(), filters, unit, pageSize] as const,
   details: (id: string) => [...sampleKeys.all, 'detail', id] as const,
   detail: (id: string, unit: string) => [...sampleKeys.details(id), unit] as const,
+  revisions: (id: string) => [...sampleKeys.all, 'revisions', id] as const,
 };
 
 export const importKeys = {

@@ -6,6 +6,9 @@ import { hasScope, useMe } from '../../api/me.ts';
 import { RequireScope } from '../../features/auth/components/require-scope.tsx';
 import { useSample, type Burn } from '../../features/samples/api/samples.ts';
 import { ConformancePanel, ReleaseSummary } from '../../features/samples/components/conformance-panel.tsx';
+import { AmendDialog, ReleaseDialog } from '../../features/samples/components/release-dialogs.tsx';
+import { RevisionHistory } from '../../features/samples/components/revision-history.tsx';
+import { Button } from '../../components/ui/button.tsx';
 import { BurnExclusionDialog } from '../../features/samples/components/burn-exclusion-dialog.tsx';
 import { burnElements, BurnsTable } from '../../features/samples/components/burns-table.tsx';
 import { FlagLegend } from '../../features/samples/components/flag-badges.tsx';
@@ -24,6 +27,7 @@ export function SamplePage() {
   const sample = useSample(id, unit);
   const { data: me } = useMe();
   const [toggling, setToggling] = useState<Burn | null>(null);
+  const [dialog, setDialog] = useState<'release' | 'amend' | null>(null);
 
   const s = sample.data;
   const canChangeBurns = hasScope(me, 'samples:write') && s?.status === 'draft';
@@ -56,8 +60,19 @@ export function SamplePage() {
             <h2 id="conformance-heading" className="text-lg font-semibold">
               Grade and release
             </h2>
-            <ReleaseSummary sample={s} />
+            <div className="flex flex-wrap items-center gap-3">
+              <ReleaseSummary sample={s} />
+              {hasScope(me, 'samples:release') && s.status === 'draft' && <Button onClick={() => setDialog('release')}>Release…</Button>}
+              {hasScope(me, 'samples:release') && s.status === 'released' && (
+                <Button variant="secondary" onClick={() => setDialog('amend')}>
+                  Amend…
+                </Button>
+              )}
+            </div>
             <ConformancePanel sample={s} />
+            <RevisionHistory sampleId={s.id} released={s.status === 'released'} />
+            <ReleaseDialog sample={s} open={dialog === 'release'} onClose={() => setDialog(null)} />
+            <AmendDialog sample={s} open={dialog === 'amend'} onClose={() => setDialog(null)} />
           </section>
 
           <section aria-labelledby="results-heading" className="space-y-3">

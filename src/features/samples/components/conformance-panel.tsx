@@ -1,6 +1,6 @@
 // The sample's verdict against its grade: the rule in words, each element by icon and word with
 // its value, rounded value, limits and margin, and the caution that release follows the lab's own
-// accredited procedures. Read-only: release and amendment are done through the API for now.
+// accredited procedures.
 import { Alert } from '../../../components/ui/feedback.tsx';
 import { Badge, Table } from '../../../components/ui/layout.tsx';
 import type { Sample } from '../api/samples.ts';
