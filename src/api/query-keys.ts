@@ -46,6 +46,11 @@ export const requestLogKeys = {
   entry: (id: string) => [...requestLogKeys.all, 'entry', id] as const,
 };
 
+export const gradeKeys = {
+  all: ['grades'] as const,
+  list: () => [...gradeKeys.all, 'list'] as const,
+};
+
 export const userKeys = { all: ['users'] as const };
 
 export const apiKeyKeys = {

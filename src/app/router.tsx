@@ -8,6 +8,7 @@ import { ApiKeysPage } from './routes/api-keys.tsx';
 import { AuditPage } from './routes/audit.tsx';
 import { DriftNewRunPage } from './routes/drift-new.tsx';
 import { DriftRunPage } from './routes/drift-run.tsx';
+import { GradesPage } from './routes/grades.tsx';
 import { HomePage } from './routes/home.tsx';
 import { ImportPage } from './routes/import.tsx';
 import { ImportsPage } from './routes/imports.tsx';
@@ -60,6 +61,7 @@ export function createRouter(queryClient: QueryClient) {
             { path: 'drift', lazy: async () => ({ Component: (await import('./routes/drift.tsx')).DriftPage }) },
             { path: 'drift/new', element: <DriftNewRunPage /> },
             { path: 'drift/runs/:id', element: <DriftRunPage /> },
+            { path: 'grades', element: <GradesPage /> },
             { path: 'users', element: <UsersPage /> },
             { path: 'audit', element: <AuditPage /> },
             { path: 'outbox', element: <OutboxPage /> },

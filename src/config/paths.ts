@@ -18,6 +18,7 @@ export const paths = {
   driftOf: (instrumentId: string, methodId: string) => `/drift?instrument=${id(instrumentId)}&method=${id(methodId)}`,
   driftNewRun: '/drift/new',
   driftRun: (runId: string) => `/drift/runs/${id(runId)}`,
+  grades: '/grades',
   quickStart: '/quick-start',
   apiKeys: '/api-keys',
   reference: '/reference',

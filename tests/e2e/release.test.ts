@@ -40,4 +40,29 @@ describe('release and amend in the console', () => {
     expect(await page.getByTestId('revision-row').nth(1).innerText()).toMatch(/2[\s\S]*Burn 1 sparked on a pore/);
     expect(await page.getByTestId('release').innerText()).toContain('revision 2');
   });
+
+  it('lists the demo grades and defines a new one with limits typed as text, then a second version', async () => {
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Grades', exact: true }).click();
+    const row = (code: string) => page.getByTestId('grade-row').filter({ has: page.getByRole('rowheader', { name: code, exact: true }) });
+    expect(await row('AA 6061').innerText()).toMatch(/Si 0\.40–0\.8[\s\S]*others total 0\.15[\s\S]*Al remainder/);
+
+    await page.getByRole('button', { name: 'New grade' }).click();
+    const form = page.getByRole('dialog', { name: 'New grade' });
+    await form.getByLabel('Code').fill('SAE 1020');
+    await form.getByLabel('Title').fill('Low-carbon steel');
+    await form.getByLabel('Standard').fill('SAE J403');
+    await form.getByLabel(/^Limits/).fill('C 0.18–0.23\nMn 0.30-0.60\nP 0.040\nS 0.050');
+    await form.getByLabel('Source').fill('From memory; verify.');
+    await form.getByRole('button', { name: 'Create grade' }).click();
+    await row('SAE 1020').waitFor();
+    expect(await row('SAE 1020').innerText()).toMatch(/C 0\.18–0\.23\s+Mn 0\.30–0\.60\s+P 0\.040\s+S 0\.050/);
+    expect(await row('SAE 1020').getByTestId('grade-version').innerText()).toBe('1');
+
+    await row('SAE 1020').getByRole('button', { name: 'New version' }).click();
+    const next = page.getByRole('dialog', { name: 'New version of SAE 1020' });
+    await next.getByLabel(/^Limits/).fill('C 0.18–0.23\nMn 0.30–0.60\nP 0.030\nS 0.050');
+    await next.getByRole('button', { name: 'Save as a new version' }).click();
+    await expect.poll(async () => (await row('SAE 1020').innerText()).includes('P 0.030')).toBe(true);
+    expect(await row('SAE 1020').getByTestId('grade-version').innerText()).toBe('2');
+  });
 });

@@ -51,6 +51,7 @@ describe('console sign-in', () => {
       'Imports',
       'Upload results',
       'Drift',
+      'Grades',
       'Quick start',
       'API keys',
       'API reference',
@@ -75,7 +76,7 @@ describe('console sign-in', () => {
     const page = await browser.context.newPage();
     await signIn(page, 'qa.viewer@kestrelbend.test');
     await page.getByTestId('current-role').filter({ hasText: 'viewer' }).waitFor();
-    expect(await navLabels(page)).toEqual(['Overview', 'Samples', 'Imports', 'Drift', 'Quick start', 'API reference']);
+    expect(await navLabels(page)).toEqual(['Overview', 'Samples', 'Imports', 'Drift', 'Grades', 'Quick start', 'API reference']);
     await page.goto(`${server.url}/users`);
     await page.getByText('Not available for your role').waitFor();
     await page.close();
