@@ -4,6 +4,7 @@
 import { Alert } from '../../../components/ui/feedback.tsx';
 import { Badge, Table } from '../../../components/ui/layout.tsx';
 import type { Sample } from '../api/samples.ts';
+import { OtherGrades } from './other-grades.tsx';
 
 type Conformance = NonNullable<Sample['conformance']>;
 type Verdict = Conformance['elements'][number]['verdict'];
@@ -89,6 +90,7 @@ export function ConformancePanel({ sample }: { sample: Sample }) {
           ))}
         </ul>
       )}
+      {c.conforms === false && <OtherGrades sample={sample} />}
       <Alert tone="caution" title="A verdict is not a release">
         Verify the grade&apos;s limits against your licensed copy of the standard. Release follows your laboratory&apos;s accredited review
         and authorisation procedures.
