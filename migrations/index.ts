@@ -20,6 +20,7 @@ import * as createStandardizations from './20261201500300_create_standardization
 import * as addMethodsDriftLimits from './20261201500400_add_methods_drift_limits.ts';
 import * as addSamplesCorrection from './20261201500500_add_samples_correction.ts';
 import * as addBurnsCorrection from './20261201500600_add_burns_correction.ts';
+import * as addEventsSequence from './20261201800100_add_events_sequence.ts';
 
 export interface Migration {
   up(knex: Knex): Promise<void>;
@@ -46,4 +47,5 @@ export const migrations: Record<string, Migration> = {
   '20261201500400_add_methods_drift_limits': addMethodsDriftLimits,
   '20261201500500_add_samples_correction': addSamplesCorrection,
   '20261201500600_add_burns_correction': addBurnsCorrection,
+  '20261201800100_add_events_sequence': addEventsSequence,
 };

@@ -3,8 +3,8 @@ import type { AuthContext } from '../auth/auth-context.ts';
 import { convertResult, reportingDecimals } from '../chemistry/result-units.ts';
 import { fromPercent, type OutputUnit } from '../chemistry/units.ts';
 import type { SampleCorrection } from '../drift/correction-timeline.ts';
-import { findImportMeta } from '../imports/imports.repository.ts';
-import { loadSample } from './samples.service.ts';
+import { findImportMeta, type ImportMeta } from '../imports/imports.repository.ts';
+import { loadSample } from './sample-access.ts';
 import { type BurnRow, findBurns, type RawCell, type SampleRowWithRefs, type StoredCell, type StoredResult } from './samples.repository.ts';
 import { decodeResults } from './results-codec.ts';
 import type { ResultFlag } from '../chemistry/result-rules.ts';
@@ -96,10 +96,13 @@ function toBurnView(burn: BurnRow, unit: OutputUnit) {
   };
 }
 
-export async function loadSampleDetail(db: Queryable, auth: AuthContext, id: string, unit: OutputUnit) {
-  const row = await loadSample(db, auth, id);
-  const burns = await findBurns(db, id);
-  const importMeta = row.import_id ? await findImportMeta(db, row.import_id) : undefined;
+/** A sample with its burns and provenance, as GET /samples/{id} returns it. */
+export function toSampleDetail(
+  row: SampleRowWithRefs,
+  burns: BurnRow[],
+  importMeta: Pick<ImportMeta, 'sha256' | 'file_name'> | undefined,
+  unit: OutputUnit,
+) {
   return {
     ...toSampleSummary(row, unit),
     burns: burns.map((b) => toBurnView(b, unit)),
@@ -111,4 +114,11 @@ export async function loadSampleDetail(db: Queryable, auth: AuthContext, id: str
       lines: burns.map((b) => b.source_line).filter((line): line is number => line !== null),
     },
   };
+}
+
+export async function loadSampleDetail(db: Queryable, auth: AuthContext, id: string, unit: OutputUnit) {
+  const row = await loadSample(db, auth, id);
+  const burns = await findBurns(db, id);
+  const importMeta = row.import_id ? await findImportMeta(db, row.import_id) : undefined;
+  return toSampleDetail(row, burns, importMeta, unit);
 }

@@ -15,16 +15,10 @@ import { timelineLoader } from '../drift/correction-timeline.ts';
 import { normalisePushedBurns } from './pushed-sample.ts';
 import { buildSampleRows } from './sample-builder.ts';
 import { computeSampleResults } from './sample-results.ts';
-import {
-  type BurnRow,
-  findBurns,
-  findSample,
-  insertSamples,
-  type SampleRow,
-  updateBurn,
-  updateSampleResults,
-} from './samples.repository.ts';
+import { type BurnRow, findBurns, insertSamples, type SampleRow, updateBurn, updateSampleResults } from './samples.repository.ts';
 import { decodeResults, encodeResults } from './results-codec.ts';
+import { loadSample } from './sample-access.ts';
+import { recordSamplesCreated } from './sample-events.ts';
 import type { PushSampleRequestSchema } from './samples.schemas.ts';
 import type { z } from '../../lib/zod.ts';
 
@@ -109,6 +103,8 @@ export async function storeNewSamples(
     built.map((b) => b.sample),
     built.flatMap((b) => b.burns),
   );
+  // One sample.created event per sample, whatever the path (push, batch, import, seed).
+  await recordSamplesCreated(trx, built);
   // A file import is audited once, as import.completed, naming the import that holds the samples.
   if (!options.auditEach) return;
   for (const { sample } of built) {
@@ -127,12 +123,6 @@ export async function storeNewSamples(
       },
     });
   }
-}
-
-export async function loadSample(db: Queryable, auth: AuthContext, id: string) {
-  const sample = await findSample(db, id);
-  if (!sample || (auth.instrumentIds && !auth.instrumentIds.includes(sample.instrument_id))) throw new NotFoundProblem(`No sample ${id}.`);
-  return sample;
 }
 
 function burnState(burn: BurnRow) {
@@ -194,3 +184,4 @@ export async function setBurnExclusion(
 }
 
 export type { SampleRow };
+export { loadSample };
