@@ -48,6 +48,12 @@ const envSchema = z.object({
     .max(1024 * 1024)
     .default(16384),
   REQUEST_LOG_RETENTION_DAYS: z.coerce.number().int().min(1).max(3650).default(30),
+  EVENT_RETENTION_DAYS: z.coerce.number().int().min(1).max(3650).default(30),
+  WEBHOOK_ALLOW_PRIVATE: booleanFlag.default(false),
+  WEBHOOK_RETRY_DELAYS: z
+    .string()
+    .regex(/^\s*\d+(\s*,\s*\d+){0,19}\s*$/, 'must be 1–20 comma-separated whole numbers of seconds, e.g. 0,5,300')
+    .default('0,5,300,1800,7200,18000,36000,36000'),
   TRUST_PROXY: z
     .string()
     .regex(
@@ -84,6 +90,12 @@ export interface Config {
   /** Bytes of each request and response body kept in the request log. */
   requestLogBodyLimit: number;
   requestLogRetentionDays: number;
+  /** Events (the change feed) and their webhook deliveries older than this are deleted. */
+  eventRetentionDays: number;
+  /** Lets webhook endpoints be plain http and resolve to loopback or private addresses (demo, tests). */
+  webhookAllowPrivate: boolean;
+  /** Seconds before each delivery attempt, the first counted from the event: one entry per attempt. */
+  webhookRetryDelays: number[];
   /** Which proxies' X-Forwarded-For is believed for the client address (rate limits, logs). */
   trustProxy: boolean | number | string;
   version: string;
@@ -127,6 +139,9 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     importMaxBytes: e.IMPORT_MAX_BYTES,
     requestLogBodyLimit: e.REQUEST_LOG_BODY_LIMIT,
     requestLogRetentionDays: e.REQUEST_LOG_RETENTION_DAYS,
+    eventRetentionDays: e.EVENT_RETENTION_DAYS,
+    webhookAllowPrivate: e.WEBHOOK_ALLOW_PRIVATE,
+    webhookRetryDelays: e.WEBHOOK_RETRY_DELAYS.split(',').map((s) => Number(s.trim())),
     trustProxy: trustProxy(e.TRUST_PROXY),
     version: APP_VERSION,
   };

@@ -951,6 +951,48 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/events": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * The change feed: events in order, from a cursor
+         * @description Every event recorded with its change, oldest first. Keep `next_cursor` and call again with `after=<next_cursor>`: you get each event once and never miss one, even when two changes commit in the other order (an event is handed out only when no transaction still running can come before it, so a just-committed event may appear a moment later). The webhooks carry the same events in the same order. A key restricted to instruments sees only events about them. Events are kept for EVENT_RETENTION_DAYS (default 30).
+         *
+         *     Requires the scope `events:read`.
+         */
+        get: operations["listEvents"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/events/{id}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Get one event
+         * @description Requires the scope `events:read`.
+         */
+        get: operations["getEvent"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/audit-events": {
         parameters: {
             query?: never;
@@ -2252,6 +2294,36 @@ export interface components {
                 set: components["schemas"]["Standardization"];
             }[];
         };
+        EventFeed: {
+            data: components["schemas"]["Event"][];
+            /** @description Pass as `after` to resume. Unlike other lists it is given on the last page too (after the last event returned, or the `after` you sent when nothing new is ready), so store it and poll with it; null only when no event was ever returned. */
+            next_cursor: string | null;
+            /** @description More events are ready now: ask again at once. */
+            has_more: boolean;
+        };
+        Event: {
+            /**
+             * @description Also the `webhook-id` of every delivery of this event.
+             * @example evt_01jd3kz8…
+             */
+            id: string;
+            /** @description Strictly increasing in the order events were recorded. */
+            sequence: number;
+            type: components["schemas"]["EventType"];
+            /** Format: date-time */
+            occurred_at: string;
+            /** @description The instrument the event is about; null for lab-wide events. */
+            instrument_id: string | null;
+            /** @description The resource as the API returns it, taken in the transaction that made the change: for `sample.*` the sample as `GET /samples/{id}` returns it (in %), for `import.completed` the import as `GET /imports/{id}` returns it, for `import.failed` the refused file (name, SHA-256, size), instrument, method and the problem answered, for `standardization.*` the run summary. */
+            data: {
+                [key: string]: unknown;
+            };
+        };
+        /**
+         * @description What happened, `resource.happening`. The same types name webhook subscriptions.
+         * @enum {string}
+         */
+        EventType: "sample.created" | "sample.released" | "sample.amended" | "sample.out_of_spec" | "import.completed" | "import.failed" | "standardization.flagged" | "standardization.activated" | "control.out_of_control";
         AuditEventList: {
             data: components["schemas"]["AuditEvent"][];
             /** @description Pass as `cursor` to get the next page; null on the last page. */
@@ -5964,7 +6036,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The file cannot be read, a value is broken (all-or-nothing), or a referenced instrument, method or profile does not exist. For a file problem, `errors[]` locates each issue as `file:line 12:Mn`; the same issues come structured in `issues[]` (`line`, `column`, `message`, `code`), at most 200, with their full number in `errors_total`. */
+            /** @description The file cannot be read, a value is broken (all-or-nothing), or a referenced instrument, method or profile does not exist; an `import.failed` event records the refusal. For a file problem, `errors[]` locates each issue as `file:line 12:Mn`; the same issues come structured in `issues[]` (`line`, `column`, `message`, `code`), at most 200, with their full number in `errors_total`. */
             422: {
                 headers: {
                     [name: string]: unknown;
@@ -7043,6 +7115,154 @@ export interface operations {
                 };
             };
             /** @description No such instrument. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    listEvents: {
+        parameters: {
+            query?: {
+                /** @description The `next_cursor` of your previous call; omit to start at the oldest event kept. */
+                after?: string;
+                /** @description Comma-separated event types to return (default all): sample.created, sample.released, sample.amended, sample.out_of_spec, import.completed, import.failed, standardization.flagged, standardization.activated, control.out_of_control. */
+                types?: string;
+                /** @description At most this many events (1–500). */
+                limit?: number;
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The next events, at most `limit`. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["EventFeed"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `events:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    getEvent: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The event. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Event"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `events:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such event, or not yours to see. */
             404: {
                 headers: {
                     [name: string]: unknown;

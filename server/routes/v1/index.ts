@@ -3,6 +3,7 @@ import { apiKeyRoutes } from './api-keys.ts';
 import { auditRoutes } from './audit-events.ts';
 import { authRoutes } from './auth.ts';
 import { driftRoutes } from './drift.ts';
+import { eventRoutes } from './events.ts';
 import { healthRoutes } from './health.ts';
 import { importProfileRoutes } from './import-profiles.ts';
 import { importRoutes } from './imports.ts';
@@ -33,6 +34,7 @@ export const v1Routes: AnyRoute[] = [
   ...referenceMaterialRoutes,
   ...standardizationRoutes,
   ...driftRoutes,
+  ...eventRoutes,
   ...auditRoutes,
   ...requestLogRoutes,
   ...outboxRoutes,
