@@ -21,6 +21,7 @@ import * as addMethodsDriftLimits from './20261201500400_add_methods_drift_limit
 import * as addSamplesCorrection from './20261201500500_add_samples_correction.ts';
 import * as addBurnsCorrection from './20261201500600_add_burns_correction.ts';
 import * as addEventsSequence from './20261201800100_add_events_sequence.ts';
+import * as createWebhookEndpoints from './20261201800200_create_webhook_endpoints.ts';
 
 export interface Migration {
   up(knex: Knex): Promise<void>;
@@ -48,4 +49,5 @@ export const migrations: Record<string, Migration> = {
   '20261201500500_add_samples_correction': addSamplesCorrection,
   '20261201500600_add_burns_correction': addBurnsCorrection,
   '20261201800100_add_events_sequence': addEventsSequence,
+  '20261201800200_create_webhook_endpoints': createWebhookEndpoints,
 };

@@ -110,6 +110,11 @@ describe('scope matrix', () => {
         'inviteUser',
         'updateUser',
         'resendInvitation',
+        // Webhook endpoints receive every instrument's events: lab-wide.
+        'createWebhookEndpoint',
+        'updateWebhookEndpoint',
+        'deleteWebhookEndpoint',
+        'rotateWebhookSecret',
       ].sort(),
     );
   });

@@ -167,7 +167,7 @@ export function problemBody(res: request.Response): {
   status: number;
   detail?: string;
   request_id?: string;
-  errors?: { location: string; message: string }[];
+  errors?: { location: string; message: string; code?: string }[];
   [extension: string]: unknown;
 } {
   return JSON.parse(res.text);
