@@ -22,6 +22,7 @@ import * as addSamplesCorrection from './20261201500500_add_samples_correction.t
 import * as addBurnsCorrection from './20261201500600_add_burns_correction.ts';
 import * as addEventsSequence from './20261201800100_add_events_sequence.ts';
 import * as createWebhookEndpoints from './20261201800200_create_webhook_endpoints.ts';
+import * as createWebhookDeliveries from './20261201800300_create_webhook_deliveries.ts';
 
 export interface Migration {
   up(knex: Knex): Promise<void>;
@@ -50,4 +51,5 @@ export const migrations: Record<string, Migration> = {
   '20261201500600_add_burns_correction': addBurnsCorrection,
   '20261201800100_add_events_sequence': addEventsSequence,
   '20261201800200_create_webhook_endpoints': createWebhookEndpoints,
+  '20261201800300_create_webhook_deliveries': createWebhookDeliveries,
 };

@@ -1042,7 +1042,7 @@ export interface paths {
         head?: never;
         /**
          * Change, disable or re-enable a webhook endpoint
-         * @description Deliveries pending while an endpoint is disabled wait, and go out when it is enabled again.
+         * @description While an endpoint is disabled no deliveries are made for new events (the pull feed keeps them); deliveries already pending wait and go out when it is enabled again.
          *
          *     Requires the scope `webhooks:write`. A lab-wide change: not open to API keys restricted to instruments.
          */

@@ -11,6 +11,7 @@ import { newId } from '../../lib/ids.ts';
 import { type CursorValues, decodeCursor, encodeCursor } from '../../lib/pagination.ts';
 import { ValidationProblem } from '../../lib/problems.ts';
 import { nowIso } from '../../lib/time.ts';
+import { signalEventsCommitted } from './event-signal.ts';
 
 /** Event types (also the webhook types), `resource.happening`. */
 export const EVENT_TYPES = [
@@ -75,6 +76,7 @@ export async function recordEvent<T>(
 export async function recordEvents(trx: Knex.Transaction, events: NewEvent[]): Promise<string[]> {
   const rows = events.map(toRow);
   await bulkInsert(trx, 'events', rows);
+  trx.executionPromise?.then(signalEventsCommitted, () => undefined);
   return rows.map((r) => r.id);
 }
 

@@ -81,7 +81,8 @@ export const webhookEndpointRoutes = [
     path: '/webhook-endpoints/{id}',
     operationId: 'updateWebhookEndpoint',
     summary: 'Change, disable or re-enable a webhook endpoint',
-    description: 'Deliveries pending while an endpoint is disabled wait, and go out when it is enabled again.',
+    description:
+      'While an endpoint is disabled no deliveries are made for new events (the pull feed keeps them); deliveries already pending wait and go out when it is enabled again.',
     tag: TAG,
     access: { scope: 'webhooks:write', labWide: true },
     params: WebhookEndpointIdParams,

@@ -1,0 +1,82 @@
+// One attempt of one claimed delivery: the Standard Webhooks message (webhook-id = the event id,
+// the same on every retry; a fresh timestamp and signatures per attempt), sent, then recorded with
+// what it means for the delivery (retry when, failed, delivered) and for the endpoint (410 or five
+// days of failures disable it).
+import type { AppContext } from '../../context.ts';
+import { inTransaction } from '../../db/transaction.ts';
+import { newId } from '../../lib/ids.ts';
+import { nowIso } from '../../lib/time.ts';
+import { findEventRow } from '../events/events.repository.ts';
+import { type DeliveryRow, findDelivery, insertAttempt, releaseDeliveries, updateDelivery } from './deliveries.repository.ts';
+import { endpointAfterAttempt } from './endpoint-health.ts';
+import { nextStep } from './retry-policy.ts';
+import type { Sender, SendResult } from './sender.ts';
+import { signedHeaders } from './signature.ts';
+import { findEndpoint, type WebhookEndpointRow } from './webhooks.repository.ts';
+
+/** The body every attempt sends: `{ type, timestamp, data }`, data as stored with the event. */
+export function messageBody(event: { type: string; occurred_at: string; data_json: string }): string {
+  return `{"type":${JSON.stringify(event.type)},"timestamp":${JSON.stringify(event.occurred_at)},"data":${event.data_json}}`;
+}
+
+/** The secrets to sign with: the current one, and the previous one during a rotation's overlap. */
+export function signingSecrets(endpoint: WebhookEndpointRow, now: string): string[] {
+  const overlap = endpoint.previous_secret && endpoint.previous_secret_expires_at && endpoint.previous_secret_expires_at > now;
+  return overlap ? [endpoint.secret, endpoint.previous_secret!] : [endpoint.secret];
+}
+
+async function record(ctx: AppContext, delivery: DeliveryRow, endpoint: WebhookEndpointRow, result: SendResult, startedAt: string) {
+  const finishedAt = new Date();
+  const attempts = delivery.attempt_count + 1;
+  const { outcome, nextAt } = nextStep(result, attempts, ctx.config.webhookRetryDelays, finishedAt);
+  await inTransaction(ctx.db, async (trx) => {
+    // Deleted meanwhile (with its endpoint): nothing to record.
+    if (!(await findDelivery(trx, delivery.id))) return;
+    await insertAttempt(trx, {
+      id: newId('wha'),
+      delivery_id: delivery.id,
+      number: attempts,
+      started_at: startedAt,
+      duration_ms: Math.round(result.durationMs * 10) / 10,
+      status_code: result.status ?? null,
+      response_excerpt: result.excerpt,
+      error: result.error ?? null,
+      outcome,
+      next_attempt_at: nextAt,
+    });
+    const now = finishedAt.toISOString();
+    await updateDelivery(trx, delivery.id, {
+      status: outcome === 'delivered' ? 'delivered' : outcome === 'retry' ? 'pending' : 'failed',
+      attempt_count: attempts,
+      next_attempt_at: nextAt,
+      locked_until: null,
+      last_status_code: result.status ?? null,
+      last_error: result.error ?? (outcome === 'delivered' ? null : `HTTP ${result.status}`),
+      updated_at: now,
+      delivered_at: outcome === 'delivered' ? now : null,
+    });
+    await endpointAfterAttempt(ctx, trx, endpoint, outcome, now);
+  });
+}
+
+/** Sends one claimed delivery and records the attempt; a stop mid-attempt gives the lease back instead. */
+export async function attemptDelivery(ctx: AppContext, sender: Sender, delivery: DeliveryRow, signal: AbortSignal): Promise<void> {
+  const [endpoint, event] = await Promise.all([findEndpoint(ctx.db, delivery.endpoint_id), findEventRow(ctx.db, delivery.event_id)]);
+  if (!endpoint) return;
+  const startedAt = nowIso();
+  if (!event) {
+    const expired: SendResult = {
+      durationMs: 0,
+      excerpt: null,
+      permanent: true,
+      error: 'the event is past EVENT_RETENTION_DAYS and was deleted',
+    };
+    return record(ctx, delivery, endpoint, expired, startedAt);
+  }
+  const body = messageBody(event);
+  const timestamp = Math.floor(Date.now() / 1000);
+  const headers = signedHeaders(signingSecrets(endpoint, startedAt), event.id, timestamp, body);
+  const result = await sender.send(endpoint.url, headers, body, signal);
+  if (result.aborted) return releaseDeliveries(ctx.db, [delivery.id]);
+  await record(ctx, delivery, endpoint, result, startedAt);
+}
