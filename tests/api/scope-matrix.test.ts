@@ -115,6 +115,9 @@ describe('scope matrix', () => {
         'updateWebhookEndpoint',
         'deleteWebhookEndpoint',
         'rotateWebhookSecret',
+        'retryWebhookDelivery',
+        'sendWebhookTestEvent',
+        'recoverWebhookDeliveries',
       ].sort(),
     );
   });

@@ -81,8 +81,8 @@ export async function recordEvents(trx: Knex.Transaction, events: NewEvent[]): P
 }
 
 /** A `meltwire.test` event for one endpoint only: delivered to it, never in the feed. */
-export async function recordTestEvent(db: Queryable, endpointId: string, data: unknown): Promise<string> {
-  const row = toRow({ type: TEST_EVENT_TYPE, data, endpointId });
+export async function recordTestEvent(db: Queryable, endpointId: string, data: unknown, occurredAt?: string): Promise<string> {
+  const row = toRow({ type: TEST_EVENT_TYPE, data, endpointId, occurredAt });
   await db('events').insert(row);
   return row.id;
 }

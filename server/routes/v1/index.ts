@@ -17,6 +17,7 @@ import { sampleRecomputeRoutes } from './sample-recompute.ts';
 import { sampleRoutes } from './samples.ts';
 import { standardizationRoutes } from './standardizations.ts';
 import { userRoutes } from './users.ts';
+import { webhookDeliveryRoutes } from './webhook-deliveries.ts';
 import { webhookEndpointRoutes } from './webhook-endpoints.ts';
 
 /** Every /api/v1 operation. The OpenAPI document and the Express router are both built from this list. */
@@ -37,6 +38,7 @@ export const v1Routes: AnyRoute[] = [
   ...driftRoutes,
   ...eventRoutes,
   ...webhookEndpointRoutes,
+  ...webhookDeliveryRoutes,
   ...auditRoutes,
   ...requestLogRoutes,
   ...outboxRoutes,
