@@ -114,6 +114,7 @@ export interface FeedFilters {
 }
 
 export interface FeedPage {
+  /** Without data_json when asked withData: false. */
   data: EventRow[];
   /** Where to resume: after the last event returned, or the cursor given when nothing new is safe yet. */
   next_cursor: string | null;
@@ -125,9 +126,17 @@ export interface FeedPage {
  * id is below the oldest still-running transaction (pg_snapshot_xmin): every transaction below it
  * has committed or rolled back, so nothing can later appear before an event handed out.
  */
-export async function listFeedRows(db: Queryable, filters: FeedFilters, page: { after?: string; limit: number }): Promise<FeedPage> {
+export async function listFeedRows(
+  db: Queryable,
+  filters: FeedFilters,
+  page: { after?: string; limit: number },
+  options: { withData: boolean } = { withData: true },
+): Promise<FeedPage> {
   const keyset = feedKeyset(db);
-  const query = db<EventRow>('events').select('events.*').whereNull('events.endpoint_id');
+  const columns = options.withData
+    ? ['events.*']
+    : ['sequence', 'id', 'type', 'occurred_at', 'instrument_id', ...(isPostgres(db) ? ['txid'] : [])];
+  const query = db<EventRow>('events').select(columns).whereNull('events.endpoint_id');
   if (isPostgres(db)) query.whereRaw('events.txid < pg_snapshot_xmin(pg_current_snapshot())');
   if (filters.types?.length) query.whereIn('events.type', filters.types);
   if (filters.onlyInstrumentIds) query.whereIn('events.instrument_id', filters.onlyInstrumentIds);

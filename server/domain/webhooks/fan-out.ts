@@ -41,7 +41,7 @@ export async function fanOutOnce(ctx: Pick<AppContext, 'db' | 'config'>): Promis
   // The feed is read outside the transaction: it then has no transaction id of its own to hold
   // back the horizon. The cursor is re-read under lock; if another node moved it, this turn is skipped.
   const cursor = await readDispatchCursor(ctx.db);
-  const page = await listFeedRows(ctx.db, {}, { after: cursor ?? undefined, limit: FAN_OUT_BATCH });
+  const page = await listFeedRows(ctx.db, {}, { after: cursor ?? undefined, limit: FAN_OUT_BATCH }, { withData: false });
   if (page.data.length === 0) return { events: 0, deliveries: 0, more: false };
   const endpoints = subscribers(await listEnabledEndpoints(ctx.db));
   const now = nowIso();
