@@ -10,36 +10,42 @@ import { findMethod } from '../methods/methods.repository.ts';
 import type { BurnRow, SampleRow } from './samples.repository.ts';
 import { toSampleDetail } from './sample-view.ts';
 
-/** Looks each key up once. */
-function once<T>(load: (key: string) => Promise<T>): (key: string) => Promise<T> {
-  const seen = new Map<string, Promise<T>>();
-  return (key) => {
-    if (!seen.has(key)) seen.set(key, load(key));
-    return seen.get(key)!;
-  };
+/** Loads each distinct key once, into a map. */
+async function loadAll<T>(keys: (string | null)[], load: (key: string) => Promise<T>): Promise<Map<string, T>> {
+  const distinct = [...new Set(keys.filter((k): k is string => k !== null))];
+  return new Map(await Promise.all(distinct.map(async (key) => [key, await load(key)] as const)));
 }
 
 export async function recordSamplesCreated(trx: Transaction, built: { sample: SampleRow; burns: BurnRow[] }[]): Promise<void> {
   if (built.length === 0) return;
-  const instrumentCode = once(async (id) => (await findInstrument(trx, id))?.code ?? '');
-  const methodCode = once(async (id) => (await findMethod(trx, id))?.code ?? '');
-  const importOf = once((id): Promise<ImportMeta | undefined> => findImportMeta(trx, id));
-  const events = [];
-  for (const { sample, burns } of built) {
+  const samples = built.map((b) => b.sample);
+  const instruments = await loadAll(
+    samples.map((s) => s.instrument_id),
+    async (id) => (await findInstrument(trx, id))?.code ?? '',
+  );
+  const methods = await loadAll(
+    samples.map((s) => s.method_id),
+    async (id) => (await findMethod(trx, id))?.code ?? '',
+  );
+  const imports = await loadAll(
+    samples.map((s) => s.import_id),
+    (id): Promise<ImportMeta | undefined> => findImportMeta(trx, id),
+  );
+  const events = built.map(({ sample, burns }) => {
     const row = {
       ...sample,
-      instrument_code: await instrumentCode(sample.instrument_id),
-      method_code: await methodCode(sample.method_id),
+      instrument_code: instruments.get(sample.instrument_id)!,
+      method_code: methods.get(sample.method_id)!,
       burn_count: burns.length,
     };
     const ordered = [...burns].sort((a, b) => a.burn_number - b.burn_number);
-    const importMeta = sample.import_id ? await importOf(sample.import_id) : undefined;
-    events.push({
+    const importMeta = sample.import_id ? imports.get(sample.import_id) : undefined;
+    return {
       type: 'sample.created' as const,
       data: toSampleDetail(row, ordered, importMeta, '%'),
       occurredAt: sample.created_at,
       instrumentId: sample.instrument_id,
-    });
-  }
+    };
+  });
   await recordEvents(trx, events);
 }

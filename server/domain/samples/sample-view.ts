@@ -12,6 +12,10 @@ import type { Queryable } from '../../db/transaction.ts';
 
 const toNumber = (value: string | null) => (value === null ? null : Number(value));
 
+/** A stored % string as a number in the unit; in % the string is read as it is (the same number, without decimal arithmetic). */
+const numberIn = (value: string | null, unit: OutputUnit) =>
+  value === null ? null : Number(unit === '%' ? value : fromPercent(value, unit));
+
 function toResultView(stored: StoredResult, unit: OutputUnit) {
   const converted = convertResult(stored, unit, stored.decimals);
   return {
@@ -23,7 +27,7 @@ function toResultView(stored: StoredResult, unit: OutputUnit) {
     min: toNumber(converted.min),
     max: toNumber(converted.max),
     unit,
-    raw_mean: stored.raw_mean === null ? null : Number(fromPercent(stored.raw_mean, unit)),
+    raw_mean: numberIn(stored.raw_mean, unit),
     reported: converted.reported,
     qualifier: converted.qualifier,
     decimals: reportingDecimals(stored.decimals, unit),
@@ -73,7 +77,7 @@ function toBurnView(burn: BurnRow, unit: OutputUnit) {
   const values = JSON.parse(burn.values_json) as Record<string, StoredCell>;
   const raw = JSON.parse(burn.raw_json) as Record<string, RawCell>;
   const corrected = burn.corrected_json ? (JSON.parse(burn.corrected_json) as Record<string, StoredCell>) : null;
-  const inUnit = (v: string | null) => (v === null ? null : Number(fromPercent(v, unit)));
+  const inUnit = (v: string | null) => numberIn(v, unit);
   return {
     number: burn.burn_number,
     measured_at: burn.measured_at,
