@@ -151,6 +151,10 @@ export function findEventRow(db: Queryable, id: string): Promise<EventRow | unde
   return db<EventRow>('events').where({ id }).first();
 }
 
+export function findEventRows(db: Queryable, ids: string[]): Promise<EventRow[]> {
+  return db<EventRow>('events').whereIn('id', ids);
+}
+
 /** Deletes events that occurred before `before`; returns how many. */
 export function deleteEventsBefore(db: Queryable, before: string): Promise<number> {
   return db('events').where('occurred_at', '<', before).delete();

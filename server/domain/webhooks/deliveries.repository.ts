@@ -80,8 +80,9 @@ export function findDelivery(db: Queryable, id: string): Promise<DeliveryRow | u
   return db<DeliveryRow>('webhook_deliveries').where({ id }).first();
 }
 
-export async function updateDelivery(db: Queryable, id: string, changes: Partial<DeliveryRow>): Promise<void> {
-  await db<DeliveryRow>('webhook_deliveries').where({ id }).update(changes);
+/** Returns how many rows changed (0: the delivery is gone). */
+export function updateDelivery(db: Queryable, id: string, changes: Partial<DeliveryRow>): Promise<number> {
+  return db<DeliveryRow>('webhook_deliveries').where({ id }).update(changes);
 }
 
 export async function insertAttempt(db: Queryable, row: AttemptRow): Promise<void> {

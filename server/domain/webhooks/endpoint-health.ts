@@ -37,11 +37,12 @@ async function disable(ctx: AppContext, trx: Transaction, endpoint: WebhookEndpo
 }
 
 export async function endpointAfterAttempt(ctx: AppContext, trx: Transaction, loaded: WebhookEndpointRow, outcome: Outcome, now: string) {
-  const endpoint = (await findEndpoint(trx, loaded.id)) ?? loaded;
   if (outcome === 'delivered') {
-    if (endpoint.failing_since) await updateEndpointRow(trx, endpoint.id, { failing_since: null });
+    // As loaded with the claim: a streak that began since then ends at the next success.
+    if (loaded.failing_since) await updateEndpointRow(trx, loaded.id, { failing_since: null });
     return;
   }
+  const endpoint = (await findEndpoint(trx, loaded.id)) ?? loaded;
   if (!endpoint.enabled) return;
   if (outcome === 'gone') return disable(ctx, trx, endpoint, GONE, now);
   if (!endpoint.failing_since) return updateEndpointRow(trx, endpoint.id, { failing_since: now });

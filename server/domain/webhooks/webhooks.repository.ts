@@ -28,6 +28,10 @@ export function findEndpoint(db: Queryable, id: string): Promise<WebhookEndpoint
   return db<WebhookEndpointRow>('webhook_endpoints').where({ id }).first();
 }
 
+export function findEndpoints(db: Queryable, ids: string[]): Promise<WebhookEndpointRow[]> {
+  return db<WebhookEndpointRow>('webhook_endpoints').whereIn('id', ids);
+}
+
 export async function updateEndpointRow(db: Queryable, id: string, changes: Partial<WebhookEndpointRow>): Promise<void> {
   await db<WebhookEndpointRow>('webhook_endpoints').where({ id }).update(changes);
 }
