@@ -20,6 +20,9 @@ import * as createStandardizations from './20261201500300_create_standardization
 import * as addMethodsDriftLimits from './20261201500400_add_methods_drift_limits.ts';
 import * as addSamplesCorrection from './20261201500500_add_samples_correction.ts';
 import * as addBurnsCorrection from './20261201500600_add_burns_correction.ts';
+import * as addEventsSequence from './20261201800100_add_events_sequence.ts';
+import * as createWebhookEndpoints from './20261201800200_create_webhook_endpoints.ts';
+import * as createWebhookDeliveries from './20261201800300_create_webhook_deliveries.ts';
 import * as createGradeVersions from './20261202200100_create_grade_versions.ts';
 import * as addSamplesConformance from './20261202200200_add_samples_conformance.ts';
 import * as addSamplesRelease from './20261202200300_add_samples_release.ts';
@@ -50,6 +53,9 @@ export const migrations: Record<string, Migration> = {
   '20261201500400_add_methods_drift_limits': addMethodsDriftLimits,
   '20261201500500_add_samples_correction': addSamplesCorrection,
   '20261201500600_add_burns_correction': addBurnsCorrection,
+  '20261201800100_add_events_sequence': addEventsSequence,
+  '20261201800200_create_webhook_endpoints': createWebhookEndpoints,
+  '20261201800300_create_webhook_deliveries': createWebhookDeliveries,
   '20261202200100_create_grade_versions': createGradeVersions,
   '20261202200200_add_samples_conformance': addSamplesConformance,
   '20261202200300_add_samples_release': addSamplesRelease,

@@ -49,6 +49,12 @@ const envSchema = z.object({
     .default(16384),
   REQUEST_LOG_RETENTION_DAYS: z.coerce.number().int().min(1).max(3650).default(30),
   RELEASE_REQUIRES_SECOND_PERSON: booleanFlag.default(true),
+  EVENT_RETENTION_DAYS: z.coerce.number().int().min(1).max(3650).default(30),
+  WEBHOOK_ALLOW_PRIVATE: booleanFlag.default(false),
+  WEBHOOK_RETRY_DELAYS: z
+    .string()
+    .regex(/^\s*\d+(\s*,\s*\d+){0,19}\s*$/, 'must be 1–20 comma-separated whole numbers of seconds, e.g. 0,5,300')
+    .default('0,5,300,1800,7200,18000,36000,36000'),
   TRUST_PROXY: z
     .string()
     .regex(
@@ -87,6 +93,12 @@ export interface Config {
   requestLogRetentionDays: number;
   /** The person who releases a sample must not be the one who created it or last changed its burns. */
   releaseRequiresSecondPerson: boolean;
+  /** Events (the change feed) and their webhook deliveries older than this are deleted. */
+  eventRetentionDays: number;
+  /** Lets webhook endpoints be plain http and resolve to loopback or private addresses (demo, tests). */
+  webhookAllowPrivate: boolean;
+  /** Seconds before each delivery attempt, the first counted from the event: one entry per attempt. */
+  webhookRetryDelays: number[];
   /** Which proxies' X-Forwarded-For is believed for the client address (rate limits, logs). */
   trustProxy: boolean | number | string;
   version: string;
@@ -130,6 +142,9 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     importMaxBytes: e.IMPORT_MAX_BYTES,
     requestLogBodyLimit: e.REQUEST_LOG_BODY_LIMIT,
     requestLogRetentionDays: e.REQUEST_LOG_RETENTION_DAYS,
+    eventRetentionDays: e.EVENT_RETENTION_DAYS,
+    webhookAllowPrivate: e.WEBHOOK_ALLOW_PRIVATE,
+    webhookRetryDelays: e.WEBHOOK_RETRY_DELAYS.split(',').map((s) => Number(s.trim())),
     trustProxy: trustProxy(e.TRUST_PROXY),
     releaseRequiresSecondPerson: e.RELEASE_REQUIRES_SECOND_PERSON,
     version: APP_VERSION,

@@ -1,9 +1,12 @@
-// Ages out what is kept only for a while: request log entries (REQUEST_LOG_RETENTION_DAYS) and
-// Idempotency-Key records (24 hours). Runs once at start, then hourly on an unref'd timer so it
-// never keeps the process alive; stop() ends it on shutdown.
+// Ages out what is kept only for a while: request log entries (REQUEST_LOG_RETENTION_DAYS),
+// Idempotency-Key records (24 hours), events and webhook deliveries (EVENT_RETENTION_DAYS). Runs
+// once at start, then hourly on an unref'd timer so it never keeps the process alive; stop() ends
+// it on shutdown.
 import type { AppContext } from './context.ts';
+import { purgeEvents } from './domain/events/events.service.ts';
 import { purgeExpiredIdempotencyKeys } from './domain/idempotency/idempotency.repository.ts';
 import { purgeRequestLog } from './domain/request-log/retention.ts';
+import { purgeDeliveries } from './domain/webhooks/deliveries.service.ts';
 
 const HOUSEKEEPING_INTERVAL_MS = 60 * 60_000;
 
@@ -17,11 +20,15 @@ export interface Housekeeping {
 export async function sweepOnce(
   ctx: Pick<AppContext, 'db' | 'config' | 'logger'>,
   now = new Date(),
-): Promise<{ requestLog: number; idempotencyKeys: number }> {
+): Promise<{ requestLog: number; idempotencyKeys: number; events: number; deliveries: number }> {
   const requestLog = await purgeRequestLog(ctx.db, ctx.config.requestLogRetentionDays, now);
   const idempotencyKeys = await purgeExpiredIdempotencyKeys(ctx.db, now);
-  if (requestLog || idempotencyKeys) ctx.logger.info({ requestLog, idempotencyKeys }, 'housekeeping removed expired records');
-  return { requestLog, idempotencyKeys };
+  const events = await purgeEvents(ctx.db, ctx.config.eventRetentionDays, now);
+  const deliveries = await purgeDeliveries(ctx.db, ctx.config.eventRetentionDays, now);
+  if (requestLog || idempotencyKeys || events || deliveries) {
+    ctx.logger.info({ requestLog, idempotencyKeys, events, deliveries }, 'housekeeping removed expired records');
+  }
+  return { requestLog, idempotencyKeys, events, deliveries };
 }
 
 export function startHousekeeping(ctx: Pick<AppContext, 'db' | 'config' | 'logger'>, intervalMs = HOUSEKEEPING_INTERVAL_MS): Housekeeping {

@@ -18,7 +18,26 @@ function pooledRandom(): number {
 const nextUlid = monotonicFactory(pooledRandom);
 
 export type IdPrefix =
-  'usr' | 'ses' | 'tok' | 'aud' | 'key' | 'req' | 'ipr' | 'ins' | 'mth' | 'imp' | 'smp' | 'brn' | 'evt' | 'rfm' | 'std' | 'grd' | 'rev';
+  | 'usr'
+  | 'ses'
+  | 'tok'
+  | 'aud'
+  | 'key'
+  | 'req'
+  | 'ipr'
+  | 'ins'
+  | 'mth'
+  | 'imp'
+  | 'smp'
+  | 'brn'
+  | 'evt'
+  | 'rfm'
+  | 'std'
+  | 'whe'
+  | 'whd'
+  | 'wha'
+  | 'grd'
+  | 'rev';
 
 export function newId(prefix: IdPrefix): string {
   return `${prefix}_${nextUlid().toLowerCase()}`;

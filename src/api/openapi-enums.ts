@@ -42,3 +42,7 @@ export const CorrectionModeValues = ["two_point","one_point_factor","one_point_o
 export const StandardizationStatusValues = ["draft","activated"] as const;
 
 export const CorrectionFlagValues = ["ok","warn","fail"] as const;
+
+export const EventTypeValues = ["sample.created","sample.released","sample.amended","sample.out_of_spec","import.completed","import.failed","standardization.flagged","standardization.activated","control.out_of_control"] as const;
+
+export const WebhookDeliveryStatusValues = ["pending","delivered","failed"] as const;

@@ -2,7 +2,8 @@
 // with the demo scenario: the typed client (tsx) and the curl scripts (bash, curl, jq).
 import { execFile } from 'node:child_process';
 import { Decimal } from 'decimal.js';
-import { resolve } from 'node:path';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { join, resolve } from 'node:path';
 import { promisify } from 'node:util';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { findUserByEmail } from '../../server/domain/users/users.repository.ts';
@@ -161,6 +162,27 @@ describe('sample and import scripts', () => {
     ).toEqual(expected.map((s) => s.sample_code));
     expect(stderr.trim()).toBe(`next time: updated_since=${expected.at(-1)!.updated_at}`);
   }, 30_000);
+});
+
+describe('change feed script', () => {
+  it('follow-events.sh prints each event once across runs, resuming from its saved cursor', async () => {
+    const dir = mkdtempSync('/tmp/wt-events-cursor-');
+    try {
+      const key = await demoAdminKey(['events:read', 'samples:write', 'samples:read']);
+      const env = { MELTWIRE_KEY: key, CURSOR_FILE: join(dir, 'cursor'), PAGE_SIZE: '4' };
+      const first = (await example('bash', ['examples/follow-events.sh'], env)).stdout.trim().split('\n');
+      const kept = await server.db('events').whereNull('endpoint_id').orderBy('sequence').pluck('id');
+      expect(first.map((line) => line.split('  ')[3])).toEqual(kept);
+
+      await example('bash', ['examples/push-sample.sh'], { MELTWIRE_KEY: key, SAMPLE_CODE: 'K24-0998-F1', HEAT: 'K24-0998' });
+      const second = (await example('bash', ['examples/follow-events.sh'], env)).stdout.trim().split('\n');
+      expect(second).toHaveLength(1);
+      expect(second[0]).toMatch(/^\d+ {2}\S+ {2}sample\.created {2}evt_\w+ {2}K24-0998-F1$/);
+      expect((await example('bash', ['examples/follow-events.sh'], env)).stdout).toBe('');
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  });
 });
 
 describe('standardization script', () => {

@@ -94,6 +94,21 @@ describe('housekeeping', () => {
     expect(await logIds()).toContain(afterStop);
   });
 
+  it('removes events older than EVENT_RETENTION_DAYS (default 30)', async () => {
+    const aged = (days: number) => ({
+      id: newId('evt'),
+      type: 'sample.created',
+      occurred_at: new Date(Date.now() - days * DAY).toISOString(),
+      data_json: '{}',
+    });
+    const [old, recent] = [aged(31), aged(29)];
+    await t.db('events').insert([old, recent]);
+    expect((await sweepOnce(t.ctx)).events).toBe(1);
+    const ids = await t.db('events').pluck('id');
+    expect(ids).toContain(recent.id);
+    expect(ids).not.toContain(old.id);
+  });
+
   it('follows REQUEST_LOG_RETENTION_DAYS', async () => {
     const short = await createTestApp({ requestLogRetentionDays: 1 });
     try {

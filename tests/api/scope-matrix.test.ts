@@ -112,6 +112,14 @@ describe('scope matrix', () => {
         'inviteUser',
         'updateUser',
         'resendInvitation',
+        // Webhook endpoints receive every instrument's events: lab-wide.
+        'createWebhookEndpoint',
+        'updateWebhookEndpoint',
+        'deleteWebhookEndpoint',
+        'rotateWebhookSecret',
+        'retryWebhookDelivery',
+        'sendWebhookTestEvent',
+        'recoverWebhookDeliveries',
       ].sort(),
     );
   });

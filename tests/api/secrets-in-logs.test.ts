@@ -73,7 +73,7 @@ afterAll(() => t.close());
 describe('secrets in logs', () => {
   it('the scenario produced log lines and request-log rows to search', async () => {
     expect(lines.filter((line) => line.includes('"req"')).length).toBeGreaterThanOrEqual(10);
-    expect(await t.db('request_log').count({ n: '*' }).first()).toMatchObject({ n: expect.any(Number) });
+    expect(Number((await t.db('request_log').count({ n: '*' }).first())?.n)).toBeGreaterThan(0);
   });
 
   it('never reach a process log line', () => {

@@ -22,6 +22,15 @@ describe('redaction for the request log', () => {
     });
   });
 
+  it('removes webhook signing secrets from any text', () => {
+    const secret = 'whsec_MfKQ9r8GKYqrTwjUPD8ILPZIo2LaLaSw';
+    expect(redactText(`endpoint secret ${secret}, copied`)).toEqual({ value: 'endpoint secret whsec_[redacted], copied', redacted: true });
+    expect(redactJson({ note: secret, previous_secret: secret }).value).toEqual({
+      note: 'whsec_[redacted]',
+      previous_secret: '[redacted]',
+    });
+  });
+
   it('reports nothing removed when there was nothing to remove, and keeps public key prefixes', () => {
     expect(redactJson({ name: 'MES', prefix: 'mw_live_7Qm2xP', token_count: null })).toEqual({
       value: { name: 'MES', prefix: 'mw_live_7Qm2xP', token_count: null },

@@ -98,5 +98,10 @@ export async function applyActivation(
     before: { status: row.status, set_in_force: previous?.id ?? null },
     after: { ...changes, failing_elements: failing.map((c) => c.element), replaces: previous?.id ?? null },
   });
-  await recordEvent(trx, 'standardization.activated', { standardization: summary, activated_by: actor.label }, now);
+  await recordEvent(
+    trx,
+    'standardization.activated',
+    { standardization: summary, activated_by: actor.label },
+    { occurredAt: now, instrumentId: row.instrument_id },
+  );
 }

@@ -199,7 +199,7 @@ export async function storeRun(trx: Transaction, input: StoreRunInput): Promise<
   });
   if (row.flag !== 'ok') {
     const flagged = run.corrections.filter((c) => c.flag !== 'ok').map((c) => ({ element: c.element, flag: c.flag, reasons: c.reasons }));
-    await recordEvent(trx, 'standardization.flagged', { standardization: summary, elements: flagged }, now);
+    await recordEvent(trx, 'standardization.flagged', { standardization: summary, elements: flagged }, { occurredAt: now, instrumentId });
   }
   return id;
 }

@@ -9,6 +9,7 @@ import { sha256Hex } from '../../lib/secrets.ts';
 import { nowIso } from '../../lib/time.ts';
 import { actorOf } from '../audit/actor.ts';
 import { recordAudit } from '../audit/audit.repository.ts';
+import { recordEvent } from '../events/events.repository.ts';
 import { findInstrument } from '../instruments/instruments.repository.ts';
 import { assertInstrumentAllowed } from '../instruments/instruments.service.ts';
 import { findMethod } from '../methods/methods.repository.ts';
@@ -143,6 +144,7 @@ export async function uploadImport(
           targetId: id,
           after: { file_name: row.file_name, sha256, mode: input.mode, counts: report.counts },
         });
+        await recordEvent(trx, 'import.completed', toImport(row), { occurredAt: now, instrumentId: row.instrument_id });
       });
     } catch (error) {
       if (error instanceof CorrectionsChanged) continue;

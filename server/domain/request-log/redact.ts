@@ -13,6 +13,9 @@ const SECRET_NAME = /password|secret|token|api[-_]?key|authorization|cookie/i;
  */
 const KEY_TEXT = new RegExp(`${KEY_PREFIX}[0-9A-Za-z]{7,}`, 'g');
 
+/** A webhook signing secret (`whsec_` + base64), wherever it appears. */
+const WEBHOOK_SECRET_TEXT = /whsec_[A-Za-z0-9+/=]{8,}/g;
+
 /** `?token=…` / `&api_key=…` in links inside any text (an e-mail's invitation link, a Referer). */
 const SECRET_URL_PARAM = /([?&](?:[\w.-]*(?:password|secret|token|api[-_]?key)[\w.-]*)=)[^&#\s"'<>]+/gi;
 
@@ -33,6 +36,7 @@ export interface Redacted<T> {
 export function redactText(text: string): Redacted<string> {
   const value = text
     .replace(KEY_TEXT, `${KEY_PREFIX}${REDACTED}`)
+    .replace(WEBHOOK_SECRET_TEXT, `whsec_${REDACTED}`)
     .replace(SECRET_PAIR, `$1"${REDACTED}"`)
     .replace(SECRET_URL_PARAM, `$1${REDACTED}`);
   return { value, redacted: value !== text };

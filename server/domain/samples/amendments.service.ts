@@ -122,12 +122,17 @@ export async function amendSample(ctx: AppContext, auth: AuthContext, id: string
       before: { revision: sample.revision, heat: sample.heat, grade: sample.grade, results: decodeResults(sample.results_json) },
       after: { revision, reason: input.reason, heat: after.heat, grade: after.grade, results },
     });
-    await recordEvent(trx, 'sample.amended', {
-      sample: after,
-      from_revision: sample.revision,
-      to_revision: revision,
-      changed_elements: changes,
-    });
+    await recordEvent(
+      trx,
+      'sample.amended',
+      {
+        sample: after,
+        from_revision: sample.revision,
+        to_revision: revision,
+        changed_elements: changes,
+      },
+      { instrumentId: sample.instrument_id },
+    );
     await recordOutOfSpec(trx, { ...sample, ...verdict }, sample.conforms);
     return after;
   });

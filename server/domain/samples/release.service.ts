@@ -80,7 +80,7 @@ async function release(
     targetId: sample.id,
     after: { revision: sample.revision, concession, comment: input.comment ?? null },
   });
-  await recordEvent(trx, 'sample.released', { sample: document });
+  await recordEvent(trx, 'sample.released', { sample: document }, { instrumentId: sample.instrument_id });
   return document;
 }
 

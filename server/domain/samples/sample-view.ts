@@ -3,8 +3,8 @@ import type { AuthContext } from '../auth/auth-context.ts';
 import { convertResult, reportingDecimals } from '../chemistry/result-units.ts';
 import { fromPercent, type OutputUnit } from '../chemistry/units.ts';
 import type { SampleCorrection } from '../drift/correction-timeline.ts';
-import { findImportMeta } from '../imports/imports.repository.ts';
-import { loadSample } from './samples.service.ts';
+import { findImportMeta, type ImportMeta } from '../imports/imports.repository.ts';
+import { loadSample } from './sample-access.ts';
 import { type BurnRow, findBurns, type RawCell, type SampleRowWithRefs, type StoredCell, type StoredResult } from './samples.repository.ts';
 import { decodeResults } from './results-codec.ts';
 import type { ResultFlag } from '../chemistry/result-rules.ts';
@@ -13,6 +13,10 @@ import type { GradeEvaluationSchema } from '../grades/evaluation.schemas.ts';
 import type { z } from '../../lib/zod.ts';
 
 const toNumber = (value: string | null) => (value === null ? null : Number(value));
+
+/** A stored % string as a number in the unit; in % the string is read as it is (the same number, without decimal arithmetic). */
+const numberIn = (value: string | null, unit: OutputUnit) =>
+  value === null ? null : Number(unit === '%' ? value : fromPercent(value, unit));
 
 function toResultView(stored: StoredResult, unit: OutputUnit) {
   const converted = convertResult(stored, unit, stored.decimals);
@@ -25,7 +29,7 @@ function toResultView(stored: StoredResult, unit: OutputUnit) {
     min: toNumber(converted.min),
     max: toNumber(converted.max),
     unit,
-    raw_mean: stored.raw_mean === null ? null : Number(fromPercent(stored.raw_mean, unit)),
+    raw_mean: numberIn(stored.raw_mean, unit),
     reported: converted.reported,
     qualifier: converted.qualifier,
     decimals: reportingDecimals(stored.decimals, unit),
@@ -84,7 +88,7 @@ function toBurnView(burn: BurnRow, unit: OutputUnit) {
   const values = JSON.parse(burn.values_json) as Record<string, StoredCell>;
   const raw = JSON.parse(burn.raw_json) as Record<string, RawCell>;
   const corrected = burn.corrected_json ? (JSON.parse(burn.corrected_json) as Record<string, StoredCell>) : null;
-  const inUnit = (v: string | null) => (v === null ? null : Number(fromPercent(v, unit)));
+  const inUnit = (v: string | null) => numberIn(v, unit);
   return {
     number: burn.burn_number,
     measured_at: burn.measured_at,
@@ -107,10 +111,13 @@ function toBurnView(burn: BurnRow, unit: OutputUnit) {
   };
 }
 
-export async function loadSampleDetail(db: Queryable, auth: AuthContext, id: string, unit: OutputUnit) {
-  const row = await loadSample(db, auth, id);
-  const burns = await findBurns(db, id);
-  const importMeta = row.import_id ? await findImportMeta(db, row.import_id) : undefined;
+/** A sample with its burns and provenance, as GET /samples/{id} returns it. */
+export function toSampleDetail(
+  row: SampleRowWithRefs,
+  burns: BurnRow[],
+  importMeta: Pick<ImportMeta, 'sha256' | 'file_name'> | undefined,
+  unit: OutputUnit,
+) {
   return {
     ...toSampleSummary(row, unit),
     burns: burns.map((b) => toBurnView(b, unit)),
@@ -122,4 +129,11 @@ export async function loadSampleDetail(db: Queryable, auth: AuthContext, id: str
       lines: burns.map((b) => b.source_line).filter((line): line is number => line !== null),
     },
   };
+}
+
+export async function loadSampleDetail(db: Queryable, auth: AuthContext, id: string, unit: OutputUnit) {
+  const row = await loadSample(db, auth, id);
+  const burns = await findBurns(db, id);
+  const importMeta = row.import_id ? await findImportMeta(db, row.import_id) : undefined;
+  return toSampleDetail(row, burns, importMeta, unit);
 }

@@ -15,16 +15,10 @@ import { timelineLoader } from '../drift/correction-timeline.ts';
 import { normalisePushedBurns } from './pushed-sample.ts';
 import { buildSampleRows } from './sample-builder.ts';
 import { computeSampleResults } from './sample-results.ts';
-import {
-  type BurnRow,
-  findBurns,
-  findSample,
-  insertSamples,
-  type SampleRow,
-  updateBurn,
-  updateSampleResults,
-} from './samples.repository.ts';
+import { type BurnRow, findBurns, insertSamples, type SampleRow, updateBurn, updateSampleResults } from './samples.repository.ts';
 import { decodeResults, encodeResults } from './results-codec.ts';
+import { loadSample } from './sample-access.ts';
+import { recordSamplesCreated } from './sample-events.ts';
 import type { PushSampleRequestSchema } from './samples.schemas.ts';
 import type { z } from '../../lib/zod.ts';
 import { conformanceJudge } from '../grades/sample-conformance.ts';
@@ -115,6 +109,8 @@ export async function storeNewSamples(
     built.map((b) => b.sample),
     built.flatMap((b) => b.burns),
   );
+  // One sample.created event per sample, whatever the path (push, batch, import, seed).
+  await recordSamplesCreated(trx, built);
   for (const { sample } of built) await recordOutOfSpec(trx, sample, null);
   // A file import is audited once, as import.completed, naming the import that holds the samples.
   if (options.auditEach === false) return;
@@ -143,16 +139,21 @@ export async function recordOutOfSpec(
   before: SampleRow['conforms'],
 ): Promise<void> {
   if (sample.conforms !== 'false' || before === 'false') return;
-  await recordEvent(trx, 'sample.out_of_spec', {
-    sample: { id: sample.id, sample_code: sample.sample_code, heat: sample.heat, grade: sample.grade, instrument_id: sample.instrument_id },
-    conformance: JSON.parse(sample.conformance_json!) as unknown,
-  });
-}
-
-export async function loadSample(db: Queryable, auth: AuthContext, id: string) {
-  const sample = await findSample(db, id);
-  if (!sample || (auth.instrumentIds && !auth.instrumentIds.includes(sample.instrument_id))) throw new NotFoundProblem(`No sample ${id}.`);
-  return sample;
+  await recordEvent(
+    trx,
+    'sample.out_of_spec',
+    {
+      sample: {
+        id: sample.id,
+        sample_code: sample.sample_code,
+        heat: sample.heat,
+        grade: sample.grade,
+        instrument_id: sample.instrument_id,
+      },
+      conformance: JSON.parse(sample.conformance_json!) as unknown,
+    },
+    { instrumentId: sample.instrument_id },
+  );
 }
 
 /** The results of a sample's burns as they stand (excluded ones left out), each with the correction it was stored with. */
@@ -228,3 +229,4 @@ export async function setBurnExclusion(
 }
 
 export type { SampleRow };
+export { loadSample };

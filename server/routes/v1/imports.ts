@@ -7,7 +7,8 @@ import {
   ImportSchema,
   ImportUploadSchema,
 } from '../../domain/imports/imports.schemas.ts';
-import { getImport, getImportFile, listImportsPage, previewImport, uploadImport } from '../../domain/imports/imports.service.ts';
+import { getImport, getImportFile, listImportsPage, previewImport } from '../../domain/imports/imports.service.ts';
+import { uploadImportOrRecordFailure } from '../../domain/imports/import-events.ts';
 import { AUTO_DETECTION_DESCRIPTION } from '../../domain/imports/import-profiles.schemas.ts';
 import { SAMPLE_TEXT_LIMITS as L } from '../../domain/samples/sample-limits.ts';
 import { defineRoute } from '../../http/route.ts';
@@ -47,11 +48,11 @@ export const importRoutes = [
       413: { description: "The file exceeds IMPORT_MAX_BYTES; the problem's `limit_bytes` gives the limit." },
       415: { description: 'Not a multipart/form-data request.' },
       422: {
-        description: `The file cannot be read, a value is broken (all-or-nothing), or a referenced instrument, method or profile does not exist. ${FILE_ISSUES_NOTE}`,
+        description: `The file cannot be read, a value is broken (all-or-nothing), or a referenced instrument, method or profile does not exist; an \`import.failed\` event records the refusal. ${FILE_ISSUES_NOTE}`,
       },
     },
     async handler({ body, auth, req, ctx, reply }) {
-      const { created, record } = await uploadImport(ctx, auth, body, req.requestId);
+      const { created, record } = await uploadImportOrRecordFailure(ctx, auth, body, req.requestId);
       if (created) reply(201, record, { Location: `/api/v1/imports/${record.id}` });
       else reply(200, record);
     },

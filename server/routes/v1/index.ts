@@ -4,6 +4,7 @@ import { auditRoutes } from './audit-events.ts';
 import { authRoutes } from './auth.ts';
 import { driftRoutes } from './drift.ts';
 import { gradeRoutes } from './grades.ts';
+import { eventRoutes } from './events.ts';
 import { healthRoutes } from './health.ts';
 import { importProfileRoutes } from './import-profiles.ts';
 import { importRoutes } from './imports.ts';
@@ -18,6 +19,8 @@ import { sampleReleaseRoutes } from './sample-release.ts';
 import { sampleRoutes } from './samples.ts';
 import { standardizationRoutes } from './standardizations.ts';
 import { userRoutes } from './users.ts';
+import { webhookDeliveryRoutes } from './webhook-deliveries.ts';
+import { webhookEndpointRoutes } from './webhook-endpoints.ts';
 
 /** Every /api/v1 operation. The OpenAPI document and the Express router are both built from this list. */
 export const v1Routes: AnyRoute[] = [
@@ -37,6 +40,9 @@ export const v1Routes: AnyRoute[] = [
   ...standardizationRoutes,
   ...driftRoutes,
   ...gradeRoutes,
+  ...eventRoutes,
+  ...webhookEndpointRoutes,
+  ...webhookDeliveryRoutes,
   ...auditRoutes,
   ...requestLogRoutes,
   ...outboxRoutes,

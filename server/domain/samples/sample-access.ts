@@ -1,0 +1,11 @@
+// Loading one sample as the caller may see it: a key restricted to instruments sees only theirs.
+import type { Queryable } from '../../db/transaction.ts';
+import { NotFoundProblem } from '../../lib/problems.ts';
+import type { AuthContext } from '../auth/auth-context.ts';
+import { findSample } from './samples.repository.ts';
+
+export async function loadSample(db: Queryable, auth: AuthContext, id: string) {
+  const sample = await findSample(db, id);
+  if (!sample || (auth.instrumentIds && !auth.instrumentIds.includes(sample.instrument_id))) throw new NotFoundProblem(`No sample ${id}.`);
+  return sample;
+}
