@@ -12,6 +12,7 @@ import {
   PROBLEM_CONTENT_TYPE,
   ProblemError,
 } from '../lib/problems.ts';
+import { isUnstorableValue } from '../db/errors.ts';
 
 interface HttpishError {
   type?: string;
@@ -35,6 +36,14 @@ function toProblem(error: unknown, bodyLimit: string): ProblemError | undefined 
   if (error instanceof ProblemError) return error;
   const e = (error ?? {}) as HttpishError;
   if (e.type === 'entity.parse.failed') return new MalformedJsonProblem();
+  if (isUnstorableValue(error)) {
+    return new ProblemError(
+      400,
+      'unstorable-value',
+      'A value cannot be stored',
+      'The request holds a value the database cannot store: a NUL character, text longer than the field allows, or a number out of range.',
+    );
+  }
   // Upload size limits are turned into problems where uploads are parsed (http/upload.ts).
   if (e.type === 'entity.too.large') return new PayloadTooLargeProblem(bodyLimit);
   if (e.type === 'encoding.unsupported') {

@@ -75,7 +75,8 @@ function differences(before: DbSnapshot, after: DbSnapshot): string[] {
     .map((table) => `${table}: ${JSON.stringify(before[table])} → ${JSON.stringify(after[table])}`);
 }
 
-describe('fuzz: refused writes change nothing', () => {
+// The snapshot reads SQLite's table list and rowid order; on PostgreSQL the operations fuzz still asserts no 5xx.
+describe.skipIf(process.env.TEST_DATABASE_URL)('fuzz: refused writes change nothing', () => {
   it('the snapshot sees a write that was not refused', async () => {
     const before = await snapshotDb(app.t);
     const res = await send(app, {
