@@ -16,9 +16,10 @@ import { findMethod } from '../methods/methods.repository.ts';
 import { decodeResults, encodeResults } from './results-codec.ts';
 import { type ElementChange, findRevision, insertRevision, listRevisions } from './revisions.repository.ts';
 import { loadSampleDetail } from './sample-view.ts';
-import { type BurnRow, findBurns, findSample, type SampleRowWithRefs, updateAmendedSample, updateBurn } from './samples.repository.ts';
+import { type BurnRow, findBurns, type SampleRowWithRefs, updateAmendedSample, updateBurn } from './samples.repository.ts';
 import type { AmendmentRequestSchema } from './samples.schemas.ts';
-import { loadSample, recordOutOfSpec, resultsOfBurns } from './samples.service.ts';
+import { loadSample } from './sample-access.ts';
+import { recordOutOfSpec, resultsOfBurns } from './samples.service.ts';
 
 type AmendmentInput = z.output<typeof AmendmentRequestSchema>;
 type SampleDocument = Awaited<ReturnType<typeof loadSampleDetail>>;
@@ -154,8 +155,7 @@ export async function getRevisions(ctx: AppContext, auth: AuthContext, id: strin
 
 /** Revision n exactly as it was served. */
 export async function getRevision(ctx: AppContext, auth: AuthContext, id: string, revision: number): Promise<SampleDocument> {
-  const sample = await findSample(ctx.db, id);
-  if (!sample || (auth.instrumentIds && !auth.instrumentIds.includes(sample.instrument_id))) throw new NotFoundProblem(`No sample ${id}.`);
+  const sample = await loadSample(ctx.db, auth, id);
   const row = await findRevision(ctx.db, id, revision);
   if (!row)
     throw new NotFoundProblem(`Sample ${id} has no revision ${revision}${sample.status === 'draft' ? ' (it is not released)' : ''}.`);

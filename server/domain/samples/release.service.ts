@@ -4,7 +4,7 @@
 // sample or last changed its burns may not release it. Several samples (a heat) go all or none.
 import type { AppContext } from '../../context.ts';
 import { inTransaction, type Transaction } from '../../db/transaction.ts';
-import { ConflictProblem, ForbiddenProblem, NotFoundProblem, UnprocessableProblem, type FieldError } from '../../lib/problems.ts';
+import { ConflictProblem, ForbiddenProblem, UnprocessableProblem, type FieldError } from '../../lib/problems.ts';
 import { nowIso } from '../../lib/time.ts';
 import type { z } from '../../lib/zod.ts';
 import { actorOf } from '../audit/actor.ts';
@@ -12,6 +12,7 @@ import { recordAudit } from '../audit/audit.repository.ts';
 import type { AuthContext } from '../auth/auth-context.ts';
 import { recordEvent } from '../events/events.repository.ts';
 import { recordReleasedRevision } from './amendments.service.ts';
+import { isSampleVisible, loadSample } from './sample-access.ts';
 import { loadSampleDetail } from './sample-view.ts';
 import { findSample, markSampleReleased, type SampleRowWithRefs } from './samples.repository.ts';
 import type { ReleaseBatchRequestSchema, ReleaseRequestSchema } from './samples.schemas.ts';
@@ -86,9 +87,7 @@ async function release(
 
 export async function releaseSample(ctx: AppContext, auth: AuthContext, id: string, input: ReleaseInput, requestId?: string) {
   return inTransaction(ctx.db, async (trx) => {
-    const sample = await findSample(trx, id);
-    if (!sample || (auth.instrumentIds && !auth.instrumentIds.includes(sample.instrument_id)))
-      throw new NotFoundProblem(`No sample ${id}.`);
+    const sample = await loadSample(trx, auth, id);
     const refused = refusal(ctx, auth, sample, input);
     if (refused?.status === 409) throw new ConflictProblem(refused.message);
     if (refused?.status === 403) throw new ForbiddenProblem(refused.message);
@@ -109,7 +108,7 @@ export async function releaseSamples(
     const samples: SampleRowWithRefs[] = [];
     for (const [i, id] of input.sample_ids.entries()) {
       const sample = await findSample(trx, id);
-      if (!sample || (auth.instrumentIds && !auth.instrumentIds.includes(sample.instrument_id))) {
+      if (!sample || !isSampleVisible(auth, sample)) {
         errors.push({ location: `body.sample_ids.${i}`, message: `No sample ${id}.` });
         continue;
       }

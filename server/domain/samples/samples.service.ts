@@ -229,4 +229,3 @@ export async function setBurnExclusion(
 }
 
 export type { SampleRow };
-export { loadSample };
