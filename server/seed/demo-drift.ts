@@ -27,6 +27,8 @@ interface PlannedRun {
   daysAgo: number;
   /** An element read as if its true slope were this (the flagged runs). */
   special?: { element: string; slope: number };
+  /** An element read exactly on both references' nominal values: its correction is slope 1, offset 0. */
+  onNominal?: string;
   activate: boolean;
   note?: string;
   override?: string;
@@ -60,6 +62,7 @@ function plans(lab: DemoLab, refs: DemoReferences): Plan[] {
         19: { special: { element: 'C', slope: 1.27 }, note: 'C reads low after the argon bottle change; accepted, within the fail limit' },
         7.1: { special: { element: 'B', slope: 0.45 }, activate: false, note: 'B far off: electrode not cleaned' },
         7: { note: 'Re-run after cleaning the electrode' },
+        1: { onNominal: 'C', note: 'C read on its nominal values at both levels' },
       }),
     },
     {
@@ -107,7 +110,7 @@ function simulate(
         const t = truth.get(element);
         if (!t) continue;
         const reading = ((Number(nominal) - t.offset) / t.slope) * (1 + (random() - 0.5) * 0.003);
-        const text = reading.toFixed(digitsFor(reading));
+        const text = run.onNominal === element ? nominal : reading.toFixed(digitsFor(reading));
         values[element] = { v: text.replace(/0+$/, '').replace(/\.$/, ''), q: null };
         raw[element] = { raw: text, unit: '%' };
       }

@@ -4,6 +4,7 @@ import { seedDemoDrift } from './demo-drift.ts';
 import { seedDemoGrades } from './demo-grades.ts';
 import { seedDemoLab } from './demo-lab.ts';
 import { seedDemoReferences } from './demo-references.ts';
+import { seedDemoRelease } from './demo-release.ts';
 import { seedDemoSamples } from './demo-samples.ts';
 import { seedDemoUsers } from './demo-users.ts';
 
@@ -17,6 +18,7 @@ export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
   const now = new Date();
   const references = await seedDemoReferences(db, now);
   await seedDemoDrift(db, lab, references, now);
-  await seedDemoSamples(db, lab, now);
+  const sampleIds = await seedDemoSamples(db, lab, now);
+  await seedDemoRelease(db, sampleIds);
   return true;
 }

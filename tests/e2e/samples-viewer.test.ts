@@ -41,6 +41,25 @@ describe('samples for a viewer', () => {
     await expect.poll(async () => (await codes()).length).toBe(26);
   });
 
+  it('shows a result on a rounding tie as conforming under ASTM E29, and a straddling bound as undecided', async () => {
+    const conformanceOf = async (heat: string, code: string) => {
+      await page.goto(`${server.url}/samples?heat=${heat}`);
+      await page.getByRole('link', { name: code }).click();
+      await page.getByRole('heading', { name: `Sample ${code}` }).waitFor();
+      return page.getByTestId('conformance');
+    };
+    const row = (panel: Awaited<ReturnType<typeof conformanceOf>>, element: string) =>
+      panel.getByRole('row').filter({ has: page.getByRole('rowheader', { name: element, exact: true }) });
+    // Demo heat K24-0417: C averages 0.505 exactly, rounded half to even to the 0.50 maximum.
+    const tie = await conformanceOf('K24-0417', 'K24-0417-F1');
+    expect(await tie.innerText()).toMatch(/✓ Conforms/);
+    expect((await row(tie, 'C').innerText()).split(/\s+/)).toEqual(['C', '✓', 'Within', '0.505', '0.50', '0.43–0.50', '0']);
+    // Demo lot B24-0121: Cr reported as <0.050 against the AA 6061 minimum 0.04.
+    const lot = await conformanceOf('B24-0121', 'B24-0121-S1');
+    expect(await lot.innerText()).toMatch(/\? Cannot decide[\s\S]*against AA 6061/);
+    expect(await row(lot, 'Cr').innerText()).toMatch(/\?\s*Cannot decide\s*<0\.050/);
+  });
+
   it('filters the table by heat, keeps the filter in the address and across a reload', async () => {
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Samples', exact: true }).click();
     await page.getByTestId('sample-row').first().waitFor();

@@ -64,7 +64,7 @@ function applyBurnChanges(burns: BurnRow[], input: AmendmentInput, errors: Field
   return next;
 }
 
-export async function amendSample(ctx: AppContext, auth: AuthContext, id: string, input: AmendmentInput, requestId?: string) {
+export async function amendSample(ctx: Pick<AppContext, 'db'>, auth: AuthContext, id: string, input: AmendmentInput, requestId?: string) {
   return inTransaction(ctx.db, async (trx) => {
     const sample: SampleRowWithRefs = await loadSample(trx, auth, id);
     if (sample.status !== 'released')

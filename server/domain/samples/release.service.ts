@@ -18,10 +18,12 @@ import { findSample, markSampleReleased, type SampleRowWithRefs } from './sample
 import type { ReleaseBatchRequestSchema, ReleaseRequestSchema } from './samples.schemas.ts';
 
 type ReleaseInput = z.output<typeof ReleaseRequestSchema>;
+/** What releasing needs from the application: the database and the lab's independent-release setting. */
+export type ReleaseContext = Pick<AppContext, 'db'> & { config: Pick<AppContext['config'], 'releaseRequiresSecondPerson'> };
 
 /** Why this caller may not release this sample now, or null. */
 function refusal(
-  ctx: AppContext,
+  ctx: ReleaseContext,
   auth: AuthContext,
   sample: SampleRowWithRefs,
   input: ReleaseInput,
@@ -54,7 +56,7 @@ function refusal(
 
 async function release(
   trx: Transaction,
-  ctx: AppContext,
+  ctx: ReleaseContext,
   auth: AuthContext,
   sample: SampleRowWithRefs,
   input: ReleaseInput,
@@ -85,7 +87,7 @@ async function release(
   return document;
 }
 
-export async function releaseSample(ctx: AppContext, auth: AuthContext, id: string, input: ReleaseInput, requestId?: string) {
+export async function releaseSample(ctx: ReleaseContext, auth: AuthContext, id: string, input: ReleaseInput, requestId?: string) {
   return inTransaction(ctx.db, async (trx) => {
     const sample = await loadSample(trx, auth, id);
     const refused = refusal(ctx, auth, sample, input);
@@ -98,7 +100,7 @@ export async function releaseSample(ctx: AppContext, auth: AuthContext, id: stri
 
 /** Releases every listed sample in one transaction, or none: each refusal is named in errors[]. */
 export async function releaseSamples(
-  ctx: AppContext,
+  ctx: ReleaseContext,
   auth: AuthContext,
   input: z.output<typeof ReleaseBatchRequestSchema>,
   requestId?: string,

@@ -21,4 +21,35 @@ describe('demo scenario', () => {
     const flagged = await agent.get('/api/v1/samples').query({ flag: 'repeatability_exceeded' });
     expect(flagged.body.data.map((s: { sample_code: string }) => s.sample_code)).toEqual(['K24-0414-F1']);
   });
+
+  it('shows the verdicts a lab meets: conforming, failing, on a rounding tie, undetermined, released and amended', async () => {
+    const { agent } = await signedInAgent(t, 'viewer');
+    const bySampleCode = async (code: string) => (await agent.get('/api/v1/samples').query({ sample_code: code })).body.data[0];
+    const verdicts = async (conforms: string) =>
+      (await agent.get('/api/v1/samples').query({ conforms, limit: 200 })).body.data.map((s: { sample_code: string }) => s.sample_code);
+    // The preliminary samples, taken before alloying, fail; every final sample but one conforms.
+    expect((await verdicts('false')).every((code: string) => code.endsWith('-P1'))).toBe(true);
+    expect(await verdicts('false')).toHaveLength(10);
+
+    // C averages 0.505 exactly: ASTM E29 rounds half to even, to 0.50, the maximum (docs/references.md#astm-e29).
+    const tie = await bySampleCode('K24-0417-F1');
+    const carbon = tie.conformance.elements.find((e: { element: string }) => e.element === 'C');
+    expect(carbon).toMatchObject({ value: '0.505', rounded: '0.50', limit_max: '0.50', verdict: 'within', margin: '0' });
+    expect(tie.conformance.conforms).toBe(true);
+
+    // A bound that straddles a limit decides nothing: never "conforms".
+    const lot = await bySampleCode('B24-0121-S1');
+    expect(lot.conformance.conforms).toBeNull();
+    expect(lot.conformance.elements.find((e: { element: string }) => e.element === 'Cr')).toMatchObject({
+      verdict: 'undetermined',
+      limit_min: '0.04',
+    });
+
+    const amended = await bySampleCode('K24-0411-F1');
+    expect(amended).toMatchObject({ status: 'released', revision: 2, release: { by: 'lena.marsh@kestrelbend.test' } });
+    const revisions = (await agent.get(`/api/v1/samples/${amended.id}/revisions`)).body.data;
+    expect(revisions.map((r: { revision: number }) => r.revision)).toEqual([1, 2]);
+    expect(revisions[1].reason).toMatch(/Burn 3 sparked on a crack/);
+    expect((await bySampleCode('K24-0410-F1')).status).toBe('released');
+  });
 });
