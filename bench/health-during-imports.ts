@@ -6,7 +6,7 @@ import { createApiKey } from '../server/domain/api-keys/api-keys.service.ts';
 import { sessionAuthContext } from '../server/domain/auth/auth.service.ts';
 import { findInstrumentByCode } from '../server/domain/instruments/instruments.repository.ts';
 import { insertMethod } from '../server/domain/methods/methods.repository.ts';
-import { DEFAULT_DRIFT_LIMITS } from '../server/domain/methods/methods.schemas.ts';
+import { DEFAULT_DRIFT_LIMITS, DEFAULT_REPORTING } from '../server/domain/methods/methods.schemas.ts';
 import { findUserByEmail } from '../server/domain/users/users.repository.ts';
 import { newId } from '../server/lib/ids.ts';
 import { nowIso } from '../server/lib/time.ts';
@@ -52,6 +52,7 @@ async function main(): Promise<void> {
       matrix: 'Fe',
       default_unit: '%' as const,
       drift_limits: DEFAULT_DRIFT_LIMITS,
+      reporting: DEFAULT_REPORTING,
       created_at: nowIso(),
       updated_at: nowIso(),
       elements: WIDE_FILE_ELEMENTS.map((element) => ({

@@ -27,6 +27,7 @@ import * as createGradeVersions from './20261202200100_create_grade_versions.ts'
 import * as addSamplesConformance from './20261202200200_add_samples_conformance.ts';
 import * as addSamplesRelease from './20261202200300_add_samples_release.ts';
 import * as createSampleRevisions from './20261202200400_create_sample_revisions.ts';
+import * as addMethodsReporting from './20261202300100_add_methods_reporting.ts';
 
 export interface Migration {
   up(knex: Knex): Promise<void>;
@@ -60,4 +61,5 @@ export const migrations: Record<string, Migration> = {
   '20261202200200_add_samples_conformance': addSamplesConformance,
   '20261202200300_add_samples_release': addSamplesRelease,
   '20261202200400_create_sample_revisions': createSampleRevisions,
+  '20261202300100_add_methods_reporting': addMethodsReporting,
 };

@@ -6,7 +6,7 @@ import { SYSTEM_ACTOR } from '../domain/audit/actor.ts';
 import { recordAudit } from '../domain/audit/audit.repository.ts';
 import { insertInstrument, type InstrumentRow } from '../domain/instruments/instruments.repository.ts';
 import { insertMethod, type Method, type MethodElement } from '../domain/methods/methods.repository.ts';
-import { DEFAULT_DRIFT_LIMITS } from '../domain/methods/methods.schemas.ts';
+import { DEFAULT_DRIFT_LIMITS, DEFAULT_REPORTING } from '../domain/methods/methods.schemas.ts';
 import { newId } from '../lib/ids.ts';
 import { nowIso } from '../lib/time.ts';
 
@@ -88,6 +88,7 @@ export async function seedDemoLab(db: Db): Promise<DemoLab> {
     default_unit: '%',
     elements: elements(FE_LOW_ALLOY),
     drift_limits: DEFAULT_DRIFT_LIMITS,
+    reporting: DEFAULT_REPORTING,
     created_at: now,
     updated_at: now,
   };
@@ -99,6 +100,8 @@ export async function seedDemoLab(db: Db): Promise<DemoLab> {
     default_unit: '%',
     elements: elements(AL_WROUGHT),
     drift_limits: DEFAULT_DRIFT_LIMITS,
+    // The cast house reports aluminium as the balance, by difference.
+    reporting: { ...DEFAULT_REPORTING, balance_by_difference: true },
     created_at: now,
     updated_at: now,
   };

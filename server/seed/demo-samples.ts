@@ -55,11 +55,14 @@ const FINAL_BURNS: Record<string, BurnPlan> = {
   'K24-0417': { exact: { C: ['0.5040', '0.5060', '0.5050'] } },
 };
 
-/** Billet lots read differently from their alloy's nominal composition. */
-const LOT_OVERRIDES: Record<string, Composition> = {
+/** Billet lots whose sample shows something a lab meets. */
+const LOT_BURNS: Record<string, BurnPlan> = {
   // Cr reported only as below 0.05 %: the bound straddles the 6061 minimum of 0.04 %, so the verdict
   // is undetermined and the lot cannot be released without a concession.
-  'B24-0121': { Cr: '<0.05' },
+  'B24-0121': { exact: { Cr: ['<0.05', '<0.05', '<0.05'] } },
+  // One burn read Ni below the working range while the others measured it (a failed spark):
+  // the Ni result is withheld under the method's default rule.
+  'B24-0122': { exact: { Ni: ['<0.002', '0.0041', '0.0043'] } },
 };
 
 /** Park–Miller minimal standard generator: deterministic and good enough for demo noise. */
@@ -74,7 +77,7 @@ export function generator(seed: number) {
 interface BurnPlan {
   /** This element's last burn reads 10 % high: the kind of disagreement the repeatability check catches. */
   outlier?: string;
-  /** Burns written exactly as given for these elements (one text per burn), instead of around the nominal. */
+  /** Burns written exactly as given for these elements (one text per burn, "<0.05" qualified), instead of around the nominal. */
   exact?: Record<string, string[]>;
 }
 
@@ -91,7 +94,8 @@ function burnsAround(nominal: Composition, count: number, random: () => number, 
       // Noise is drawn for exact elements too, so that fixing one element leaves the others as they were.
       const factor = plan.outlier === element && i === count - 1 ? 1.1 : 1 + (random() - 0.5) * 0.016;
       const text = plan.exact?.[element]?.[i] ?? (target * factor).toFixed(target < 0.01 ? 5 : 4);
-      values[element] = { v: toPercent(text, '%'), q: null };
+      const qualifier = text[0] === '<' || text[0] === '>' ? text[0] : null;
+      values[element] = { v: toPercent(qualifier ? text.slice(1) : text, '%'), q: qualifier };
       raw[element] = { raw: text, unit: '%' };
     }
     return { burn_number: i + 1, measured_at: new Date(start.getTime() + i * 45_000).toISOString(), values, raw };
@@ -158,7 +162,7 @@ export async function seedDemoSamples(db: Db, lab: DemoLab, now = new Date()): P
         method: lab.alMethod,
         source: 'push',
         created_by_label: 'demo seed',
-        burns: burnsAround({ ...(grade === 'AA 6061' ? AL_6061 : AL_6063), ...LOT_OVERRIDES[lot] }, 3, random, cast),
+        burns: burnsAround(grade === 'AA 6061' ? AL_6061 : AL_6063, 3, random, cast, LOT_BURNS[lot]),
       },
       storedAt: storedAfter(cast),
     });

@@ -10,7 +10,7 @@ export const SampleKindValues = ["preliminary","final","ladle","incoming","contr
 
 export const SampleStatusValues = ["draft","released"] as const;
 
-export const ResultFlagValues = ["not_measured","single_burn","repeatability_exceeded","repeatability_unchecked","below_detection_limit","below_working_range","above_working_range","burns_outside_working_range","all_burns_qualified","mixed_qualified_burns","not_detected","conflicting_qualified_burns","limit_missing","negative_after_correction","not_in_method"] as const;
+export const ResultFlagValues = ["not_measured","single_burn","repeatability_exceeded","repeatability_unchecked","below_detection_limit","below_working_range","above_working_range","burns_outside_working_range","below_zero","all_burns_qualified","mixed_qualified_burns","not_detected","conflicting_qualified_burns","limit_missing","negative_after_correction","balance_by_difference","sum_above_100","not_in_method"] as const;
 export const ResultFlagDescriptions = {
   "not_measured": "No included burn measured this element: there is no result.",
   "single_burn": "The result rests on one numeric burn: no SD, RSD or repeatability check.",
@@ -20,13 +20,16 @@ export const ResultFlagDescriptions = {
   "below_working_range": "The mean (or its upper bound) is below the lower end of the method's working range.",
   "above_working_range": "The mean (or its lower bound) is above the upper end of the method's working range.",
   "burns_outside_working_range": "At least one burn lies outside the working range although the result does not.",
+  "below_zero": "The corrected mean is below 0 (possible after an additive drift correction): reported as \"<\" the lowest reportable value — one reporting step when the method sets no limit. `mean` keeps the computed value for traceability.",
   "all_burns_qualified": "Every burn was reported as \"<\", \">\" or n.d.: the result is a bound, there is no mean.",
-  "mixed_qualified_burns": "Numeric burns and \"<\", \">\" or n.d. burns together: the result is a bound; mean, SD and n describe the numeric burns only.",
+  "mixed_qualified_burns": "Numeric burns and \"<\", \">\" or n.d. burns together — usually a failed spark. Withheld by default (nothing reported: spark again); under the method's treat_as_bound rule the result is a bound and `mean` is null, so the two never contradict each other.",
   "not_detected": "At least one burn was reported as not detected (counted as \"<\" the detection limit).",
   "conflicting_qualified_burns": "Burns say both \"<\" and \">\": no bound holds, nothing is reported.",
   "limit_missing": "A burn is qualified without a value (n.d., or \"<\"/\">\" alone) and the method sets no limit to bound it: nothing is reported.",
-  "negative_after_correction": "At least one burn is below 0 after drift correction. Corrected values are not clamped to 0 (that would bias the mean and break its linearity); a mean below the detection limit is reported as \"<\" the limit as usual.",
-  "not_in_method": "The method does not list this element; it is averaged anyway, with 4 reporting decimals and no limits."
+  "negative_after_correction": "At least one burn is below 0 after drift correction. Corrected burn values are kept as computed (clamping them to 0 would bias the mean); no reported value or bound is ever below 0.",
+  "balance_by_difference": "The method's matrix element, reported by difference: 100 % minus every other reported element (numeric results at their mean, \"<\" results as 0, \">\" results at their bound). Not measured; nothing is reported when another element has no reported value or the others add up to more than 100 %.",
+  "sum_above_100": "On the sample: its reported elements add up to more than 100 % plus the method's tolerance (default 0.5 %). Check the burns and the method before using the result.",
+  "not_in_method": "The method does not list this element: its burns are kept and averaged for traceability but nothing is reported, unless the method reports unlisted elements (then with 4 decimals and no limits)."
 } as const;
 
 export const OutputUnitValues = ["%","ppm","ppb"] as const;

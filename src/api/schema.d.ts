@@ -432,13 +432,16 @@ export interface paths {
          *     1. The mean, SD (n − 1), RSD % = 100·SD/|mean|, n, min and max are computed over the included burns that carry a numeric value. SD and RSD are null for one burn, RSD also when the mean is 0. (Basis: Averaging two or three burns: common practice, no source. SD and coefficient of variation as defined in ISO 3534-1 (from memory).)
          *     2. reported = the mean rounded half to even, in one step from the full-precision mean, to the method's decimals for the element, written with trailing zeros ("0.70"). (Basis: ASTM E29 (rounding method); ISO 80000-1 Annex B, rule A.)
          *     3. An element that no included burn measured has no result: all values null, flag not_measured. (Basis: Common practice, no source.)
-         *     4. A mean below the detection limit or below the lower end of the working range is reported as "<" the lowest reportable value, i.e. the larger of those two limits that the method sets. A mean above the upper end of the working range is reported as ">" that end. Limits are compared with the full-precision mean; a mean equal to a limit is inside. (Basis: Qualifiers "<"/">" for results outside what the method can quantify: product requirement; reporting "< limit" is common practice, no source.)
-         *     5. Burns reported as "<" (n.d. counts as "<" the detection limit): the result is "<" an upper bound — the mean of all burns with each "<" burn set to its limit — but never less than the lowest reportable value. Every burn "<" gives a "<" result (flag all_burns_qualified); "<" and numeric burns together also give a "<" result (flag mixed_qualified_burns). (Basis: Upper-bound substitution for left-censored data (WHO GEMS/Food 1995; EFSA 2010 — from memory); applying it to burns is our choice, no source.)
+         *     4. A mean below the detection limit or below the lower end of the working range is reported as "<" the lowest reportable value, i.e. the larger of those two limits that the method sets. A mean above the upper end of the working range is reported as ">" that end. Limits are compared with the full-precision mean; a mean equal to a limit is inside. A mean below 0 (after an additive drift correction) is reported as "<" the lowest reportable value too — "<" one reporting step when the method sets no limit — with the flag below_zero; `mean` keeps the computed value. (Basis: Qualifiers "<"/">" for results outside what the method can quantify: product requirement; reporting "< limit" is common practice, no source.)
+         *     5. Burns all reported as "<" (n.d. counts as "<" the detection limit): the result is "<" an upper bound — the mean of the burns at their limits — but never less than the lowest reportable value (one reporting step when the method sets none), so no bound is ever below 0 (flag all_burns_qualified). Numeric and "<", ">" or n.d. burns together (flag mixed_qualified_burns), usually a failed spark, follow the method's rule: `withhold` (the default) reports nothing — spark again; `treat_as_bound` reports "<" the same upper bound (">" a lower bound) with `mean`, SD and RSD null, so that mean and bound never contradict each other. (Basis: Upper-bound substitution for left-censored data (WHO GEMS/Food 1995; EFSA 2010 — from memory); applying it to burns is our choice, no source.)
          *     6. Burns reported as ">": the result is ">" a lower bound — the mean with each ">" burn set to its limit — capped at the upper end of the working range. Every burn ">" gives a ">" result. (Basis: The same substitution mirrored for right-censored values: common practice, no source.)
          *     7. Burns saying both "<" and ">", or a qualified burn with no value and no method limit to stand for it: nothing is reported (reported and qualifier null) and a flag says why. (Basis: No bound is true in these cases: common practice, no source.)
          *     8. A "<" bound is written with the method's decimals rounded up, a ">" bound rounded down, so that the statement stays true ("<0.00045" at 3 decimals → "<0.001"). (Basis: Common practice, no source.)
          *     9. Individual burns outside the working range while the result is inside are flagged (burns_outside_working_range), not changed. (Basis: Common practice, no source.)
-         *     10. With at least two numeric burns and a repeatability SD σr set for the element, the range of the burns is compared with the critical range f(n)·σr (f(2) = 2.77, f(3) = 3.31 …, up to n = 20); a larger range sets repeatability_exceeded. The result is still the mean: the analyst excludes a burn or sparks again. (Basis: ISO 5725-6:1994 §5.2 and Table 1 (critical range factors). The standard itself would take further results and report the median; flagging instead is our choice.)
+         *     10. With at least two burns, one of them numeric, and a repeatability SD σr set for the element, the range of the burns — the least range they can span, a "<" burn counted at its bound from below and a ">" burn from above — is compared with the critical range f(n)·σr (f(2) = 2.77, f(3) = 3.31 …, up to n = 20); a larger range sets repeatability_exceeded. The result is still the mean: the analyst excludes a burn or sparks again. (Basis: ISO 5725-6:1994 §5.2 and Table 1 (critical range factors). The standard itself would take further results and report the median; flagging instead is our choice.)
+         *     11. Elements the method does not list are kept in the burns and averaged for traceability, but nothing is reported (flag not_in_method) unless the method reports unlisted elements (reporting.unlisted_elements = "report"; then with 4 decimals and no limits). (Basis: A result outside the validated scope of the method is not a reportable result (ISO/IEC 17025 §7.2, from memory); the opt-in is a product choice.)
+         *     12. When the method reports its matrix element by difference (reporting.balance_by_difference), that element is 100 % minus every other reported element: numeric results at their full-precision mean, "<" results as 0, ">" results at their bound; rounded like any result and flagged balance_by_difference. Nothing is reported for it when another element has no reported value or the others exceed 100 %. (Basis: Reporting the base metal as "balance" or "remainder" is common practice, no source; counting "<" results as 0 is our choice and makes the balance an upper estimate by at most the sum of those bounds.)
+         *     13. A sample whose reported elements (numeric at their mean, ">" at their bound, the balance left out) add up to more than 100 % plus the method's tolerance (reporting.sum_tolerance, default 0.5 %) carries the flag sum_above_100. (Basis: Mass fractions cannot add up to more than 100 %; the 0.5 % default tolerance is common practice, no source.)
          *
          *     **Result flags**
          *
@@ -450,13 +453,16 @@ export interface paths {
          *     - `below_working_range`: The mean (or its upper bound) is below the lower end of the method's working range.
          *     - `above_working_range`: The mean (or its lower bound) is above the upper end of the method's working range.
          *     - `burns_outside_working_range`: At least one burn lies outside the working range although the result does not.
+         *     - `below_zero`: The corrected mean is below 0 (possible after an additive drift correction): reported as "<" the lowest reportable value — one reporting step when the method sets no limit. `mean` keeps the computed value for traceability.
          *     - `all_burns_qualified`: Every burn was reported as "<", ">" or n.d.: the result is a bound, there is no mean.
-         *     - `mixed_qualified_burns`: Numeric burns and "<", ">" or n.d. burns together: the result is a bound; mean, SD and n describe the numeric burns only.
+         *     - `mixed_qualified_burns`: Numeric burns and "<", ">" or n.d. burns together — usually a failed spark. Withheld by default (nothing reported: spark again); under the method's treat_as_bound rule the result is a bound and `mean` is null, so the two never contradict each other.
          *     - `not_detected`: At least one burn was reported as not detected (counted as "<" the detection limit).
          *     - `conflicting_qualified_burns`: Burns say both "<" and ">": no bound holds, nothing is reported.
          *     - `limit_missing`: A burn is qualified without a value (n.d., or "<"/">" alone) and the method sets no limit to bound it: nothing is reported.
-         *     - `negative_after_correction`: At least one burn is below 0 after drift correction. Corrected values are not clamped to 0 (that would bias the mean and break its linearity); a mean below the detection limit is reported as "<" the limit as usual.
-         *     - `not_in_method`: The method does not list this element; it is averaged anyway, with 4 reporting decimals and no limits.
+         *     - `negative_after_correction`: At least one burn is below 0 after drift correction. Corrected burn values are kept as computed (clamping them to 0 would bias the mean); no reported value or bound is ever below 0.
+         *     - `balance_by_difference`: The method's matrix element, reported by difference: 100 % minus every other reported element (numeric results at their mean, "<" results as 0, ">" results at their bound). Not measured; nothing is reported when another element has no reported value or the others add up to more than 100 %.
+         *     - `sum_above_100`: On the sample: its reported elements add up to more than 100 % plus the method's tolerance (default 0.5 %). Check the burns and the method before using the result.
+         *     - `not_in_method`: The method does not list this element: its burns are kept and averaged for traceability but nothing is reported, unless the method reports unlisted elements (then with 4 decimals and no limits).
          *
          *     Results must be reviewed and authorised under the laboratory's own procedures before release.
          *
@@ -535,13 +541,16 @@ export interface paths {
          *     1. The mean, SD (n − 1), RSD % = 100·SD/|mean|, n, min and max are computed over the included burns that carry a numeric value. SD and RSD are null for one burn, RSD also when the mean is 0. (Basis: Averaging two or three burns: common practice, no source. SD and coefficient of variation as defined in ISO 3534-1 (from memory).)
          *     2. reported = the mean rounded half to even, in one step from the full-precision mean, to the method's decimals for the element, written with trailing zeros ("0.70"). (Basis: ASTM E29 (rounding method); ISO 80000-1 Annex B, rule A.)
          *     3. An element that no included burn measured has no result: all values null, flag not_measured. (Basis: Common practice, no source.)
-         *     4. A mean below the detection limit or below the lower end of the working range is reported as "<" the lowest reportable value, i.e. the larger of those two limits that the method sets. A mean above the upper end of the working range is reported as ">" that end. Limits are compared with the full-precision mean; a mean equal to a limit is inside. (Basis: Qualifiers "<"/">" for results outside what the method can quantify: product requirement; reporting "< limit" is common practice, no source.)
-         *     5. Burns reported as "<" (n.d. counts as "<" the detection limit): the result is "<" an upper bound — the mean of all burns with each "<" burn set to its limit — but never less than the lowest reportable value. Every burn "<" gives a "<" result (flag all_burns_qualified); "<" and numeric burns together also give a "<" result (flag mixed_qualified_burns). (Basis: Upper-bound substitution for left-censored data (WHO GEMS/Food 1995; EFSA 2010 — from memory); applying it to burns is our choice, no source.)
+         *     4. A mean below the detection limit or below the lower end of the working range is reported as "<" the lowest reportable value, i.e. the larger of those two limits that the method sets. A mean above the upper end of the working range is reported as ">" that end. Limits are compared with the full-precision mean; a mean equal to a limit is inside. A mean below 0 (after an additive drift correction) is reported as "<" the lowest reportable value too — "<" one reporting step when the method sets no limit — with the flag below_zero; `mean` keeps the computed value. (Basis: Qualifiers "<"/">" for results outside what the method can quantify: product requirement; reporting "< limit" is common practice, no source.)
+         *     5. Burns all reported as "<" (n.d. counts as "<" the detection limit): the result is "<" an upper bound — the mean of the burns at their limits — but never less than the lowest reportable value (one reporting step when the method sets none), so no bound is ever below 0 (flag all_burns_qualified). Numeric and "<", ">" or n.d. burns together (flag mixed_qualified_burns), usually a failed spark, follow the method's rule: `withhold` (the default) reports nothing — spark again; `treat_as_bound` reports "<" the same upper bound (">" a lower bound) with `mean`, SD and RSD null, so that mean and bound never contradict each other. (Basis: Upper-bound substitution for left-censored data (WHO GEMS/Food 1995; EFSA 2010 — from memory); applying it to burns is our choice, no source.)
          *     6. Burns reported as ">": the result is ">" a lower bound — the mean with each ">" burn set to its limit — capped at the upper end of the working range. Every burn ">" gives a ">" result. (Basis: The same substitution mirrored for right-censored values: common practice, no source.)
          *     7. Burns saying both "<" and ">", or a qualified burn with no value and no method limit to stand for it: nothing is reported (reported and qualifier null) and a flag says why. (Basis: No bound is true in these cases: common practice, no source.)
          *     8. A "<" bound is written with the method's decimals rounded up, a ">" bound rounded down, so that the statement stays true ("<0.00045" at 3 decimals → "<0.001"). (Basis: Common practice, no source.)
          *     9. Individual burns outside the working range while the result is inside are flagged (burns_outside_working_range), not changed. (Basis: Common practice, no source.)
-         *     10. With at least two numeric burns and a repeatability SD σr set for the element, the range of the burns is compared with the critical range f(n)·σr (f(2) = 2.77, f(3) = 3.31 …, up to n = 20); a larger range sets repeatability_exceeded. The result is still the mean: the analyst excludes a burn or sparks again. (Basis: ISO 5725-6:1994 §5.2 and Table 1 (critical range factors). The standard itself would take further results and report the median; flagging instead is our choice.)
+         *     10. With at least two burns, one of them numeric, and a repeatability SD σr set for the element, the range of the burns — the least range they can span, a "<" burn counted at its bound from below and a ">" burn from above — is compared with the critical range f(n)·σr (f(2) = 2.77, f(3) = 3.31 …, up to n = 20); a larger range sets repeatability_exceeded. The result is still the mean: the analyst excludes a burn or sparks again. (Basis: ISO 5725-6:1994 §5.2 and Table 1 (critical range factors). The standard itself would take further results and report the median; flagging instead is our choice.)
+         *     11. Elements the method does not list are kept in the burns and averaged for traceability, but nothing is reported (flag not_in_method) unless the method reports unlisted elements (reporting.unlisted_elements = "report"; then with 4 decimals and no limits). (Basis: A result outside the validated scope of the method is not a reportable result (ISO/IEC 17025 §7.2, from memory); the opt-in is a product choice.)
+         *     12. When the method reports its matrix element by difference (reporting.balance_by_difference), that element is 100 % minus every other reported element: numeric results at their full-precision mean, "<" results as 0, ">" results at their bound; rounded like any result and flagged balance_by_difference. Nothing is reported for it when another element has no reported value or the others exceed 100 %. (Basis: Reporting the base metal as "balance" or "remainder" is common practice, no source; counting "<" results as 0 is our choice and makes the balance an upper estimate by at most the sum of those bounds.)
+         *     13. A sample whose reported elements (numeric at their mean, ">" at their bound, the balance left out) add up to more than 100 % plus the method's tolerance (reporting.sum_tolerance, default 0.5 %) carries the flag sum_above_100. (Basis: Mass fractions cannot add up to more than 100 %; the 0.5 % default tolerance is common practice, no source.)
          *
          *     **Result flags**
          *
@@ -553,13 +562,16 @@ export interface paths {
          *     - `below_working_range`: The mean (or its upper bound) is below the lower end of the method's working range.
          *     - `above_working_range`: The mean (or its lower bound) is above the upper end of the method's working range.
          *     - `burns_outside_working_range`: At least one burn lies outside the working range although the result does not.
+         *     - `below_zero`: The corrected mean is below 0 (possible after an additive drift correction): reported as "<" the lowest reportable value — one reporting step when the method sets no limit. `mean` keeps the computed value for traceability.
          *     - `all_burns_qualified`: Every burn was reported as "<", ">" or n.d.: the result is a bound, there is no mean.
-         *     - `mixed_qualified_burns`: Numeric burns and "<", ">" or n.d. burns together: the result is a bound; mean, SD and n describe the numeric burns only.
+         *     - `mixed_qualified_burns`: Numeric burns and "<", ">" or n.d. burns together — usually a failed spark. Withheld by default (nothing reported: spark again); under the method's treat_as_bound rule the result is a bound and `mean` is null, so the two never contradict each other.
          *     - `not_detected`: At least one burn was reported as not detected (counted as "<" the detection limit).
          *     - `conflicting_qualified_burns`: Burns say both "<" and ">": no bound holds, nothing is reported.
          *     - `limit_missing`: A burn is qualified without a value (n.d., or "<"/">" alone) and the method sets no limit to bound it: nothing is reported.
-         *     - `negative_after_correction`: At least one burn is below 0 after drift correction. Corrected values are not clamped to 0 (that would bias the mean and break its linearity); a mean below the detection limit is reported as "<" the limit as usual.
-         *     - `not_in_method`: The method does not list this element; it is averaged anyway, with 4 reporting decimals and no limits.
+         *     - `negative_after_correction`: At least one burn is below 0 after drift correction. Corrected burn values are kept as computed (clamping them to 0 would bias the mean); no reported value or bound is ever below 0.
+         *     - `balance_by_difference`: The method's matrix element, reported by difference: 100 % minus every other reported element (numeric results at their mean, "<" results as 0, ">" results at their bound). Not measured; nothing is reported when another element has no reported value or the others add up to more than 100 %.
+         *     - `sum_above_100`: On the sample: its reported elements add up to more than 100 % plus the method's tolerance (default 0.5 %). Check the burns and the method before using the result.
+         *     - `not_in_method`: The method does not list this element: its burns are kept and averaged for traceability but nothing is reported, unless the method reports unlisted elements (then with 4 decimals and no limits).
          *
          *     Results must be reviewed and authorised under the laboratory's own procedures before release.
          *
@@ -1765,6 +1777,7 @@ export interface components {
             default_unit: "%" | "ppm" | "ppb";
             elements: components["schemas"]["MethodElement"][];
             drift_limits: components["schemas"]["DriftLimits"];
+            reporting: components["schemas"]["MethodReporting"];
             /** Format: date-time */
             created_at: string;
             /** Format: date-time */
@@ -1816,6 +1829,32 @@ export interface components {
              */
             fail: string;
         };
+        /** @description Reporting rules of the method (see the result rules in GET /samples/{id}). Changing them affects results computed from then on. */
+        MethodReporting: {
+            /**
+             * @description Numeric and "<", ">" or n.d. burns of one element together (usually a failed spark): `withhold` reports nothing (spark again); `treat_as_bound` reports the bound with the mean of every burn at its limit, `mean` null.
+             * @default withhold
+             * @enum {string}
+             */
+            mixed_qualified_burns: "withhold" | "treat_as_bound";
+            /**
+             * @description Report the matrix element as 100 % minus the other reported elements (flag balance_by_difference).
+             * @default false
+             */
+            balance_by_difference: boolean;
+            /**
+             * @description A sample whose reported elements add up to more than 100 % plus this (in %) is flagged sum_above_100.
+             * @default 0.5
+             * @example 0.5
+             */
+            sum_tolerance: string;
+            /**
+             * @description Elements measured but not listed in the method: `keep_unreported` keeps their burns and mean but reports nothing (flag not_in_method); `report` reports them with 4 decimals and no limits.
+             * @default keep_unreported
+             * @enum {string}
+             */
+            unlisted_elements: "keep_unreported" | "report";
+        };
         CreateMethodRequest: {
             /** @example FE-LA */
             code: string;
@@ -1832,6 +1871,7 @@ export interface components {
             default_unit: "%" | "ppm" | "ppb";
             elements: components["schemas"]["MethodElement"][];
             drift_limits?: components["schemas"]["DriftLimits"];
+            reporting?: components["schemas"]["MethodReporting"];
         };
         UpdateMethodRequest: {
             name?: string;
@@ -1840,6 +1880,7 @@ export interface components {
             /** @description Replaces the element list. Stored results keep the settings they were computed with until recomputed. */
             elements?: components["schemas"]["MethodElement"][];
             drift_limits?: components["schemas"]["DriftLimits"] & unknown;
+            reporting?: components["schemas"]["MethodReporting"] & unknown;
         };
         SampleList: {
             data: components["schemas"]["SampleSummary"][];
@@ -1898,7 +1939,7 @@ export interface components {
          * @description A flag on an element result.
          * @enum {string}
          */
-        ResultFlag: "not_measured" | "single_burn" | "repeatability_exceeded" | "repeatability_unchecked" | "below_detection_limit" | "below_working_range" | "above_working_range" | "burns_outside_working_range" | "all_burns_qualified" | "mixed_qualified_burns" | "not_detected" | "conflicting_qualified_burns" | "limit_missing" | "negative_after_correction" | "not_in_method";
+        ResultFlag: "not_measured" | "single_burn" | "repeatability_exceeded" | "repeatability_unchecked" | "below_detection_limit" | "below_working_range" | "above_working_range" | "burns_outside_working_range" | "below_zero" | "all_burns_qualified" | "mixed_qualified_burns" | "not_detected" | "conflicting_qualified_burns" | "limit_missing" | "negative_after_correction" | "balance_by_difference" | "sum_above_100" | "not_in_method";
         ElementResult: {
             /** @example Mn */
             element: string;

@@ -60,6 +60,19 @@ describe('samples for a viewer', () => {
     expect(await row(lot, 'Cr').innerText()).toMatch(/\?\s*Cannot decide\s*<0\.050/);
   });
 
+  it('says in words why a result is withheld and that the balance is by difference', async () => {
+    await page.goto(`${server.url}/samples?heat=B24-0122`);
+    await page.getByRole('link', { name: 'B24-0122-S1' }).click();
+    await page.getByRole('heading', { name: 'Sample B24-0122-S1' }).waitFor();
+    const ni = page.locator('[data-testid="result-row"][data-element="Ni"]');
+    expect(await ni.getByTestId('reported').innerText()).toBe('withheld');
+    expect(await ni.innerText()).toContain('Withheld: burns disagree (spark again)');
+    const al = page.locator('[data-testid="result-row"][data-element="Al"]');
+    expect(await al.innerText()).toContain('Balance, by difference');
+    await page.getByText('What the flags mean').waitFor();
+    expect(await page.getByText(/usually a failed spark/).count()).toBeGreaterThan(0);
+  });
+
   it('filters the table by heat, keeps the filter in the address and across a reload', async () => {
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Samples', exact: true }).click();
     await page.getByTestId('sample-row').first().waitFor();

@@ -9,11 +9,16 @@
  *    not_measured.                                                        — common practice, no source
  * 4. All numeric: mean < detection limit or < working-range low → "<" the lowest reportable value
  *    (the larger of the limits set); mean > working-range high → ">" that end; limits compared with
- *    the full-precision mean, equal is inside.            — product requirement; common practice, no source
- * 5. "<" burns (n.d. = "<" the detection limit; "<" without a value likewise): "<" the upper bound
- *    U = mean of all burns with each "<" burn at its limit, raised to the lowest reportable value.
- *    All "<" → "<" (all_burns_qualified); mixed with numeric → "<" (mixed_qualified_burns); mean, sd,
- *    n stay those of the numeric burns.   — upper-bound substitution (WHO GEMS/Food; EFSA 2010, from memory)
+ *    the full-precision mean, equal is inside. A mean below 0 (possible after an additive drift
+ *    correction) is reported the same way, "<" one reporting step when the method sets no limit,
+ *    flag below_zero; `mean` keeps the computed value.  — product requirement; common practice, no source
+ * 5. "<" burns (n.d. = "<" the detection limit; "<" without a value likewise), all of them "<":
+ *    "<" the upper bound U = mean of the burns at their limits, raised to the lowest reportable value
+ *    (one reporting step when the method sets none), so a bound is never below 0 (all_burns_qualified).
+ *    Numeric and qualified burns together (mixed_qualified_burns) — usually a failed spark — are
+ *    withheld by default: nothing reported, spark again. Under the method's `treat_as_bound` rule
+ *    they give "<" U (or ">" G) with `mean` null, so mean and bound never contradict each other.
+ *                         — upper-bound substitution (WHO GEMS/Food; EFSA 2010, from memory)
  * 6. ">" burns: ">" the lower bound G (each ">" burn at its limit), capped at working-range high.
  *                                                                         — mirror of 5, common practice, no source
  * 7. "<" and ">" burns together → nothing reported (conflicting_qualified_burns); a qualified burn
@@ -23,8 +28,9 @@
  *    that "<"/">" stays true.                                             — common practice, no source
  * 9. Single burns outside the working range while the result is inside → flag only.
  *                                                                         — common practice, no source
- * 10. ≥ 2 numeric burns and σr set → ISO 5725-6 §5.2 critical range f(n)·σr; a larger range flags
- *    repeatability_exceeded (the standard would take more burns and report the median; we flag and
+ * 10. ≥ 2 burns (at least one numeric) and σr set → ISO 5725-6 §5.2 critical range f(n)·σr; a larger
+ *    range flags repeatability_exceeded. A "<" burn counts at its bound from below, a ">" burn from
+ *    above, so the range used is the least the burns can span (the standard would take more burns and report the median; we flag and
  *    leave the decision to the analyst); more than 20 burns → repeatability_unchecked.
  */
 import { isAbove, isBelow } from './decimal-compare.ts';
@@ -49,7 +55,12 @@ export interface ElementSettings {
   working_range_high?: string | null;
   /** Repeatability standard deviation σr in %. */
   repeatability_sd?: string | null;
+  /** What numeric and qualified burns together give (default withhold: nothing reported). */
+  mixed_qualified_burns?: MixedBurnsRule;
 }
+
+export const MIXED_BURNS_RULES = ['withhold', 'treat_as_bound'] as const;
+export type MixedBurnsRule = (typeof MIXED_BURNS_RULES)[number];
 
 export interface ElementResultInput {
   element: string;
@@ -121,16 +132,15 @@ export function computeElementResult(input: ElementResultInput): ElementResult {
   if (summary.n + qualified === 0) return finish(result, new Set(['not_measured']));
   if (summary.n === 1) flags.add('single_burn');
   if (qualified > 0) flags.add(summary.n === 0 ? 'all_burns_qualified' : 'mixed_qualified_burns');
-  if (settings.repeatability_sd && summary.n >= MIN_BURNS_FOR_CHECK) {
-    result.repeatability = rangeCheck(summary.min as string, summary.max as string, summary.n, settings.repeatability_sd);
-    if (result.repeatability?.exceeded) flags.add('repeatability_exceeded');
-    if (summary.n > MAX_BURNS_FOR_CHECK) flags.add('repeatability_unchecked');
-  }
+  checkRepeatability(result, flags, settings, { numeric: summary, below, above, cells: summary.n + below.length + above.length });
 
+  const mixed = summary.n > 0 && qualified > 0;
   if (sawBelow && sawAbove) {
     flags.add('conflicting_qualified_burns');
   } else if (flags.has('limit_missing')) {
     // nothing can be reported: a burn stands for an unknown value
+  } else if (mixed && (settings.mixed_qualified_burns ?? 'withhold') === 'withhold') {
+    // withheld: numeric and qualified burns disagree about what the instrument saw; spark again
   } else if (below.length > 0) {
     reportBelow(result, flags, limits, exactMean([...numeric, ...below]), settings.decimals);
   } else if (above.length > 0) {
@@ -138,7 +148,28 @@ export function computeElementResult(input: ElementResultInput): ElementResult {
   } else {
     reportNumeric(result, flags, limits, numeric, settings.decimals);
   }
+  // A bound from numeric and qualified burns together is not the numeric burns' mean: say none.
+  if (mixed && result.qualifier !== null) Object.assign(result, { mean: null, sd: null, rsd: null });
   return finish(result, flags);
+}
+
+interface Spread {
+  numeric: { n: number; min: string | null; max: string | null };
+  below: readonly string[];
+  above: readonly string[];
+  cells: number;
+}
+
+/** The ISO 5725-6 range check over the least range the burns can span: "<" at its bound, ">" at its. */
+function checkRepeatability(result: ElementResult, flags: Set<ResultFlag>, settings: ElementSettings, spread: Spread): void {
+  if (!settings.repeatability_sd || spread.numeric.n === 0 || spread.cells < MIN_BURNS_FOR_CHECK) return;
+  let low = spread.numeric.min as string;
+  let high = spread.numeric.max as string;
+  for (const bound of spread.below) if (isBelow(bound, low)) low = bound;
+  for (const bound of spread.above) if (isAbove(bound, high)) high = bound;
+  result.repeatability = rangeCheck(low, high, spread.cells, settings.repeatability_sd);
+  if (result.repeatability?.exceeded) flags.add('repeatability_exceeded');
+  if (spread.cells > MAX_BURNS_FOR_CHECK) flags.add('repeatability_unchecked');
 }
 
 /** A limit as written and as a double (the double only speeds up comparisons, see decimal-compare.ts). */
@@ -184,25 +215,34 @@ function flagLow(value: Limit, limits: Limits, flags: Set<ResultFlag>): boolean 
   return belowDetection || belowRange;
 }
 
+/** One step of the last reporting decimal ("0.001" for 3 decimals): the floor of any "<" bound. */
+function reportingStep(decimals: number): Limit {
+  const text = decimals === 0 ? '1' : `0.${'0'.repeat(decimals - 1)}1`;
+  return { text, number: Number(text) };
+}
+
 function reportBelow(result: ElementResult, flags: Set<ResultFlag>, limits: Limits, upperBound: string, decimals: number): void {
   const bound = { text: upperBound, number: Number(upperBound) };
   flagLow(bound, limits, flags);
-  const raised = below(bound, limits.lowestReportable) ? (limits.lowestReportable as Limit) : bound;
-  result.reported = roundUp(raised.text, decimals);
+  const floor = limits.lowestReportable ?? reportingStep(decimals);
+  result.reported = roundUp((below(bound, floor) ? floor : bound).text, decimals);
   result.qualifier = '<';
 }
 
 function reportAbove(result: ElementResult, flags: Set<ResultFlag>, limits: Limits, lowerBound: string, decimals: number): void {
   const capped = above({ text: lowerBound, number: Number(lowerBound) }, limits.high);
   if (capped) flags.add('above_working_range');
-  result.reported = roundDown(capped ? (limits.high as Limit).text : lowerBound, decimals);
+  // A lower bound below 0 (after a drift correction) says no more than ">0".
+  result.reported = roundDown(capped ? (limits.high as Limit).text : isBelow(lowerBound, '0') ? '0' : lowerBound, decimals);
   result.qualifier = '>';
 }
 
 function reportNumeric(result: ElementResult, flags: Set<ResultFlag>, limits: Limits, numeric: readonly string[], decimals: number): void {
   const mean = { text: result.mean as string, number: Number(result.mean) };
-  if (flagLow(mean, limits, flags)) {
-    result.reported = roundUp((limits.lowestReportable as Limit).text, decimals);
+  const belowZero = isBelow(mean.text, '0', mean.number, 0);
+  if (belowZero) flags.add('below_zero');
+  if (flagLow(mean, limits, flags) || belowZero) {
+    result.reported = roundUp((limits.lowestReportable ?? reportingStep(decimals)).text, decimals);
     result.qualifier = '<';
   } else if (above(mean, limits.high)) {
     flags.add('above_working_range');

@@ -1,5 +1,7 @@
 // A sample's verdict against the grade it names, from its results: the drift-corrected mean at
 // full precision (rounded once, by the grade's rule), or the reported bound of a qualified result.
+// A result that reports nothing (withheld, conflicting, outside the method) counts as not measured,
+// and a balance computed by difference is left to the grade's own remainder rule.
 import type { Queryable } from '../../db/transaction.ts';
 import type { MeasuredValue } from '../chemistry/measured-value.ts';
 import { evaluateComposition } from './grade-evaluation.ts';
@@ -12,6 +14,7 @@ interface ResultForConformance {
   mean: string | null;
   reported: string | null;
   qualifier: '<' | '>' | null;
+  flags: readonly string[];
 }
 
 export interface SampleConformance {
@@ -24,7 +27,8 @@ const NONE: SampleConformance = { conformance_json: null, conforms: null };
 function compositionOf(results: readonly ResultForConformance[]): Map<string, MeasuredValue> {
   const composition = new Map<string, MeasuredValue>();
   for (const r of results) {
-    if (r.qualifier && r.reported !== null) composition.set(r.element, { kind: 'qualified', value: r.reported, qualifier: r.qualifier });
+    if (r.reported === null || r.flags.includes('balance_by_difference')) continue;
+    if (r.qualifier) composition.set(r.element, { kind: 'qualified', value: r.reported, qualifier: r.qualifier });
     else if (r.mean !== null) composition.set(r.element, { kind: 'value', value: r.mean, qualifier: null });
   }
   return composition;

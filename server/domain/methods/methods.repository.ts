@@ -3,7 +3,7 @@ import type { OutputUnit } from '../chemistry/units.ts';
 import { type KeysetColumn, keysetPage, type PageRequest } from '../../db/keyset.ts';
 import type { Queryable } from '../../db/transaction.ts';
 import { mapPage, type Page } from '../../lib/pagination.ts';
-import { DEFAULT_DRIFT_LIMITS, type DriftLimits } from './methods.schemas.ts';
+import { DEFAULT_DRIFT_LIMITS, DEFAULT_REPORTING, type DriftLimits, type MethodReporting } from './methods.schemas.ts';
 
 export interface MethodElement {
   element: string;
@@ -23,27 +23,37 @@ export interface MethodRow {
   elements_json: string;
   /** DriftLimits as JSON; null = DEFAULT_DRIFT_LIMITS. */
   drift_limits_json?: string | null;
+  /** MethodReporting as JSON; null = DEFAULT_REPORTING. */
+  reporting_json?: string | null;
   created_at: string;
   updated_at: string;
 }
 
-export interface Method extends Omit<MethodRow, 'elements_json' | 'drift_limits_json'> {
+export interface Method extends Omit<MethodRow, 'elements_json' | 'drift_limits_json' | 'reporting_json'> {
   elements: MethodElement[];
   drift_limits: DriftLimits;
+  reporting: MethodReporting;
 }
 
 function toMethod(row: MethodRow): Method {
-  const { elements_json, drift_limits_json, ...rest } = row;
+  const { elements_json, drift_limits_json, reporting_json, ...rest } = row;
   return {
     ...rest,
     elements: JSON.parse(elements_json) as MethodElement[],
     drift_limits: drift_limits_json ? (JSON.parse(drift_limits_json) as DriftLimits) : DEFAULT_DRIFT_LIMITS,
+    // Rules added later default one by one, so a stored subset stays valid.
+    reporting: { ...DEFAULT_REPORTING, ...(reporting_json ? (JSON.parse(reporting_json) as Partial<MethodReporting>) : {}) },
   };
 }
 
 function toMethodRow(method: Method): MethodRow {
-  const { elements, drift_limits, ...rest } = method;
-  return { ...rest, elements_json: JSON.stringify(elements), drift_limits_json: JSON.stringify(drift_limits) };
+  const { elements, drift_limits, reporting, ...rest } = method;
+  return {
+    ...rest,
+    elements_json: JSON.stringify(elements),
+    drift_limits_json: JSON.stringify(drift_limits),
+    reporting_json: JSON.stringify(reporting),
+  };
 }
 
 export async function findMethod(db: Queryable, id: string): Promise<Method | undefined> {

@@ -1,6 +1,7 @@
 import { listOf, paginationQuery } from '../../lib/pagination.ts';
 import { z } from '../../lib/zod.ts';
 import { normaliseElement } from '../chemistry/elements.ts';
+import { MIXED_BURNS_RULES } from '../chemistry/element-result.ts';
 import { OUTPUT_UNITS } from '../chemistry/units.ts';
 
 /** A non-negative decimal written as a string, so its digits are kept exactly. */
@@ -67,6 +68,45 @@ const DriftLimitsSchema = z
     description: `Limits on the distance of a standardization slope from 1, as decimal strings. Defaults warn ${DEFAULT_DRIFT_LIMITS.warn}, fail ${DEFAULT_DRIFT_LIMITS.fail} (a slope outside 0.8–1.2 deserves a look, outside 0.5–1.5 signals trouble): common practice, no source — set them from your own validation data.`,
   });
 
+/** How a method turns results into a report beyond each element's own settings. */
+export interface MethodReporting {
+  mixed_qualified_burns: (typeof MIXED_BURNS_RULES)[number];
+  balance_by_difference: boolean;
+  sum_tolerance: string;
+  unlisted_elements: 'keep_unreported' | 'report';
+}
+
+/** Safe defaults: withhold mixed burns, no balance, 0.5 % over 100 % tolerated, unlisted elements not reported. */
+export const DEFAULT_REPORTING: MethodReporting = {
+  mixed_qualified_burns: 'withhold',
+  balance_by_difference: false,
+  sum_tolerance: '0.5',
+  unlisted_elements: 'keep_unreported',
+};
+
+const MethodReportingSchema = z
+  .object({
+    mixed_qualified_burns: z.enum(MIXED_BURNS_RULES).default(DEFAULT_REPORTING.mixed_qualified_burns).openapi({
+      description:
+        'Numeric and "<", ">" or n.d. burns of one element together (usually a failed spark): `withhold` reports nothing (spark again); `treat_as_bound` reports the bound with the mean of every burn at its limit, `mean` null.',
+    }),
+    balance_by_difference: z.boolean().default(DEFAULT_REPORTING.balance_by_difference).openapi({
+      description: 'Report the matrix element as 100 % minus the other reported elements (flag balance_by_difference).',
+    }),
+    sum_tolerance: DecimalString.default(DEFAULT_REPORTING.sum_tolerance).openapi({
+      description: 'A sample whose reported elements add up to more than 100 % plus this (in %) is flagged sum_above_100.',
+      example: DEFAULT_REPORTING.sum_tolerance,
+    }),
+    unlisted_elements: z.enum(['keep_unreported', 'report']).default(DEFAULT_REPORTING.unlisted_elements).openapi({
+      description:
+        'Elements measured but not listed in the method: `keep_unreported` keeps their burns and mean but reports nothing (flag not_in_method); `report` reports them with 4 decimals and no limits.',
+    }),
+  })
+  .openapi('MethodReporting', {
+    description:
+      'Reporting rules of the method (see the result rules in GET /samples/{id}). Changing them affects results computed from then on.',
+  });
+
 const elementList = z
   .array(MethodElementSchema)
   .min(1)
@@ -93,6 +133,7 @@ export const MethodSchema = z
     default_unit: z.enum(OUTPUT_UNITS).openapi({ description: 'Unit assumed for pushed values that do not say theirs.' }),
     elements: z.array(MethodElementSchema),
     drift_limits: DriftLimitsSchema,
+    reporting: MethodReportingSchema,
     created_at: z.string().openapi({ format: 'date-time' }),
     updated_at: z.string().openapi({ format: 'date-time' }),
   })
@@ -116,6 +157,7 @@ export const CreateMethodRequestSchema = z
     default_unit: z.enum(OUTPUT_UNITS).default('%'),
     elements: elementList,
     drift_limits: DriftLimitsSchema.default(DEFAULT_DRIFT_LIMITS),
+    reporting: MethodReportingSchema.default(DEFAULT_REPORTING),
   })
   .openapi('CreateMethodRequest');
 
@@ -129,6 +171,9 @@ export const UpdateMethodRequestSchema = z
     drift_limits: DriftLimitsSchema.optional().openapi({
       description: 'Applies to standardizations run from now on; earlier runs keep their flags.',
     }),
+    reporting: MethodReportingSchema.optional().openapi({
+      description: 'Replaces the reporting rules; stored results keep the rules they were computed with until recomputed.',
+    }),
   })
-  .refine((value) => Object.keys(value).length > 0, 'give at least one of name, default_unit, elements, drift_limits')
+  .refine((value) => Object.keys(value).length > 0, 'give at least one of name, default_unit, elements, drift_limits, reporting')
   .openapi('UpdateMethodRequest');

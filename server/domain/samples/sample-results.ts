@@ -1,10 +1,13 @@
 // Turns a sample's included burns into per-element results, in the method's element order.
 // Elements the method does not list are still averaged (nothing measured is dropped) with
-// DEFAULT_DECIMALS and the flag `not_in_method`. Written with plain loops: a bulk import runs
-// this for every sample × element (hundreds of thousands of times).
-import { type BurnCell, computeElementResult, type ResultFlag } from '../chemistry/element-result.ts';
+// DEFAULT_DECIMALS and the flag `not_in_method`, and reported only when the method says so. The
+// matrix element comes last, by difference, when the method reports a balance (sample-totals.ts).
+// Written with plain loops: a bulk import runs this for every sample × element (hundreds of
+// thousands of times).
+import { type BurnCell, computeElementResult, type ElementSettings, type ResultFlag } from '../chemistry/element-result.ts';
 import { exactMean } from '../chemistry/exact-mean.ts';
 import type { Method, MethodElement } from '../methods/methods.repository.ts';
+import { balanceResult, sumAboveHundred } from './sample-totals.ts';
 import type { StoredCell, StoredResult } from './samples.repository.ts';
 
 /** Reporting decimals for elements the method does not list (flag `not_in_method`). */
@@ -18,19 +21,23 @@ export interface BurnForResults {
   corrected?: Record<string, StoredCell> | null;
 }
 
-const settingsCache = new WeakMap<Method, Map<string, MethodElement>>();
+type Settings = MethodElement & ElementSettings;
+const settingsCache = new WeakMap<Method, Map<string, Settings>>();
 
-function settingsOf(method: Method): Map<string, MethodElement> {
+/** Each listed element's settings with the method's rule for mixed burns, built once per method. */
+function settingsOf(method: Method): Map<string, Settings> {
   let settings = settingsCache.get(method);
   if (!settings) {
-    settings = new Map(method.elements.map((e) => [e.element, e]));
+    const mixed = method.reporting.mixed_qualified_burns;
+    settings = new Map(method.elements.map((e) => [e.element, { ...e, mixed_qualified_burns: mixed }]));
     settingsCache.set(method, settings);
   }
   return settings;
 }
 
-function defaultSettings(element: string): MethodElement {
+function defaultSettings(element: string, method: Method): Settings {
   return {
+    mixed_qualified_burns: method.reporting.mixed_qualified_burns,
     element,
     decimals: DEFAULT_DECIMALS,
     working_range_low: null,
@@ -78,19 +85,31 @@ export function computeSampleResults(burns: BurnForResults[], method: Method): {
   const included = burns.filter((b) => !b.excluded);
   const anyCorrected = included.some((b) => b.corrected != null);
   const settingsByElement = settingsOf(method);
+  const { reporting } = method;
+  const balance = reporting.balance_by_difference ? method.matrix : null;
   const results: StoredResult[] = [];
   const flags = new Set<ResultFlag>();
   for (const element of elementOrder(method, burns)) {
+    if (element === balance) continue; // by difference below; its measured burns stay in the burns
     const known = settingsByElement.get(element);
-    const settings = known ?? defaultSettings(element);
+    const settings = known ?? defaultSettings(element, method);
     const result = computeElementResult({ element, cells: cellsOf(included, element), settings }) as StoredResult;
     result.raw_mean = anyCorrected ? rawMean(included, element) : result.mean;
     result.decimals = settings.decimals;
     // In RESULT_FLAGS order: negative_after_correction comes just before not_in_method, the last.
     if (anyCorrected && negativeAfterCorrection(included, element)) result.flags.push('negative_after_correction' satisfies ResultFlag);
-    if (!known) result.flags.push('not_in_method' satisfies ResultFlag);
+    if (!known) {
+      result.flags.push('not_in_method' satisfies ResultFlag);
+      if (reporting.unlisted_elements !== 'report') Object.assign(result, { reported: null, qualifier: null });
+    }
     for (const flag of result.flags) flags.add(flag);
     results.push(result);
   }
+  if (balance) {
+    const decimals = settingsByElement.get(balance)?.decimals;
+    results.push(balanceResult(balance, results, decimals));
+    flags.add('balance_by_difference');
+  }
+  if (sumAboveHundred(results, reporting.sum_tolerance)) flags.add('sum_above_100');
   return { results, flags: [...flags].sort() };
 }

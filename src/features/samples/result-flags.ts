@@ -20,13 +20,16 @@ const LABELS: Record<ResultFlag, [label: string, tone: FlagTone]> = {
   below_working_range: ['Below working range', 'attention'],
   above_working_range: ['Above working range', 'attention'],
   burns_outside_working_range: ['Burn outside working range', 'attention'],
+  below_zero: ['Below 0 % after correction: reported as "<"', 'attention'],
   all_burns_qualified: ['All burns qualified', 'note'],
-  mixed_qualified_burns: ['Mixed qualified burns', 'note'],
+  mixed_qualified_burns: ['Withheld: burns disagree (spark again)', 'attention'],
   not_detected: ['Not detected', 'note'],
   negative_after_correction: ['Below 0 after drift correction', 'attention'],
   conflicting_qualified_burns: ['Conflicting qualified burns', 'attention'],
   limit_missing: ['Limit missing', 'attention'],
-  not_in_method: ['Not in method', 'attention'],
+  balance_by_difference: ['Balance, by difference', 'note'],
+  sum_above_100: ['Sum above 100 %', 'attention'],
+  not_in_method: ['Not in method: not reported', 'attention'],
 };
 
 export interface FlagInfo {

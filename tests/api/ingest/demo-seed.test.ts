@@ -1,3 +1,4 @@
+import { Decimal } from 'decimal.js';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { seedDemoIfEmpty } from '../../../server/seed/demo.ts';
 import { createTestApp, signedInAgent, type TestApp } from '../../helpers/test-app.ts';
@@ -51,5 +52,29 @@ describe('demo scenario', () => {
     expect(revisions.map((r: { revision: number }) => r.revision)).toEqual([1, 2]);
     expect(revisions[1].reason).toMatch(/Burn 3 sparked on a crack/);
     expect((await bySampleCode('K24-0410-F1')).status).toBe('released');
+  });
+
+  it('shows a withheld result and the aluminium balance by difference', async () => {
+    const { agent } = await signedInAgent(t, 'viewer');
+    const sample = async (code: string) => (await agent.get('/api/v1/samples').query({ sample_code: code })).body.data[0];
+    type Result = { element: string; mean: number; reported: string | null; qualifier: string | null; flags: string[] };
+    const element = (s: { results: Result[] }, symbol: string) => s.results.find((r) => r.element === symbol);
+    // One Ni burn "<0.002" beside 0.0041 and 0.0043: withheld (spark again), so the balance is unknown too.
+    const withheld = await sample('B24-0122-S1');
+    expect(element(withheld, 'Ni')).toMatchObject({
+      reported: null,
+      qualifier: null,
+      flags: expect.arrayContaining(['mixed_qualified_burns']),
+    });
+    expect(element(withheld, 'Al')).toMatchObject({ reported: null, flags: ['balance_by_difference'] });
+    // Every other billet lot reports Al as 100 % minus the other reported elements ("<" counted as 0).
+    const lot = await sample('B24-0118-S1');
+    const al = element(lot, 'Al')!;
+    expect(al.flags).toEqual(['balance_by_difference']);
+    const others = lot.results
+      .filter((r: Result) => r.element !== 'Al' && r.qualifier === null)
+      .reduce((sum: Decimal, r: Result) => sum.plus(String(r.mean)), new Decimal(0));
+    expect(al.mean).toBeCloseTo(new Decimal(100).minus(others).toNumber(), 12); // decimal.js
+    expect(al.reported).toBe(new Decimal(100).minus(others).toDecimalPlaces(2, Decimal.ROUND_HALF_EVEN).toFixed(2));
   });
 });

@@ -113,6 +113,7 @@ describe('POST /api/v1/samples', () => {
     expect(n.mean).toBe(0.009);
     expect(res.body.burns[0].values.N).toEqual({ value: 0.0085, qualifier: null, raw: '85', raw_unit: 'ppm', corrected: null });
     expect(n.flags).toContain('not_in_method');
+    expect(n.reported).toBeNull(); // outside the method: kept, averaged, not reported
   });
 
   it('names every unreadable value and stores nothing', async () => {

@@ -124,6 +124,19 @@ describe('rule 4: numeric mean outside the limits', () => {
   });
 });
 
+describe('rule 4: a mean below 0 after an additive correction', () => {
+  it('is reported as "<" one reporting step when the method sets no limit, the mean kept', () => {
+    // (−0.001 − 0.003) / 2 = −0.002, by hand
+    const r = result([num('-0.001'), num('-0.003')], { decimals: 3 });
+    expect(r).toMatchObject({ mean: '-0.002', reported: '0.001', qualifier: '<', flags: ['below_zero'] });
+  });
+
+  it('is reported as "<" the detection limit when the method sets one', () => {
+    const r = result([num('-0.001'), num('-0.003')], { decimals: 3, detection_limit: '0.002' });
+    expect(r).toMatchObject({ reported: '0.002', qualifier: '<', flags: ['below_detection_limit', 'below_zero'] });
+  });
+});
+
 describe('rule 5: "<" and n.d. burns → an upper bound', () => {
   it('all burns "<" → "<" the limit; no mean', () => {
     const r = result([lt('0.0005'), lt('0.0005'), lt('0.0005')], { detection_limit: '0.0005' });
@@ -142,27 +155,43 @@ describe('rule 5: "<" and n.d. burns → an upper bound', () => {
     expect(result([lt('0.0005'), lt('0.0007')])).toMatchObject({ reported: '0.0006', qualifier: '<' });
   });
 
-  it('mixed numeric and "<" burns → "<" the mean with each "<" at its limit; mean, n of numeric burns', () => {
-    // (0.0007 + 0.0006 + 0.0005) / 3 = 0.0006
-    const r = result([num('0.0007'), num('0.0006'), lt('0.0005')], { detection_limit: '0.0005' });
+  it('mixed numeric and "<" burns (usually a failed spark) are withheld by default: nothing reported', () => {
+    // The case found in the audit: <0.001, 0.030, 0.034 once reported "<0.022" beside a mean of 0.032.
+    const r = result([lt('0.001'), num('0.030'), num('0.034')], { decimals: 3, detection_limit: '0.001' });
+    expect(r).toMatchObject({ mean: '0.032', n: 2, n_qualified: 1, reported: null, qualifier: null, flags: ['mixed_qualified_burns'] });
+  });
+
+  it('under treat_as_bound, mixed burns give "<" the mean with each "<" at its limit, and no mean', () => {
+    // (0.0007 + 0.0006 + 0.0005) / 3 = 0.0006, by hand
+    const r = result([num('0.0007'), num('0.0006'), lt('0.0005')], { detection_limit: '0.0005', mixed_qualified_burns: 'treat_as_bound' });
     expect(r).toMatchObject({
-      mean: '0.00065',
+      mean: null,
+      sd: null,
+      rsd: null,
       n: 2,
       n_qualified: 1,
       reported: '0.0006',
       qualifier: '<',
       flags: ['mixed_qualified_burns'],
     });
+    // (0.001 + 0.030 + 0.034) / 3 = 0.021666…, rounded up at 3 decimals: "<0.022", and no mean to contradict it.
+    const audit = result([lt('0.001'), num('0.030'), num('0.034')], { decimals: 3, mixed_qualified_burns: 'treat_as_bound' });
+    expect(audit).toMatchObject({ mean: null, reported: '0.022', qualifier: '<' });
   });
 
   it('an upper bound below the lowest reportable value is raised to it', () => {
     // (0.0001 + 0.0005) / 2 = 0.0003 < DL 0.0005
-    const r = result([num('0.0001'), lt('0.0005')], { detection_limit: '0.0005' });
+    const r = result([num('0.0001'), lt('0.0005')], { detection_limit: '0.0005', mixed_qualified_burns: 'treat_as_bound' });
     expect(r).toMatchObject({
       reported: '0.0005',
       qualifier: '<',
       flags: ['single_burn', 'below_detection_limit', 'mixed_qualified_burns'],
     });
+  });
+
+  it('a "<" bound below 0 (after an additive correction) is raised to one reporting step, never written negative', () => {
+    expect(result([lt('-0.003'), lt('-0.003')], { decimals: 3 })).toMatchObject({ reported: '0.001', qualifier: '<' });
+    expect(result([lt('-0.003')], { decimals: 3, detection_limit: '0.002' })).toMatchObject({ reported: '0.002', qualifier: '<' });
   });
 
   it('n.d. counts as "<" the detection limit', () => {
@@ -188,9 +217,10 @@ describe('rule 6: ">" burns → a lower bound', () => {
     });
   });
 
-  it('mixed numeric and ">" → ">" the mean with each ">" at its limit', () => {
-    expect(result([num('1.40'), gt('1.5')], { decimals: 2 })).toMatchObject({
-      mean: '1.4',
+  it('mixed numeric and ">" under treat_as_bound → ">" the mean with each ">" at its limit', () => {
+    expect(result([num('1.40'), gt('1.5')], { decimals: 2 })).toMatchObject({ mean: '1.4', reported: null, qualifier: null });
+    expect(result([num('1.40'), gt('1.5')], { decimals: 2, mixed_qualified_burns: 'treat_as_bound' })).toMatchObject({
+      mean: null,
       reported: '1.45',
       qualifier: '>',
       flags: ['single_burn', 'mixed_qualified_burns'],
@@ -198,7 +228,7 @@ describe('rule 6: ">" burns → a lower bound', () => {
   });
 
   it('a lower bound above the working range is capped at its upper end', () => {
-    const r = result([num('1.60'), gt('1.5')], { decimals: 2, working_range_high: '1.5' });
+    const r = result([num('1.60'), gt('1.5')], { decimals: 2, working_range_high: '1.5', mixed_qualified_burns: 'treat_as_bound' });
     expect(r).toMatchObject({ reported: '1.50', qualifier: '>', flags: ['single_burn', 'above_working_range', 'mixed_qualified_burns'] });
   });
 
@@ -254,9 +284,21 @@ describe('rule 10: repeatability (ISO 5725-6)', () => {
     expect(r.repeatability?.exceeded).toBe(false);
   });
 
-  it('checks only the numeric burns of a mixed result', () => {
+  it('counts a "<" burn at its bound: the range is at least the highest numeric burn minus it', () => {
+    // 0.0030 − 0.0005 = 0.0025 over three burns; f(3)·σr = 3.31 × 0.0005 = 0.001655 (ISO 5725-6 Table 1)
     const r = result([num('0.0007'), num('0.0030'), lt('0.0005')], { repeatability_sd: '0.0005' });
-    expect(r.repeatability).toEqual({ range: '0.0023', critical_range: '0.001385', exceeded: true });
+    expect(r.repeatability).toEqual({ range: '0.0025', critical_range: '0.001655', exceeded: true });
+    expect(r.flags).toContain('repeatability_exceeded');
+    // The audit's case: 0.034 − 0.001 = 0.033 > 3.31 × 0.002 = 0.00662: not repeatable, and withheld.
+    const audit = result([lt('0.001'), num('0.030'), num('0.034')], { decimals: 3, repeatability_sd: '0.002' });
+    expect(audit.flags).toEqual(['repeatability_exceeded', 'mixed_qualified_burns']);
+  });
+
+  it('a ">" burn above every numeric burn widens the range the same way; one below them does not', () => {
+    const wide = result([num('1.40'), num('1.41'), gt('1.50')], { decimals: 2, repeatability_sd: '0.01' });
+    expect(wide.repeatability).toEqual({ range: '0.1', critical_range: '0.0331', exceeded: true });
+    const inside = result([num('1.40'), num('1.41'), gt('1.20')], { decimals: 2, repeatability_sd: '0.01' });
+    expect(inside.repeatability).toEqual({ range: '0.01', critical_range: '0.0331', exceeded: false });
   });
 
   it('more than 20 burns → repeatability_unchecked', () => {

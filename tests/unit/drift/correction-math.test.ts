@@ -16,6 +16,7 @@ import {
   typeCorrection,
 } from '../../../server/domain/drift/correction-math.ts';
 import type { Method } from '../../../server/domain/methods/methods.repository.ts';
+import { DEFAULT_REPORTING } from '../../../server/domain/methods/methods.schemas.ts';
 import { computeSampleResults } from '../../../server/domain/samples/sample-results.ts';
 import { decimalString } from '../../helpers/decimal-arbitrary.ts';
 
@@ -26,6 +27,7 @@ const METHOD: Method = {
   matrix: 'Fe',
   default_unit: '%',
   drift_limits: { warn: '0.2', fail: '0.5' },
+  reporting: DEFAULT_REPORTING,
   created_at: '',
   updated_at: '',
   elements: [
@@ -193,7 +195,7 @@ describe('correcting one cell', () => {
     expect(correctCell({ v: '0.002', q: '<' }, { slope: '-1', offset: '1' })).toEqual({ v: '0.998', q: '>' });
   });
 
-  it('keeps a value below 0 as it is (no clamping), flags the result, and never writes "-0" or an exponent', () => {
+  it('keeps a burn below 0 as it is (no clamping), reports the result as "<" a reporting step, never "-0" or an exponent', () => {
     expect(correctValue('0.001', { slope: '1', offset: '-0.003' })).toBe('-0.002');
     const shift = { slope: '1', offset: '-0.006' };
     const { results } = computeSampleResults(
@@ -204,9 +206,55 @@ describe('correcting one cell', () => {
       })),
       METHOD,
     );
-    // Mean −0.0035 rounds half-even to −0.004 (ASTM E29); the method sets no detection limit here.
-    expect(results[0]).toMatchObject({ mean: '-0.0035', raw_mean: '0.0025', reported: '-0.004', flags: ['negative_after_correction'] });
+    // Mean −0.0035 is kept for traceability; a mass fraction is never negative, so with no detection
+    // limit set the result is "<" one step of the method's 3 decimals.
+    expect(results[0]).toMatchObject({
+      mean: '-0.0035',
+      raw_mean: '0.0025',
+      reported: '0.001',
+      qualifier: '<',
+      flags: ['below_zero', 'negative_after_correction'],
+    });
     expect(correctValue('0.001', { slope: '1', offset: '-0.001' })).toBe('0');
     expect(correctValue('0.0000001', { slope: '1', offset: '0' })).toBe('0.0000001');
+  });
+
+  it('never reports a negative value or bound, whatever the correction and the burns (property)', () => {
+    const cell = fc.oneof(
+      decimalString({ maxDigits: 10n ** 6n, maxScale: 5 }).map((v) => ({ v, q: null })),
+      decimalString({ maxDigits: 10n ** 4n, maxScale: 5 }).map((v) => ({ v, q: '<' as const })),
+      decimalString({ maxDigits: 10n ** 4n, maxScale: 4 }).map((v) => ({ v, q: '>' as const })),
+    );
+    const settings = fc.record({
+      detection_limit: fc.constantFrom(null, '0.001', '0.0005'),
+      working_range_low: fc.constantFrom(null, '0.002'),
+      decimals: fc.integer({ min: 0, max: 5 }),
+    });
+    const rule = fc.constantFrom('withhold' as const, 'treat_as_bound' as const);
+    fc.assert(
+      fc.property(
+        fc.array(cell, { minLength: 1, maxLength: 6 }),
+        decimalString({ maxDigits: 3n * 10n ** 5n, maxScale: 5 }), // slope 0 … 3
+        decimalString({ maxDigits: 10n ** 4n, maxScale: 4, signs: ['', '-'] }), // offset −1 … 1
+        settings,
+        rule,
+        (cells, slope, offset, element, mixed) => {
+          const method = {
+            ...METHOD,
+            reporting: { ...METHOD.reporting, mixed_qualified_burns: mixed },
+            elements: [{ ...METHOD.elements[0], ...element }],
+          };
+          const { results } = computeSampleResults(
+            cells.map((c) => ({ excluded: false, values: { Mn: c }, corrected: { Mn: correctCell(c, { slope, offset }) } })),
+            method,
+          );
+          const reported = results[0].reported;
+          if (reported !== null) expect(new Decimal(reported).isNegative() && !new Decimal(reported).isZero()).toBe(false);
+          // A bound and a mean never contradict: a bounded result from mixed burns carries no mean.
+          if (results[0].qualifier !== null && results[0].n > 0 && results[0].n_qualified > 0) expect(results[0].mean).toBeNull();
+        },
+      ),
+      { numRuns: 2000 },
+    );
   });
 });

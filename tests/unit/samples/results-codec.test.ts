@@ -1,6 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import type { Method } from '../../../server/domain/methods/methods.repository.ts';
+import { DEFAULT_DRIFT_LIMITS, DEFAULT_REPORTING } from '../../../server/domain/methods/methods.schemas.ts';
 import { decodeResults, encodeResults } from '../../../server/domain/samples/results-codec.ts';
 import { computeSampleResults } from '../../../server/domain/samples/sample-results.ts';
 
@@ -10,6 +11,8 @@ const method: Method = {
   name: 'x',
   matrix: 'Fe',
   default_unit: '%',
+  drift_limits: DEFAULT_DRIFT_LIMITS,
+  reporting: DEFAULT_REPORTING,
   created_at: '',
   updated_at: '',
   elements: [
@@ -23,7 +26,7 @@ const method: Method = {
     },
     { element: 'S', decimals: 3, working_range_low: '0.002', working_range_high: '0.1', detection_limit: '0.001', repeatability_sd: null },
   ],
-} as Method;
+};
 
 const cell = fc.oneof(
   fc.record({ v: fc.integer({ min: 0, max: 30000 }).map((n) => (n / 10000).toString()), q: fc.constant(null) }),

@@ -11,6 +11,13 @@ const right = (text: string) => (
   </span>
 );
 
+/** Why nothing is reported, in a word, when a rule withheld the value (the flag explains it in full). */
+function notReported(flags: readonly string[]): string | null {
+  if (flags.includes('mixed_qualified_burns')) return 'withheld';
+  if (flags.includes('not_in_method')) return 'not reported';
+  return null;
+}
+
 /** A statistic with guard digits; the full value on hover. */
 function Stat({ value, decimals }: { value: number | null; decimals: number }) {
   return <span title={value === null ? undefined : plain(value)}>{statistic(value, decimals)}</span>;
@@ -39,7 +46,11 @@ export function ResultsTable({ results, unit }: { results: ElementResult[]; unit
             {r.element}
           </th>
           <td className={`${figure} font-semibold`} data-testid="reported">
-            {reportedFigure(r)}
+            {r.reported === null && notReported(r.flags) ? (
+              <span className="font-sans text-xs font-normal text-slag-500">{notReported(r.flags)}</span>
+            ) : (
+              reportedFigure(r)
+            )}
           </td>
           <td className={figure}>
             <Stat value={r.mean} decimals={r.decimals} />
