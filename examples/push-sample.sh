@@ -18,4 +18,4 @@ body=$(jq -n --arg code "${SAMPLE_CODE:-K24-0412-F2}" --arg heat "${HEAT:-K24-04
 key="${IDEMPOTENCY_KEY:-push-$(date +%s%N)}"
 sample=$(curl --fail-with-body -sS "$api/samples" "${auth[@]}" \
   -H 'Content-Type: application/json' -H "Idempotency-Key: $key" --data "$body")
-jq -r '"sample \(.id) \(.sample_code) (\(.status))", (.results[] | "\(.element) \(.qualifier // "")\(.reported) \(.unit)  n=\(.n)  flags=\(.flags | join(","))")' <<<"$sample"
+jq -r '"sample \(.id) \(.sample_code) (\(.status))", (.results[] | "\(.element) \(if .reported == null then "(not reported)" else "\(.qualifier // "")\(.reported) \(.unit)" end)  n=\(.n)  flags=\(.flags | join(","))")' <<<"$sample"

@@ -82,12 +82,17 @@ export function SamplePage() {
               </h2>
               <UnitSwitch value={unit} onChange={setUnit} />
             </div>
+            {s.flags.includes('sum_above_100') && (
+              <Alert tone="caution" title="The elements add up to more than 100 %">
+                Mass fractions cannot exceed 100 %: check the burns, the units of the file and the method before using this result.
+              </Alert>
+            )}
             <ResultsTable results={s.results} unit={unit} />
             <p className="text-xs text-slag-500">
               Reported: the mean rounded half to even to the method&apos;s decimals. Mean, SD, min and max show two more decimals (hover for
               the full value); raw mean is before drift correction.
             </p>
-            <FlagLegend flags={s.results.flatMap((r) => r.flags)} />
+            <FlagLegend flags={[...s.flags, ...s.results.flatMap((r) => r.flags)]} />
           </section>
 
           <section aria-labelledby="burns-heading" className="space-y-3">
