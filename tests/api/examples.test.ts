@@ -123,7 +123,7 @@ describe('sample and import scripts', () => {
     const mean = ['0.74', '0.75', '0.75'].reduce((sum, x) => sum.plus(new D100(mn.slope).times(x).plus(mn.offset)), new D100(0)).div(3);
     expect(lines).toContain(`Mn ${mean.toDecimalPlaces(2, Decimal.ROUND_HALF_EVEN).toFixed(2)} %  n=3  flags=`);
     // S: two "<0.002" and 0.003 → mixed qualified burns, withheld under FE-LA's default rule.
-    expect(lines.find((l) => l.startsWith('S '))).toMatch(/^S \(not reported\)  n=1  flags=.*mixed_qualified_burns/);
+    expect(lines.find((l) => l.startsWith('S '))).toMatch(/^S \(not reported\) {2}n=1 {2}flags=.*mixed_qualified_burns/);
     expect(await server.db('samples').where({ sample_code: 'K24-0999-F1' }).pluck('id')).toHaveLength(1);
   }, 30_000);
 
