@@ -38,7 +38,7 @@ const knexCalls = [
 
 export default tseslint.config(
   {
-    ignores: ['dist/', 'coverage/', 'node_modules/', 'data/', 'src/api/schema.d.ts', 'test-results/'],
+    ignores: ['dist/', 'dist-agent/', 'coverage/', 'node_modules/', 'data/', 'src/api/schema.d.ts', 'test-results/'],
   },
   js.configs.recommended,
   ...tseslint.configs.recommended,
@@ -58,7 +58,7 @@ export default tseslint.config(
       'import-x/no-duplicates': 'error',
       'import-x/first': 'error',
       'check-file/filename-naming-convention': ['error', { '**/*.{ts,tsx,js}': 'KEBAB_CASE' }, { ignoreMiddleExtensions: true }],
-      'check-file/folder-naming-convention': ['error', { '{server,src,tests,bench,examples}/**/': 'KEBAB_CASE' }],
+      'check-file/folder-naming-convention': ['error', { '{server,src,tests,bench,examples,agent}/**/': 'KEBAB_CASE' }],
       'import-x/no-restricted-paths': [
         'error',
         {

@@ -50,6 +50,7 @@ const envSchema = z.object({
   REQUEST_LOG_RETENTION_DAYS: z.coerce.number().int().min(1).max(3650).default(30),
   RELEASE_REQUIRES_SECOND_PERSON: booleanFlag.default(true),
   EVENT_RETENTION_DAYS: z.coerce.number().int().min(1).max(3650).default(30),
+  AGENT_STALE_MINUTES: z.coerce.number().int().min(1).max(10080).default(15),
   WEBHOOK_ALLOW_PRIVATE: booleanFlag.default(false),
   WEBHOOK_RETRY_DELAYS: z
     .string()
@@ -99,6 +100,8 @@ export interface Config {
   webhookAllowPrivate: boolean;
   /** Seconds before each delivery attempt, the first counted from the event: one entry per attempt. */
   webhookRetryDelays: number[];
+  /** An instrument agent silent for longer than this shows its feed as stale. */
+  agentStaleMinutes: number;
   /** Which proxies' X-Forwarded-For is believed for the client address (rate limits, logs). */
   trustProxy: boolean | number | string;
   version: string;
@@ -145,6 +148,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     eventRetentionDays: e.EVENT_RETENTION_DAYS,
     webhookAllowPrivate: e.WEBHOOK_ALLOW_PRIVATE,
     webhookRetryDelays: e.WEBHOOK_RETRY_DELAYS.split(',').map((s) => Number(s.trim())),
+    agentStaleMinutes: e.AGENT_STALE_MINUTES,
     trustProxy: trustProxy(e.TRUST_PROXY),
     releaseRequiresSecondPerson: e.RELEASE_REQUIRES_SECOND_PERSON,
     version: APP_VERSION,

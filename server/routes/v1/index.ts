@@ -5,6 +5,7 @@ import { authRoutes } from './auth.ts';
 import { driftRoutes } from './drift.ts';
 import { gradeRoutes } from './grades.ts';
 import { eventRoutes } from './events.ts';
+import { feedRoutes } from './feeds.ts';
 import { healthRoutes } from './health.ts';
 import { importProfileRoutes } from './import-profiles.ts';
 import { importRoutes } from './imports.ts';
@@ -30,6 +31,7 @@ export const v1Routes: AnyRoute[] = [
   ...userRoutes,
   ...apiKeyRoutes,
   ...instrumentRoutes,
+  ...feedRoutes,
   ...methodRoutes,
   ...sampleRoutes,
   ...sampleRecomputeRoutes,
