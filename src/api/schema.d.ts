@@ -2874,41 +2874,9 @@ export interface components {
             unit: "%" | "ppm" | "ppb" | "fraction";
         };
         /** @description A standardization run and the correction set it computed, element by element. */
-        Standardization: {
-            /** @description Also the id of the correction set once activated. */
-            id: string;
-            instrument: {
-                id: string;
-                code: string;
-            };
-            method: {
-                id: string;
-                code: string;
-            };
-            mode: components["schemas"]["CorrectionMode"];
-            status: components["schemas"]["StandardizationStatus"];
-            flag: components["schemas"]["CorrectionFlag"];
-            /** @description True when this is the set in force now for its instrument and method. */
-            in_force: boolean;
-            /** Format: date-time */
-            measured_at: string;
-            note: string | null;
-            /** @description For `type`: the set in force that this one was computed on top of. */
-            base_set_id: string | null;
-            activation: {
-                /** Format: date-time */
-                activated_at: string;
-                activated_by: string;
-                /** Format: date-time */
-                effective_from: string;
-                /** @description Given when an element was flagged `fail`. */
-                override_reason: string | null;
-            } | null;
-            measurements: components["schemas"]["StandardizationMeasurement"][];
-            corrections: components["schemas"]["ElementCorrection"][];
-            created_by: string;
-            /** Format: date-time */
-            created_at: string;
+        CreatedStandardization: components["schemas"]["Standardization"] & {
+            /** @description Advice, never a block: `control_in_control` when the control of this instrument and method is in control (ASTM E1329). */
+            warnings: components["schemas"]["StandardizationWarning"][];
         };
         /**
          * @description `two_point`: a `high` and a `low` reference; slope α = (H⁰ − L⁰)/(H − L), offset β = L⁰ − α·L. `one_point_factor`: one reference; α = N/M, β = 0. `one_point_offset`: one reference; α = 1, β = N − M. `type`: one reference of kind `type` (similar composition to the samples), multiplicative, on top of the set in force: t = N/(α₀·M + β₀), stored as α = t·α₀, β = t·β₀. (H⁰, L⁰, N nominal; H, L, M the mean of the reference's burns.)
@@ -2978,6 +2946,48 @@ export interface components {
             measured: string | null;
             /** @description Numeric burns behind `measured`. */
             n: number;
+        };
+        StandardizationWarning: {
+            /** @enum {string} */
+            code: "control_in_control";
+            message: string;
+        };
+        /** @description A standardization run and the correction set it computed, element by element. */
+        Standardization: {
+            /** @description Also the id of the correction set once activated. */
+            id: string;
+            instrument: {
+                id: string;
+                code: string;
+            };
+            method: {
+                id: string;
+                code: string;
+            };
+            mode: components["schemas"]["CorrectionMode"];
+            status: components["schemas"]["StandardizationStatus"];
+            flag: components["schemas"]["CorrectionFlag"];
+            /** @description True when this is the set in force now for its instrument and method. */
+            in_force: boolean;
+            /** Format: date-time */
+            measured_at: string;
+            note: string | null;
+            /** @description For `type`: the set in force that this one was computed on top of. */
+            base_set_id: string | null;
+            activation: {
+                /** Format: date-time */
+                activated_at: string;
+                activated_by: string;
+                /** Format: date-time */
+                effective_from: string;
+                /** @description Given when an element was flagged `fail`. */
+                override_reason: string | null;
+            } | null;
+            measurements: components["schemas"]["StandardizationMeasurement"][];
+            corrections: components["schemas"]["ElementCorrection"][];
+            created_by: string;
+            /** Format: date-time */
+            created_at: string;
         };
         CreateStandardizationRequest: {
             method_id: string;
@@ -8810,7 +8820,7 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/json": components["schemas"]["Standardization"];
+                    "application/json": components["schemas"]["CreatedStandardization"];
                 };
             };
             /** @description The request is not valid; `errors[]` names each field. */

@@ -23,6 +23,7 @@ import type { PushSampleRequestSchema } from './samples.schemas.ts';
 import type { z } from '../../lib/zod.ts';
 import { conformanceJudge } from '../grades/sample-conformance.ts';
 import { recordEvent } from '../events/events.repository.ts';
+import { queueAlert } from '../alerts/alerts.service.ts';
 import { linkControlMeasurements, rejudgeControlPoint } from '../control/control-judge.ts';
 
 export type PushedSample = z.output<typeof PushSampleRequestSchema>;
@@ -160,6 +161,13 @@ export async function recordOutOfSpec(
     },
     { instrumentId: sample.instrument_id },
   );
+  await queueAlert(trx, {
+    kind: 'out_of_spec',
+    instrumentId: sample.instrument_id,
+    subject: `${sample.sample_code} does not conform to ${sample.grade}`,
+    lines: [`Sample ${sample.sample_code}${sample.heat ? ` (heat ${sample.heat})` : ''} does not conform to grade ${sample.grade}.`],
+    path: `/samples/${sample.id}`,
+  });
 }
 
 /** The results of a sample's burns as they stand (excluded ones left out), each with the correction it was stored with. */
