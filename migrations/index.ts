@@ -29,6 +29,12 @@ import * as addSamplesRelease from './20261202200300_add_samples_release.ts';
 import * as createSampleRevisions from './20261202200400_create_sample_revisions.ts';
 import * as addMethodsReporting from './20261202300100_add_methods_reporting.ts';
 import * as createInstrumentFeeds from './20261203300100_create_instrument_feeds.ts';
+import * as createControlSamples from './20261203400100_create_control_samples.ts';
+import * as createControlLimits from './20261203400200_create_control_limits.ts';
+import * as createControlPoints from './20261203400300_create_control_points.ts';
+import * as createControlStatusChanges from './20261203400400_create_control_status_changes.ts';
+import * as createAlertPreferences from './20261203400500_create_alert_preferences.ts';
+import * as createPendingAlerts from './20261203400600_create_pending_alerts.ts';
 
 export interface Migration {
   up(knex: Knex): Promise<void>;
@@ -64,4 +70,10 @@ export const migrations: Record<string, Migration> = {
   '20261202200400_create_sample_revisions': createSampleRevisions,
   '20261202300100_add_methods_reporting': addMethodsReporting,
   '20261203300100_create_instrument_feeds': createInstrumentFeeds,
+  '20261203400100_create_control_samples': createControlSamples,
+  '20261203400200_create_control_limits': createControlLimits,
+  '20261203400300_create_control_points': createControlPoints,
+  '20261203400400_create_control_status_changes': createControlStatusChanges,
+  '20261203400500_create_alert_preferences': createAlertPreferences,
+  '20261203400600_create_pending_alerts': createPendingAlerts,
 };

@@ -51,6 +51,11 @@ const envSchema = z.object({
   RELEASE_REQUIRES_SECOND_PERSON: booleanFlag.default(true),
   EVENT_RETENTION_DAYS: z.coerce.number().int().min(1).max(3650).default(30),
   AGENT_STALE_MINUTES: z.coerce.number().int().min(1).max(10080).default(15),
+  ALERT_GROUP_MINUTES: z.coerce
+    .number()
+    .min(0)
+    .max(24 * 60)
+    .default(5),
   WEBHOOK_ALLOW_PRIVATE: booleanFlag.default(false),
   WEBHOOK_RETRY_DELAYS: z
     .string()
@@ -96,6 +101,8 @@ export interface Config {
   releaseRequiresSecondPerson: boolean;
   /** Events (the change feed) and their webhook deliveries older than this are deleted. */
   eventRetentionDays: number;
+  /** E-mail alerts for one user within this many minutes are sent as one message. */
+  alertGroupMinutes: number;
   /** Lets webhook endpoints be plain http and resolve to loopback or private addresses (demo, tests). */
   webhookAllowPrivate: boolean;
   /** Seconds before each delivery attempt, the first counted from the event: one entry per attempt. */
@@ -146,6 +153,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     requestLogBodyLimit: e.REQUEST_LOG_BODY_LIMIT,
     requestLogRetentionDays: e.REQUEST_LOG_RETENTION_DAYS,
     eventRetentionDays: e.EVENT_RETENTION_DAYS,
+    alertGroupMinutes: e.ALERT_GROUP_MINUTES,
     webhookAllowPrivate: e.WEBHOOK_ALLOW_PRIVATE,
     webhookRetryDelays: e.WEBHOOK_RETRY_DELAYS.split(',').map((s) => Number(s.trim())),
     agentStaleMinutes: e.AGENT_STALE_MINUTES,

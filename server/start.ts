@@ -10,6 +10,7 @@ import { migrateLatest } from './db/migrate.ts';
 import { recorderFor } from './domain/request-log/recorder.ts';
 import { startDeliveryWorker } from './domain/webhooks/delivery-worker.ts';
 import { startHousekeeping } from './housekeeping.ts';
+import { startAlertFlusher } from './domain/alerts/alerts.service.ts';
 import { listen, stopOnSignals } from './index.ts';
 import { createLogger } from './logger.ts';
 import { startFakeSmtp, type FakeSmtp } from './mail/fake-smtp.ts';
@@ -39,10 +40,12 @@ async function main(): Promise<void> {
   const app = createApp({ db, config, logger, outbox: smtp?.outbox });
   const housekeeping = startHousekeeping(app.locals.ctx);
   const webhooks = startDeliveryWorker(app.locals.ctx);
+  const alerts = startAlertFlusher(app.locals.ctx);
   const running = await listen(app, db, logger, config.port, async () => {
     // Attempts in flight are abandoned and sent again at the next start (same webhook-id).
     await webhooks.stop();
     await housekeeping.stop();
+    await alerts.stop();
     // The last answered calls may still be writing their request log entries.
     await recorderFor(app.locals.ctx).drain();
     await smtp?.close();

@@ -37,7 +37,11 @@ export type IdPrefix =
   | 'whd'
   | 'wha'
   | 'grd'
-  | 'rev';
+  | 'rev'
+  | 'ctl'
+  | 'lim'
+  | 'cst'
+  | 'alr';
 
 export function newId(prefix: IdPrefix): string {
   return `${prefix}_${nextUlid().toLowerCase()}`;

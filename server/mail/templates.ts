@@ -31,3 +31,18 @@ export function passwordResetMail(to: string, link: string): MailMessage {
     ].join('\n'),
   };
 }
+
+/** One message for a user's grouped alerts, each with what happened and a link to it. */
+export function alertsMail(to: string, alerts: { subject: string; body: string; link: string; at: string }[]): MailMessage {
+  const subject =
+    alerts.length === 1 ? `Meltwire alert: ${alerts[0].subject}` : `Meltwire: ${alerts.length} alerts, first: ${alerts[0].subject}`;
+  return {
+    to,
+    subject,
+    text: [
+      ...alerts.flatMap((a) => [`${a.subject} (${a.at})`, a.body, `Open: ${a.link}`, '']),
+      "Check the affected results under your laboratory's procedures before releasing them.",
+      'Choose which events e-mail you on your own page in the Meltwire console.',
+    ].join('\n'),
+  };
+}

@@ -6,6 +6,10 @@ export const UserStatusValues = ["invited","active","disabled"] as const;
 
 export const ScopeValues = ["samples:read","samples:write","samples:release","imports:write","instruments:write","methods:write","standardizations:read","standardizations:write","standardizations:activate","grades:read","grades:write","control:read","control:write","webhooks:read","webhooks:write","events:read","request-log:read","api-keys:read","api-keys:write","users:read","users:write","audit:read"] as const;
 
+export const ControlStatusValues = ["in_control","verify"] as const;
+
+export const RunRuleValues = ["beyond_3s","two_of_three_2s","four_of_five_1s","eight_one_side","nine_one_side","six_trend"] as const;
+
 export const SampleKindValues = ["preliminary","final","ladle","incoming","control"] as const;
 
 export const SampleStatusValues = ["draft","released"] as const;
@@ -45,6 +49,16 @@ export const CorrectionModeValues = ["two_point","one_point_factor","one_point_o
 export const StandardizationStatusValues = ["draft","activated"] as const;
 
 export const CorrectionFlagValues = ["ok","warn","fail"] as const;
+
+export const ControlSampleKindValues = ["reference_material","in_house"] as const;
+
+export const AlertKindValues = ["out_of_spec","control_out_of_control","standardization_flagged","webhook_disabled"] as const;
+export const AlertKindDescriptions = {
+  "out_of_spec": "A sample does not conform to its grade",
+  "control_out_of_control": "A control point breaks a run rule",
+  "standardization_flagged": "A standardization run is flagged",
+  "webhook_disabled": "A webhook endpoint was disabled after failed deliveries"
+} as const;
 
 export const EventTypeValues = ["sample.created","sample.released","sample.amended","sample.out_of_spec","import.completed","import.failed","standardization.flagged","standardization.activated","control.out_of_control"] as const;
 

@@ -351,7 +351,9 @@ export interface paths {
         };
         /**
          * Get an instrument
-         * @description Requires the scope `samples:read`.
+         * @description With its control status per method (`verify` after a control rule violation, until a disposition), the reason and the history.
+         *
+         *     Requires the scope `samples:read`.
          */
         get: operations["getInstrument"];
         put?: never;
@@ -364,6 +366,28 @@ export interface paths {
          * @description Requires the scope `instruments:write`. A lab-wide change: not open to API keys restricted to instruments.
          */
         patch: operations["updateInstrument"];
+        trace?: never;
+    };
+    "/instruments/{id}/control-dispositions": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Record the disposition of a control violation
+         * @description Cause and action (e.g. "electrode re-gapped, control re-run in control"); the instrument is `in_control` again for the method.
+         *
+         *     Requires the scope `control:write`.
+         */
+        post: operations["recordControlDisposition"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
         trace?: never;
     };
     "/methods": {
@@ -1211,6 +1235,112 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/control-samples": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * List control sample definitions with the latest status
+         * @description Requires the scope `control:read`.
+         */
+        get: operations["listControlSamples"];
+        put?: never;
+        /**
+         * Define a control sample for an instrument and method
+         * @description Per element, enter a centre line and SD with their `source`, or leave them out to establish them from the first `baseline_n` points (the chart is provisional until then). Samples of kind `control` are linked by `control_sample_id` (JSON push) or by their sample code (file import).
+         *
+         *     Requires the scope `control:write`.
+         */
+        post: operations["createControlSample"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/control-samples/{id}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Get a control sample definition
+         * @description Requires the scope `control:read`.
+         */
+        get: operations["getControlSample"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        /**
+         * Change the description, run rules or limits of a control sample
+         * @description New limits apply from their `valid_from` (default now); the old ones are kept, and each point is judged with the limits in force when it was measured.
+         *
+         *     Requires the scope `control:write`.
+         */
+        patch: operations["updateControlSample"];
+        trace?: never;
+    };
+    "/control-samples/{id}/chart": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Control chart data of one element
+         * @description Points (drift-corrected mean of the included burns), limits in force per point, ±1/2/3σ of the current limits, limit validity periods and the moving range series. Rules are applied over all points; `from`/`to` only narrow what is returned. Run rules and their sources:
+         *     - `beyond_3s`: One point beyond 3σ — Western Electric Statistical Quality Control Handbook (1956), test 1
+         *     - `two_of_three_2s`: Two of three successive points beyond 2σ on the same side — Western Electric Statistical Quality Control Handbook (1956), test 2
+         *     - `four_of_five_1s`: Four of five successive points beyond 1σ on the same side — Western Electric Statistical Quality Control Handbook (1956), test 3
+         *     - `eight_one_side`: Eight successive points on the same side of the centre line — Western Electric Statistical Quality Control Handbook (1956), test 4
+         *     - `nine_one_side`: Nine points in a row on the same side of the centre line — Nelson, Journal of Quality Technology 16(4), 1984, test 2
+         *     - `six_trend`: Six points in a row steadily increasing or decreasing — Nelson, Journal of Quality Technology 16(4), 1984, test 3
+         *
+         *     Requires the scope `control:read`.
+         */
+        get: operations["getControlChart"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/me/alert-preferences": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Which events e-mail me
+         * @description Requires a signed-in user or an API key.
+         */
+        get: operations["getAlertPreferences"];
+        /**
+         * Choose which events e-mail me
+         * @description Replaces your choices. Alerts within `group_minutes` of each other arrive as one message.
+         *
+         *     Requires a signed-in user or an API key.
+         */
+        put: operations["putAlertPreferences"];
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/events": {
         parameters: {
             query?: never;
@@ -1747,6 +1877,49 @@ export interface components {
             /** @example Foundry, Kestrel Bend */
             site: string;
         };
+        /** @description One spectrometer at a site. */
+        InstrumentDetail: components["schemas"]["Instrument"] & {
+            /** @description Control status per method that has had a control violation. */
+            control: components["schemas"]["InstrumentControlStatus"][];
+        };
+        InstrumentControlStatus: {
+            method_id: string;
+            status: components["schemas"]["ControlStatus"];
+            reason: components["schemas"]["ControlStatusChange"];
+            history: components["schemas"]["ControlStatusChange"][];
+        };
+        /** @enum {string} */
+        ControlStatus: "in_control" | "verify";
+        ControlStatusChange: {
+            id: string;
+            method_id: string;
+            status: components["schemas"]["ControlStatus"];
+            control_sample_id: string | null;
+            sample_id: string | null;
+            measured_at: string | null;
+            violations: {
+                element: string;
+                rule: components["schemas"]["RunRule"];
+                title: string;
+                source: string;
+            }[];
+            cause: string | null;
+            action: string | null;
+            created_by: string;
+            created_at: string;
+        } | null;
+        /**
+         * @description A control chart run rule: `beyond_3s`: One point beyond 3σ (Western Electric Statistical Quality Control Handbook (1956), test 1); `two_of_three_2s`: Two of three successive points beyond 2σ on the same side (Western Electric Statistical Quality Control Handbook (1956), test 2); `four_of_five_1s`: Four of five successive points beyond 1σ on the same side (Western Electric Statistical Quality Control Handbook (1956), test 3); `eight_one_side`: Eight successive points on the same side of the centre line (Western Electric Statistical Quality Control Handbook (1956), test 4); `nine_one_side`: Nine points in a row on the same side of the centre line (Nelson, Journal of Quality Technology 16(4), 1984, test 2); `six_trend`: Six points in a row steadily increasing or decreasing (Nelson, Journal of Quality Technology 16(4), 1984, test 3).
+         * @enum {string}
+         */
+        RunRule: "beyond_3s" | "two_of_three_2s" | "four_of_five_1s" | "eight_one_side" | "nine_one_side" | "six_trend";
+        ControlDispositionRequest: {
+            method_id: string;
+            /** @example electrode worn */
+            cause: string;
+            /** @example electrode re-gapped, control re-run in control */
+            action: string;
+        };
         UpdateInstrumentRequest: {
             /** @example OES-1 */
             code?: string;
@@ -2122,6 +2295,8 @@ export interface components {
             /** @example SAE 1045 */
             grade?: string;
             kind?: components["schemas"]["SampleKind"];
+            /** @description The control sample this is a measurement of (kind must be `control`); it is then judged on that control chart. */
+            control_sample_id?: string;
             instrument_id: string;
             method_id: string;
             /**
@@ -2182,6 +2357,10 @@ export interface components {
              * @default false
              */
             accept_nonconforming: boolean;
+            /** @description Needed while the instrument is `verify` for the method (a control point broke a run rule) and the sample was measured after that point: say how the result was checked. Recorded in the audit trail with the release. */
+            acknowledge_control?: {
+                comment: string;
+            };
         };
         ReleasedSamples: {
             data: components["schemas"]["Sample"][];
@@ -2695,41 +2874,9 @@ export interface components {
             unit: "%" | "ppm" | "ppb" | "fraction";
         };
         /** @description A standardization run and the correction set it computed, element by element. */
-        Standardization: {
-            /** @description Also the id of the correction set once activated. */
-            id: string;
-            instrument: {
-                id: string;
-                code: string;
-            };
-            method: {
-                id: string;
-                code: string;
-            };
-            mode: components["schemas"]["CorrectionMode"];
-            status: components["schemas"]["StandardizationStatus"];
-            flag: components["schemas"]["CorrectionFlag"];
-            /** @description True when this is the set in force now for its instrument and method. */
-            in_force: boolean;
-            /** Format: date-time */
-            measured_at: string;
-            note: string | null;
-            /** @description For `type`: the set in force that this one was computed on top of. */
-            base_set_id: string | null;
-            activation: {
-                /** Format: date-time */
-                activated_at: string;
-                activated_by: string;
-                /** Format: date-time */
-                effective_from: string;
-                /** @description Given when an element was flagged `fail`. */
-                override_reason: string | null;
-            } | null;
-            measurements: components["schemas"]["StandardizationMeasurement"][];
-            corrections: components["schemas"]["ElementCorrection"][];
-            created_by: string;
-            /** Format: date-time */
-            created_at: string;
+        CreatedStandardization: components["schemas"]["Standardization"] & {
+            /** @description Advice, never a block: `control_in_control` when the control of this instrument and method is in control (ASTM E1329). */
+            warnings: components["schemas"]["StandardizationWarning"][];
         };
         /**
          * @description `two_point`: a `high` and a `low` reference; slope α = (H⁰ − L⁰)/(H − L), offset β = L⁰ − α·L. `one_point_factor`: one reference; α = N/M, β = 0. `one_point_offset`: one reference; α = 1, β = N − M. `type`: one reference of kind `type` (similar composition to the samples), multiplicative, on top of the set in force: t = N/(α₀·M + β₀), stored as α = t·α₀, β = t·β₀. (H⁰, L⁰, N nominal; H, L, M the mean of the reference's burns.)
@@ -2799,6 +2946,48 @@ export interface components {
             measured: string | null;
             /** @description Numeric burns behind `measured`. */
             n: number;
+        };
+        StandardizationWarning: {
+            /** @enum {string} */
+            code: "control_in_control";
+            message: string;
+        };
+        /** @description A standardization run and the correction set it computed, element by element. */
+        Standardization: {
+            /** @description Also the id of the correction set once activated. */
+            id: string;
+            instrument: {
+                id: string;
+                code: string;
+            };
+            method: {
+                id: string;
+                code: string;
+            };
+            mode: components["schemas"]["CorrectionMode"];
+            status: components["schemas"]["StandardizationStatus"];
+            flag: components["schemas"]["CorrectionFlag"];
+            /** @description True when this is the set in force now for its instrument and method. */
+            in_force: boolean;
+            /** Format: date-time */
+            measured_at: string;
+            note: string | null;
+            /** @description For `type`: the set in force that this one was computed on top of. */
+            base_set_id: string | null;
+            activation: {
+                /** Format: date-time */
+                activated_at: string;
+                activated_by: string;
+                /** Format: date-time */
+                effective_from: string;
+                /** @description Given when an element was flagged `fail`. */
+                override_reason: string | null;
+            } | null;
+            measurements: components["schemas"]["StandardizationMeasurement"][];
+            corrections: components["schemas"]["ElementCorrection"][];
+            created_by: string;
+            /** Format: date-time */
+            created_at: string;
         };
         CreateStandardizationRequest: {
             method_id: string;
@@ -3078,6 +3267,160 @@ export interface components {
              * @example Mn
              */
             matrix?: string;
+        };
+        ControlSampleList: {
+            data: components["schemas"]["ControlSample"][];
+            /** @description Pass as `cursor` to get the next page; null on the last page. */
+            next_cursor: string | null;
+        };
+        ControlSample: {
+            id: string;
+            instrument_id: string;
+            method_id: string;
+            code: string;
+            description: string;
+            kind: components["schemas"]["ControlSampleKind"];
+            elements: string[];
+            rules: components["schemas"]["RunRule"][];
+            baseline_n: number;
+            limits: {
+                element: string;
+                centre: string;
+                sd: string;
+                source: string;
+                valid_from: string;
+            }[];
+            status: components["schemas"]["ControlStatus"] & unknown;
+            latest_point_at: string | null;
+            created_at: string;
+            updated_at: string;
+        };
+        /** @enum {string} */
+        ControlSampleKind: "reference_material" | "in_house";
+        CreateControlSampleRequest: {
+            instrument_id: string;
+            method_id: string;
+            /**
+             * @description Matched (ignoring case) against the sample code of imported control samples.
+             * @example CTRL-FE-1
+             */
+            code: string;
+            /** @default  */
+            description: string;
+            kind: components["schemas"]["ControlSampleKind"];
+            elements: components["schemas"]["ControlLimitInput"][];
+            /** @description Run rules switched on (default all but nine_one_side). */
+            rules?: components["schemas"]["RunRule"][];
+            /**
+             * @description Points that establish limits not entered (20 or more recommended).
+             * @default 20
+             */
+            baseline_n: number;
+        };
+        ControlLimitInput: {
+            /** @example C */
+            element: string;
+            /**
+             * @description Centre line in %; omit (with sd) to establish it from the first N points.
+             * @example 0.452
+             */
+            centre?: string;
+            /**
+             * @description Standard deviation in %.
+             * @example 0.004
+             */
+            sd?: string;
+            /**
+             * @description Where centre and SD came from (certificate, earlier chart).
+             * @example certificate CRM 12-3, repeatability from 2025 chart
+             */
+            source?: string;
+            /**
+             * Format: date-time
+             * @description When these limits start to apply (default now).
+             */
+            valid_from?: string;
+        };
+        UpdateControlSampleRequest: {
+            description?: string;
+            rules?: components["schemas"]["RunRule"][];
+            /** @description New limits; the old ones are kept and apply until valid_from. */
+            limits?: components["schemas"]["ControlLimitInput"][];
+        };
+        /** @description Rules: `beyond_3s`: One point beyond 3σ (Western Electric Statistical Quality Control Handbook (1956), test 1); `two_of_three_2s`: Two of three successive points beyond 2σ on the same side (Western Electric Statistical Quality Control Handbook (1956), test 2); `four_of_five_1s`: Four of five successive points beyond 1σ on the same side (Western Electric Statistical Quality Control Handbook (1956), test 3); `eight_one_side`: Eight successive points on the same side of the centre line (Western Electric Statistical Quality Control Handbook (1956), test 4); `nine_one_side`: Nine points in a row on the same side of the centre line (Nelson, Journal of Quality Technology 16(4), 1984, test 2); `six_trend`: Six points in a row steadily increasing or decreasing (Nelson, Journal of Quality Technology 16(4), 1984, test 3). */
+        ControlChart: {
+            control_sample_id: string;
+            element: string;
+            /** @enum {string} */
+            unit: "%";
+            provisional: boolean;
+            /** @description Centre line of the limits in force now. */
+            centre: number | null;
+            sigma: {
+                upper_1: number;
+                upper_2: number;
+                upper_3: number;
+                lower_1: number;
+                lower_2: number;
+                lower_3: number;
+            } | null;
+            limits: components["schemas"]["ControlLimitPeriod"][];
+            points: {
+                sample_id: string;
+                sample_code: string;
+                measured_at: string;
+                value: number;
+                burns_n: number;
+                centre: number | null;
+                sd: number | null;
+                provisional: boolean;
+                violations: components["schemas"]["RunRuleViolation"][];
+            }[];
+            moving_ranges: {
+                sample_id: string;
+                measured_at: string;
+                value: number;
+            }[];
+            rules: {
+                title: string;
+                source: string;
+                rule: components["schemas"]["RunRule"];
+                enabled: boolean;
+            }[];
+        };
+        ControlLimitPeriod: {
+            centre: number;
+            sd: number;
+            source: string;
+            /** @description Computed from the first N points rather than entered. */
+            established: boolean;
+            /** @description Established from fewer than N points: points are not judged yet. */
+            provisional: boolean;
+            valid_from: string | null;
+            valid_to: string | null;
+        };
+        RunRuleViolation: {
+            rule: components["schemas"]["RunRule"];
+            title: string;
+            source: string;
+        };
+        AlertPreferences: {
+            data: components["schemas"]["AlertPreference"][];
+            /** @description Alerts within this many minutes come as one message. */
+            group_minutes: number;
+        };
+        AlertPreference: {
+            kind: components["schemas"]["AlertKind"];
+            /** @description Only this instrument; null for all instruments. */
+            instrument_id: string | null;
+        };
+        /**
+         * @description What e-mails you.
+         * @enum {string}
+         */
+        AlertKind: "out_of_spec" | "control_out_of_control" | "standardization_flagged" | "webhook_disabled";
+        PutAlertPreferencesRequest: {
+            data: components["schemas"]["AlertPreference"][];
         };
         EventFeed: {
             data: components["schemas"]["Event"][];
@@ -5302,7 +5645,7 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/json": components["schemas"]["Instrument"];
+                    "application/json": components["schemas"]["InstrumentDetail"];
                 };
             };
             /** @description The request is not valid; `errors[]` names each field. */
@@ -5430,6 +5773,130 @@ export interface operations {
                 };
             };
             /** @description The new code is taken. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    recordControlDisposition: {
+        parameters: {
+            query?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["ControlDispositionRequest"];
+            };
+        };
+        responses: {
+            /** @description Recorded. */
+            201: {
+                headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ControlStatusChange"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `control:write`. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such instrument. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The instrument is in control for the method. */
             409: {
                 headers: {
                     [name: string]: unknown;
@@ -8353,7 +8820,7 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/json": components["schemas"]["Standardization"];
+                    "application/json": components["schemas"]["CreatedStandardization"];
                 };
             };
             /** @description The request is not valid; `errors[]` names each field. */
@@ -9563,6 +10030,641 @@ export interface operations {
                 };
             };
             /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    listControlSamples: {
+        parameters: {
+            query?: {
+                /** @description Page size (1–200). */
+                limit?: number;
+                /** @description Opaque cursor from the previous page's `next_cursor`. */
+                cursor?: string;
+                instrument_id?: string;
+            };
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description A page of control samples, by code. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ControlSampleList"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `control:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    createControlSample: {
+        parameters: {
+            query?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["CreateControlSampleRequest"];
+            };
+        };
+        responses: {
+            /** @description Defined. */
+            201: {
+                headers: {
+                    /** @description The new control sample. */
+                    Location?: string;
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ControlSample"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `control:write`. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The code is taken for this instrument and method. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unknown instrument, method or element. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    getControlSample: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The control sample. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ControlSample"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `control:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such control sample. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    updateControlSample: {
+        parameters: {
+            query?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["UpdateControlSampleRequest"];
+            };
+        };
+        responses: {
+            /** @description The changed control sample. */
+            200: {
+                headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ControlSample"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `control:write`. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such control sample. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description An element that is not charted. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    getControlChart: {
+        parameters: {
+            query: {
+                element: string;
+                from?: string;
+                to?: string;
+            };
+            header?: never;
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The chart. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ControlChart"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `control:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such control sample. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The element is not charted. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    getAlertPreferences: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Your alert choices. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["AlertPreferences"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    putAlertPreferences: {
+        parameters: {
+            query?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["PutAlertPreferencesRequest"];
+            };
+        };
+        responses: {
+            /** @description Your alert choices. */
+            200: {
+                headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["AlertPreferences"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unknown instrument. */
             422: {
                 headers: {
                     [name: string]: unknown;

@@ -93,6 +93,12 @@ export const StandardizationSchema = z
   })
   .openapi('Standardization', { description: 'A standardization run and the correction set it computed, element by element.' });
 
+export const CreatedStandardizationSchema = StandardizationSchema.extend({
+  warnings: z.array(z.object({ code: z.enum(['control_in_control']), message: z.string() }).openapi('StandardizationWarning')).openapi({
+    description: 'Advice, never a block: `control_in_control` when the control of this instrument and method is in control (ASTM E1329).',
+  }),
+}).openapi('CreatedStandardization');
+
 export const StandardizationListSchema = listOf(StandardizationSchema, 'StandardizationList');
 
 const MeasurementInput = z

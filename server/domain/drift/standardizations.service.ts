@@ -9,6 +9,8 @@ import { newId } from '../../lib/ids.ts';
 import { nowIso } from '../../lib/time.ts';
 import { type Actor, actorOf } from '../audit/actor.ts';
 import { recordAudit } from '../audit/audit.repository.ts';
+import { queueAlert } from '../alerts/alerts.service.ts';
+import { standardizationAdvice } from '../control/control-advice.ts';
 import { recordEvent } from '../events/events.repository.ts';
 import { findInstrument } from '../instruments/instruments.repository.ts';
 import { assertInstrumentAllowed } from '../instruments/instruments.service.ts';
@@ -137,7 +139,7 @@ export async function createStandardization(
       requestId,
     }),
   );
-  return getStandardization(ctx, auth, id);
+  return { ...(await getStandardization(ctx, auth, id)), warnings: await standardizationAdvice(ctx.db, instrumentId, method.id) };
 }
 
 export interface StoreRunInput {
@@ -200,6 +202,13 @@ export async function storeRun(trx: Transaction, input: StoreRunInput): Promise<
   if (row.flag !== 'ok') {
     const flagged = run.corrections.filter((c) => c.flag !== 'ok').map((c) => ({ element: c.element, flag: c.flag, reasons: c.reasons }));
     await recordEvent(trx, 'standardization.flagged', { standardization: summary, elements: flagged }, { occurredAt: now, instrumentId });
+    await queueAlert(trx, {
+      kind: 'standardization_flagged',
+      instrumentId,
+      subject: `Standardization ${id} flagged ${row.flag}`,
+      lines: flagged.map((f) => `  - ${f.element}: ${f.flag} (${f.reasons.join('; ')})`),
+      path: `/standardizations/${id}`,
+    });
   }
   return id;
 }

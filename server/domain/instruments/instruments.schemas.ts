@@ -1,3 +1,4 @@
+import { InstrumentControlSchema } from '../control/control.schemas.ts';
 import { listOf, paginationQuery } from '../../lib/pagination.ts';
 import { z } from '../../lib/zod.ts';
 
@@ -19,6 +20,10 @@ export const InstrumentSchema = z
     updated_at: z.string().openapi({ format: 'date-time' }),
   })
   .openapi('Instrument', { description: 'One spectrometer at a site.' });
+
+export const InstrumentDetailSchema = InstrumentSchema.extend({
+  control: z.array(InstrumentControlSchema).openapi({ description: 'Control status per method that has had a control violation.' }),
+}).openapi('InstrumentDetail');
 
 export const InstrumentListSchema = listOf(InstrumentSchema, 'InstrumentList');
 export const InstrumentListQuerySchema = paginationQuery;

@@ -11,6 +11,7 @@ import { actorOf } from '../audit/actor.ts';
 import { recordAudit } from '../audit/audit.repository.ts';
 import type { AuthContext } from '../auth/auth-context.ts';
 import { recordEvent } from '../events/events.repository.ts';
+import { controlAcknowledgement } from '../control/control-status.ts';
 import { recordReleasedRevision } from './amendments.service.ts';
 import { isSampleVisible, loadSample } from './sample-access.ts';
 import { loadSampleDetail } from './sample-view.ts';
@@ -54,6 +55,17 @@ function refusal(
   return null;
 }
 
+/** The control guard's refusal as a batch error, or null. */
+async function controlRefusal(trx: Transaction, sample: SampleRowWithRefs, input: ReleaseInput) {
+  try {
+    await controlAcknowledgement(trx, sample, input.acknowledge_control);
+    return null;
+  } catch (error) {
+    if (error instanceof UnprocessableProblem) return { status: 422 as const, message: error.message };
+    throw error;
+  }
+}
+
 async function release(
   trx: Transaction,
   ctx: ReleaseContext,
@@ -62,6 +74,7 @@ async function release(
   input: ReleaseInput,
   requestId?: string,
 ) {
+  const acknowledged = await controlAcknowledgement(trx, sample, input.acknowledge_control);
   const now = nowIso();
   const concession = sample.conforms !== 'true';
   const actor = actorOf(auth);
@@ -81,7 +94,7 @@ async function release(
     action: 'sample.released',
     targetType: 'sample',
     targetId: sample.id,
-    after: { revision: sample.revision, concession, comment: input.comment ?? null },
+    after: { revision: sample.revision, concession, comment: input.comment ?? null, control_acknowledgement: acknowledged },
   });
   await recordEvent(trx, 'sample.released', { sample: document }, { instrumentId: sample.instrument_id });
   return document;
@@ -114,7 +127,7 @@ export async function releaseSamples(
         errors.push({ location: `body.sample_ids.${i}`, message: `No sample ${id}.` });
         continue;
       }
-      const refused = refusal(ctx, auth, sample, input);
+      const refused = refusal(ctx, auth, sample, input) ?? (await controlRefusal(trx, sample, input));
       if (refused) errors.push({ location: `body.sample_ids.${i}`, message: refused.message, code: String(refused.status) });
       else samples.push(sample);
     }

@@ -42,6 +42,9 @@ export const PushSampleRequestSchema = z
     heat: text(SAMPLE_TEXT_LIMITS.identification).optional().openapi({ example: 'K24-0412' }),
     grade: text(SAMPLE_TEXT_LIMITS.identification).optional().openapi({ example: 'SAE 1045' }),
     kind: SampleKindSchema.optional(),
+    control_sample_id: z.string().min(1).max(40).optional().openapi({
+      description: 'The control sample this is a measurement of (kind must be `control`); it is then judged on that control chart.',
+    }),
     instrument_id: z.string().min(1).max(40),
     method_id: z.string().min(1).max(40),
     fields: fieldsSchema.optional(),
@@ -243,6 +246,13 @@ export const ReleaseRequestSchema = z
       .boolean()
       .default(false)
       .openapi({ description: 'Release a sample that does not conform (or could not be judged) as a concession; needs a comment.' }),
+    acknowledge_control: z
+      .object({ comment: z.string().trim().min(1).max(2000) })
+      .optional()
+      .openapi({
+        description:
+          'Needed while the instrument is `verify` for the method (a control point broke a run rule) and the sample was measured after that point: say how the result was checked. Recorded in the audit trail with the release.',
+      }),
   })
   .openapi('ReleaseRequest');
 

@@ -23,6 +23,8 @@ import type { PushSampleRequestSchema } from './samples.schemas.ts';
 import type { z } from '../../lib/zod.ts';
 import { conformanceJudge } from '../grades/sample-conformance.ts';
 import { recordEvent } from '../events/events.repository.ts';
+import { queueAlert } from '../alerts/alerts.service.ts';
+import { linkControlMeasurements, rejudgeControlPoint } from '../control/control-judge.ts';
 
 export type PushedSample = z.output<typeof PushSampleRequestSchema>;
 
@@ -87,7 +89,11 @@ export async function pushSamples(
       const corrections = await timelineOf(sample.instrument_id, method.id);
       built.push(buildSampleRows({ ...sample, method, source: 'push', created_by_label: actor.label, burns, corrections }, now));
     }
-    await storeNewSamples(trx, built, actor, requestId, { userId: auth.userId });
+    await storeNewSamples(trx, built, actor, requestId, {
+      userId: auth.userId,
+      controlSampleIds: samples.map((s) => s.control_sample_id),
+      batch,
+    });
     return built.map((b) => b.sample.id);
   });
 }
@@ -98,7 +104,7 @@ export async function storeNewSamples(
   built: ReturnType<typeof buildSampleRows>[],
   actor: Actor,
   requestId?: string,
-  options: { auditEach?: boolean; userId?: string } = {},
+  options: { auditEach?: boolean; userId?: string; controlSampleIds?: (string | undefined)[]; batch?: boolean } = {},
 ): Promise<void> {
   const judge = conformanceJudge(trx);
   for (const { sample } of built) {
@@ -112,6 +118,7 @@ export async function storeNewSamples(
   // One sample.created event per sample, whatever the path (push, batch, import, seed).
   await recordSamplesCreated(trx, built);
   for (const { sample } of built) await recordOutOfSpec(trx, sample, null);
+  await linkControlMeasurements(trx, built, options.controlSampleIds, options.batch);
   // A file import is audited once, as import.completed, naming the import that holds the samples.
   if (options.auditEach === false) return;
   for (const { sample } of built) {
@@ -154,6 +161,13 @@ export async function recordOutOfSpec(
     },
     { instrumentId: sample.instrument_id },
   );
+  await queueAlert(trx, {
+    kind: 'out_of_spec',
+    instrumentId: sample.instrument_id,
+    subject: `${sample.sample_code} does not conform to ${sample.grade}`,
+    lines: [`Sample ${sample.sample_code}${sample.heat ? ` (heat ${sample.heat})` : ''} does not conform to grade ${sample.grade}.`],
+    path: `/samples/${sample.id}`,
+  });
 }
 
 /** The results of a sample's burns as they stand (excluded ones left out), each with the correction it was stored with. */
@@ -216,6 +230,7 @@ export async function setBurnExclusion(
       ...verdict,
     });
     await recordOutOfSpec(trx, { ...sample, ...verdict }, sample.conforms);
+    await rejudgeControlPoint(trx, sampleId);
     await recordAudit(trx, {
       actor,
       requestId,

@@ -6,6 +6,7 @@ import { SYSTEM_ACTOR } from '../audit/actor.ts';
 import { recordAudit } from '../audit/audit.repository.ts';
 import { findUserById } from '../users/users.repository.ts';
 import type { Outcome } from './retry-policy.ts';
+import { queueAlert } from '../alerts/alerts.service.ts';
 import { findEndpoint, updateEndpointRow, type WebhookEndpointRow } from './webhooks.repository.ts';
 
 export const FAILING_DAYS_BEFORE_DISABLE = 5;
@@ -21,6 +22,13 @@ async function disable(ctx: AppContext, trx: Transaction, endpoint: WebhookEndpo
     targetType: 'webhook_endpoint',
     targetId: endpoint.id,
     after: { enabled: false, disabled_reason: reason },
+  });
+  await queueAlert(trx, {
+    kind: 'webhook_disabled',
+    instrumentId: null,
+    subject: `Webhook endpoint ${endpoint.url} disabled`,
+    lines: [reason, `Endpoint ${endpoint.id} receives no more deliveries until it is enabled again.`],
+    path: '/webhooks',
   });
   const owner = endpoint.owner_user_id ? await findUserById(trx, endpoint.owner_user_id) : undefined;
   if (!owner) return;

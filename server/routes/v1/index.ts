@@ -1,5 +1,7 @@
 import type { AnyRoute } from '../../http/route.ts';
+import { alertPreferenceRoutes } from './alert-preferences.ts';
 import { apiKeyRoutes } from './api-keys.ts';
+import { controlSampleRoutes } from './control-samples.ts';
 import { auditRoutes } from './audit-events.ts';
 import { authRoutes } from './auth.ts';
 import { driftRoutes } from './drift.ts';
@@ -42,6 +44,8 @@ export const v1Routes: AnyRoute[] = [
   ...standardizationRoutes,
   ...driftRoutes,
   ...gradeRoutes,
+  ...controlSampleRoutes,
+  ...alertPreferenceRoutes,
   ...eventRoutes,
   ...webhookEndpointRoutes,
   ...webhookDeliveryRoutes,

@@ -1,13 +1,16 @@
 import {
   CreateInstrumentRequestSchema,
+  InstrumentDetailSchema,
   InstrumentIdParams,
   InstrumentListQuerySchema,
   InstrumentListSchema,
   InstrumentSchema,
   UpdateInstrumentRequestSchema,
 } from '../../domain/instruments/instruments.schemas.ts';
-import { createInstrument, getInstrument, listInstrumentsPage, updateInstrument } from '../../domain/instruments/instruments.service.ts';
+import { createInstrument, listInstrumentsPage, updateInstrument } from '../../domain/instruments/instruments.service.ts';
 import { defineRoute } from '../../http/route.ts';
+import { ControlStatusChangeSchema, DispositionRequestSchema } from '../../domain/control/control.schemas.ts';
+import { getInstrumentDetail, recordDisposition } from '../../domain/control/control-status.ts';
 
 export const instrumentRoutes = [
   defineRoute({
@@ -49,9 +52,31 @@ export const instrumentRoutes = [
     tag: 'Instruments',
     access: { scope: 'samples:read' },
     params: InstrumentIdParams,
-    responses: { 200: { description: 'The instrument.', schema: InstrumentSchema }, 404: { description: 'No such instrument.' } },
+    description:
+      'With its control status per method (`verify` after a control rule violation, until a disposition), the reason and the history.',
+    responses: { 200: { description: 'The instrument.', schema: InstrumentDetailSchema }, 404: { description: 'No such instrument.' } },
     async handler({ params, auth, ctx, reply }) {
-      reply(200, await getInstrument(ctx, auth, params.id));
+      reply(200, await getInstrumentDetail(ctx, auth, params.id));
+    },
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/instruments/{id}/control-dispositions',
+    operationId: 'recordControlDisposition',
+    summary: 'Record the disposition of a control violation',
+    description:
+      'Cause and action (e.g. "electrode re-gapped, control re-run in control"); the instrument is `in_control` again for the method.',
+    tag: 'Instruments',
+    access: { scope: 'control:write' },
+    params: InstrumentIdParams,
+    body: DispositionRequestSchema,
+    responses: {
+      201: { description: 'Recorded.', schema: ControlStatusChangeSchema },
+      404: { description: 'No such instrument.' },
+      409: { description: 'The instrument is in control for the method.' },
+    },
+    async handler({ params, body, auth, req, ctx, reply }) {
+      reply(201, await recordDisposition(ctx, auth, params.id, body, req.requestId));
     },
   }),
   defineRoute({

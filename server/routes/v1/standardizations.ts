@@ -7,6 +7,7 @@ import {
   InstrumentStandardizationParams,
   StandardizationIdParams,
   StandardizationListQuerySchema,
+  CreatedStandardizationSchema,
   StandardizationListSchema,
   StandardizationSchema,
 } from '../../domain/drift/standardizations.schemas.ts';
@@ -29,7 +30,7 @@ export const standardizationRoutes = [
     responses: {
       201: {
         description: 'Computed and stored as a draft.',
-        schema: StandardizationSchema,
+        schema: CreatedStandardizationSchema,
         headers: { Location: 'The new standardization.' },
       },
       404: { description: 'No such instrument.' },
