@@ -50,7 +50,7 @@ const envSchema = z.object({
   REQUEST_LOG_RETENTION_DAYS: z.coerce.number().int().min(1).max(3650).default(30),
   RELEASE_REQUIRES_SECOND_PERSON: booleanFlag.default(true),
   EVENT_RETENTION_DAYS: z.coerce.number().int().min(1).max(3650).default(30),
-  WEBHOOK_ALLOW_PRIVATE: booleanFlag.default(false),
+  WEBHOOK_ALLOW_PRIVATE: booleanFlag.optional(),
   WEBHOOK_RETRY_DELAYS: z
     .string()
     .regex(/^\s*\d+(\s*,\s*\d+){0,19}\s*$/, 'must be 1–20 comma-separated whole numbers of seconds, e.g. 0,5,300')
@@ -123,6 +123,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   if (e.NODE_ENV === 'production' && !e.SESSION_SECRET) {
     throw new ConfigError(['SESSION_SECRET: required when NODE_ENV=production (32+ characters)']);
   }
+  const seedDemo = e.SEED_DEMO ?? e.NODE_ENV !== 'production';
   return {
     env: e.NODE_ENV,
     port: e.PORT,
@@ -135,7 +136,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     mailFrom: e.MAIL_FROM,
     publicUrl: (e.PUBLIC_URL ?? `http://localhost:${e.PORT}`).replace(/\/$/, ''),
     logLevel: e.LOG_LEVEL,
-    seedDemo: e.SEED_DEMO ?? e.NODE_ENV !== 'production',
+    seedDemo,
     loginRateLimitPerMinute: e.LOGIN_RATE_LIMIT_PER_MINUTE,
     rateLimitPerMinute: e.RATE_LIMIT_PER_MINUTE,
     bodyLimit: e.BODY_LIMIT,
@@ -143,7 +144,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     requestLogBodyLimit: e.REQUEST_LOG_BODY_LIMIT,
     requestLogRetentionDays: e.REQUEST_LOG_RETENTION_DAYS,
     eventRetentionDays: e.EVENT_RETENTION_DAYS,
-    webhookAllowPrivate: e.WEBHOOK_ALLOW_PRIVATE,
+    // The demo points webhooks at a receiver on the same machine; production never opens private addresses by default.
+    webhookAllowPrivate: e.WEBHOOK_ALLOW_PRIVATE ?? (seedDemo && e.NODE_ENV === 'development'),
     webhookRetryDelays: e.WEBHOOK_RETRY_DELAYS.split(',').map((s) => Number(s.trim())),
     trustProxy: trustProxy(e.TRUST_PROXY),
     releaseRequiresSecondPerson: e.RELEASE_REQUIRES_SECOND_PERSON,
