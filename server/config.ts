@@ -56,7 +56,7 @@ const envSchema = z.object({
     .min(0)
     .max(24 * 60)
     .default(5),
-  WEBHOOK_ALLOW_PRIVATE: booleanFlag.default(false),
+  WEBHOOK_ALLOW_PRIVATE: booleanFlag.optional(),
   WEBHOOK_RETRY_DELAYS: z
     .string()
     .regex(/^\s*\d+(\s*,\s*\d+){0,19}\s*$/, 'must be 1–20 comma-separated whole numbers of seconds, e.g. 0,5,300')
@@ -133,6 +133,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   if (e.NODE_ENV === 'production' && !e.SESSION_SECRET) {
     throw new ConfigError(['SESSION_SECRET: required when NODE_ENV=production (32+ characters)']);
   }
+  const seedDemo = e.SEED_DEMO ?? e.NODE_ENV !== 'production';
   return {
     env: e.NODE_ENV,
     port: e.PORT,
@@ -145,7 +146,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     mailFrom: e.MAIL_FROM,
     publicUrl: (e.PUBLIC_URL ?? `http://localhost:${e.PORT}`).replace(/\/$/, ''),
     logLevel: e.LOG_LEVEL,
-    seedDemo: e.SEED_DEMO ?? e.NODE_ENV !== 'production',
+    seedDemo,
     loginRateLimitPerMinute: e.LOGIN_RATE_LIMIT_PER_MINUTE,
     rateLimitPerMinute: e.RATE_LIMIT_PER_MINUTE,
     bodyLimit: e.BODY_LIMIT,
@@ -154,7 +155,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     requestLogRetentionDays: e.REQUEST_LOG_RETENTION_DAYS,
     eventRetentionDays: e.EVENT_RETENTION_DAYS,
     alertGroupMinutes: e.ALERT_GROUP_MINUTES,
-    webhookAllowPrivate: e.WEBHOOK_ALLOW_PRIVATE,
+    // The demo points webhooks at a receiver on the same machine; production never opens private addresses by default.
+    webhookAllowPrivate: e.WEBHOOK_ALLOW_PRIVATE ?? (seedDemo && e.NODE_ENV === 'development'),
     webhookRetryDelays: e.WEBHOOK_RETRY_DELAYS.split(',').map((s) => Number(s.trim())),
     agentStaleMinutes: e.AGENT_STALE_MINUTES,
     trustProxy: trustProxy(e.TRUST_PROXY),

@@ -66,3 +66,15 @@ export const systemKeys = {
   health: () => ['health'] as const,
   outbox: () => ['outbox'] as const,
 };
+
+export const webhookKeys = {
+  all: ['webhooks'] as const,
+  list: () => [...webhookKeys.all, 'list'] as const,
+  endpoint: (id: string) => [...webhookKeys.all, 'endpoint', id] as const,
+  deliveries: (endpointId: string) => [...webhookKeys.all, 'deliveries', endpointId] as const,
+  delivery: (id: string) => [...webhookKeys.all, 'delivery', id] as const,
+};
+
+export const eventKeys = {
+  feed: (after: string | undefined, types: string) => ['events', { after, types }] as const,
+};

@@ -8,6 +8,7 @@ import { ApiKeysPage } from './routes/api-keys.tsx';
 import { AuditPage } from './routes/audit.tsx';
 import { DriftNewRunPage } from './routes/drift-new.tsx';
 import { DriftRunPage } from './routes/drift-run.tsx';
+import { EventsPage } from './routes/events.tsx';
 import { GradesPage } from './routes/grades.tsx';
 import { HomePage } from './routes/home.tsx';
 import { ImportPage } from './routes/import.tsx';
@@ -23,6 +24,8 @@ import { SamplesPage } from './routes/samples.tsx';
 import { SignInPage } from './routes/sign-in.tsx';
 import { UploadPage } from './routes/upload.tsx';
 import { UsersPage } from './routes/users.tsx';
+import { WebhookEndpointPage } from './routes/webhook-endpoint.tsx';
+import { WebhooksPage } from './routes/webhooks.tsx';
 
 export function createRouter(queryClient: QueryClient) {
   /** Loader of the signed-in area: no session → the sign-in page, remembering where to return. */
@@ -65,6 +68,9 @@ export function createRouter(queryClient: QueryClient) {
             { path: 'users', element: <UsersPage /> },
             { path: 'audit', element: <AuditPage /> },
             { path: 'outbox', element: <OutboxPage /> },
+            { path: 'webhooks', element: <WebhooksPage /> },
+            { path: 'webhooks/:id', element: <WebhookEndpointPage /> },
+            { path: 'events', element: <EventsPage /> },
             { path: '*', element: <NotFoundPage /> },
           ],
         },

@@ -18,6 +18,8 @@ export const NAV_ITEMS: NavItem[] = [
   { to: paths.drift, label: 'Drift', scope: 'standardizations:read' },
   { to: paths.grades, label: 'Grades', scope: 'grades:read' },
   { to: paths.quickStart, label: 'Quick start' },
+  { to: paths.webhooks, label: 'Webhooks', scope: 'webhooks:read' },
+  { to: paths.events, label: 'Events feed', scope: 'events:read' },
   { to: paths.apiKeys, label: 'API keys', scope: 'api-keys:read' },
   { to: paths.reference, label: 'API reference' },
   { to: paths.requestLog, label: 'Request log', scope: 'request-log:read' },

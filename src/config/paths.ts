@@ -27,4 +27,7 @@ export const paths = {
   users: '/users',
   audit: '/audit',
   outbox: '/outbox',
+  webhooks: '/webhooks',
+  webhookEndpoint: (endpointId: string) => `/webhooks/${id(endpointId)}`,
+  events: '/events',
 } as const;

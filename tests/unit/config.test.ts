@@ -43,6 +43,15 @@ describe('loadConfig', () => {
     expect(config.publicUrl).toBe('https://lab.kestrelbend.test');
   });
 
+  it('opens private webhook URLs only for the development demo unless told otherwise', () => {
+    expect(loadConfig({}).webhookAllowPrivate).toBe(true);
+    expect(loadConfig({ SEED_DEMO: 'false' }).webhookAllowPrivate).toBe(false);
+    expect(loadConfig({ NODE_ENV: 'test' }).webhookAllowPrivate).toBe(false);
+    expect(loadConfig({ NODE_ENV: 'production', SESSION_SECRET: 'x'.repeat(32), SEED_DEMO: 'true' }).webhookAllowPrivate).toBe(false);
+    expect(loadConfig({ WEBHOOK_ALLOW_PRIVATE: 'false' }).webhookAllowPrivate).toBe(false);
+    expect(loadConfig({ NODE_ENV: 'test', WEBHOOK_ALLOW_PRIVATE: 'true' }).webhookAllowPrivate).toBe(true);
+  });
+
   it('treats empty variables as unset', () => {
     expect(loadConfig({ PORT: '', SMTP_URL: '' })).toMatchObject({ port: 3000, smtpUrl: undefined });
   });

@@ -1,4 +1,5 @@
 import type { ReactNode } from 'react';
+import { Button } from './button.tsx';
 import { useModal } from './use-modal.ts';
 
 /** A modal built on the native <dialog>: focus trapping and Escape come from the browser. */
@@ -20,5 +21,45 @@ export function Dialog({ open, title, onClose, children }: { open: boolean; titl
         </div>
       )}
     </dialog>
+  );
+}
+
+/** The button row at the foot of a dialog or dialog form: actions on the right, or spread across with `spread`. */
+export function DialogFooter({ children, spread = false }: { children: ReactNode; spread?: boolean }) {
+  return <div className={`flex gap-2 ${spread ? 'justify-between' : 'justify-end'}`}>{children}</div>;
+}
+
+/** A yes/no question before a change that cannot be undone. */
+export function ConfirmDialog({
+  open,
+  title,
+  children,
+  confirmLabel,
+  cancelLabel = 'Cancel',
+  busy = false,
+  onConfirm,
+  onClose,
+}: {
+  open: boolean;
+  title: string;
+  children: ReactNode;
+  confirmLabel: string;
+  cancelLabel?: string;
+  busy?: boolean;
+  onConfirm: () => void;
+  onClose: () => void;
+}) {
+  return (
+    <Dialog open={open} title={title} onClose={onClose}>
+      <div className="mb-4 space-y-2 text-sm">{children}</div>
+      <DialogFooter>
+        <Button variant="secondary" onClick={onClose}>
+          {cancelLabel}
+        </Button>
+        <Button variant="danger" onClick={onConfirm} disabled={busy}>
+          {confirmLabel}
+        </Button>
+      </DialogFooter>
+    </Dialog>
   );
 }

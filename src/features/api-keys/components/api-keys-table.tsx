@@ -1,10 +1,11 @@
 import { useState } from 'react';
 import { Button } from '../../../components/ui/button.tsx';
-import { Dialog } from '../../../components/ui/dialog.tsx';
+import { ConfirmDialog, Dialog } from '../../../components/ui/dialog.tsx';
 import { EmptyState, ProblemAlert, Spinner } from '../../../components/ui/feedback.tsx';
 import { Badge, Table } from '../../../components/ui/layout.tsx';
 import { useApiKeys, useRevokeApiKey, useRollApiKey, type ApiKey } from '../api/api-keys.ts';
-import { SecretOnce } from './secret-once.tsx';
+import { SecretOnce } from '../../../components/ui/secret-once.tsx';
+import { KEY_SECRET_WARNING } from './key-secret-warning.ts';
 
 export function ApiKeysTable({ canWrite }: { canWrite: boolean }) {
   const [includeRevoked, setIncludeRevoked] = useState(false);
@@ -77,25 +78,19 @@ export function ApiKeysTable({ canWrite }: { canWrite: boolean }) {
           Load more
         </Button>
       )}
-      <Dialog open={!!revoking} title={`Revoke “${revoking?.name}”?`} onClose={() => setRevoking(null)}>
-        <p className="mb-4 text-sm">
-          Calls with this key fail at once with 401. Integrations using it stop working until they get a new key.
-        </p>
-        <div className="flex justify-end gap-2">
-          <Button variant="secondary" onClick={() => setRevoking(null)}>
-            Keep it
-          </Button>
-          <Button
-            variant="danger"
-            onClick={() => revoking && revoke.mutate(revoking.id, { onSuccess: () => setRevoking(null) })}
-            disabled={revoke.isPending}
-          >
-            Revoke now
-          </Button>
-        </div>
-      </Dialog>
+      <ConfirmDialog
+        open={!!revoking}
+        title={`Revoke “${revoking?.name}”?`}
+        confirmLabel="Revoke now"
+        cancelLabel="Keep it"
+        busy={revoke.isPending}
+        onConfirm={() => revoking && revoke.mutate(revoking.id, { onSuccess: () => setRevoking(null) })}
+        onClose={() => setRevoking(null)}
+      >
+        <p>Calls with this key fail at once with 401. Integrations using it stop working until they get a new key.</p>
+      </ConfirmDialog>
       <Dialog open={!!roll.data} title="Replacement key issued" onClose={() => roll.reset()}>
-        {roll.data && <SecretOnce secret={roll.data.secret} onDone={() => roll.reset()} />}
+        {roll.data && <SecretOnce secret={roll.data.secret} warning={KEY_SECRET_WARNING} onDone={() => roll.reset()} />}
       </Dialog>
     </div>
   );

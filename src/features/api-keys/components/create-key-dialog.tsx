@@ -1,12 +1,13 @@
 import { useState, type FormEvent } from 'react';
 import { ApiProblem } from '../../../api/problem.ts';
 import { Button } from '../../../components/ui/button.tsx';
-import { Dialog } from '../../../components/ui/dialog.tsx';
+import { Dialog, DialogFooter } from '../../../components/ui/dialog.tsx';
 import { ProblemAlert } from '../../../components/ui/feedback.tsx';
 import { TextField } from '../../../components/ui/field.tsx';
 import type { Scope } from '../../../api/me.ts';
 import { useCreateApiKey } from '../api/api-keys.ts';
-import { SecretOnce } from './secret-once.tsx';
+import { SecretOnce } from '../../../components/ui/secret-once.tsx';
+import { KEY_SECRET_WARNING } from './key-secret-warning.ts';
 
 export function CreateKeyDialog({ open, grantable, onClose }: { open: boolean; grantable: Scope[]; onClose: () => void }) {
   const [name, setName] = useState('');
@@ -35,7 +36,7 @@ export function CreateKeyDialog({ open, grantable, onClose }: { open: boolean; g
   return (
     <Dialog open={open} title={create.data ? `Key “${create.data.name}” issued` : 'Issue an API key'} onClose={close}>
       {create.data ? (
-        <SecretOnce secret={create.data.secret} onDone={close} />
+        <SecretOnce secret={create.data.secret} warning={KEY_SECRET_WARNING} onDone={close} />
       ) : (
         <form onSubmit={submit} className="space-y-4" noValidate>
           <ProblemAlert error={create.error} fields={['name', 'scopes', 'expires_at']} />
@@ -71,14 +72,14 @@ export function CreateKeyDialog({ open, grantable, onClose }: { open: boolean; g
             error={problem?.fieldError('expires_at')}
             hint="Leave empty for a key that lives until revoked."
           />
-          <div className="flex justify-end gap-2">
+          <DialogFooter>
             <Button variant="secondary" onClick={close}>
               Cancel
             </Button>
             <Button type="submit" disabled={create.isPending}>
               Issue key
             </Button>
-          </div>
+          </DialogFooter>
         </form>
       )}
     </Dialog>
