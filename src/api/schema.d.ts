@@ -390,6 +390,72 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/instruments/{id}/agent-heartbeat": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Report the instrument PC agent's state
+         * @description Sent by the agent (`agent/`) that delivers an instrument's result files: its version, how many files wait, the last delivery and the last error. Each heartbeat replaces the previous one. A feed is `stale` once its agent has been silent for `AGENT_STALE_MINUTES` (15 by default).
+         *
+         *     Requires the scope `imports:write`.
+         */
+        post: operations["reportAgentHeartbeat"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/instruments/{id}/feed": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Whether an instrument's results arrive by themselves
+         * @description A feed is `stale` once its agent has been silent for `AGENT_STALE_MINUTES` (15 by default).
+         *
+         *     Requires the scope `samples:read`.
+         */
+        get: operations["getInstrumentFeed"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/instrument-feeds": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Every instrument's feed
+         * @description Every instrument the caller may see, ordered by code. A feed is `stale` once its agent has been silent for `AGENT_STALE_MINUTES` (15 by default).
+         *
+         *     Requires the scope `samples:read`.
+         */
+        get: operations["listInstrumentFeeds"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/methods": {
         parameters: {
             query?: never;
@@ -1927,6 +1993,67 @@ export interface components {
             name?: string;
             /** @example Foundry, Kestrel Bend */
             site?: string;
+        };
+        /** @description Whether results leave the instrument PC by themselves: the state of its agent. */
+        InstrumentFeed: {
+            instrument: {
+                id: string;
+                code: string;
+            };
+            /**
+             * @description `alive`: the agent reported within `stale_after_minutes`; `stale`: it has been silent for longer (PC off, network down, agent stopped); `no_agent`: no agent ever reported for this instrument.
+             * @enum {string}
+             */
+            state: "alive" | "stale" | "no_agent";
+            stale_after_minutes: number;
+            /** @description The last heartbeat. */
+            reported_at: string | null;
+            agent: {
+                version: string;
+                host: string | null;
+                reported_by: string;
+            } | null;
+            queue_length: number | null;
+            last_success_at: string | null;
+            last_file: {
+                name: string;
+                at: string;
+            } | null;
+            last_error: {
+                message: string;
+                at: string;
+            } | null;
+        };
+        AgentHeartbeatRequest: {
+            /** @example 0.1.0 */
+            agent_version: string;
+            /**
+             * @description The instrument PC’s host name.
+             * @example SPARK-PC-1
+             */
+            host?: string;
+            /** @description Files found and not yet delivered (waiting or retrying). */
+            queue_length: number;
+            /**
+             * Format: date-time
+             * @description When the agent last delivered a file (ISO 8601).
+             */
+            last_success_at?: string | null;
+            /** @description The last file delivered: its name in the watched folder and when it was delivered. */
+            last_file?: {
+                name: string;
+                /** Format: date-time */
+                at: string;
+            } | null;
+            /** @description The last error the agent met (server unreachable, a file refused…), or null once it recovered. */
+            last_error?: {
+                message: string;
+                /** Format: date-time */
+                at: string;
+            } | null;
+        };
+        InstrumentFeedList: {
+            data: components["schemas"]["InstrumentFeed"][];
         };
         MethodList: {
             data: components["schemas"]["Method"][];
@@ -5925,6 +6052,262 @@ export interface operations {
             };
             /** @description The `Idempotency-Key` was already used for a different request. */
             422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    reportAgentHeartbeat: {
+        parameters: {
+            query?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["AgentHeartbeatRequest"];
+            };
+        };
+        responses: {
+            /** @description The feed as people now see it. */
+            200: {
+                headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["InstrumentFeed"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `imports:write`. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such instrument. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    getInstrumentFeed: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The feed. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["InstrumentFeed"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `samples:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such instrument. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    listInstrumentFeeds: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The feeds. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["InstrumentFeedList"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `samples:read`. */
+            403: {
                 headers: {
                     [name: string]: unknown;
                 };

@@ -10,7 +10,12 @@ export const AgentHeartbeatRequestSchema = z
   .object({
     agent_version: z.string().trim().min(1).max(40).openapi({ example: '0.1.0' }),
     host: z.string().trim().min(1).max(200).optional().openapi({ description: 'The instrument PC’s host name.', example: 'SPARK-PC-1' }),
-    queue_length: z.number().int().min(0).max(1_000_000).openapi({ description: 'Files found and not yet delivered (waiting or retrying).' }),
+    queue_length: z
+      .number()
+      .int()
+      .min(0)
+      .max(1_000_000)
+      .openapi({ description: 'Files found and not yet delivered (waiting or retrying).' }),
     last_success_at: at.nullable().optional().openapi({ description: 'When the agent last delivered a file (ISO 8601).' }),
     last_file: z
       .object({ name: z.string().min(1).max(260), at })

@@ -15,7 +15,12 @@ type InstrumentFeed = z.input<typeof InstrumentFeedSchema>;
 
 const asUtc = (iso: string) => new Date(iso).toISOString();
 
-export function feedOf(instrument: Pick<Instrument, 'id' | 'code'>, row: InstrumentFeedRow | undefined, staleAfterMinutes: number, now = Date.now()): InstrumentFeed {
+export function feedOf(
+  instrument: Pick<Instrument, 'id' | 'code'>,
+  row: InstrumentFeedRow | undefined,
+  staleAfterMinutes: number,
+  now = Date.now(),
+): InstrumentFeed {
   const silentMs = row ? now - Date.parse(row.reported_at) : Infinity;
   return {
     instrument: { id: instrument.id, code: instrument.code },
@@ -30,7 +35,12 @@ export function feedOf(instrument: Pick<Instrument, 'id' | 'code'>, row: Instrum
   };
 }
 
-export async function recordHeartbeat(ctx: AppContext, auth: AuthContext, instrumentId: string, heartbeat: Heartbeat): Promise<InstrumentFeed> {
+export async function recordHeartbeat(
+  ctx: AppContext,
+  auth: AuthContext,
+  instrumentId: string,
+  heartbeat: Heartbeat,
+): Promise<InstrumentFeed> {
   assertInstrumentAllowed(auth, instrumentId);
   const instrument = await getInstrument(ctx, auth, instrumentId);
   const row: InstrumentFeedRow = {
@@ -65,6 +75,13 @@ export async function listFeeds(ctx: AppContext, auth: AuthContext): Promise<Ins
     instruments.push(...page.data);
     cursor = page.next_cursor ?? undefined;
   } while (cursor);
-  const rows = new Map((await findFeedRows(ctx.db, instruments.map((i) => i.id))).map((row) => [row.instrument_id, row]));
+  const rows = new Map(
+    (
+      await findFeedRows(
+        ctx.db,
+        instruments.map((i) => i.id),
+      )
+    ).map((row) => [row.instrument_id, row]),
+  );
   return instruments.map((instrument) => feedOf(instrument, rows.get(instrument.id), ctx.config.agentStaleMinutes));
 }

@@ -16,7 +16,10 @@ export const feedRoutes = [
     access: { scope: 'imports:write' },
     params: InstrumentIdParams,
     body: AgentHeartbeatRequestSchema,
-    responses: { 200: { description: 'The feed as people now see it.', schema: InstrumentFeedSchema }, 404: { description: 'No such instrument.' } },
+    responses: {
+      200: { description: 'The feed as people now see it.', schema: InstrumentFeedSchema },
+      404: { description: 'No such instrument.' },
+    },
     async handler({ params, body, auth, ctx, reply }) {
       reply(200, await recordHeartbeat(ctx, auth, params.id, body));
     },
