@@ -15,13 +15,12 @@ type InstrumentFeed = z.input<typeof InstrumentFeedSchema>;
 
 const asUtc = (iso: string) => new Date(iso).toISOString();
 
-export function feedOf(
+function feedOf(
   instrument: Pick<Instrument, 'id' | 'code'>,
   row: InstrumentFeedRow | undefined,
   staleAfterMinutes: number,
-  now = Date.now(),
 ): InstrumentFeed {
-  const silentMs = row ? now - Date.parse(row.reported_at) : Infinity;
+  const silentMs = row ? Date.now() - Date.parse(row.reported_at) : Infinity;
   return {
     instrument: { id: instrument.id, code: instrument.code },
     state: !row ? 'no_agent' : silentMs > staleAfterMinutes * 60_000 ? 'stale' : 'alive',
