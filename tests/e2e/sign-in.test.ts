@@ -53,6 +53,8 @@ describe('console sign-in', () => {
       'Drift',
       'Grades',
       'Quick start',
+      'Webhooks',
+      'Events feed',
       'API keys',
       'API reference',
       'Request log',
@@ -76,7 +78,7 @@ describe('console sign-in', () => {
     const page = await browser.context.newPage();
     await signIn(page, 'qa.viewer@kestrelbend.test');
     await page.getByTestId('current-role').filter({ hasText: 'viewer' }).waitFor();
-    expect(await navLabels(page)).toEqual(['Overview', 'Samples', 'Imports', 'Drift', 'Grades', 'Quick start', 'API reference']);
+    expect(await navLabels(page)).toEqual(['Overview', 'Samples', 'Imports', 'Drift', 'Grades', 'Quick start', 'Events feed', 'API reference']);
     await page.goto(`${server.url}/users`);
     await page.getByText('Not available for your role').waitFor();
     await page.close();
