@@ -78,7 +78,16 @@ describe('console sign-in', () => {
     const page = await browser.context.newPage();
     await signIn(page, 'qa.viewer@kestrelbend.test');
     await page.getByTestId('current-role').filter({ hasText: 'viewer' }).waitFor();
-    expect(await navLabels(page)).toEqual(['Overview', 'Samples', 'Imports', 'Drift', 'Grades', 'Quick start', 'Events feed', 'API reference']);
+    expect(await navLabels(page)).toEqual([
+      'Overview',
+      'Samples',
+      'Imports',
+      'Drift',
+      'Grades',
+      'Quick start',
+      'Events feed',
+      'API reference',
+    ]);
     await page.goto(`${server.url}/users`);
     await page.getByText('Not available for your role').waitFor();
     await page.close();
