@@ -28,6 +28,7 @@ import * as addSamplesConformance from './20261202200200_add_samples_conformance
 import * as addSamplesRelease from './20261202200300_add_samples_release.ts';
 import * as createSampleRevisions from './20261202200400_create_sample_revisions.ts';
 import * as addMethodsReporting from './20261202300100_add_methods_reporting.ts';
+import * as addWebhookDeliveriesClaims from './20261203200100_add_webhook_deliveries_claims.ts';
 import * as createInstrumentFeeds from './20261203300100_create_instrument_feeds.ts';
 import * as createControlSamples from './20261203400100_create_control_samples.ts';
 import * as createControlLimits from './20261203400200_create_control_limits.ts';
@@ -69,6 +70,7 @@ export const migrations: Record<string, Migration> = {
   '20261202200300_add_samples_release': addSamplesRelease,
   '20261202200400_create_sample_revisions': createSampleRevisions,
   '20261202300100_add_methods_reporting': addMethodsReporting,
+  '20261203200100_add_webhook_deliveries_claims': addWebhookDeliveriesClaims,
   '20261203300100_create_instrument_feeds': createInstrumentFeeds,
   '20261203400100_create_control_samples': createControlSamples,
   '20261203400200_create_control_limits': createControlLimits,

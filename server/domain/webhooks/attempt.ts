@@ -12,7 +12,7 @@ import { endpointAfterAttempt } from './endpoint-health.ts';
 import { nextStep } from './retry-policy.ts';
 import type { Sender, SendResult } from './sender.ts';
 import { signedHeaders } from './signature.ts';
-import { findEndpoints, type WebhookEndpointRow } from './webhooks.repository.ts';
+import type { WebhookEndpointRow } from './webhooks.repository.ts';
 
 /** Runs a write in a transaction shared with others queued at the same time (batched-writes.ts). */
 export type WriteBatch = (write: (trx: Transaction) => Promise<void>) => Promise<void>;
@@ -46,6 +46,7 @@ async function record(
       attempt_count: attempts,
       next_attempt_at: nextAt,
       locked_until: null,
+      locked_by: null,
       last_status_code: result.status ?? null,
       last_error: result.error ?? (outcome === 'delivered' ? null : `HTTP ${result.status}`),
       updated_at: now,
@@ -69,51 +70,45 @@ async function record(
   });
 }
 
-/** A claimed delivery with its endpoint and event, loaded for the whole claimed batch at once. */
+/** A claimed delivery with its endpoint (as loaded with the claim) and event. */
 export interface ClaimedDelivery {
   delivery: DeliveryRow;
-  endpoint: WebhookEndpointRow | undefined;
+  endpoint: WebhookEndpointRow;
   /** Undefined once the event is past its retention. */
   event: EventRow | undefined;
 }
 
-export async function loadClaimed(db: Queryable, deliveries: DeliveryRow[]): Promise<ClaimedDelivery[]> {
-  const endpoints = new Map((await findEndpoints(db, [...new Set(deliveries.map((d) => d.endpoint_id))])).map((e) => [e.id, e]));
-  const events = new Map(
-    (
-      await findEventRows(
-        db,
-        deliveries.map((d) => d.event_id),
-      )
-    ).map((e) => [e.id, e]),
-  );
-  return deliveries.map((delivery) => ({ delivery, endpoint: endpoints.get(delivery.endpoint_id), event: events.get(delivery.event_id) }));
+/** The events of a claimed batch, loaded at once, by id. */
+export async function loadEvents(db: Queryable, deliveries: DeliveryRow[]): Promise<Map<string, EventRow>> {
+  const rows = await findEventRows(db, [...new Set(deliveries.map((d) => d.event_id))]);
+  return new Map(rows.map((e) => [e.id, e]));
 }
 
-/** Sends one claimed delivery and records the attempt; a stop mid-attempt gives the lease back instead. */
+/**
+ * Sends one claimed delivery and records the attempt; a stop mid-attempt gives the lease back
+ * instead. `onSent` is called when the HTTP exchange is over, before the attempt is recorded (the
+ * worker frees the endpoint's slot then: recording waits for the database, not for the receiver).
+ */
 export async function attemptDelivery(
   ctx: AppContext,
   sender: Sender,
   write: WriteBatch,
   claimed: ClaimedDelivery,
   signal: AbortSignal,
+  onSent: () => void = () => undefined,
 ): Promise<void> {
   const { delivery, endpoint, event } = claimed;
-  if (!endpoint) return;
   const startedAt = nowIso();
-  if (!event) {
-    const expired: SendResult = {
-      durationMs: 0,
-      excerpt: null,
-      permanent: true,
-      error: 'the event is past EVENT_RETENTION_DAYS and was deleted',
-    };
-    return record(ctx, write, delivery, endpoint, expired, startedAt);
+  let result: SendResult;
+  if (event) {
+    const body = messageBody(event);
+    const timestamp = Math.floor(Date.now() / 1000);
+    const headers = signedHeaders(signingSecrets(endpoint, startedAt), event.id, timestamp, body);
+    result = await sender.send(endpoint.url, headers, body, signal).finally(onSent);
+  } else {
+    onSent();
+    result = { durationMs: 0, excerpt: null, permanent: true, error: 'the event is past EVENT_RETENTION_DAYS and was deleted' };
   }
-  const body = messageBody(event);
-  const timestamp = Math.floor(Date.now() / 1000);
-  const headers = signedHeaders(signingSecrets(endpoint, startedAt), event.id, timestamp, body);
-  const result = await sender.send(endpoint.url, headers, body, signal);
   if (result.aborted) return releaseDeliveries(ctx.db, [delivery.id]);
   await record(ctx, write, delivery, endpoint, result, startedAt);
 }

@@ -15,6 +15,8 @@ export interface DeliveryRow {
   attempt_count: number;
   next_attempt_at: string | null;
   locked_until: string | null;
+  /** The worker holding the lease (server/domain/webhooks/delivery-worker.ts). */
+  locked_by: string | null;
   last_status_code: number | null;
   last_error: string | null;
   created_at: string;
@@ -48,32 +50,48 @@ export async function insertDeliveries(db: Queryable, rows: DeliveryRow[]): Prom
 }
 
 /**
- * Leases up to `limit` due deliveries of enabled endpoints to this worker until `lockedUntil`.
- * On PostgreSQL several nodes claim at once: FOR UPDATE SKIP LOCKED gives each row to one of them.
- * On SQLite one worker runs per process and the single writer serialises claims.
+ * Leases up to `limit` of one endpoint's due deliveries to worker `lockedBy` until `lockedUntil`,
+ * in one statement, oldest due first and then in fan-out (feed) order. On PostgreSQL several nodes
+ * claim at once: FOR UPDATE SKIP LOCKED gives each row to one of them. On SQLite one process owns
+ * the file and the single writer serialises claims.
  */
-export async function claimDueDeliveries(trx: Transaction, now: string, lockedUntil: string, limit: number): Promise<DeliveryRow[]> {
-  const due = trx('webhook_deliveries as d')
-    .join('webhook_endpoints as e', 'e.id', 'd.endpoint_id')
-    .where('d.status', 'pending')
-    .where('d.next_attempt_at', '<=', now)
-    .where((q) => q.whereNull('d.locked_until').orWhere('d.locked_until', '<', now))
-    .where('e.enabled', true)
-    .orderBy([{ column: 'd.next_attempt_at' }, { column: 'd.id' }])
-    .limit(limit)
-    .select('d.id');
-  if (isPostgres(trx)) due.forUpdate('d').skipLocked();
-  const ids = ((await due) as { id: string }[]).map((r) => r.id);
-  if (ids.length === 0) return [];
-  await trx('webhook_deliveries').whereIn('id', ids).update({ locked_until: lockedUntil });
-  const rows = (await trx<DeliveryRow>('webhook_deliveries').whereIn('id', ids)) as DeliveryRow[];
-  const order = new Map(ids.map((id, i) => [id, i]));
-  return rows.sort((a, b) => order.get(a.id)! - order.get(b.id)!);
+export async function claimDueForEndpoint(
+  db: Queryable,
+  endpointId: string,
+  lease: { now: string; lockedUntil: string; lockedBy: string },
+  limit: number,
+): Promise<DeliveryRow[]> {
+  const due = db('webhook_deliveries')
+    .select('id')
+    .where({ endpoint_id: endpointId, status: 'pending' })
+    .where('next_attempt_at', '<=', lease.now)
+    .where((q) => q.whereNull('locked_until').orWhere('locked_until', '<', lease.now))
+    .orderBy([{ column: 'next_attempt_at' }, { column: 'id' }])
+    .limit(limit);
+  if (isPostgres(db)) due.forUpdate().skipLocked();
+  const rows = (await db('webhook_deliveries')
+    .whereIn('id', due)
+    .update({ locked_until: lease.lockedUntil, locked_by: lease.lockedBy })
+    .returning('*')) as DeliveryRow[];
+  const key = (row: DeliveryRow) => `${row.next_attempt_at} ${row.id}`;
+  return rows.sort((a, b) => (key(a) < key(b) ? -1 : key(a) > key(b) ? 1 : 0));
 }
 
 /** Gives claimed deliveries back at once (a worker stopping mid-attempt): they are sent again. */
 export async function releaseDeliveries(db: Queryable, ids: string[]): Promise<void> {
-  if (ids.length) await db('webhook_deliveries').whereIn('id', ids).update({ locked_until: null });
+  if (ids.length) await db('webhook_deliveries').whereIn('id', ids).update({ locked_until: null, locked_by: null });
+}
+
+/**
+ * Gives back every lease not held by one of `liveWorkers`; returns how many. Only for SQLite, where
+ * one process owns the database: a lease held by no worker of this process was left by a run that
+ * died, and waiting for it to run out would only delay the delivery.
+ */
+export function releaseLeasesExcept(db: Queryable, liveWorkers: string[]): Promise<number> {
+  return db('webhook_deliveries')
+    .whereNotNull('locked_until')
+    .where((q) => q.whereNull('locked_by').orWhereNotIn('locked_by', liveWorkers))
+    .update({ locked_until: null, locked_by: null });
 }
 
 export function findDelivery(db: Queryable, id: string): Promise<DeliveryRow | undefined> {
@@ -107,7 +125,7 @@ export function requeueFailedSince(db: Queryable, endpointId: string, since: str
   return db('webhook_deliveries')
     .where({ endpoint_id: endpointId, status: 'failed' })
     .where('created_at', '>=', since)
-    .update({ status: 'pending', next_attempt_at: now, locked_until: null, updated_at: now });
+    .update({ status: 'pending', next_attempt_at: now, locked_until: null, locked_by: null, updated_at: now });
 }
 
 /** Deletes deliveries (and their attempts) created before `before`; returns how many. */

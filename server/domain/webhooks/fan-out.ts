@@ -24,6 +24,7 @@ export function newDelivery(endpointId: string, event: Pick<EventRow, 'id' | 'ty
     attempt_count: 0,
     next_attempt_at: new Date(Date.parse(now) + firstDelaySeconds * 1000).toISOString(),
     locked_until: null,
+    locked_by: null,
     last_status_code: null,
     last_error: null,
     created_at: now,

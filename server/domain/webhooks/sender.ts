@@ -22,9 +22,10 @@ export interface Sender {
   close(): void;
 }
 
-export function createSender(options: { allowPrivate: boolean; userAgent: string; timeoutMs?: number }): Sender {
+export function createSender(options: { allowPrivate: boolean; userAgent: string; timeoutMs?: number; maxSocketsPerHost?: number }): Sender {
   // Own agents, so that sockets made under one guard setting are never reused under another.
-  const agents = { http: new http.Agent({ keepAlive: true, maxSockets: 32 }), https: new https.Agent({ keepAlive: true, maxSockets: 32 }) };
+  const maxSockets = options.maxSocketsPerHost ?? 32;
+  const agents = { http: new http.Agent({ keepAlive: true, maxSockets }), https: new https.Agent({ keepAlive: true, maxSockets }) };
   const timeoutMs = options.timeoutMs ?? DELIVERY_TIMEOUT_MS;
 
   function send(target: string, headers: Record<string, string>, body: string, signal: AbortSignal): Promise<SendResult> {

@@ -1,28 +1,13 @@
 // kill -9 while a 20,000-burn file is being imported, then restart: the import is wholly there or
 // wholly absent (never some of its samples), and uploading the file again works.
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
-import Database from 'better-sqlite3';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { wideCsv } from '../../../bench/generate-wide-file.ts';
-import { DEMO_PASSWORD, DEMO_USERS } from '../../../server/seed/demo-users.ts';
-import { startServerProcess } from './server-process.ts';
+import { readDatabaseFile, signIn, startServerProcess, useTemporaryDatabaseFile } from './server-process.ts';
 
 const TRIALS = 4;
 const PORT = 4390;
 const file = Buffer.from(wideCsv(20_000, { seed: 77 }));
-let dir: string;
-let databaseFile: string;
-
-async function signIn(url: string): Promise<string> {
-  const res = await fetch(`${url}/api/v1/auth/login`, {
-    method: 'POST',
-    headers: { 'content-type': 'application/json' },
-    body: JSON.stringify({ email: DEMO_USERS[0].email, password: DEMO_PASSWORD }),
-  });
-  return res.headers.get('set-cookie')!.split(';')[0];
-}
+const database = useTemporaryDatabaseFile('meltwire-crash-');
 
 async function upload(url: string, cookie: string, ids: { instrument: string; method: string }) {
   const form = new FormData();
@@ -34,8 +19,7 @@ async function upload(url: string, cookie: string, ids: { instrument: string; me
 
 /** What the database holds, read directly: every import's samples complete, no sample without its import. */
 function inspect() {
-  const db = new Database(databaseFile, { readonly: true });
-  try {
+  return readDatabaseFile(database.file, (db) => {
     const imports = db.prepare('select id, report_json from imports').all() as { id: string; report_json: string }[];
     const perImport = imports.map(({ id, report_json }) => ({
       expected: (JSON.parse(report_json) as { counts: { samples_created: number } }).counts.samples_created,
@@ -47,21 +31,13 @@ function inspect() {
       }
     ).n;
     return { imports: imports.length, perImport, orphans };
-  } finally {
-    db.close();
-  }
+  });
 }
-
-beforeAll(() => {
-  dir = mkdtempSync(join(tmpdir(), 'meltwire-crash-'));
-  databaseFile = join(dir, 'crash.db');
-});
-afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
 // The server process runs on SQLite; the PostgreSQL pass of the API suite has nothing to add here.
 describe.skipIf(process.env.TEST_DATABASE_URL)('kill -9 during an import', () => {
   it(`leaves each import wholly present or wholly absent (${TRIALS} trials), and the file imports after a restart`, async () => {
-    let server = await startServerProcess(databaseFile, PORT);
+    let server = await startServerProcess(database.file, PORT);
     const lookups = async (cookie: string) => {
       const get = async (path: string) =>
         ((await (await fetch(`${server.url}/api/v1${path}`, { headers: { cookie } })).json()) as { data: { id: string; code: string }[] })
@@ -83,7 +59,7 @@ describe.skipIf(process.env.TEST_DATABASE_URL)('kill -9 during an import', () =>
       expect(state.orphans).toBe(0);
       for (const { expected, stored } of state.perImport) expect(stored).toBe(expected);
       outcomes.push(state.imports === 0 ? 'absent' : 'present');
-      server = await startServerProcess(databaseFile, PORT);
+      server = await startServerProcess(database.file, PORT);
       cookie = await signIn(server.url);
       if (state.imports > 0) break; // it got through before the kill: the file is in, nothing more to crash
     }

@@ -3,8 +3,8 @@
 // The readers' p99 is printed for the note, never asserted (timing belongs to the bench).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { wideCsv } from '../../../bench/generate-wide-file.ts';
-import { DEMO_PASSWORD, DEMO_USERS } from '../../../server/seed/demo-users.ts';
 import { startLiveServer } from '../../helpers/live-server.ts';
+import { signIn } from './server-process.ts';
 
 const UPLOADS = 20;
 let server: Awaited<ReturnType<typeof startLiveServer>>;
@@ -13,12 +13,7 @@ let ids: { instrument: string; method: string };
 
 beforeAll(async () => {
   server = await startLiveServer({ console: false });
-  const login = await fetch(`${server.url}/api/v1/auth/login`, {
-    method: 'POST',
-    headers: { 'content-type': 'application/json' },
-    body: JSON.stringify({ email: DEMO_USERS[0].email, password: DEMO_PASSWORD }),
-  });
-  cookie = login.headers.get('set-cookie')!.split(';')[0];
+  cookie = await signIn(server.url);
   const get = async (path: string) =>
     ((await (await fetch(`${server.url}/api/v1${path}`, { headers: { cookie } })).json()) as { data: { id: string; code: string }[] }).data;
   ids = {

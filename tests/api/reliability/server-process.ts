@@ -1,6 +1,11 @@
 // Meltwire as its own process (what `npm start` runs) on a SQLite file, for tests that kill it.
 import { type ChildProcess, spawn } from 'node:child_process';
-import { resolve } from 'node:path';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join, resolve } from 'node:path';
+import Database from 'better-sqlite3';
+import { afterAll, beforeAll } from 'vitest';
+import { DEMO_PASSWORD, DEMO_USERS } from '../../../server/seed/demo-users.ts';
 
 const ROOT = resolve(import.meta.dirname, '../../..');
 
@@ -12,7 +17,7 @@ export interface ServerProcess {
   stop(): Promise<void>;
 }
 
-export async function startServerProcess(databaseFile: string, port: number): Promise<ServerProcess> {
+export async function startServerProcess(databaseFile: string, port: number, env: Record<string, string> = {}): Promise<ServerProcess> {
   const child = spawn(process.execPath, ['--import', 'tsx', 'server/start.ts', '--dev'], {
     cwd: ROOT,
     env: {
@@ -23,6 +28,7 @@ export async function startServerProcess(databaseFile: string, port: number): Pr
       DATABASE_URL: '',
       LOG_LEVEL: 'warn',
       LOGIN_RATE_LIMIT_PER_MINUTE: '1000',
+      ...env,
     },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
@@ -54,4 +60,39 @@ export async function startServerProcess(databaseFile: string, port: number): Pr
       await exited;
     },
   };
+}
+
+/** A SQLite file in a fresh temporary folder for this test file, removed after it. */
+export function useTemporaryDatabaseFile(prefix: string): { readonly file: string } {
+  const state = { dir: '', file: '' };
+  beforeAll(() => {
+    state.dir = mkdtempSync(join(tmpdir(), prefix));
+    state.file = join(state.dir, 'crash.db');
+  });
+  afterAll(() => rmSync(state.dir, { recursive: true, force: true }));
+  return {
+    get file() {
+      return state.file;
+    },
+  };
+}
+
+/** Reads the database file directly, as it is on disk, while the server process may be running or dead. */
+export function readDatabaseFile<T>(file: string, read: (db: Database.Database) => T): T {
+  const db = new Database(file, { readonly: true });
+  try {
+    return read(db);
+  } finally {
+    db.close();
+  }
+}
+
+/** Signs in as the demo administrator; returns the session cookie. */
+export async function signIn(url: string): Promise<string> {
+  const res = await fetch(`${url}/api/v1/auth/login`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify({ email: DEMO_USERS[0].email, password: DEMO_PASSWORD }),
+  });
+  return res.headers.get('set-cookie')!.split(';')[0];
 }
