@@ -22,7 +22,12 @@ export interface Sender {
   close(): void;
 }
 
-export function createSender(options: { allowPrivate: boolean; userAgent: string; timeoutMs?: number; maxSocketsPerHost?: number }): Sender {
+export function createSender(options: {
+  allowPrivate: boolean;
+  userAgent: string;
+  timeoutMs?: number;
+  maxSocketsPerHost?: number;
+}): Sender {
   // Own agents, so that sockets made under one guard setting are never reused under another.
   const maxSockets = options.maxSocketsPerHost ?? 32;
   const agents = { http: new http.Agent({ keepAlive: true, maxSockets }), https: new https.Agent({ keepAlive: true, maxSockets }) };
