@@ -61,6 +61,7 @@ const envSchema = z.object({
     .string()
     .regex(/^\s*\d+(\s*,\s*\d+){0,19}\s*$/, 'must be 1–20 comma-separated whole numbers of seconds, e.g. 0,5,300')
     .default('0,5,300,1800,7200,18000,36000,36000'),
+  WEBHOOK_IN_FLIGHT_PER_ENDPOINT: z.coerce.number().int().min(1).max(128).default(16),
   TRUST_PROXY: z
     .string()
     .regex(
@@ -107,6 +108,8 @@ export interface Config {
   webhookAllowPrivate: boolean;
   /** Seconds before each delivery attempt, the first counted from the event: one entry per attempt. */
   webhookRetryDelays: number[];
+  /** Delivery attempts in flight at once to one endpoint; 1 delivers in feed order (while none is retried). */
+  webhookInFlightPerEndpoint: number;
   /** An instrument agent silent for longer than this shows its feed as stale. */
   agentStaleMinutes: number;
   /** Which proxies' X-Forwarded-For is believed for the client address (rate limits, logs). */
@@ -158,6 +161,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     // The demo points webhooks at a receiver on the same machine; production never opens private addresses by default.
     webhookAllowPrivate: e.WEBHOOK_ALLOW_PRIVATE ?? (seedDemo && e.NODE_ENV === 'development'),
     webhookRetryDelays: e.WEBHOOK_RETRY_DELAYS.split(',').map((s) => Number(s.trim())),
+    webhookInFlightPerEndpoint: e.WEBHOOK_IN_FLIGHT_PER_ENDPOINT,
     agentStaleMinutes: e.AGENT_STALE_MINUTES,
     trustProxy: trustProxy(e.TRUST_PROXY),
     releaseRequiresSecondPerson: e.RELEASE_REQUIRES_SECOND_PERSON,

@@ -39,7 +39,7 @@ async function main(): Promise<void> {
   }
   const app = createApp({ db, config, logger, outbox: smtp?.outbox });
   const housekeeping = startHousekeeping(app.locals.ctx);
-  const webhooks = startDeliveryWorker(app.locals.ctx);
+  const webhooks = startDeliveryWorker(app.locals.ctx, { perEndpoint: config.webhookInFlightPerEndpoint });
   const alerts = startAlertFlusher(app.locals.ctx);
   const running = await listen(app, db, logger, config.port, async () => {
     // Attempts in flight are abandoned and sent again at the next start (same webhook-id).

@@ -17,9 +17,13 @@ import type { WebhookEndpointRow } from './webhooks.repository.ts';
 /** Runs a write in a transaction shared with others queued at the same time (batched-writes.ts). */
 export type WriteBatch = (write: (trx: Transaction) => Promise<void>) => Promise<void>;
 
-/** The body every attempt sends: `{ type, timestamp, data }`, data as stored with the event. */
-export function messageBody(event: { type: string; occurred_at: string; data_json: string }): string {
-  return `{"type":${JSON.stringify(event.type)},"timestamp":${JSON.stringify(event.occurred_at)},"data":${event.data_json}}`;
+/**
+ * The body every attempt sends: `{ type, timestamp, sequence, data }`, data as stored with the
+ * event; `sequence` is the event's place in the feed, for a receiver that needs feed order back.
+ */
+export function messageBody(event: { type: string; occurred_at: string; sequence: number | string; data_json: string }): string {
+  const head = `"type":${JSON.stringify(event.type)},"timestamp":${JSON.stringify(event.occurred_at)}`;
+  return `{${head},"sequence":${Number(event.sequence)},"data":${event.data_json}}`;
 }
 
 /** The secrets to sign with: the current one, and the previous one during a rotation's overlap. */

@@ -45,7 +45,7 @@ export const webhookEndpointRoutes = [
     operationId: 'createWebhookEndpoint',
     summary: 'Subscribe an endpoint to events',
     description:
-      'Deliveries follow the Standard Webhooks specification: a POST of `{ type, timestamp, data }` with the headers `webhook-id` (the event id, the same on every retry: de-duplicate by it), `webhook-timestamp` (seconds) and `webhook-signature` (`v1,` + base64 HMAC-SHA256 of `id.timestamp.body` keyed with the secret). The response carries the secret once.',
+      'Deliveries follow the Standard Webhooks specification: a POST of `{ type, timestamp, sequence, data }` (`sequence`: the place of the event in the feed) with the headers `webhook-id` (the event id, the same on every retry: de-duplicate by it), `webhook-timestamp` (seconds) and `webhook-signature` (`v1,` + base64 HMAC-SHA256 of `id.timestamp.body` keyed with the secret). The response carries the secret once.',
     tag: TAG,
     access: { scope: 'webhooks:write', labWide: true },
     body: CreateWebhookEndpointRequestSchema,

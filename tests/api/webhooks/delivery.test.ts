@@ -70,11 +70,11 @@ describe('webhook delivery', () => {
       expect(got.headers['content-type']).toBe('application/json');
       const body = JSON.parse(got.body);
       const detail = await request(t.app).get(`/api/v1/samples/${sample.id}`).set(bearer());
-      expect(body).toEqual({ type: 'sample.created', timestamp: expect.any(String), data: detail.body });
+      expect(body).toEqual({ type: 'sample.created', timestamp: expect.any(String), sequence: expect.any(Number), data: detail.body });
 
       // The same event as the pull feed, under the same id.
       const event = await request(t.app).get(`/api/v1/events/${got.headers['webhook-id']}`).set(bearer());
-      expect(event.body).toMatchObject({ type: 'sample.created', occurred_at: body.timestamp, data: detail.body });
+      expect(event.body).toMatchObject({ type: 'sample.created', occurred_at: body.timestamp, sequence: body.sequence, data: detail.body });
     } finally {
       await receiver.close();
     }
