@@ -2436,10 +2436,10 @@ export interface components {
                 [key: string]: string;
             };
             /**
-             * @description Unit of every value in `burns`; defaults to the method's default unit. `fraction` = plain mass fraction (0.01 = 1 %).
+             * @description Unit of every value in `burns`; defaults to the method's default unit. Every value must be at most 100 % once converted. `%` (mass fraction in percent), `ppm` or `mg/kg` (1 % = 10 000), `ppb`, `µg/kg` or `ug/kg` (1 % = 10 000 000), `fraction` (a plain mass fraction: 0.01 = 1 %); converted exactly to %.
              * @enum {string}
              */
-            unit?: "%" | "ppm" | "ppb" | "fraction";
+            unit?: "%" | "ppm" | "mg/kg" | "ppb" | "µg/kg" | "ug/kg" | "fraction";
             burns: components["schemas"]["PushedBurn"][];
         };
         PushedBurn: {
@@ -2994,11 +2994,11 @@ export interface components {
              */
             nominal: string;
             /**
-             * @description Unit of `nominal`; converted exactly to % (1 % = 10 000 ppm = 10 000 000 ppb).
+             * @description Unit of `nominal`, `%` when not given. `%` (mass fraction in percent), `ppm` or `mg/kg` (1 % = 10 000), `ppb`, `µg/kg` or `ug/kg` (1 % = 10 000 000), `fraction` (a plain mass fraction: 0.01 = 1 %); converted exactly to %.
              * @default %
              * @enum {string}
              */
-            unit: "%" | "ppm" | "ppb" | "fraction";
+            unit: "%" | "ppm" | "mg/kg" | "ppb" | "µg/kg" | "ug/kg" | "fraction";
         };
         /** @description A standardization run and the correction set it computed, element by element. */
         CreatedStandardization: components["schemas"]["Standardization"] & {
@@ -3125,10 +3125,10 @@ export interface components {
              */
             measured_at?: string;
             /**
-             * @description Unit of every burn value; defaults to the method's default unit.
+             * @description Unit of every burn value; defaults to the method's default unit. `%` (mass fraction in percent), `ppm` or `mg/kg` (1 % = 10 000), `ppb`, `µg/kg` or `ug/kg` (1 % = 10 000 000), `fraction` (a plain mass fraction: 0.01 = 1 %); converted exactly to %.
              * @enum {string}
              */
-            unit?: "%" | "ppm" | "ppb" | "fraction";
+            unit?: "%" | "ppm" | "mg/kg" | "ppb" | "µg/kg" | "ug/kg" | "fraction";
             note?: string;
             measurements: components["schemas"]["StandardizationMeasurementInput"][];
         };

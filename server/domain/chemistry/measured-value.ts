@@ -47,8 +47,15 @@ function checked<T extends MeasuredValue>(parsed: T): T {
   return parsed;
 }
 
-/** Plain notation ("0.00000005", never "5e-8"), trailing zeros dropped, "-0" written "0". */
+/**
+ * Plain notation ("0.00000005", never "5e-8"), trailing zeros dropped, "-0" written "0". The
+ * exponent is checked first, so "1e999999999" is refused instead of written out in full: beyond
+ * 10^10 a value is above 100 % in every unit, below 10^-30 it is no measurement.
+ */
 function plain(number: string | number): string {
   const value = new Decimal(number);
-  return value.isZero() ? '0' : value.toFixed();
+  if (value.isZero()) return '0';
+  if (value.e > 10) throw new MeasuredValueError(`${String(number)} is above 100 % in any unit`);
+  if (value.e < -30) throw new MeasuredValueError(`${String(number)} is too small to be a measured value`);
+  return value.toFixed();
 }

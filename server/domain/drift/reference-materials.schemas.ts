@@ -2,6 +2,7 @@ import { listOf, paginationQuery } from '../../lib/pagination.ts';
 import { z } from '../../lib/zod.ts';
 import { normaliseElement } from '../chemistry/elements.ts';
 import { UNITS } from '../chemistry/units.ts';
+import { unitInput } from '../chemistry/units.schemas.ts';
 import { DecimalString, ElementSymbolSchema } from '../methods/methods.schemas.ts';
 import { REFERENCE_KINDS } from './reference-materials.repository.ts';
 
@@ -17,10 +18,7 @@ const NominalValueInput = z
       description: 'Certified value, written as a decimal string so every digit is kept.',
       example: '0.742',
     }),
-    unit: z
-      .enum(UNITS)
-      .default('%')
-      .openapi({ description: 'Unit of `nominal`; converted exactly to % (1 % = 10 000 ppm = 10 000 000 ppb).' }),
+    unit: unitInput('Unit of `nominal`, `%` when not given.').default('%'),
   })
   .openapi('NominalValueInput');
 

@@ -1,6 +1,6 @@
 import { listOf, paginationQuery } from '../../lib/pagination.ts';
 import { z } from '../../lib/zod.ts';
-import { UNITS } from '../chemistry/units.ts';
+import { unitInput } from '../chemistry/units.schemas.ts';
 import { ElementSymbolSchema } from '../methods/methods.schemas.ts';
 import { PushedValueSchema } from '../samples/samples.schemas.ts';
 import { CORRECTION_MODES } from './correction-math.ts';
@@ -120,7 +120,7 @@ export const CreateStandardizationRequestSchema = z
       .datetime({ offset: true })
       .optional()
       .openapi({ description: 'When the references were sparked; defaults to now. Not in the future.' }),
-    unit: z.enum(UNITS).optional().openapi({ description: "Unit of every burn value; defaults to the method's default unit." }),
+    unit: unitInput("Unit of every burn value; defaults to the method's default unit.").optional(),
     note: z.string().trim().max(500).optional(),
     measurements: z.array(MeasurementInput).min(1).max(2),
   })

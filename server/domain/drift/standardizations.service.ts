@@ -121,7 +121,13 @@ export async function createStandardization(
   const parseErrors: FieldError[] = [];
   const measurements: RunMeasurement[] = input.measurements.map((m, i) => ({
     reference: references[i],
-    burns: normalisePushedBurns(m.burns, input.unit ?? method.default_unit, `body.measurements.${i}.burns`, parseErrors),
+    burns: normalisePushedBurns(
+      m.burns,
+      input.unit ?? method.default_unit,
+      `body.measurements.${i}.burns`,
+      `Measurement ${i + 1}`,
+      parseErrors,
+    ),
   }));
   if (parseErrors.length)
     throw new ValidationProblem(parseErrors, 'Some values cannot be read; see errors[] for each one. Nothing was stored.');

@@ -1,6 +1,7 @@
 import { listOf, paginationQuery } from '../../lib/pagination.ts';
 import { z } from '../../lib/zod.ts';
-import { OUTPUT_UNITS, UNITS } from '../chemistry/units.ts';
+import { OUTPUT_UNITS } from '../chemistry/units.ts';
+import { unitInput } from '../chemistry/units.schemas.ts';
 import { GradeEvaluationSchema } from '../grades/evaluation.schemas.ts';
 import { RESULT_FLAG_NAMES, RESULT_FLAGS, type ResultFlag } from '../chemistry/result-rules.ts';
 import { SAMPLE_TEXT_LIMITS } from './sample-limits.ts';
@@ -23,9 +24,11 @@ const fieldsSchema = z
   .refine((fields) => Object.keys(fields).length <= SAMPLE_TEXT_LIMITS.fields, `at most ${SAMPLE_TEXT_LIMITS.fields} identification fields`)
   .openapi({ description: 'Further identification fields (furnace, customer order …).', example: { furnace: 'EAF-2' } });
 
-export const PushedValueSchema = z
-  .union([z.number(), z.string().max(SAMPLE_TEXT_LIMITS.value)])
-  .openapi({ description: 'A number, or a string: "0.75", "<0.0005" (below), ">1.5" (above), "n.d." (not detected).', example: 0.75 });
+export const PushedValueSchema = z.union([z.number(), z.string().max(SAMPLE_TEXT_LIMITS.value)]).openapi({
+  description:
+    'A number, or a string: "0.75", "<0.0005" (below), ">1.5" (above), "n.d." (not detected). Finite, not negative and at most 100 % once converted to %. A JSON number is read at its shortest decimal form (0.145 is 0.145); a JSON number cannot carry more than about 17 significant digits, so send a string when every digit matters, e.g. "0.12345678901234567891" (20 digits, kept exactly).',
+  example: 0.75,
+});
 
 export const PushedBurnSchema = z
   .object({
@@ -48,9 +51,9 @@ export const PushSampleRequestSchema = z
     instrument_id: z.string().min(1).max(40),
     method_id: z.string().min(1).max(40),
     fields: fieldsSchema.optional(),
-    unit: z.enum(UNITS).optional().openapi({
-      description: "Unit of every value in `burns`; defaults to the method's default unit. `fraction` = plain mass fraction (0.01 = 1 %).",
-    }),
+    unit: unitInput(
+      "Unit of every value in `burns`; defaults to the method's default unit. Every value must be at most 100 % once converted.",
+    ).optional(),
     burns: z.array(PushedBurnSchema).min(1).max(50),
   })
   .openapi('PushSampleRequest');

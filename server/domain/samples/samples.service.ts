@@ -76,7 +76,13 @@ export async function pushSamples(
     return {
       sample,
       method,
-      burns: normalisePushedBurns(sample.burns, sample.unit ?? method.default_unit, `${location(i)}.burns`, errors),
+      burns: normalisePushedBurns(
+        sample.burns,
+        sample.unit ?? method.default_unit,
+        `${location(i)}.burns`,
+        `Sample ${sample.sample_code}`,
+        errors,
+      ),
     };
   });
   if (errors.length) throw new ValidationProblem(errors, 'Some values cannot be read; see errors[] for each one. Nothing was stored.');

@@ -1,10 +1,9 @@
-// One element cell → a value in % as an exact decimal string. Plain numbers (nearly every
-// cell) take a string-only fast path; everything else goes through parseMeasuredValue and
-// decimal.js. Values above 100 % cannot be mass fractions and are refused, which also keeps
-// absurd exponents ("1e999999") from expanding into huge strings.
-import { Decimal } from 'decimal.js';
-import { MeasuredValueError, parseMeasuredValue } from '../../chemistry/measured-value.ts';
-import { toPercent, type Unit } from '../../chemistry/units.ts';
+// One element cell → a value in % as an exact decimal string. Plain numbers in % (nearly every
+// cell) take a string-only fast path; everything else goes through readMassFraction, the rule
+// every way in shares (values above 100 % and negative values are refused there).
+import { readMassFraction } from '../../chemistry/mass-fraction.ts';
+import { MeasuredValueError } from '../../chemistry/measured-value.ts';
+import type { Unit } from '../../chemistry/units.ts';
 import { SAMPLE_TEXT_LIMITS } from '../../samples/sample-limits.ts';
 import type { DecimalSeparator, ParsedValue } from './types.ts';
 
@@ -12,7 +11,6 @@ export class CellError extends Error {}
 
 const PLAIN_DOT = /^\d+(\.\d+)?$/;
 const PLAIN_COMMA = /^\d+(,\d+)?$/;
-const HUNDRED = new Decimal(100);
 
 /** "007.500" → "7.5", "0.000" → "0": the same text as decimal.js's toFixed(). */
 export function normalisePlainDecimal(digits: string, separatorAt: number): string {
@@ -37,18 +35,8 @@ function plainPercent(text: string, separator: DecimalSeparator): string {
   const dot = value.indexOf('.');
   const intPart = dot < 0 ? value : value.slice(0, dot);
   // Trailing zeros are gone, so "100" followed by a fraction is above 100.
-  if (intPart.length > 3 || (intPart.length === 3 && (intPart > '100' || dot >= 0))) throw new CellError(`${text} % is above 100 %`);
+  if (intPart.length > 3 || (intPart.length === 3 && (intPart > '100' || dot >= 0))) throw new CellError(`${value} % is above 100 %`);
   return value;
-}
-
-function inPercent(value: string, unit: Unit): string {
-  const decimal = new Decimal(value);
-  // Anything beyond 1e10 in any unit is over 100 %; tiny exponents would print as long zeros.
-  if (decimal.e > 10) throw new CellError(`${value} ${unit} is above 100 %`);
-  if (!decimal.isZero() && decimal.e < -30) throw new CellError(`${value} is too small to be a measured value`);
-  const percent = toPercent(decimal.toFixed(), unit);
-  if (new Decimal(percent).gt(HUNDRED)) throw new CellError(`${value} ${unit} is above 100 %`);
-  return percent;
 }
 
 /** Reads a cell; null for a blank cell (not measured). Throws CellError for a broken value. */
@@ -61,19 +49,11 @@ export function readCell(raw: string, decimalSeparator: DecimalSeparator, unit: 
   if (unit === '%' && (decimalSeparator === '.' ? PLAIN_DOT : PLAIN_COMMA).test(text)) {
     return { value: plainPercent(text, decimalSeparator), qualifier: null, raw, unit };
   }
-  let parsed;
   try {
-    parsed = parseMeasuredValue(text, decimalSeparator);
+    const read = readMassFraction(text, unit, decimalSeparator);
+    return read && { ...read, raw, unit };
   } catch (error) {
     if (error instanceof MeasuredValueError) throw new CellError(error.message);
     throw error;
-  }
-  switch (parsed.kind) {
-    case 'blank':
-      return null;
-    case 'not_detected':
-      return { value: null, qualifier: 'nd', raw, unit };
-    default:
-      return { value: inPercent(parsed.value, unit), qualifier: parsed.qualifier, raw, unit };
   }
 }
