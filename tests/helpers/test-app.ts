@@ -6,6 +6,7 @@ import { randomBytes } from 'node:crypto';
 import type { Express } from 'express';
 import type { Logger } from 'pino';
 import request from 'supertest';
+import { afterAll, beforeAll } from 'vitest';
 import { createApp } from '../../server/app.ts';
 import { type Config, testConfig } from '../../server/config.ts';
 import type { AppContext } from '../../server/context.ts';
@@ -20,6 +21,7 @@ import type { ImportWorkers } from '../../server/domain/imports/import-workers.t
 import type { AnyRoute } from '../../server/http/route.ts';
 import { newId } from '../../server/lib/ids.ts';
 import { nowIso } from '../../server/lib/time.ts';
+import { type DemoLab, seedDemoLab } from '../../server/seed/demo-lab.ts';
 import { startFakeSmtp, type FakeSmtp } from '../../server/mail/fake-smtp.ts';
 
 export const TEST_PASSWORD = 'correct horse battery';
@@ -124,6 +126,21 @@ export async function signedInAgent(t: TestApp, role: Role): Promise<{ agent: re
   return { agent, user };
 }
 
+/**
+ * For one test file: a test app with the demo lab and an agent signed in as `role`, built before
+ * its tests and closed after. Read the fields inside tests (they are set in beforeAll).
+ */
+export function useDemoLab(role: Role = 'analyst'): { t: TestApp; lab: DemoLab; agent: request.Agent } {
+  const state = {} as { t: TestApp; lab: DemoLab; agent: request.Agent };
+  beforeAll(async () => {
+    state.t = await createTestApp();
+    state.lab = await seedDemoLab(state.t.db);
+    state.agent = (await signedInAgent(state.t, role)).agent;
+  });
+  afterAll(() => state.t?.close());
+  return state;
+}
+
 /** Issues a key through the service, as an admin would, and returns its secret. */
 export async function issueKey(
   t: TestApp,
@@ -179,7 +196,7 @@ export function problemBody(res: request.Response): {
 }
 
 /** The demo lab's instruments and methods (invented settings), for ingest tests. */
-export { seedDemoLab } from '../../server/seed/demo-lab.ts';
+export { seedDemoLab };
 
 /** Row count as a number (PostgreSQL returns counts as strings). */
 export async function countRows(query: { count(arg: Record<string, string>): PromiseLike<Record<string, unknown>[]> }): Promise<number> {

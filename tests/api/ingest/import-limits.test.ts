@@ -2,36 +2,26 @@
 // heat or grade over 100 characters, an identification field's name over 60 or value over 500,
 // more than 30 fields, or an element cell over 40 characters is an issue naming line and column.
 // All or nothing: 422, nothing stored. Per sample: that sample is left out, the others stored.
-import type request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { SAMPLE_TEXT_LIMITS } from '../../../server/domain/samples/sample-limits.ts';
-import type { DemoLab } from '../../../server/seed/demo-lab.ts';
-import { countRows, createTestApp, expectProblem, problemBody, seedDemoLab, signedInAgent, type TestApp } from '../../helpers/test-app.ts';
+import { countRows, expectProblem, problemBody, useDemoLab } from '../../helpers/test-app.ts';
 
-let t: TestApp;
-let lab: DemoLab;
-let analyst: request.Agent;
-beforeAll(async () => {
-  t = await createTestApp();
-  lab = await seedDemoLab(t.db);
-  analyst = (await signedInAgent(t, 'analyst')).agent;
-});
-afterAll(() => t.close());
+const env = useDemoLab('analyst');
 
 function upload(csv: string, mode: 'all_or_nothing' | 'per_sample' = 'all_or_nothing') {
-  return analyst
+  return env.agent
     .post('/api/v1/imports')
-    .field('instrument_id', lab.foundry.id)
-    .field('method_id', lab.feMethod.id)
+    .field('instrument_id', env.lab.foundry.id)
+    .field('method_id', env.lab.feMethod.id)
     .field('mode', mode)
     .attach('file', Buffer.from(csv), 'results.csv');
 }
 
 function push(body: Record<string, unknown>) {
-  return analyst.post('/api/v1/samples').send({
+  return env.agent.post('/api/v1/samples').send({
     sample_code: 'K24-0990-F1',
-    instrument_id: lab.foundry.id,
-    method_id: lab.feMethod.id,
+    instrument_id: env.lab.foundry.id,
+    method_id: env.lab.feMethod.id,
     burns: [{ values: { Mn: 0.75 } }],
     ...body,
   });
@@ -49,7 +39,7 @@ const long = (n: number) => 'x'.repeat(n);
 
 describe('limits on imported text', () => {
   it('refuses a 100,000-character sample code with 422 naming line and column, and stores nothing', async () => {
-    const before = await countRows(t.db('samples'));
+    const before = await countRows(env.t.db('samples'));
     const res = await upload(fileWith('Burn,Mn %', `${long(100_000)},K24-0999,SAE 1045,1,0.75`));
     expectProblem(res, 422);
     expect(problemBody(res).issues).toEqual([
@@ -61,8 +51,8 @@ describe('limits on imported text', () => {
       },
     ]);
     expect(problemBody(res).errors?.[0].location).toBe('file:line 3:Sample');
-    expect(await countRows(t.db('samples'))).toBe(before);
-    expect(await countRows(t.db('samples').whereRaw('length(sample_code) > 100'))).toBe(0);
+    expect(await countRows(env.t.db('samples'))).toBe(before);
+    expect(await countRows(env.t.db('samples').whereRaw('length(sample_code) > 100'))).toBe(0);
   });
 
   it('accepts exactly the limit and refuses one more, for sample code, heat and grade alike', async () => {
@@ -95,7 +85,7 @@ describe('limits on imported text', () => {
         message: `Line 3, Furnace: the value has ${max + 1} characters, at most ${max} are accepted.`,
       },
     ]);
-    expect(await countRows(t.db('samples').where({ sample_code: 'K24-0997-F1' }))).toBe(0);
+    expect(await countRows(env.t.db('samples').where({ sample_code: 'K24-0997-F1' }))).toBe(0);
     expectProblem(await push({ fields: { Furnace: long(max + 1) } }), 400);
   });
 
@@ -111,7 +101,7 @@ describe('limits on imported text', () => {
     expect(res.status).toBe(201);
     expect(res.body.report.counts).toMatchObject({ samples_created: 1, samples_rejected: 1, lines_rejected: 1 });
     expect(res.body.report.warnings).toEqual([]);
-    expect(await countRows(t.db('samples').where({ sample_code: 'K24-0996-F1' }))).toBe(0);
+    expect(await countRows(env.t.db('samples').where({ sample_code: 'K24-0996-F1' }))).toBe(0);
   });
 
   it('refuses a too-long field name (a long header with a value), too many fields, and a too-long element cell', async () => {

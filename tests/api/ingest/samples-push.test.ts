@@ -1,21 +1,10 @@
 // JSON push, reading samples back, units, burn exclusion, lists and the CSV export.
 import { Decimal } from 'decimal.js';
 import { sampleStandardDeviation } from 'simple-statistics';
-import type request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { DemoLab } from '../../../server/seed/demo-lab.ts';
-import { createTestApp, expectProblem, problemBody, seedDemoLab, signedInAgent, type TestApp } from '../../helpers/test-app.ts';
+import { describe, expect, it } from 'vitest';
+import { expectProblem, problemBody, signedInAgent, useDemoLab } from '../../helpers/test-app.ts';
 
-let t: TestApp;
-let lab: DemoLab;
-let analyst: request.Agent;
-
-beforeAll(async () => {
-  t = await createTestApp();
-  lab = await seedDemoLab(t.db);
-  analyst = (await signedInAgent(t, 'analyst')).agent;
-});
-afterAll(() => t.close());
+const env = useDemoLab('analyst');
 
 function steel(code: string, burns: Record<string, number | string>[], extra: Record<string, unknown> = {}) {
   return {
@@ -23,19 +12,19 @@ function steel(code: string, burns: Record<string, number | string>[], extra: Re
     heat: code.slice(0, 8),
     grade: 'SAE 1045',
     kind: 'final',
-    instrument_id: lab.foundry.id,
-    method_id: lab.feMethod.id,
+    instrument_id: env.lab.foundry.id,
+    method_id: env.lab.feMethod.id,
     burns: burns.map((values) => ({ values })),
     ...extra,
   };
 }
 
-const countSamples = async () => Number((await t.db('samples').count({ n: '*' }))[0].n);
+const countSamples = async () => Number((await env.t.db('samples').count({ n: '*' }))[0].n);
 
 describe('POST /api/v1/samples', () => {
   it('stores the burns and returns results that agree with an independent calculation', async () => {
     const mn = [0.744, 0.751, 0.755];
-    const res = await analyst.post('/api/v1/samples').send(
+    const res = await env.agent.post('/api/v1/samples').send(
       steel('K24-0412-F1', [
         { mn: mn[0], C: 0.452 },
         { MN: mn[1], C: 0.449 },
@@ -71,13 +60,13 @@ describe('POST /api/v1/samples', () => {
       [0.13, 0.14, '0.14'],
       [0.14, 0.15, '0.14'],
     ] as const) {
-      const res = await analyst.post('/api/v1/samples').send(steel('K24-0413-F1', [{ Cr: a }, { Cr: b }]));
+      const res = await env.agent.post('/api/v1/samples').send(steel('K24-0413-F1', [{ Cr: a }, { Cr: b }]));
       expect(res.body.results[0]).toMatchObject({ element: 'Cr', reported: expected });
     }
   });
 
   it('keeps qualified values and converts exactly to ppm on request', async () => {
-    const created = await analyst.post('/api/v1/samples').send(
+    const created = await env.agent.post('/api/v1/samples').send(
       steel(
         'K24-0414-F1',
         [
@@ -87,7 +76,7 @@ describe('POST /api/v1/samples', () => {
         { unit: '%' },
       ),
     );
-    const ppm = await analyst.get(`/api/v1/samples/${created.body.id}`).query({ unit: 'ppm' });
+    const ppm = await env.agent.get(`/api/v1/samples/${created.body.id}`).query({ unit: 'ppm' });
     expect(ppm.status).toBe(200);
     const s = ppm.body.results.find((r: { element: string }) => r.element === 'S');
     const b = ppm.body.results.find((r: { element: string }) => r.element === 'B');
@@ -98,7 +87,7 @@ describe('POST /api/v1/samples', () => {
   });
 
   it('accepts values pushed in ppm and stores them canonically in %', async () => {
-    const res = await analyst.post('/api/v1/samples').send(
+    const res = await env.agent.post('/api/v1/samples').send(
       steel(
         'K24-0415-F1',
         [
@@ -118,7 +107,7 @@ describe('POST /api/v1/samples', () => {
 
   it('names every unreadable value and stores nothing', async () => {
     const before = await countSamples();
-    const res = await analyst.post('/api/v1/samples').send(steel('K24-0416-F1', [{ Xx: 1, Mn: 'abc' }, { Mn: -0.5, C: '0.4.5' }, {}]));
+    const res = await env.agent.post('/api/v1/samples').send(steel('K24-0416-F1', [{ Xx: 1, Mn: 'abc' }, { Mn: -0.5, C: '0.4.5' }, {}]));
     expectProblem(res, 400);
     expect(
       problemBody(res)
@@ -135,7 +124,7 @@ describe('POST /api/v1/samples', () => {
   });
 
   it('answers 422 for an unknown instrument or method', async () => {
-    const res = await analyst
+    const res = await env.agent
       .post('/api/v1/samples')
       .send({ ...steel('K24-0417-F1', [{ Mn: 0.7 }]), instrument_id: 'ins_nope', method_id: 'mth_nope' });
     expectProblem(res, 422);
@@ -148,13 +137,13 @@ describe('POST /api/v1/samples', () => {
 
   it('stores a batch all or nothing', async () => {
     const before = await countSamples();
-    const bad = await analyst
+    const bad = await env.agent
       .post('/api/v1/samples/batch')
       .send({ samples: [steel('K24-0418-F1', [{ Mn: 0.7 }]), steel('K24-0418-F2', [{ Mn: 'x' }])] });
     expectProblem(bad, 400);
     expect(problemBody(bad).errors?.[0].location).toBe('body.samples.1.burns.0.values.Mn');
     expect(await countSamples()).toBe(before);
-    const good = await analyst
+    const good = await env.agent
       .post('/api/v1/samples/batch')
       .send({ samples: [steel('K24-0418-F1', [{ Mn: 0.7 }]), steel('K24-0418-F2', [{ Mn: 0.71 }])] });
     expect(good.status).toBe(201);
@@ -163,19 +152,19 @@ describe('POST /api/v1/samples', () => {
   });
 
   it('is closed to viewers', async () => {
-    const { agent } = await signedInAgent(t, 'viewer');
+    const { agent } = await signedInAgent(env.t, 'viewer');
     expectProblem(await agent.post('/api/v1/samples').send(steel('K24-0419-F1', [{ Mn: 0.7 }])), 403);
   });
 });
 
 describe('PATCH /api/v1/samples/{id}/burns/{n}', () => {
   it('excludes a burn with a reason, recomputes, audits, and includes it again', async () => {
-    const created = await analyst.post('/api/v1/samples').send(steel('K24-0420-F1', [{ Mn: 0.75 }, { Mn: 0.76 }, { Mn: 0.95 }]));
+    const created = await env.agent.post('/api/v1/samples').send(steel('K24-0420-F1', [{ Mn: 0.75 }, { Mn: 0.76 }, { Mn: 0.95 }]));
     expect(created.body.results[0].flags).toContain('repeatability_exceeded');
     const id = created.body.id;
 
-    expectProblem(await analyst.patch(`/api/v1/samples/${id}/burns/3`).send({ excluded: true }), 400);
-    const excluded = await analyst.patch(`/api/v1/samples/${id}/burns/3`).send({ excluded: true, reason: 'porous spot, visible crater' });
+    expectProblem(await env.agent.patch(`/api/v1/samples/${id}/burns/3`).send({ excluded: true }), 400);
+    const excluded = await env.agent.patch(`/api/v1/samples/${id}/burns/3`).send({ excluded: true, reason: 'porous spot, visible crater' });
     expect(excluded.status).toBe(200);
     expect(excluded.body.results[0]).toMatchObject({ n: 2, reported: '0.76' });
     expect(excluded.body.results[0].flags).not.toContain('repeatability_exceeded');
@@ -185,24 +174,24 @@ describe('PATCH /api/v1/samples/{id}/burns/{n}', () => {
       values: { Mn: { value: 0.95 } },
     });
 
-    const { agent: manager } = await signedInAgent(t, 'manager');
+    const { agent: manager } = await signedInAgent(env.t, 'manager');
     const audit = await manager.get('/api/v1/audit-events').query({ target_id: id, action: 'sample.burn_excluded' });
     expect(audit.body.data[0]).toMatchObject({
       before: { burn: { number: 3, excluded: false } },
       after: { burn: { number: 3, excluded: true }, reason: 'porous spot, visible crater' },
     });
 
-    const included = await analyst
+    const included = await env.agent
       .patch(`/api/v1/samples/${id}/burns/3`)
       .send({ excluded: false, reason: 'crater was on the other sample' });
     expect(included.body.results[0].n).toBe(3);
-    expectProblem(await analyst.patch(`/api/v1/samples/${id}/burns/9`).send({ excluded: true, reason: 'no such burn' }), 404);
+    expectProblem(await env.agent.patch(`/api/v1/samples/${id}/burns/9`).send({ excluded: true, reason: 'no such burn' }), 404);
   });
 
   it('never excludes the last included burn', async () => {
-    const created = await analyst.post('/api/v1/samples').send(steel('K24-0421-F1', [{ Mn: 0.75 }]));
+    const created = await env.agent.post('/api/v1/samples').send(steel('K24-0421-F1', [{ Mn: 0.75 }]));
     expectProblem(
-      await analyst.patch(`/api/v1/samples/${created.body.id}/burns/1`).send({ excluded: true, reason: 'would leave nothing' }),
+      await env.agent.patch(`/api/v1/samples/${created.body.id}/burns/1`).send({ excluded: true, reason: 'would leave nothing' }),
       409,
     );
   });
@@ -213,11 +202,11 @@ describe('GET /api/v1/samples', () => {
     const heat = 'K24-0500';
     const ids: string[] = [];
     for (let i = 0; i < 5; i++)
-      ids.push((await analyst.post('/api/v1/samples').send(steel(`${heat}-F${i}`, [{ Mn: 0.7 + i / 100 }], { heat }))).body.id);
+      ids.push((await env.agent.post('/api/v1/samples').send(steel(`${heat}-F${i}`, [{ Mn: 0.7 + i / 100 }], { heat }))).body.id);
     const seen: string[] = [];
     let cursor: string | undefined;
     do {
-      const page = await analyst.get('/api/v1/samples').query({ heat, limit: 2, ...(cursor ? { cursor } : {}) });
+      const page = await env.agent.get('/api/v1/samples').query({ heat, limit: 2, ...(cursor ? { cursor } : {}) });
       expect(page.status).toBe(200);
       seen.push(...page.body.data.map((s: { id: string }) => s.id));
       cursor = page.body.next_cursor ?? undefined;
@@ -225,20 +214,20 @@ describe('GET /api/v1/samples', () => {
     expect(seen).toEqual([...ids].reverse());
 
     const since = new Date(Date.now() - 60_000).toISOString();
-    await analyst.patch(`/api/v1/samples/${ids[0]}/burns/1`).send({ excluded: false, reason: 'no change' });
-    const changed = await analyst.get('/api/v1/samples').query({ heat, updated_since: since });
+    await env.agent.patch(`/api/v1/samples/${ids[0]}/burns/1`).send({ excluded: false, reason: 'no change' });
+    const changed = await env.agent.get('/api/v1/samples').query({ heat, updated_since: since });
     expect(changed.body.data.map((s: { id: string }) => s.id)).toEqual(ids);
 
-    const flagged = await analyst.get('/api/v1/samples').query({ flag: 'repeatability_exceeded' });
+    const flagged = await env.agent.get('/api/v1/samples').query({ flag: 'repeatability_exceeded' });
     expect(flagged.body.data.every((s: { flags: string[] }) => s.flags.includes('repeatability_exceeded'))).toBe(true);
-    expectProblem(await analyst.get('/api/v1/samples').query({ kind: 'molten' }), 400);
+    expectProblem(await env.agent.get('/api/v1/samples').query({ kind: 'molten' }), 400);
   });
 });
 
 describe('GET /api/v1/samples.csv', () => {
   it('exports reported values with qualifiers and neutralises formula cells', async () => {
-    await analyst.post('/api/v1/samples').send(steel('=HYPERLINK("http://x.test")', [{ Mn: 0.71, S: '<0.002' }], { heat: 'K24-0600' }));
-    const res = await analyst.get('/api/v1/samples.csv').query({ heat: 'K24-0600' });
+    await env.agent.post('/api/v1/samples').send(steel('=HYPERLINK("http://x.test")', [{ Mn: 0.71, S: '<0.002' }], { heat: 'K24-0600' }));
+    const res = await env.agent.get('/api/v1/samples.csv').query({ heat: 'K24-0600' });
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/^text\/csv/);
     const [header, row] = res.text.trim().split('\n');
@@ -250,13 +239,13 @@ describe('GET /api/v1/samples.csv', () => {
 
 describe('time filters', () => {
   it('compare times, not text, whatever offset the caller writes', async () => {
-    const created = await analyst.post('/api/v1/samples').send(steel('K24-0700-F9', [{ Mn: 0.7 }], { heat: 'K24-0700' }));
+    const created = await env.agent.post('/api/v1/samples').send(steel('K24-0700-F9', [{ Mn: 0.7 }], { heat: 'K24-0700' }));
     const at = new Date(created.body.created_at);
     // The same instant written one hour ahead with +01:00: as text it sorts after the stored UTC time.
     const sameInstant = new Date(at.getTime() + 3600_000).toISOString().replace('Z', '+01:00');
-    const since = await analyst.get('/api/v1/samples').query({ heat: 'K24-0700', updated_since: sameInstant });
+    const since = await env.agent.get('/api/v1/samples').query({ heat: 'K24-0700', updated_since: sameInstant });
     expect(since.body.data.map((s: { id: string }) => s.id)).toEqual([created.body.id]);
-    const before = await analyst.get('/api/v1/samples').query({ heat: 'K24-0700', created_to: sameInstant });
+    const before = await env.agent.get('/api/v1/samples').query({ heat: 'K24-0700', created_to: sameInstant });
     expect(before.body.data).toEqual([]);
   });
 });

@@ -4,34 +4,24 @@
 // Expected conversions computed with decimal.js (1 % = 10 000 mg/kg = 10 000 000 µg/kg, SI
 // brochure / NIST SP 811 §7.10, docs/references.md).
 import { Decimal } from 'decimal.js';
-import type request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { DemoLab } from '../../../server/seed/demo-lab.ts';
-import { countRows, createTestApp, expectProblem, problemBody, seedDemoLab, signedInAgent, type TestApp } from '../../helpers/test-app.ts';
+import { describe, expect, it } from 'vitest';
+import { countRows, expectProblem, problemBody, useDemoLab } from '../../helpers/test-app.ts';
 
-let t: TestApp;
-let lab: DemoLab;
-let analyst: request.Agent;
-beforeAll(async () => {
-  t = await createTestApp();
-  lab = await seedDemoLab(t.db);
-  analyst = (await signedInAgent(t, 'analyst')).agent;
-});
-afterAll(() => t.close());
+const env = useDemoLab('analyst');
 
 const sample = (code: string, values: Record<string, unknown>, unit?: string) => ({
   sample_code: code,
-  instrument_id: lab.foundry.id,
-  method_id: lab.feMethod.id,
+  instrument_id: env.lab.foundry.id,
+  method_id: env.lab.feMethod.id,
   ...(unit ? { unit } : {}),
   burns: [{ values: { Mn: 0.75 } }, { values: { Mn: 0.76, ...values } }],
 });
 
 function upload(csv: string) {
-  return analyst
+  return env.agent
     .post('/api/v1/imports')
-    .field('instrument_id', lab.foundry.id)
-    .field('method_id', lab.feMethod.id)
+    .field('instrument_id', env.lab.foundry.id)
+    .field('method_id', env.lab.feMethod.id)
     .attach('file', Buffer.from(csv), 'values.csv');
 }
 
@@ -51,15 +41,15 @@ const REFUSED: { name: string; value: unknown; unit?: string; header: string; ce
 
 describe('values refused the same way everywhere', () => {
   it.each(REFUSED)('$name: a push is a 400 naming sample, burn and element; a file names line and column; the same cause', async (c) => {
-    const before = await countRows(t.db('samples'));
-    const pushed = await analyst.post('/api/v1/samples').send(sample('VR-1', { Ni: c.value }, c.unit));
+    const before = await countRows(env.t.db('samples'));
+    const pushed = await env.agent.post('/api/v1/samples').send(sample('VR-1', { Ni: c.value }, c.unit));
     expectProblem(pushed, 400);
     const [pushError] = problemBody(pushed).errors!;
     expect(pushError.location).toBe('body.burns.1.values.Ni');
     expect(pushError.message.startsWith('Sample VR-1, burn 2, Ni: ')).toBe(true);
     expect(causeOf(pushError.message)).toMatch(c.cause);
 
-    const batch = await analyst
+    const batch = await env.agent
       .post('/api/v1/samples/batch')
       .send({ samples: [sample('VR-2', {}), sample('VR-3', { Ni: c.value }, c.unit)] });
     expectProblem(batch, 400);
@@ -70,12 +60,12 @@ describe('values refused the same way everywhere', () => {
     const [issue] = problemBody(imported).issues as { line: number; column: string; message: string }[];
     expect(issue).toMatchObject({ line: 3, column: c.header });
     expect(causeOf(issue.message)).toBe(causeOf(pushError.message));
-    expect(await countRows(t.db('samples'))).toBe(before);
+    expect(await countRows(env.t.db('samples'))).toBe(before);
   });
 
   it('accepts exactly 100 % and 1,000,000 ppm', async () => {
-    expect((await analyst.post('/api/v1/samples').send(sample('VR-5', { Fe: '100' }))).status).toBe(201);
-    expect((await analyst.post('/api/v1/samples').send(sample('VR-6', { Fe: 1000000, Mn: 7600 }, 'ppm'))).status).toBe(201);
+    expect((await env.agent.post('/api/v1/samples').send(sample('VR-5', { Fe: '100' }))).status).toBe(201);
+    expect((await env.agent.post('/api/v1/samples').send(sample('VR-6', { Fe: 1000000, Mn: 7600 }, 'ppm'))).status).toBe(201);
   });
 });
 
@@ -91,20 +81,20 @@ describe('the same unit spellings for a push as for a file header', () => {
   ])('%s: %s is %s %', async (unit, value, percent) => {
     const perPercent = { 'mg/kg': 1e4, ppm: 1e4, 'µg/kg': 1e7, 'ug/kg': 1e7, ppb: 1e7, fraction: 0.01, '%': 1 }[unit]!;
     expect(new Decimal(value).div(perPercent).toFixed()).toBe(percent);
-    const res = await analyst.post('/api/v1/samples').send({
+    const res = await env.agent.post('/api/v1/samples').send({
       sample_code: `VU-${unit}`,
-      instrument_id: lab.foundry.id,
-      method_id: lab.feMethod.id,
+      instrument_id: env.lab.foundry.id,
+      method_id: env.lab.feMethod.id,
       unit,
       burns: [{ values: { Si: value } }],
     });
     expect(res.status).toBe(201);
-    const burn = (await analyst.get(`/api/v1/samples/${res.body.id}`)).body.burns[0];
+    const burn = (await env.agent.get(`/api/v1/samples/${res.body.id}`)).body.burns[0];
     expect(burn.values.Si).toMatchObject({ value: Number(percent), raw: value });
   });
 
   it('names the accepted spellings when a unit is unknown', async () => {
-    const res = await analyst.post('/api/v1/samples').send({ ...sample('VU-bad', {}), unit: 'furlongs' });
+    const res = await env.agent.post('/api/v1/samples').send({ ...sample('VU-bad', {}), unit: 'furlongs' });
     expectProblem(res, 400);
     expect(problemBody(res).errors![0]).toMatchObject({ location: 'body.unit' });
     expect(problemBody(res).errors![0].message).toContain('mg/kg');
