@@ -2581,6 +2581,7 @@ export interface components {
             time: {
                 /** @enum {string} */
                 format: "auto" | "iso8601" | "YYYY-MM-DD HH:mm[:ss]" | "DD.MM.YYYY HH:mm[:ss]";
+                time_zone: string | null;
                 utc_offset: string | null;
             };
             /** @description Starts at 1; each change adds 1. Imports record the revision they used. */
@@ -2724,6 +2725,7 @@ export interface components {
         /**
          * @default {
          *       "format": "auto",
+         *       "time_zone": null,
          *       "utc_offset": null
          *     }
          */
@@ -2735,7 +2737,13 @@ export interface components {
              */
             format: "auto" | "iso8601" | "YYYY-MM-DD HH:mm[:ss]" | "DD.MM.YYYY HH:mm[:ss]";
             /**
-             * @description Offset for times written without one; null reads them as UTC (with a warning).
+             * @description The instrument's time zone (IANA name): times written without an offset are read in it, daylight saving included. A time the clocks skip is refused; a time in the repeated hour is read as its first occurrence, with a warning.
+             * @default null
+             * @example Europe/Berlin
+             */
+            time_zone: string | null;
+            /**
+             * @description A fixed offset for times written without one, for instruments that keep one all year. With neither this nor `time_zone`, such times are read as UTC with a warning, and those within an hour of a correction set's start are refused (the set that applies cannot be told).
              * @default null
              * @example +01:00
              */
@@ -2817,6 +2825,11 @@ export interface components {
                 decimal_separator: string;
                 /** @enum {string} */
                 layout: "wide" | "long";
+                /**
+                 * @description What times written without a UTC offset were read in: the profile's `time.time_zone` or `time.utc_offset`, else `UTC` (with a warning); null when the file has no time column.
+                 * @example Europe/Berlin
+                 */
+                time_zone: string | null;
                 columns: {
                     header: string;
                     role: string;
@@ -2872,6 +2885,11 @@ export interface components {
                 decimal_separator: string;
                 /** @enum {string} */
                 layout: "wide" | "long";
+                /**
+                 * @description What times written without a UTC offset were read in: the profile's `time.time_zone` or `time.utc_offset`, else `UTC` (with a warning); null when the file has no time column.
+                 * @example Europe/Berlin
+                 */
+                time_zone: string | null;
                 columns: {
                     header: string;
                     role: string;

@@ -36,7 +36,7 @@ describe('POST /api/v1/import-profiles', () => {
       element_columns: [],
       default_unit: null,
       ignore_columns: [],
-      time: { format: 'auto', utc_offset: null },
+      time: { format: 'auto', time_zone: null, utc_offset: null },
       revision: 1,
       created_at: expect.any(String),
       updated_at: res.body.created_at,
@@ -142,7 +142,7 @@ describe('PATCH /api/v1/import-profiles/{id}', () => {
     expect(res.body).toEqual({
       ...created,
       header_row: 1,
-      time: { format: 'iso8601', utc_offset: null },
+      time: { format: 'iso8601', time_zone: null, utc_offset: null },
       revision: 2,
       updated_at: expect.any(String),
     });

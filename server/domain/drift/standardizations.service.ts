@@ -6,7 +6,7 @@ import type { AppContext } from '../../context.ts';
 import { type FieldError, NotFoundProblem, UnprocessableProblem, ValidationProblem } from '../../lib/problems.ts';
 import type { AuthContext } from '../auth/auth-context.ts';
 import { newId } from '../../lib/ids.ts';
-import { nowIso } from '../../lib/time.ts';
+import { latestMeasurementTime, nowIso } from '../../lib/time.ts';
 import { type Actor, actorOf } from '../audit/actor.ts';
 import { recordAudit } from '../audit/audit.repository.ts';
 import { queueAlert } from '../alerts/alerts.service.ts';
@@ -34,7 +34,6 @@ import type { z } from '../../lib/zod.ts';
 export type StandardizationInput = z.output<typeof CreateStandardizationRequestSchema>;
 
 /** A few minutes of clock difference between the instrument PC and the server are tolerated. */
-const FUTURE_TOLERANCE_MS = 5 * 60_000;
 
 /** Which references each mode needs; every problem becomes one entry of a 422. */
 function checkReferences(mode: CorrectionMode, method: Method, references: ReferenceMaterial[], errors: FieldError[]): void {
@@ -114,7 +113,7 @@ export async function createStandardization(
 ) {
   const now = nowIso();
   const measuredAt = input.measured_at ? new Date(input.measured_at).toISOString() : now;
-  if (Date.parse(measuredAt) > Date.parse(now) + FUTURE_TOLERANCE_MS) {
+  if (measuredAt > latestMeasurementTime()) {
     throw new ValidationProblem([{ location: 'body.measured_at', message: 'is in the future', code: 'future_time' }]);
   }
   const { method, references } = await resolve(ctx, auth, instrumentId, input);

@@ -6,6 +6,7 @@ import { normaliseElement } from '../chemistry/elements.ts';
 import { parseUnit, UNITS } from '../chemistry/units.ts';
 import { describeHeaderAliases } from './parse/header-aliases.ts';
 import { TIME_FORMATS, UTC_OFFSET_PATTERN } from './parse/times.ts';
+import { isTimeZone } from './parse/zoned-time.ts';
 import { checkProfileRules } from './import-profiles.rules.ts';
 
 export const AUTO_DETECTION_DESCRIPTION =
@@ -85,12 +86,26 @@ const ElementColumnSchema = z
 const TimeSchema = z
   .strictObject({
     format: z.enum(TIME_FORMATS).default('auto').openapi({ description: '`auto` accepts each of the others.' }),
-    utc_offset: z
+    time_zone: z
       .string()
-      .regex(UTC_OFFSET_PATTERN, 'must be Z or ±HH:MM between -14:00 and +14:00')
+      .max(64)
+      .refine(isTimeZone, 'must be an IANA time zone name such as Europe/Berlin or America/Chicago')
       .nullable()
       .default(null)
-      .openapi({ description: 'Offset for times written without one; null reads them as UTC (with a warning).', example: '+01:00' }),
+      .openapi({
+        description:
+          "The instrument's time zone (IANA name): times written without an offset are read in it, daylight saving included. A time the clocks skip is refused; a time in the repeated hour is read as its first occurrence, with a warning.",
+        example: 'Europe/Berlin',
+      }),
+    utc_offset: z.string().regex(UTC_OFFSET_PATTERN, 'must be Z or ±HH:MM between -14:00 and +14:00').nullable().default(null).openapi({
+      description:
+        "A fixed offset for times written without one, for instruments that keep one all year. With neither this nor `time_zone`, such times are read as UTC with a warning, and those within an hour of a correction set's start are refused (the set that applies cannot be told).",
+      example: '+01:00',
+    }),
+  })
+  .refine((time) => time.time_zone === null || time.utc_offset === null, {
+    message: 'give either time_zone or utc_offset, not both',
+    path: ['utc_offset'],
   })
   .openapi('ImportProfileTime');
 
@@ -129,7 +144,7 @@ export const CreateImportProfileRequestSchema = z
     element_columns: fields.element_columns.default([]),
     default_unit: fields.default_unit.default(null),
     ignore_columns: fields.ignore_columns.default([]),
-    time: TimeSchema.default({ format: 'auto', utc_offset: null }),
+    time: TimeSchema.default({ format: 'auto', time_zone: null, utc_offset: null }),
   })
   .superRefine(checkProfileRules)
   .openapi('CreateImportProfileRequest', { description: AUTO_DETECTION_DESCRIPTION });
@@ -167,7 +182,7 @@ export const ImportProfileSchema = z
     element_columns: z.array(z.object({ header: z.string(), element: z.string(), unit: z.enum(UNITS).optional() })),
     default_unit: z.enum(UNITS).nullable(),
     ignore_columns: z.array(z.string()),
-    time: z.object({ format: z.enum(TIME_FORMATS), utc_offset: z.string().nullable() }),
+    time: z.object({ format: z.enum(TIME_FORMATS), time_zone: z.string().nullable(), utc_offset: z.string().nullable() }),
     revision: z.number().int().openapi({ description: 'Starts at 1; each change adds 1. Imports record the revision they used.' }),
     created_at: z.string().openapi({ format: 'date-time' }),
     updated_at: z.string().openapi({ format: 'date-time' }),

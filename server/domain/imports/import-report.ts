@@ -17,6 +17,11 @@ export const ImportReportSchema = z
         delimiter: z.string(),
         decimal_separator: z.string(),
         layout: z.enum(['wide', 'long']),
+        time_zone: z.string().nullable().openapi({
+          description:
+            "What times written without a UTC offset were read in: the profile's `time.time_zone` or `time.utc_offset`, else `UTC` (with a warning); null when the file has no time column.",
+          example: 'Europe/Berlin',
+        }),
         columns: z.array(z.object({ header: z.string(), role: z.string(), element: z.string().optional(), unit: z.string().optional() })),
       })
       .openapi({ description: 'How the file was read.' }),

@@ -7,6 +7,7 @@ import type { Method } from '../methods/methods.repository.ts';
 import type { buildSampleRows } from '../samples/sample-builder.ts';
 import type { ImportIssue, ImportReport } from './import-report.ts';
 import { buildImportedSamples } from './import-samples.ts';
+import { refuseNaiveTimesNearCorrections } from './naive-times.ts';
 import type { ImportPreviewSchema } from './imports.schemas.ts';
 import { FileLayoutError, parseResultFile, type ParsedFile, type ParseOptions } from './parse/index.ts';
 import type { z } from '../../lib/zod.ts';
@@ -46,6 +47,7 @@ function layoutOf(parsed: ParsedFile): ImportReport['layout'] {
     delimiter: parsed.delimiter === '\t' ? 'tab' : parsed.delimiter,
     decimal_separator: parsed.decimal_separator,
     layout: parsed.layout,
+    time_zone: parsed.time_zone,
     columns: parsed.columns.map((c) => ({
       header: c.header,
       role: c.role,
@@ -78,6 +80,8 @@ function preview(parsed: ParsedFile): ImportPreview {
 }
 
 function build(parsed: ParsedFile, task: BuildTask, sendChunk: (samples: BuiltSample[]) => void): ImportOutcome {
+  const starts = task.context.corrections.flatMap((row) => (row.effective_from ? [new Date(row.effective_from).toISOString()] : []));
+  refuseNaiveTimesNearCorrections(parsed, starts);
   if (task.mode === 'all_or_nothing' && parsed.rejected.length > 0) {
     return {
       kind: 'refused',

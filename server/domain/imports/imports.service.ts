@@ -6,7 +6,7 @@ import { ConflictProblem, type FieldError, NotFoundProblem, UnprocessableProblem
 import type { AuthContext } from '../auth/auth-context.ts';
 import { newId } from '../../lib/ids.ts';
 import { sha256Hex } from '../../lib/secrets.ts';
-import { nowIso } from '../../lib/time.ts';
+import { latestMeasurementTime, nowIso } from '../../lib/time.ts';
 import { actorOf } from '../audit/actor.ts';
 import { recordAudit } from '../audit/audit.repository.ts';
 import { recordEvent } from '../events/events.repository.ts';
@@ -63,7 +63,7 @@ async function resolveReferences(ctx: AppContext, auth: AuthContext, input: Uplo
     }
   }
   if (errors.length) throw new UnprocessableProblem('The upload refers to an instrument, method or profile that does not exist.', errors);
-  return { method: method!, options: { profile, defaultUnit: method!.default_unit } };
+  return { method: method!, options: { profile, defaultUnit: method!.default_unit, latestTime: latestMeasurementTime() } };
 }
 
 /** Reads the file in an import worker; an unreadable or refused file becomes its 422 problem. */

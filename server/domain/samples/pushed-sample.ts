@@ -3,6 +3,7 @@
 // most 100 %) and converted exactly to %. Every problem is collected, so one 400 names them all,
 // each as "Sample K24-0412-F1, burn 2, Ni: <cause>".
 import type { FieldError } from '../../lib/problems.ts';
+import { CLOCK_SKEW_ALLOWANCE_MINUTES, latestMeasurementTime } from '../../lib/time.ts';
 import { normaliseElement } from '../chemistry/elements.ts';
 import { readMassFraction } from '../chemistry/mass-fraction.ts';
 import { MeasuredValueError } from '../chemistry/measured-value.ts';
@@ -15,9 +16,15 @@ export type PushedBurn = z.output<typeof PushedBurnSchema>;
 
 /** `subject` names what the burns belong to in messages: "Sample K24-0412-F1", "Measurement 2". */
 export function normalisePushedBurns(burns: PushedBurn[], unit: Unit, location: string, subject: string, errors: FieldError[]): NewBurn[] {
+  const latest = latestMeasurementTime();
   return burns.map((burn, index) => {
     const at = `${location}.${index}`;
     const burnLabel = `${subject}, burn ${index + 1}`;
+    const measuredAt = burn.measured_at ? new Date(burn.measured_at).toISOString() : null;
+    if (measuredAt && measuredAt > latest) {
+      const message = `${burnLabel}: measured_at ${measuredAt} is in the future (more than ${CLOCK_SKEW_ALLOWANCE_MINUTES} minutes after the server's clock)`;
+      errors.push({ location: `${at}.measured_at`, message, code: 'future_time' });
+    }
     const values: NewBurn['values'] = {};
     const raw: NewBurn['raw'] = {};
     for (const [key, cell] of Object.entries(burn.values)) {
@@ -47,6 +54,6 @@ export function normalisePushedBurns(burns: PushedBurn[], unit: Unit, location: 
     if (Object.keys(values).length === 0 && !errors.some((e) => e.location.startsWith(`${at}.`))) {
       errors.push({ location: `${at}.values`, message: `${burnLabel}: a burn needs at least one measured value`, code: 'empty_burn' });
     }
-    return { burn_number: index + 1, measured_at: burn.measured_at ? new Date(burn.measured_at).toISOString() : null, values, raw };
+    return { burn_number: index + 1, measured_at: measuredAt, values, raw };
   });
 }

@@ -1,17 +1,11 @@
 // Activation: managers and admins only, 409 for a failing element without override_reason, the
 // override recorded, audit entry and events written with the change, no double or backdated
 // activation, no roll-back to an older run; the next run compares with the set in force.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestApp, expectProblem, problemBody, type TestApp } from '../../helpers/test-app.ts';
-import { activate, burnsAt, createRun, type DriftSetup, driftSetup, twoPointRun } from './drift-setup.ts';
+import { describe, expect, it } from 'vitest';
+import { expectProblem, problemBody } from '../../helpers/test-app.ts';
+import { activate, burnsAt, createRun, twoPointRun, useDriftSetup } from './drift-setup.ts';
 
-let t: TestApp;
-let s: DriftSetup;
-beforeAll(async () => {
-  t = await createTestApp();
-  s = await driftSetup(t);
-});
-afterAll(() => t.close());
+const s = useDriftSetup();
 
 const hoursAgo = (h: number) => new Date(Date.now() - h * 3600_000).toISOString();
 /** C measured at 0.42·(nominal span) → slope ≈ 2.2: far beyond the fail limit 0.5. */
@@ -29,7 +23,7 @@ describe('POST /api/v1/standardizations/{id}/activate', () => {
     const res = await s.analyst.post(`/api/v1/standardizations/${run.id}/activate`).send({});
     expectProblem(res, 403);
     expect(problemBody(res).required_scope).toBe('standardizations:activate');
-    const row = await t.db('standardizations').where({ id: run.id }).first();
+    const row = await s.t.db('standardizations').where({ id: run.id }).first();
     expect(row.status).toBe('draft');
   });
 
@@ -42,7 +36,7 @@ describe('POST /api/v1/standardizations/{id}/activate', () => {
     expect(problemBody(refused).failing_elements).toEqual([
       { element: 'C', reasons: [expect.stringContaining('more than the fail limit 0.5')] },
     ]);
-    expect(await t.db('events').where({ type: 'standardization.activated' })).toHaveLength(0);
+    expect(await s.t.db('events').where({ type: 'standardization.activated' })).toHaveLength(0);
 
     const reason = 'C channel lens cleaned after the run; accepted until the afternoon re-standardization (L. Marsh)';
     const activated = await activate(s, run.id, { override_reason: reason });
@@ -53,11 +47,11 @@ describe('POST /api/v1/standardizations/{id}/activate', () => {
     });
     expect(Date.parse(activated.activation.effective_from)).toBeLessThanOrEqual(Date.now());
 
-    const audit = await t.db('audit_events').where({ action: 'standardization.activated', target_id: run.id });
+    const audit = await s.t.db('audit_events').where({ action: 'standardization.activated', target_id: run.id });
     expect(audit).toHaveLength(1);
     expect(JSON.parse(audit[0].after_json)).toMatchObject({ status: 'activated', override_reason: reason, failing_elements: ['C'] });
     expect(JSON.parse(audit[0].before_json)).toEqual({ status: 'draft', set_in_force: null });
-    const events = await t.db('events').where({ type: 'standardization.activated' });
+    const events = await s.t.db('events').where({ type: 'standardization.activated' });
     expect(events).toHaveLength(1);
     expect(JSON.parse(events[0].data_json)).toMatchObject({
       standardization: { id: run.id, flag: 'fail', override_reason: reason, replaces: null },

@@ -2,17 +2,10 @@
 // corrected by exactly α·x + β per element (checked with decimal.js on the stored strings), with
 // the set recorded; samples stored before are untouched; the set is chosen by measurement time.
 import { Decimal } from 'decimal.js';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestApp, type TestApp } from '../../helpers/test-app.ts';
-import { activate, burnsAt, createRun, type DriftSetup, driftSetup, twoPointRun } from './drift-setup.ts';
+import { describe, expect, it } from 'vitest';
+import { activate, burnsAt, createRun, twoPointRun, useDriftSetup } from './drift-setup.ts';
 
-let t: TestApp;
-let s: DriftSetup;
-beforeAll(async () => {
-  t = await createTestApp();
-  s = await driftSetup(t);
-});
-afterAll(() => t.close());
+const s = useDriftSetup();
 
 const D200 = Decimal.clone({ precision: 200 });
 const D34 = Decimal.clone({ precision: 34, rounding: Decimal.ROUND_HALF_EVEN });
@@ -28,8 +21,8 @@ const push = (code: string, burns: { values: Record<string, number | string>; me
   s.analyst
     .post('/api/v1/samples')
     .send({ sample_code: code, heat: code.slice(0, 8), instrument_id: s.lab.foundry.id, method_id: s.method.id, burns });
-const storedBurns = (sampleId: string) => t.db('burns').where({ sample_id: sampleId }).orderBy('burn_number');
-const storedSample = (sampleId: string) => t.db('samples').where({ id: sampleId }).first();
+const storedBurns = (sampleId: string) => s.t.db('burns').where({ sample_id: sampleId }).orderBy('burn_number');
+const storedSample = (sampleId: string) => s.t.db('samples').where({ id: sampleId }).first();
 
 /** The exact value α·x + β of one element under a set (independent of the server's code). */
 function expected(set: Set, element: string, x: string): string {

@@ -3,7 +3,8 @@
 // All values are invented.
 import type request from 'supertest';
 import type { DemoLab } from '../../../server/seed/demo-lab.ts';
-import { seedDemoLab, signedInAgent, type TestApp } from '../../helpers/test-app.ts';
+import { afterAll, beforeAll } from 'vitest';
+import { createTestApp, seedDemoLab, signedInAgent, type TestApp } from '../../helpers/test-app.ts';
 
 export interface DriftSetup {
   lab: DemoLab;
@@ -65,6 +66,20 @@ export async function driftSetup(t: TestApp): Promise<DriftSetup> {
     high: await reference('high'),
     low: await reference('low'),
   };
+}
+
+/**
+ * For one test file: a test app with the drift setup, built before its tests and closed after.
+ * The object is filled in beforeAll; read its fields inside tests.
+ */
+export function useDriftSetup(): DriftSetup & { t: TestApp } {
+  const state = {} as DriftSetup & { t: TestApp };
+  beforeAll(async () => {
+    const t = await createTestApp();
+    Object.assign(state, await driftSetup(t), { t });
+  });
+  afterAll(() => state.t?.close());
+  return state;
 }
 
 type Burns = Record<string, number | string>[];

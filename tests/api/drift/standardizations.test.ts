@@ -2,17 +2,11 @@
 // flags that explain themselves, H = L → 422 naming the element, references that do not fit the
 // mode, the standardization.flagged event, lists.
 import { Decimal } from 'decimal.js';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestApp, expectProblem, problemBody, type TestApp } from '../../helpers/test-app.ts';
-import { burnsAt, createRun, type DriftSetup, driftSetup, NOMINAL, twoPointRun } from './drift-setup.ts';
+import { describe, expect, it } from 'vitest';
+import { expectProblem, problemBody } from '../../helpers/test-app.ts';
+import { burnsAt, createRun, NOMINAL, twoPointRun, useDriftSetup } from './drift-setup.ts';
 
-let t: TestApp;
-let s: DriftSetup;
-beforeAll(async () => {
-  t = await createTestApp();
-  s = await driftSetup(t);
-});
-afterAll(() => t.close());
+const s = useDriftSetup();
 
 const url = () => `/api/v1/instruments/${s.lab.foundry.id}/standardizations`;
 const D60 = Decimal.clone({ precision: 60, rounding: Decimal.ROUND_HALF_EVEN });
@@ -82,11 +76,11 @@ describe('POST /api/v1/instruments/{id}/standardizations', () => {
       ]);
     }
     expect(res.body.measurements[0].burns[1].values.Mn).toEqual({ value: '1.471', qualifier: null, raw: '1.471', raw_unit: '%' });
-    expect(await t.db('events').where({ type: 'standardization.flagged' })).toHaveLength(0);
+    expect(await s.t.db('events').where({ type: 'standardization.flagged' })).toHaveLength(0);
   });
 
   it('answers 422 naming the element when H = L, and stores nothing', async () => {
-    const before = (await t.db('standardizations').count({ n: '*' }))[0].n;
+    const before = (await s.t.db('standardizations').count({ n: '*' }))[0].n;
     const high = burnsAt('high', 1).map((b) => ({ ...b, Mn: 0.75 }));
     const low = burnsAt('low', 1).map((b) => ({ ...b, Mn: 0.75 }));
     const res = await s.analyst.post(url()).send(twoPointRun(s, high, low));
@@ -99,7 +93,7 @@ describe('POST /api/v1/instruments/{id}/standardizations', () => {
         code: 'no_correction',
       },
     ]);
-    expect((await t.db('standardizations').count({ n: '*' }))[0].n).toBe(before);
+    expect((await s.t.db('standardizations').count({ n: '*' }))[0].n).toBe(before);
   });
 
   it('flags a slope beyond the limits, a missing element and disagreeing burns, each with its reason, and records standardization.flagged', async () => {
@@ -124,7 +118,7 @@ describe('POST /api/v1/instruments/{id}/standardizations', () => {
         `The 3 burns of ${s.high.code} disagree: their range 0.1 % exceeds the ISO 5725-6 critical range f(3)·σr = 0.0331 %`,
       ),
     ]);
-    const events = await t.db('events').where({ type: 'standardization.flagged' });
+    const events = await s.t.db('events').where({ type: 'standardization.flagged' });
     expect(events).toHaveLength(1);
     expect(JSON.parse(events[0].data_json)).toMatchObject({
       standardization: { id: run.id, flag: 'warn' },

@@ -9,7 +9,7 @@ import type { ImportTask } from '../../../server/domain/imports/import-work.ts';
 import { createImportWorkers, type ImportWorkers } from '../../../server/domain/imports/import-workers.ts';
 import type { DemoLab } from '../../../server/seed/demo-lab.ts';
 import { countRows, createTestApp, expectProblem, seedDemoLab, signedInAgent, type TestApp } from '../../helpers/test-app.ts';
-import { activate, burnsAt, createRun, type DriftSetup, driftSetup, twoPointRun } from '../drift/drift-setup.ts';
+import { activate, burnsAt, createRun, twoPointRun, useDriftSetup } from '../drift/drift-setup.ts';
 
 function upload(agent: request.Agent, instrumentId: string, methodId: string, bytes: string, path = '/api/v1/imports') {
   return agent
@@ -28,27 +28,23 @@ function aroundRun(
   return vi.spyOn(pool, 'run').mockImplementation((task, options) => around(task, () => original(task, options)));
 }
 
-// Burns measured after any set these tests activate, so that the set in force applies to them.
+// Burns measured after any set these tests activate, so that the set in force applies to them:
+// four minutes ahead of the clock, within the five minutes of skew a burn time may be ahead.
+const later = (seconds: number) => new Date(Date.now() + 4 * 60_000 + seconds * 1000).toISOString();
 const LATER_FILE = [
   'Sample,Heat,Burn,Time,C %,Mn %,Cr %',
-  'K24-0901-F1,K24-0901,1,2030-01-07T08:00:00Z,0.452,0.744,0.11',
-  'K24-0901-F1,K24-0901,2,2030-01-07T08:01:00Z,0.449,0.751,0.12',
+  `K24-0901-F1,K24-0901,1,${later(0)},0.452,0.744,0.11`,
+  `K24-0901-F1,K24-0901,2,${later(40)},0.449,0.751,0.12`,
   '',
 ].join('\n');
 
 describe('imports in worker threads', () => {
-  let t: TestApp;
-  let s: DriftSetup;
-  beforeAll(async () => {
-    t = await createTestApp();
-    s = await driftSetup(t);
-  });
-  afterAll(() => t.close());
+  const s = useDriftSetup();
 
   it('keeps the event loop free: a health check started once the upload is in the worker finishes before the upload', async () => {
     let reachedWorker!: () => void;
     const inWorker = new Promise<void>((resolve) => (reachedWorker = resolve));
-    const spy = aroundRun(t.ctx.importWorkers, (_task, run) => {
+    const spy = aroundRun(s.t.ctx.importWorkers, (_task, run) => {
       reachedWorker();
       return run();
     });
@@ -58,7 +54,7 @@ describe('imports in worker threads', () => {
       return res;
     });
     await inWorker;
-    const health = await request(t.app).get('/api/v1/health');
+    const health = await request(s.t.app).get('/api/v1/health');
     finished.push('health');
     const res = await uploading;
     spy.mockRestore();
@@ -70,7 +66,7 @@ describe('imports in worker threads', () => {
 
   it('previews through the same workers', async () => {
     const kinds: string[] = [];
-    const spy = aroundRun(t.ctx.importWorkers, (task, run) => (kinds.push(task.kind), run()));
+    const spy = aroundRun(s.t.ctx.importWorkers, (task, run) => (kinds.push(task.kind), run()));
     const res = await upload(s.analyst, s.lab.foundry.id, s.method.id, LATER_FILE, '/api/v1/imports/preview');
     spy.mockRestore();
     expect(res.status).toBe(200);
@@ -81,7 +77,7 @@ describe('imports in worker threads', () => {
   it('builds the samples again when a correction set is activated after they were built and before they are stored', async () => {
     let activated: string | undefined;
     let builds = 0;
-    const spy = aroundRun(t.ctx.importWorkers, async (_task, run) => {
+    const spy = aroundRun(s.t.ctx.importWorkers, async (_task, run) => {
       builds += 1;
       const outcome = await run();
       if (!activated) {
@@ -95,14 +91,14 @@ describe('imports in worker threads', () => {
     spy.mockRestore();
     expect(res.status).toBe(201);
     expect(builds).toBe(2);
-    const burns = await t.db('burns').where({ sample_id: res.body.report.sample_ids[0] });
+    const burns = await s.t.db('burns').where({ sample_id: res.body.report.sample_ids[0] });
     expect(burns.map((b) => b.correction_set_id)).toEqual([activated, activated]);
   });
 
   it('gives up with 409 and stores nothing when sets keep being activated during the import', async () => {
-    const before = await countRows(t.db('samples'));
+    const before = await countRows(s.t.db('samples'));
     let builds = 0;
-    const spy = aroundRun(t.ctx.importWorkers, async (_task, run) => {
+    const spy = aroundRun(s.t.ctx.importWorkers, async (_task, run) => {
       builds += 1;
       const outcome = await run();
       await activate(s, (await createRun(s, twoPointRun(s, burnsAt('high', 0.98), burnsAt('low', 0.96)))).id);
@@ -112,7 +108,7 @@ describe('imports in worker threads', () => {
     spy.mockRestore();
     expectProblem(res, 409);
     expect(builds).toBe(3);
-    expect(await countRows(t.db('samples'))).toBe(before);
+    expect(await countRows(s.t.db('samples'))).toBe(before);
   });
 });
 

@@ -94,7 +94,33 @@ describe('parseBurnTime', () => {
     ['4.3.2024 07:00:30', 'DD.MM.YYYY HH:mm[:ss]', '+01:00', '2024-03-04T06:00:30.000Z'],
     ['2024-01-01 00:30', 'auto', '+02:00', '2023-12-31T22:30:00.000Z'],
   ])('%s (%s, offset %s) → %s', (text, format, offset, iso) => {
-    expect(parseBurnTime(text, format as never, offset)?.iso).toBe(iso);
+    expect(parseBurnTime(text, format as never, offset)).toMatchObject({ iso });
+  });
+
+  // In an IANA zone, daylight saving included. Change dates: EU summer time from 01:00 UTC on the
+  // last Sunday of March to 01:00 UTC on the last Sunday of October (Directive 2000/84/EC); US from
+  // 02:00 local on the second Sunday of March to 02:00 on the first Sunday of November (Energy Policy
+  // Act of 2005). docs/references.md, "Time zones".
+  it.each([
+    ['2026-01-15 08:00', 'Europe/Berlin', '2026-01-15T07:00:00.000Z', false],
+    ['2026-07-15 08:00', 'Europe/Berlin', '2026-07-15T06:00:00.000Z', false],
+    ['2026-03-29 03:00', 'Europe/Berlin', '2026-03-29T01:00:00.000Z', false],
+    ['2026-10-25 02:30', 'Europe/Berlin', '2026-10-25T00:30:00.000Z', true],
+    ['2026-10-25 03:00', 'Europe/Berlin', '2026-10-25T02:00:00.000Z', false],
+    ['2026-11-01 01:30', 'America/Chicago', '2026-11-01T06:30:00.000Z', true],
+    ['2026-06-01 10:00', 'Asia/Kolkata', '2026-06-01T04:30:00.000Z', false],
+    ['2026-07-15T08:00:00+01:00', 'Europe/Berlin', '2026-07-15T07:00:00.000Z', false],
+  ])('%s in %s → %s (ambiguous: %s)', (text, zone, iso, ambiguous) => {
+    const parsed = parseBurnTime(text, 'auto', zone) as { iso: string; ambiguous?: boolean };
+    expect(parsed.iso).toBe(iso);
+    expect(parsed.ambiguous === true).toBe(ambiguous);
+  });
+
+  it.each([
+    ['2026-03-29 02:30', 'Europe/Berlin'],
+    ['2026-03-08 02:30', 'America/Chicago'],
+  ])('%s does not exist in %s (the clocks go forward over it)', (text, zone) => {
+    expect(parseBurnTime(text, 'auto', zone)).toEqual({ skipped: true });
   });
 
   it.each([

@@ -77,6 +77,8 @@ describe('long layout', () => {
         },
       ],
       warnings: [],
+      time_zone: '+01:00',
+      naive_time_lines: [],
       rejected: [],
       counts: { rows: 8, burns: 3, values: 7 },
     });

@@ -213,6 +213,9 @@ const EXPECTED = {
   warnings: [{ column: 'Date/Time', code: 'time_without_offset', message: expect.stringContaining('read as UTC') }],
   rejected: [],
   counts: { rows: 6, burns: 6, values: 60 },
+  // No profile: times without an offset are read as UTC; line 4 carries its own (+01:00).
+  time_zone: 'UTC',
+  naive_time_lines: [2, 3, 6, 7, 8],
 };
 
 describe('the every-quirk wide fixture', () => {

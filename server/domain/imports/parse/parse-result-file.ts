@@ -19,6 +19,8 @@ export interface ParseOptions {
   profile?: ImportProfileDefinition;
   /** Unit for element columns whose header names none and the profile sets none (e.g. the method's). */
   defaultUnit?: Unit;
+  /** Burn times after this instant are refused (the caller's clock plus its skew allowance); without it none is. */
+  latestTime?: string;
 }
 
 const DELIMITERS: Record<string, Delimiter> = { ',': ',', ';': ';', tab: '\t' };
@@ -64,7 +66,13 @@ export function parseResultFile(bytes: Uint8Array, options: ParseOptions = {}): 
     columns: rowColumns(columns),
     elements: columns.filter((c) => c.role === 'element'),
     decimal,
-    time: { format: profile?.time.format ?? 'auto', utcOffset: profile?.time.utc_offset ?? null, assumedUtc: false },
+    time: {
+      format: profile?.time.format ?? 'auto',
+      zone: profile?.time.time_zone ?? profile?.time.utc_offset ?? null,
+      latest: options.latestTime ? Date.parse(options.latestTime) : Number.POSITIVE_INFINITY,
+      naiveLines: [],
+      ambiguousLines: [],
+    },
     grouper: new SampleGrouper(warnings, rejected, headerOf),
     warnings,
   };
@@ -78,13 +86,7 @@ export function parseResultFile(bytes: Uint8Array, options: ParseOptions = {}): 
     };
     for (const record of dataRecords) readLongRow(record, reading, long);
   }
-  if (reading.time.assumedUtc) {
-    warnings.push({
-      column: reading.columns.measuredAt?.header,
-      code: 'time_without_offset',
-      message: 'Times without a UTC offset were read as UTC; set the offset in an import profile if the instrument writes local time.',
-    });
-  }
+  warnTimes(reading, warnings);
   const samples = reading.grouper.finish();
   const burns = samples.reduce((n, s) => n + s.burns.length, 0);
   const values = samples.reduce((n, s) => s.burns.reduce((m, b) => m + Object.keys(b.values).length, n), 0);
@@ -98,8 +100,31 @@ export function parseResultFile(bytes: Uint8Array, options: ParseOptions = {}): 
     header,
     columns,
     samples,
+    time_zone: reading.columns.measuredAt ? (reading.time.zone ?? 'UTC') : null,
+    naive_time_lines: reading.time.naiveLines,
     warnings,
     rejected,
     counts: { rows: dataRecords.length, burns, values },
   };
+}
+
+function warnTimes({ time, columns }: RowReading, warnings: Issue[]): void {
+  const column = columns.measuredAt?.header;
+  if (time.naiveLines.length > 0) {
+    warnings.push({
+      column,
+      code: 'time_without_offset',
+      message:
+        "Times without a UTC offset were read as UTC; set the instrument's time zone in an import profile if it writes local time (times within an hour of a correction set's start are refused until then).",
+    });
+  }
+  if (time.ambiguousLines.length > 0) {
+    const lines = time.ambiguousLines;
+    warnings.push({
+      line: lines[0],
+      column,
+      code: 'ambiguous_time',
+      message: `${lines.length} time(s) fall in the hour ${time.zone} repeats when the clocks go back (line ${lines.slice(0, 5).join(', ')}${lines.length > 5 ? ' …' : ''}); each was read as the first occurrence (summer time).`,
+    });
+  }
 }

@@ -77,26 +77,34 @@ export function readBurnNumber(cells: string[], line: number, columns: RowColumn
 
 export interface TimeSettings {
   format: TimeFormat;
-  /** Offset for times written without one; null = UTC with a warning. */
-  utcOffset: string | null;
-  /** Set once a time without offset was read as UTC. */
-  assumedUtc: boolean;
+  /** How times written without an offset are read: an IANA zone, a fixed offset, or null (as UTC). */
+  zone: string | null;
+  /** Times later than this (epoch ms: the server's clock plus a small skew allowance) are refused. */
+  latest: number;
+  /** Lines whose time had no offset and no zone to read it in, so it was read as UTC. */
+  naiveLines: number[];
+  /** Lines whose time fell in the hour the zone repeats when the clocks go back. */
+  ambiguousLines: number[];
 }
 
 export function readTime(cells: string[], line: number, columns: RowColumns, settings: TimeSettings): string | undefined | Issue {
   const text = cell(cells, columns.measuredAt);
   if (text === undefined) return undefined;
-  const parsed = parseBurnTime(text, settings.format, settings.utcOffset ?? 'Z');
+  const column = columns.measuredAt!.header;
+  const parsed = parseBurnTime(text, settings.format, settings.zone ?? 'Z');
   if (!parsed) {
     const expected = settings.format === 'auto' ? 'ISO 8601, YYYY-MM-DD HH:mm[:ss] or DD.MM.YYYY HH:mm[:ss]' : settings.format;
-    return {
-      line,
-      column: columns.measuredAt!.header,
-      code: 'invalid_time',
-      message: `"${text}" on line ${line} is not a valid time (${expected}).`,
-    };
+    return { line, column, code: 'invalid_time', message: `"${text}" on line ${line} is not a valid time (${expected}).` };
   }
-  if (!parsed.hadOffset && settings.utcOffset === null) settings.assumedUtc = true;
+  if ('skipped' in parsed) {
+    const message = `"${text}" on line ${line} does not exist in ${settings.zone}: the clocks go forward over it.`;
+    return { line, column, code: 'invalid_time', message };
+  }
+  if (Date.parse(parsed.iso) > settings.latest) {
+    return { line, column, code: 'future_time', message: `"${text}" on line ${line} (${parsed.iso}) is in the future.` };
+  }
+  if (!parsed.hadOffset && settings.zone === null) settings.naiveLines.push(line);
+  if (parsed.ambiguous) settings.ambiguousLines.push(line);
   return parsed.iso;
 }
 

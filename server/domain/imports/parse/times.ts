@@ -1,6 +1,9 @@
-// Burn times as instruments write them → ISO 8601 UTC. Times without an offset take the
-// profile's UTC offset (or UTC). Calendar fields are range-checked, so "2024-02-30 10:00"
-// is refused instead of rolling over into March.
+// Burn times as instruments write them → ISO 8601 UTC. Times without an offset are read in the
+// profile's time zone (IANA name, daylight saving included) or at its fixed UTC offset (or as UTC).
+// Calendar fields are range-checked, so "2024-02-30 10:00" is refused instead of rolling over
+// into March.
+import { wallClockToUtc } from './zoned-time.ts';
+
 export const TIME_FORMATS = ['auto', 'iso8601', 'YYYY-MM-DD HH:mm[:ss]', 'DD.MM.YYYY HH:mm[:ss]'] as const;
 export type TimeFormat = (typeof TIME_FORMATS)[number];
 
@@ -35,12 +38,22 @@ export interface ParsedTime {
   iso: string;
   /** True when the text carried its own offset. */
   hadOffset: boolean;
+  /** The wall-clock time occurs twice in the zone (the hour the clocks go back); the first was taken. */
+  ambiguous?: boolean;
+}
+
+/** A wall-clock time the zone skips (the hour the clocks go forward): it never happened there. */
+export interface SkippedTime {
+  skipped: true;
 }
 
 const ALL_FORMATS = Object.keys(PATTERNS) as (keyof typeof PATTERNS)[];
 
-/** The time in UTC, or undefined when the text is not a valid time in the format. */
-export function parseBurnTime(text: string, format: TimeFormat, defaultOffset: string): ParsedTime | undefined {
+/**
+ * The time in UTC, or undefined when the text is not a valid time in the format. `zone` reads
+ * times written without an offset: "Z", a fixed offset ("+01:00") or an IANA name ("Europe/Berlin").
+ */
+export function parseBurnTime(text: string, format: TimeFormat, zone: string): ParsedTime | SkippedTime | undefined {
   const trimmed = text.trim();
   for (const name of format === 'auto' ? ALL_FORMATS : [format]) {
     const { regex, order } = PATTERNS[name];
@@ -55,11 +68,16 @@ export function parseBurnTime(text: string, format: TimeFormat, defaultOffset: s
     // Date.UTC maps years 0–99 to 1900–1999; refuse early years rather than guess.
     if (year < 1900 || month < 1 || month > 12 || day < 1 || day > daysInMonth(year, month) || hour > 23 || minute > 59 || second > 59)
       return undefined;
-    const shift = offsetMinutes(m[8] ?? defaultOffset);
-    if (shift === undefined) return undefined;
     const millis = m[7] === undefined ? 0 : Number(m[7].padEnd(3, '0').slice(0, 3));
-    const date = new Date(Date.UTC(year, month - 1, day, hour, minute, second, millis) - shift * 60_000);
-    return { iso: date.toISOString(), hadOffset: m[8] !== undefined };
+    const wall = Date.UTC(year, month - 1, day, hour, minute, second, millis);
+    if (m[8] === undefined && !UTC_OFFSET_PATTERN.test(zone)) {
+      const zoned = wallClockToUtc(wall, zone);
+      if ('skipped' in zoned) return zoned;
+      return { iso: new Date(zoned.utcMillis).toISOString(), hadOffset: false, ambiguous: zoned.ambiguous };
+    }
+    const shift = offsetMinutes(m[8] ?? zone);
+    if (shift === undefined) return undefined;
+    return { iso: new Date(wall - shift * 60_000).toISOString(), hadOffset: m[8] !== undefined };
   }
   return undefined;
 }

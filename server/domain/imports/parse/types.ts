@@ -92,6 +92,10 @@ export interface ParsedFile {
   warnings: Issue[];
   /** Every rejected line (a line can appear more than once, one issue per bad cell). */
   rejected: Issue[];
+  /** The zone times without an offset were read in (profile's zone or offset, else "UTC"); null without a time column. */
+  time_zone: string | null;
+  /** Lines whose time had no offset and no zone to read it in (read as UTC). */
+  naive_time_lines: number[];
   counts: { rows: number; burns: number; values: number };
 }
 
