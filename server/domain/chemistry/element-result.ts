@@ -66,7 +66,7 @@ export interface ElementResultInput {
   element: string;
   /**
    * One cell per INCLUDED burn; undefined (or value and qualifier both null) = not measured.
-   * Values are decimal strings in %, as parseMeasuredValue returns them (anything else throws).
+   * Values are decimal strings in %, as readMassFraction (mass-fraction.ts) stores them; anything else throws.
    */
   cells: ReadonlyArray<BurnCell | undefined>;
   settings: ElementSettings;
