@@ -36,6 +36,7 @@ import * as createControlPoints from './20261203400300_create_control_points.ts'
 import * as createControlStatusChanges from './20261203400400_create_control_status_changes.ts';
 import * as createAlertPreferences from './20261203400500_create_alert_preferences.ts';
 import * as createPendingAlerts from './20261203400600_create_pending_alerts.ts';
+import * as createNodeCoordination from './20261203500100_create_node_coordination.ts';
 
 export interface Migration {
   up(knex: Knex): Promise<void>;
@@ -78,4 +79,5 @@ export const migrations: Record<string, Migration> = {
   '20261203400400_create_control_status_changes': createControlStatusChanges,
   '20261203400500_create_alert_preferences': createAlertPreferences,
   '20261203400600_create_pending_alerts': createPendingAlerts,
+  '20261203500100_create_node_coordination': createNodeCoordination,
 };

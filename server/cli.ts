@@ -1,5 +1,6 @@
 // Bootstrap commands: `npm run cli -- <command> [options]`.
 import { parseArgs } from 'node:util';
+import { forgetSessionSecret } from './cluster/session-secret.ts';
 import { ConfigError, loadConfig } from './config.ts';
 import { createDb, type Db } from './db/knex.ts';
 import { migrateLatest } from './db/migrate.ts';
@@ -21,7 +22,9 @@ Commands:
                                             create an active admin, or make E an active admin with password P
   create-key --name N --scopes a,b [--owner E] [--expires-at ISO]
                                             issue an API key owned by admin E (default: the first admin);
-                                            the secret is printed as the last line`;
+                                            the secret is printed as the last line
+  forget-session-secret                     before giving every node a new SESSION_SECRET on purpose: the next
+                                            node to start records the new one (everyone is signed out)`;
 
 class UsageError extends Error {}
 
@@ -87,6 +90,9 @@ async function run(argv: string[]): Promise<void> {
       });
       console.log(`issued key ${key.id} (${key.prefix}…) for ${owner.email} with scopes ${key.scopes.join(',')}`);
       console.log(key.secret);
+    } else if (command === 'forget-session-secret') {
+      await forgetSessionSecret(db);
+      console.log('the SESSION_SECRET fingerprint is forgotten: start every node with the same new secret');
     } else {
       throw new UsageError(`unknown command "${command}"`);
     }

@@ -85,6 +85,8 @@ export interface Config {
   databaseFile: string;
   databaseUrl?: string;
   sessionSecret: string;
+  /** SESSION_SECRET was given (not drawn at random for this process). */
+  sessionSecretConfigured: boolean;
   sessionTtlMinutes: number;
   smtpUrl?: string;
   mailFrom: string;
@@ -144,6 +146,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     databaseUrl: e.DATABASE_URL,
     // Without a configured secret, sessions last until the process restarts (development only).
     sessionSecret: e.SESSION_SECRET ?? randomBytes(32).toString('hex'),
+    sessionSecretConfigured: e.SESSION_SECRET !== undefined,
     sessionTtlMinutes: e.SESSION_TTL_MINUTES,
     smtpUrl: e.SMTP_URL,
     mailFrom: e.MAIL_FROM,

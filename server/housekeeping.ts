@@ -1,7 +1,9 @@
 // Ages out what is kept only for a while: request log entries (REQUEST_LOG_RETENTION_DAYS),
 // Idempotency-Key records (24 hours), events and webhook deliveries (EVENT_RETENTION_DAYS). Runs
 // once at start, then hourly on an unref'd timer so it never keeps the process alive; stop() ends
-// it on shutdown.
+// it on shutdown. With several nodes on one database, each hour's run happens on one node only
+// (a job lease, cluster/job-lease.ts).
+import { claimJobRun, NODE_ID } from './cluster/job-lease.ts';
 import type { AppContext } from './context.ts';
 import { purgeEvents } from './domain/events/events.service.ts';
 import { purgeExpiredIdempotencyKeys } from './domain/idempotency/idempotency.repository.ts';
@@ -25,16 +27,19 @@ export async function sweepOnce(
   const idempotencyKeys = await purgeExpiredIdempotencyKeys(ctx.db, now);
   const events = await purgeEvents(ctx.db, ctx.config.eventRetentionDays, now);
   const deliveries = await purgeDeliveries(ctx.db, ctx.config.eventRetentionDays, now);
-  if (requestLog || idempotencyKeys || events || deliveries) {
-    ctx.logger.info({ requestLog, idempotencyKeys, events, deliveries }, 'housekeeping removed expired records');
-  }
+  ctx.logger.info({ job: 'housekeeping', node: NODE_ID, requestLog, idempotencyKeys, events, deliveries }, 'housekeeping ran');
   return { requestLog, idempotencyKeys, events, deliveries };
 }
 
 export function startHousekeeping(ctx: Pick<AppContext, 'db' | 'config' | 'logger'>, intervalMs = HOUSEKEEPING_INTERVAL_MS): Housekeeping {
   let running: Promise<unknown> = Promise.resolve();
   const sweep = () => {
-    running = sweepOnce(ctx).catch((error: unknown) => ctx.logger.error({ err: error }, 'housekeeping failed'));
+    running = claimJobRun(ctx.db, 'housekeeping', intervalMs)
+      .then(async (mine) => {
+        if (mine) await sweepOnce(ctx);
+        else ctx.logger.debug('housekeeping ran on another node this hour');
+      })
+      .catch((error: unknown) => ctx.logger.error({ err: error }, 'housekeeping failed'));
     return running;
   };
   const firstRun = sweep().then(() => undefined);

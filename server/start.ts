@@ -3,6 +3,8 @@
 // `npm run dev` starts this with `--dev` under `tsx watch`: no console build, because Vite
 // serves the console with hot reload and forwards /api here.
 import { createApp, DEFAULT_CONSOLE_DIR } from './app.ts';
+import { checkSessionSecret } from './cluster/session-secret.ts';
+import { withStartupLock } from './cluster/startup-lock.ts';
 import { ConfigError, loadConfig } from './config.ts';
 import { buildConsole, consoleNeedsBuild } from './console-build.ts';
 import { createDb } from './db/knex.ts';
@@ -26,10 +28,17 @@ async function main(): Promise<void> {
     logger.info('building the console (dist/ is missing or older than src/)');
     await buildConsole();
   }
+  if (config.databaseUrl && !config.sessionSecretConfigured) {
+    throw new ConfigError(['SESSION_SECRET: required with DATABASE_URL (32+ characters), the same on every node of the database']);
+  }
   const db = createDb(config);
-  const applied = await migrateLatest(db);
-  if (applied.length > 0) logger.info({ migrations: applied }, 'database migrated');
-  if (config.seedDemo && (await seedDemoIfEmpty(db))) logger.info('demo data seeded (Kestrel Bend Metals, invented)');
+  // Several nodes starting at once migrate and seed one after the other (cluster/startup-lock.ts).
+  await withStartupLock(db, async () => {
+    const applied = await migrateLatest(db);
+    if (applied.length > 0) logger.info({ migrations: applied }, 'database migrated');
+    if (config.sessionSecretConfigured) await checkSessionSecret(db, config.sessionSecret);
+    if (config.seedDemo && (await seedDemoIfEmpty(db))) logger.info('demo data seeded (Kestrel Bend Metals, invented)');
+  });
 
   let smtp: FakeSmtp | undefined;
   if (!config.smtpUrl && config.env !== 'production') {

@@ -1,10 +1,18 @@
 // Rate limits (express-rate-limit, draft-8 RateLimit + RateLimit-Policy headers): one budget per
 // API key, signed-in user or — for anonymous calls — client address, and a stricter one for
-// credential endpoints. Over budget → 429 problem with Retry-After.
+// credential endpoints. Over budget → 429 problem with Retry-After. On PostgreSQL the counts live
+// in the database (shared-rate-store.ts), so several nodes share each budget.
 import type { Request, RequestHandler } from 'express';
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
 import type { AppContext } from '../context.ts';
+import { isPostgres } from '../db/dialect.ts';
 import { RateLimitedProblem } from '../lib/problems.ts';
+import { SharedRateStore } from './shared-rate-store.ts';
+
+/** The store of one budget: shared in PostgreSQL mode, express-rate-limit's memory store otherwise. */
+function storeFor(ctx: AppContext, identifier: string) {
+  return isPostgres(ctx.db) ? { store: new SharedRateStore(ctx.db, identifier) } : {};
+}
 
 const credentialLimiters = new WeakMap<AppContext, RequestHandler[]>();
 
@@ -30,11 +38,13 @@ export function credentialLimiter(ctx: AppContext): RequestHandler[] {
     limiters = [
       rateLimit({
         ...common,
+        ...storeFor(ctx, 'credentials'),
         identifier: 'credentials',
         handler: (_req, _res, next) => next(new RateLimitedProblem('Too many sign-in attempts from this address; wait a minute.')),
       }),
       rateLimit({
         ...common,
+        ...storeFor(ctx, 'credentials-account'),
         identifier: 'credentials-account',
         keyGenerator: accountKey,
         skip: (req) => accountKey(req) === 'account:none',
@@ -59,6 +69,7 @@ export function apiLimiter(ctx: AppContext): RequestHandler {
     limit: ctx.config.rateLimitPerMinute,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
+    ...storeFor(ctx, 'api'),
     identifier: 'api',
     keyGenerator: callerKey,
     handler: (_req, _res, next) => next(new RateLimitedProblem()),

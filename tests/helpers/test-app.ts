@@ -78,7 +78,8 @@ export async function createTestApp(
   };
 }
 
-async function createPostgresSchema(url: string) {
+/** A fresh schema in the PostgreSQL database at `url`, dropped by `drop()`. */
+export async function createPostgresSchema(url: string) {
   const schema = `test_${randomBytes(6).toString('hex')}`;
   const admin = createDb({ databaseFile: '', databaseUrl: url });
   await admin.raw(`create schema "${schema}"`);

@@ -1,4 +1,5 @@
-// Meltwire as its own process (what `npm start` runs) on a SQLite file, for tests that kill it.
+// Meltwire as its own process (what `npm start` runs) on a SQLite file or, given DATABASE_URL in
+// `env`, on PostgreSQL: for tests that kill it or run several nodes.
 import { type ChildProcess, spawn } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -12,6 +13,8 @@ const ROOT = resolve(import.meta.dirname, '../../..');
 export interface ServerProcess {
   url: string;
   child: ChildProcess;
+  /** Everything the process printed so far (stdout and stderr). */
+  output(): string;
   /** kill -9: no shutdown, no flush, no transaction finished. */
   kill(): Promise<void>;
   stop(): Promise<void>;
@@ -51,6 +54,7 @@ export async function startServerProcess(databaseFile: string, port: number, env
   return {
     url,
     child,
+    output: () => output,
     async kill() {
       child.kill('SIGKILL');
       await exited;
