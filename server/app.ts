@@ -3,6 +3,7 @@
 import { existsSync } from 'node:fs';
 import { resolve } from 'node:path';
 import cookieParser from 'cookie-parser';
+import compression from 'compression';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
@@ -91,6 +92,10 @@ export function createApp(options: AppOptions): Express & { locals: { ctx: AppCo
       },
     }),
   );
+
+  // gzip or br for JSON, CSV and the console's assets above 1 KB when the client accepts it. Mounted
+  // before the request log, so the log and replays see the uncompressed body.
+  app.use(compression({ threshold: 1024 }));
 
   const routes = options.routes ?? v1Routes;
   const api = express.Router();
