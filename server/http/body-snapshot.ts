@@ -89,6 +89,13 @@ export function snapshotRequestBody(req: Request, limit: number): BodySnapshot {
 export function snapshotResponseBody(contentType: string | null, captured: CapturedBody, limit: number): BodySnapshot {
   if (captured.size === 0) return none(contentType);
   const isJson = !!contentType && JSON_TYPE.test(contentType);
+  // A complete JSON answer larger than the limit is kept cut anyway: its first bytes are redacted
+  // as text (which handles a value cut in the middle) instead of parsing and walking all of it.
+  // Meltwire writes compact JSON, so that is the same text the parsed path would give.
+  if (isJson && captured.complete && captured.size > limit * 2) {
+    const head = new TextDecoder('utf-8', { fatal: false }).decode(captured.body.subarray(0, limit * 2));
+    return textSnapshot('json', contentType, head, captured.size, limit, true);
+  }
   if (isJson && captured.complete) {
     try {
       return jsonSnapshot('json', contentType, JSON.parse(captured.body.toString('utf8')), captured.size, limit);

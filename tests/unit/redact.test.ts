@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { generateKeySecret } from '../../server/domain/api-keys/key-format.ts';
-import { truncateUtf8 } from '../../server/http/body-snapshot.ts';
+import { snapshotResponseBody, truncateUtf8 } from '../../server/http/body-snapshot.ts';
 import { redactHeaders, redactJson, redactQuery, redactText } from '../../server/domain/request-log/redact.ts';
 
 describe('redaction for the request log', () => {
@@ -77,5 +77,19 @@ describe('truncateUtf8', () => {
     expect(truncateUtf8('€€', 4)).toEqual({ text: '€', truncated: true });
     expect(truncateUtf8('a\u{1F525}', 4)).toEqual({ text: 'a', truncated: true });
     expect(truncateUtf8('ÄÄ', 4)).toEqual({ text: 'ÄÄ', truncated: false });
+  });
+});
+
+describe('snapshotResponseBody of a JSON answer far above the limit', () => {
+  it('redacts its first bytes as text and cuts it, without parsing the whole answer', () => {
+    const key = generateKeySecret();
+    const rows = Array.from({ length: 2000 }, (_, i) => ({ id: `smp_${i}`, note: i === 1 ? key : 'x'.repeat(20) }));
+    const text = JSON.stringify({ secret: 'whsec_c2VjcmV0LXZhbHVlLWJhc2U2NA==', data: rows });
+    const body = Buffer.from(text);
+    const snapshot = snapshotResponseBody('application/json', { body, size: body.length, complete: true }, 16384);
+    expect(snapshot).toMatchObject({ kind: 'json', size: body.length, truncated: true, redacted: true });
+    expect(Buffer.byteLength(snapshot.body!)).toBeLessThanOrEqual(16384);
+    expect(snapshot.body!.startsWith('{"secret":"[redacted]","data":[{"id":"smp_0"')).toBe(true);
+    expect(snapshot.body).not.toContain(key);
   });
 });
