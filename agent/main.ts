@@ -1,0 +1,119 @@
+// meltwire-agent: delivers the result files an instrument's software writes to a folder to
+// Meltwire, exactly once, through outages. `--config agent.json` (required), `--once` for one
+// pass (schedulers), `--dry-run` to list what would be sent without sending or recording it.
+import { parseArgs } from 'node:util';
+import { Agent, CRASH_AFTER_UPLOAD_ENV } from './agent.ts';
+import { type AgentConfig, ConfigError, loadAgentConfig } from './config.ts';
+import { sendHeartbeat } from './heartbeat.ts';
+import { Ledger } from './ledger.ts';
+import { type AgentLog, createAgentLog, errorMessage } from './log.ts';
+
+const USAGE = `usage: meltwire-agent --config agent.json [--once] [--dry-run]
+  --once     one pass: deliver the files that are complete now, report, exit
+             (exit code 0 when nothing waits, 2 when files remain queued)
+  --dry-run  show what would be sent; sends and records nothing (implies --once)`;
+
+/** Exit code of --once when files remain queued (server down, files still being written). */
+const EXIT_QUEUED = 2;
+
+const sleep = (ms: number, signal: AbortSignal) =>
+  new Promise<void>((done) => {
+    if (signal.aborted) return done();
+    const timer = setTimeout(done, ms);
+    signal.addEventListener('abort', () => (clearTimeout(timer), done()), { once: true });
+  });
+
+async function heartbeat(config: AgentConfig, agent: Agent, log: AgentLog): Promise<void> {
+  try {
+    await sendHeartbeat(config, agent.status());
+  } catch (error) {
+    log.warn('heartbeat failed', { error: errorMessage(error) });
+  }
+}
+
+async function runOnce(config: AgentConfig, agent: Agent, log: AgentLog, dryRun: boolean): Promise<number> {
+  await agent.pass();
+  // Files seen for the first time are stable only after stable_seconds: look again then.
+  const settle = agent.msUntilSettled();
+  if (settle > 0) await sleep(settle + 50, new AbortController().signal);
+  const waiting = await agent.pass();
+  if (!dryRun) await heartbeat(config, agent, log);
+  log.info('pass finished', { waiting });
+  return waiting > 0 ? EXIT_QUEUED : 0;
+}
+
+async function runForever(config: AgentConfig, agent: Agent, log: AgentLog): Promise<number> {
+  const stop = new AbortController();
+  for (const signal of ['SIGINT', 'SIGTERM'] as const) {
+    process.once(signal, () => {
+      log.info('stopping', { signal });
+      stop.abort();
+    });
+  }
+  let nextHeartbeat = 0;
+  while (!stop.signal.aborted) {
+    try {
+      await agent.pass();
+    } catch (error) {
+      log.error('pass failed', { error: errorMessage(error) });
+    }
+    if (Date.now() >= nextHeartbeat) {
+      await heartbeat(config, agent, log);
+      nextHeartbeat = Date.now() + config.heartbeat_seconds * 1000;
+    }
+    await sleep(config.poll_seconds * 1000, stop.signal);
+  }
+  await heartbeat(config, agent, log);
+  return 0;
+}
+
+export async function main(argv: string[]): Promise<number> {
+  let args;
+  try {
+    args = parseArgs({
+      args: argv,
+      options: { config: { type: 'string' }, once: { type: 'boolean' }, 'dry-run': { type: 'boolean' }, help: { type: 'boolean' } },
+    });
+  } catch (error) {
+    process.stderr.write(`${errorMessage(error)}\n${USAGE}\n`);
+    return 64;
+  }
+  if (args.values.help) return (process.stdout.write(`${USAGE}\n`), 0);
+  if (!args.values.config) return (process.stderr.write(`--config is required\n${USAGE}\n`), 64);
+  let config: AgentConfig;
+  try {
+    config = loadAgentConfig(args.values.config);
+  } catch (error) {
+    if (!(error instanceof ConfigError)) throw error;
+    process.stderr.write(`meltwire-agent: ${error.message}\n`);
+    return 78;
+  }
+  const dryRun = args.values['dry-run'] ?? false;
+  const log = createAgentLog(dryRun ? undefined : config.log_file, { stderr: dryRun });
+  const ledger = Ledger.open(config.ledger_file);
+  const agent = new Agent(config, ledger, log, {
+    dryRun,
+    print: (line) => process.stdout.write(`${line}\n`),
+    crashAfterUpload: process.env[CRASH_AFTER_UPLOAD_ENV] === '1',
+  });
+  log.info('agent started', {
+    server_url: config.server_url,
+    instrument_id: config.instrument_id,
+    folders: config.folders,
+    key_source: config.keySource,
+    mode: dryRun ? 'dry-run' : args.values.once ? 'once' : 'service',
+  });
+  try {
+    return dryRun || args.values.once ? await runOnce(config, agent, log, dryRun) : await runForever(config, agent, log);
+  } finally {
+    await log.close();
+  }
+}
+
+main(process.argv.slice(2)).then(
+  (code) => (process.exitCode = code),
+  (error: unknown) => {
+    process.stderr.write(`meltwire-agent: ${errorMessage(error)}\n`);
+    process.exitCode = 1;
+  },
+);
