@@ -35,7 +35,8 @@ export class Agent {
   private failures = 0;
   private notBefore = 0;
   private queueLength = 0;
-  private lastError: FeedStatus['lastError'] = null;
+  /** The last error; `lasting` ones (a refused file) outlive later deliveries, since a person must act. */
+  private lastError: (NonNullable<FeedStatus['lastError']> & { lasting: boolean }) | null = null;
 
   constructor(
     private readonly config: AgentConfig,
@@ -53,7 +54,7 @@ export class Agent {
       queueLength: this.queueLength,
       lastSuccessAt: last?.time ?? null,
       lastFile: last ? { name: last.path.split(/[\\/]/).pop()!, at: last.time } : null,
-      lastError: this.lastError,
+      lastError: this.lastError && { message: this.lastError.message, at: this.lastError.at },
     };
   }
 
@@ -70,8 +71,8 @@ export class Agent {
     );
   }
 
-  private fail(message: string): void {
-    this.lastError = { message, at: new Date().toISOString() };
+  private fail(message: string, lasting: boolean): void {
+    this.lastError = { message, at: new Date().toISOString(), lasting };
   }
 
   /** Scans and delivers; answers how many files still wait. */
@@ -79,7 +80,7 @@ export class Agent {
     const scan = await scanFolders(this.config.folders, this.matches);
     for (const failure of scan.failures) {
       this.log.error('folder cannot be read', failure);
-      this.fail(`folder ${failure.folder} cannot be read: ${failure.message}`);
+      this.fail(`folder ${failure.folder} cannot be read: ${failure.message}`, false);
     }
     const waiting = scan.files.filter((file) => !this.isDone(file));
     this.queueLength = waiting.length;
@@ -145,7 +146,7 @@ export class Agent {
           sha256: hash,
         });
         this.failures = 0;
-        this.lastError = null;
+        if (!this.lastError?.lasting) this.lastError = null;
         if (this.config.delete_after_success) await this.remove(file.path);
         return 'done';
       }
@@ -166,7 +167,7 @@ export class Agent {
           status: outcome.status,
           problem: outcome.problem,
         });
-        this.fail(`${file.name} refused: ${message}`);
+        this.fail(`${file.name} refused: ${message}`, true);
         return 'done';
       }
       default: {
@@ -189,7 +190,7 @@ export class Agent {
             failures: this.failures,
           },
         );
-        this.fail(outcome.reason);
+        this.fail(outcome.reason, false);
         return 'held';
       }
     }

@@ -48,9 +48,14 @@ function isSettingsProblem(status: number, problem: Problem): boolean {
   return status === 422 && (problem.errors ?? []).some((e) => e.code === 'unknown_reference');
 }
 
+/** One line for logs and the heartbeat: status, title, detail and the first field errors. */
 export function describeProblem(status: number, problem: Problem): string {
   const title = problem.title ?? `HTTP ${status}`;
-  return problem.detail ? `${status} ${title}: ${problem.detail}` : `${status} ${title}`;
+  const fields = (problem.errors ?? [])
+    .slice(0, 3)
+    .map((e) => [e.location, e.message].filter(Boolean).join(': '))
+    .join('; ');
+  return [`${status} ${title}`, problem.detail, fields && `(${fields})`].filter(Boolean).join(': ');
 }
 
 export async function uploadFile(config: AgentConfig, file: { name: string; bytes: Buffer; sha256: string }): Promise<UploadOutcome> {
