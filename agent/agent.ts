@@ -5,7 +5,7 @@
 import { createHash } from 'node:crypto';
 import { readFile, unlink } from 'node:fs/promises';
 import type { AgentConfig } from './config.ts';
-import { retryDelay } from './backoff.ts';
+import { RetryGate } from './backoff.ts';
 import { fileMatcher, type FoundFile, scanFolders } from './folder-scan.ts';
 import type { FeedStatus } from './heartbeat.ts';
 import type { Ledger, LedgerEntry } from './ledger.ts';
@@ -32,8 +32,7 @@ export class Agent {
   private readonly matches: (name: string) => boolean;
   /** Files whose bytes were checked to be the ones delivered (touched, not changed): no re-hash. */
   private readonly verified = new Map<string, string>();
-  private failures = 0;
-  private notBefore = 0;
+  private readonly gate: RetryGate;
   private queueLength = 0;
   /** The last error; `lasting` ones (a refused file) outlive later deliveries, since a person must act. */
   private lastError: (NonNullable<FeedStatus['lastError']> & { lasting: boolean }) | null = null;
@@ -45,6 +44,7 @@ export class Agent {
     private readonly options: AgentOptions = {},
   ) {
     this.stable = new StableFiles(config.stable_seconds * 1000);
+    this.gate = new RetryGate({ baseMs: config.retry_base_seconds * 1000, capMs: config.retry_max_seconds * 1000 });
     this.matches = fileMatcher(config.patterns);
   }
 
@@ -63,9 +63,10 @@ export class Agent {
     return this.stable.msUntilSettled();
   }
 
+  /** Recorded with this size and mtime: delivered, or refused and left in place (rejected/ not writable). */
   private isDone(file: FoundFile): boolean {
     const entry = this.ledger.forPath(file.path);
-    if (!entry || entry.outcome === 'rejected') return false;
+    if (!entry) return false;
     return (
       (entry.size === file.size && entry.mtime === iso(file.mtimeMs)) || this.verified.get(file.path) === `${file.size}:${file.mtimeMs}`
     );
@@ -85,7 +86,7 @@ export class Agent {
     const waiting = scan.files.filter((file) => !this.isDone(file));
     this.queueLength = waiting.length;
     for (const file of this.stable.observe(waiting)) {
-      if (Date.now() < this.notBefore) break;
+      if (!this.gate.isOpen()) break;
       const handled = await this.deliver(file);
       if (handled === 'held') break;
       if (handled === 'done') this.queueLength -= 1;
@@ -145,14 +146,18 @@ export class Agent {
           replayed: outcome.replayed,
           sha256: hash,
         });
-        this.failures = 0;
+        this.gate.reset();
         if (!this.lastError?.lasting) this.lastError = null;
         if (this.config.delete_after_success) await this.remove(file.path);
         return 'done';
       }
       case 'rejected': {
-        const movedTo = await moveToRejected(file.path, outcome.status, outcome.problem, hash);
         const message = describeProblem(outcome.status, outcome.problem);
+        const movedTo = await moveToRejected(file.path, outcome.status, outcome.problem, hash).catch((error: unknown) => {
+          // A read-only share: the file stays where it is, and the ledger keeps it from being sent again.
+          this.log.error('refused file cannot be moved to rejected/', { path: file.path, error: errorMessage(error) });
+          return undefined;
+        });
         this.record({
           ...base,
           outcome: 'rejected',
@@ -161,7 +166,7 @@ export class Agent {
           problem: message.slice(0, 2000),
           moved_to: movedTo,
         });
-        this.log.error('file refused by the server: moved to rejected/', {
+        this.log.error(movedTo ? 'file refused by the server: moved to rejected/' : 'file refused by the server: left in place', {
           path: file.path,
           moved_to: movedTo,
           status: outcome.status,
@@ -171,24 +176,11 @@ export class Agent {
         return 'done';
       }
       default: {
-        const delay = retryDelay(
-          { baseMs: this.config.retry_base_seconds * 1000, capMs: this.config.retry_max_seconds * 1000 },
-          this.failures,
-          outcome.retryAfterMs,
-        );
-        this.failures += 1;
-        this.notBefore = Date.now() + delay;
-        const level = outcome.kind === 'blocked' ? 'error' : 'warn';
-        this.log[level](
-          outcome.kind === 'blocked'
-            ? 'the server refuses the agent’s settings: files kept, retrying'
-            : 'delivery failed: files kept, retrying',
-          {
-            path: file.path,
-            reason: outcome.reason,
-            retry_in_ms: delay,
-            failures: this.failures,
-          },
+        const { delayMs, failures } = this.gate.hold(outcome.retryAfterMs);
+        const blocked = outcome.kind === 'blocked';
+        this.log[blocked ? 'error' : 'warn'](
+          blocked ? 'the server refuses the agent’s settings: files kept, retrying' : 'delivery failed: files kept, retrying',
+          { path: file.path, reason: outcome.reason, retry_in_ms: delayMs, failures },
         );
         this.fail(outcome.reason, false);
         return 'held';

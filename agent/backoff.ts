@@ -26,3 +26,28 @@ export function retryDelay(policy: BackoffPolicy, attempt: number, retryAfterMs:
   if (retryAfterMs !== undefined) return Math.min(policy.capMs, retryAfterMs);
   return backoffDelay(policy, attempt, random);
 }
+
+/** Holds uploads back after a failure; each further failure doubles the backoff ceiling, a success resets it. */
+export class RetryGate {
+  private failures = 0;
+  private notBefore = 0;
+
+  constructor(private readonly policy: BackoffPolicy) {}
+
+  isOpen(now = Date.now()): boolean {
+    return now >= this.notBefore;
+  }
+
+  /** Records a failure; answers the wait before the next attempt and how many failures in a row. */
+  hold(retryAfterMs: number | undefined, now = Date.now()): { delayMs: number; failures: number } {
+    const delayMs = retryDelay(this.policy, this.failures, retryAfterMs);
+    this.failures += 1;
+    this.notBefore = now + delayMs;
+    return { delayMs, failures: this.failures };
+  }
+
+  reset(): void {
+    this.failures = 0;
+    this.notBefore = 0;
+  }
+}
