@@ -122,16 +122,22 @@ describe('meltwire-agent delivering a folder', () => {
     });
   });
 
-  it('keeps every file in place while the server refuses the agent’s own settings (unknown method)', async () => {
-    bench.writeConfig({ method_id: 'mth_does_not_exist' });
+  it.each([
+    // The heartbeat reports the error when the key itself is accepted.
+    ['an unknown method (422)', { method_id: 'mth_does_not_exist' }, 'mth_does_not_exist'],
+    ['a refused key (401)', { api_key: 'mw_live_not_a_real_key' }, null],
+  ])('keeps every file in place while the server refuses the agent’s own settings: %s', async (_case, settings, reported) => {
+    bench.writeConfig(settings);
     writeFileSync(join(bench.folder, 'kept.csv'), resultFile('K24-0950-F1'));
     const run = startAgent(['--config', bench.configFile, '--once']);
     expect((await run.exited).code).toBe(2);
     expect(existsSync(join(bench.folder, 'kept.csv'))).toBe(true);
     expect(existsSync(join(bench.folder, 'rejected'))).toBe(false);
     expect(bench.ledger()).toEqual([]);
-    const feed = await readFeed();
-    expect(feed).toMatchObject({ queue_length: 1, last_error: { message: expect.stringContaining('mth_does_not_exist') } });
+    expect(readFileSync(join(bench.dir, 'logs/agent.log'), 'utf8')).toContain(
+      'the server refuses the agent’s settings: files kept, retrying',
+    );
+    if (reported) expect(await readFeed()).toMatchObject({ queue_length: 1, last_error: { message: expect.stringContaining(reported) } });
   });
 
   it('sends a changed file again as a new import, and skips a copy of bytes already sent', async () => {
