@@ -7,6 +7,7 @@ import { type AgentConfig, ConfigError, loadAgentConfig } from './config.ts';
 import { sendHeartbeat } from './heartbeat.ts';
 import { Ledger } from './ledger.ts';
 import { type AgentLog, createAgentLog, errorMessage } from './log.ts';
+import { lockLedger } from './single-instance.ts';
 
 const USAGE = `usage: meltwire-agent --config agent.json [--once] [--dry-run]
   --once     one pass: deliver the files that are complete now, report, exit
@@ -15,6 +16,8 @@ const USAGE = `usage: meltwire-agent --config agent.json [--once] [--dry-run]
 
 /** Exit code of --once when files remain queued (server down, files still being written). */
 const EXIT_QUEUED = 2;
+/** Another agent runs on the same ledger (sysexits EX_TEMPFAIL: try again later). */
+const EXIT_LOCKED = 75;
 
 const sleep = (ms: number, signal: AbortSignal) =>
   new Promise<void>((done) => {
@@ -89,6 +92,11 @@ export async function main(argv: string[]): Promise<number> {
     return 78;
   }
   const dryRun = args.values['dry-run'] ?? false;
+  const lock = dryRun ? undefined : lockLedger(config.ledger_file);
+  if (lock && 'heldBy' in lock) {
+    process.stderr.write(`meltwire-agent: another agent (process ${lock.heldBy}) is running on ${config.ledger_file}\n`);
+    return EXIT_LOCKED;
+  }
   const log = createAgentLog(dryRun ? undefined : config.log_file, { stderr: dryRun });
   const ledger = Ledger.open(config.ledger_file);
   const agent = new Agent(config, ledger, log, {
@@ -107,6 +115,7 @@ export async function main(argv: string[]): Promise<number> {
     return dryRun || args.values.once ? await runOnce(config, agent, log, dryRun) : await runForever(config, agent, log);
   } finally {
     await log.close();
+    lock?.release();
   }
 }
 

@@ -82,6 +82,7 @@ describe('meltwire-agent delivering a folder', () => {
     const crashed = await startAgent(['--config', bench.configFile, '--once'], { env: { [CRASH_AFTER_UPLOAD_ENV]: '1' } }).exited;
     expect(crashed).toEqual({ code: null, signal: 'SIGKILL' });
     expect(bench.ledger()).toEqual([]);
+    expect(existsSync(`${bench.ledgerFile}.lock`)).toBe(true); // left behind by the dead process: taken over
     const [first] = await bench.imports();
     expect(first.file_name).toBe('K24-0930.csv');
     const again = startAgent(['--config', bench.configFile, '--once']);
@@ -155,6 +156,16 @@ describe('meltwire-agent delivering a folder', () => {
         ['copy.csv', 'duplicate'],
       ]),
     );
+  });
+
+  it('refuses to run beside another agent on the same ledger', async () => {
+    const first = startAgent(['--config', bench.configFile]);
+    await waitFor('the first agent’s lock', () => existsSync(`${bench.ledgerFile}.lock`));
+    const second = startAgent(['--config', bench.configFile, '--once']);
+    expect((await second.exited).code).toBe(75);
+    expect(second.output()).toContain(`another agent (process ${first.child.pid}) is running`);
+    await first.stop();
+    expect(existsSync(`${bench.ledgerFile}.lock`)).toBe(false);
   });
 
   it('shows what would be sent with --dry-run, and sends nothing', async () => {
