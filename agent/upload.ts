@@ -1,6 +1,7 @@
 // One delivery attempt through the real upload endpoint (POST /api/v1/imports, multipart), with
-// the file's SHA-256 as Idempotency-Key: a retry after a crash is answered with the first
+// the file's SHA-256 in the Idempotency-Key: a retry after a crash is answered with the first
 // import, never a second one. The answer is sorted into what the agent does next.
+import { createHash } from 'node:crypto';
 import type { AgentConfig } from './config.ts';
 import { errorMessage } from './log.ts';
 import { parseRetryAfter } from './backoff.ts';
@@ -26,6 +27,19 @@ export type UploadOutcome =
   | { kind: 'blocked'; status: number; reason: string; retryAfterMs?: number };
 
 export const userAgent = `meltwire-agent/${AGENT_VERSION}`;
+
+/**
+ * The Idempotency-Key of an upload: the file's SHA-256, followed by a short hash of the settings
+ * it is sent with. A retry after a crash repeats both and is answered with the first import; once
+ * a refused setting (an unknown method) is corrected, the new request gets a new key, where the
+ * bare content hash would meet the refusal the server kept for 24 hours under that key.
+ */
+export function idempotencyKey(config: Pick<AgentConfig, 'instrument_id' | 'method_id' | 'profile_id'>, sha256: string): string {
+  const settings = createHash('sha256')
+    .update(`${config.instrument_id}\n${config.method_id}\n${config.profile_id ?? ''}`)
+    .digest('hex');
+  return `${sha256}-${settings.slice(0, 16)}`;
+}
 
 export function authHeaders(config: AgentConfig): Record<string, string> {
   return { authorization: `Bearer ${config.apiKey}`, 'user-agent': userAgent };
@@ -68,7 +82,7 @@ export async function uploadFile(config: AgentConfig, file: { name: string; byte
   try {
     res = await fetch(`${config.server_url}/api/v1/imports`, {
       method: 'POST',
-      headers: { ...authHeaders(config), 'idempotency-key': file.sha256 },
+      headers: { ...authHeaders(config), 'idempotency-key': idempotencyKey(config, file.sha256) },
       body: form,
       signal: AbortSignal.timeout(config.upload_timeout_seconds * 1000),
     });

@@ -141,6 +141,16 @@ describe('meltwire-agent delivering a folder', () => {
     if (reported) expect(await readFeed()).toMatchObject({ queue_length: 1, last_error: { message: expect.stringContaining(reported) } });
   });
 
+  it('delivers the kept files once the refused setting is corrected', async () => {
+    bench.writeConfig({ method_id: 'mth_does_not_exist' });
+    writeFileSync(join(bench.folder, 'waiting.csv'), resultFile('K24-0955-F1'));
+    expect((await startAgent(['--config', bench.configFile, '--once']).exited).code).toBe(2);
+    bench.writeConfig();
+    expect((await startAgent(['--config', bench.configFile, '--once']).exited).code).toBe(0);
+    expect((await bench.imports()).map((i) => i.file_name)).toEqual(['waiting.csv']);
+    expect(existsSync(join(bench.folder, 'rejected'))).toBe(false);
+  });
+
   it('sends a changed file again as a new import, and skips a copy of bytes already sent', async () => {
     const path = join(bench.folder, 'K24-0960.csv');
     writeFileSync(path, resultFile('K24-0960-F1'));
