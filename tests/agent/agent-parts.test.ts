@@ -1,6 +1,6 @@
 // The agent's parts on their own: backoff and Retry-After, configuration and where the key comes
 // from, stability of files, file name filtering. Sources: docs/references.md.
-import { appendFileSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { appendFileSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
@@ -66,6 +66,14 @@ describe('configuration', () => {
     expect(parseAgentConfig(both, dir, {})).toMatchObject({ apiKey: 'mw_live_file', keySource: 'api_key_file' });
     expect(() => parseAgentConfig(minimal, dir, {})).toThrow(/no API key/);
     expect(() => parseAgentConfig({ ...minimal, api_key_file: 'missing.key' }, dir, {})).toThrow(/missing\.key cannot be read/);
+  });
+
+  it('accepts examples/agent.json as shipped', () => {
+    const example = JSON.parse(readFileSync(join(import.meta.dirname, '../../examples/agent.json'), 'utf8'));
+    expect(parseAgentConfig(example, dir, { MELTWIRE_AGENT_KEY: 'mw_live_env' })).toMatchObject({
+      keySource: 'environment',
+      delete_after_success: false,
+    });
   });
 
   it('refuses unknown fields, bad values and non-http addresses, naming each', () => {
