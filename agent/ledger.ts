@@ -46,10 +46,8 @@ export class Ledger {
 
   private remember(entry: LedgerEntry): void {
     this.byPath.set(entry.path, entry);
-    if (entry.outcome !== 'rejected') {
-      this.delivered.set(entry.sha256, entry);
-      this.last = entry;
-    }
+    if (entry.outcome !== 'rejected') this.delivered.set(entry.sha256, entry);
+    if (entry.outcome === 'sent' || entry.outcome === 'changed-resent') this.last = entry;
   }
 
   append(entry: LedgerEntry): void {
@@ -73,6 +71,7 @@ export class Ledger {
     return this.delivered.get(sha256);
   }
 
+  /** The last file actually uploaded (a duplicate was not). */
   lastDelivery(): LedgerEntry | undefined {
     return this.last;
   }

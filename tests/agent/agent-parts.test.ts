@@ -132,6 +132,9 @@ describe('ledger', () => {
       expect(again.deliveredSha('ab')?.path).toBe('/r/a.csv');
       expect(again.deliveredSha('cd')).toBeUndefined(); // a refused file was not delivered
       expect(again.lastDelivery()?.path).toBe('/r/a.csv');
+      again.append({ ...entry, path: '/r/copy.csv', outcome: 'duplicate' });
+      expect(again.deliveredSha('ab')?.path).toBe('/r/copy.csv');
+      expect(again.lastDelivery()?.path).toBe('/r/a.csv'); // a duplicate was not uploaded
     } finally {
       rmSync(dir, { recursive: true, force: true });
     }
