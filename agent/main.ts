@@ -16,6 +16,8 @@ const USAGE = `usage: meltwire-agent --config agent.json [--once] [--dry-run]
 
 /** Exit code of --once when files remain queued (server down, files still being written). */
 const EXIT_QUEUED = 2;
+/** A change in the queue, the last delivery or the last error is reported at most this often. */
+const CHANGE_REPORT_MS = 5_000;
 /** Another agent runs on the same ledger (sysexits EX_TEMPFAIL: try again later). */
 const EXIT_LOCKED = 75;
 
@@ -53,16 +55,25 @@ async function runForever(config: AgentConfig, agent: Agent, log: AgentLog): Pro
       stop.abort();
     });
   }
-  let nextHeartbeat = 0;
+  let lastHeartbeat = 0;
+  let reported = '';
   while (!stop.signal.aborted) {
     try {
       await agent.pass();
     } catch (error) {
       log.error('pass failed', { error: errorMessage(error) });
     }
-    if (Date.now() >= nextHeartbeat) {
+    // Every heartbeat_seconds, and sooner (at most every CHANGE_REPORT_MS) when what people see changed.
+    const status = agent.status();
+    const seen = JSON.stringify([status.queueLength, status.lastSuccessAt, status.lastError?.message]);
+    const since = Date.now() - lastHeartbeat;
+    if (
+      since >= config.heartbeat_seconds * 1000 ||
+      (seen !== reported && since >= Math.min(CHANGE_REPORT_MS, config.heartbeat_seconds * 1000))
+    ) {
       await heartbeat(config, agent, log);
-      nextHeartbeat = Date.now() + config.heartbeat_seconds * 1000;
+      lastHeartbeat = Date.now();
+      reported = seen;
     }
     await sleep(config.poll_seconds * 1000, stop.signal);
   }
