@@ -8,12 +8,15 @@ import { createApiKey } from '../../server/domain/api-keys/api-keys.service.ts';
 import { sessionAuthContext } from '../../server/domain/auth/auth.service.ts';
 import type { Scope } from '../../server/domain/auth/scopes.ts';
 import type { LedgerEntry } from '../../agent/ledger.ts';
+import type { InstrumentFeedSchema } from '../../server/domain/feeds/feeds.schemas.ts';
+import type { z } from '../../server/lib/zod.ts';
 import { createUser } from '../helpers/test-app.ts';
 import { startLiveServer } from '../helpers/live-server.ts';
 
 export const ROOT = resolve(import.meta.dirname, '../..');
 
 export type Server = Awaited<ReturnType<typeof startLiveServer>>;
+export type InstrumentFeed = z.output<typeof InstrumentFeedSchema>;
 
 export interface Bench {
   dir: string;
@@ -32,6 +35,8 @@ export interface Bench {
   writeConfig(overrides?: Record<string, unknown>): void;
   imports(): Promise<{ id: string; sha256: string; file_name: string }[]>;
   ledger(): LedgerEntry[];
+  /** The instrument's feed as a reader (the console, a plant screen) sees it. */
+  feed(): Promise<InstrumentFeed>;
   close(): Promise<void>;
 }
 
@@ -92,6 +97,10 @@ export async function startBench(port: number): Promise<Bench> {
             .filter(Boolean)
             .map((line) => JSON.parse(line) as LedgerEntry)
         : [],
+    async feed() {
+      const headers = { authorization: `Bearer ${await issueLiveKey(server, ['samples:read'])}` };
+      return (await fetch(`${bench.url}/api/v1/instruments/${instrumentId}/feed`, { headers })).json() as Promise<InstrumentFeed>;
+    },
     async close() {
       await server.stop().catch(() => undefined);
       rmSync(dir, { recursive: true, force: true });

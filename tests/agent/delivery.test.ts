@@ -5,7 +5,7 @@ import { appendFileSync, existsSync, readFileSync, writeFileSync } from 'node:fs
 import { join } from 'node:path';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { CRASH_AFTER_UPLOAD_ENV } from '../../agent/agent.ts';
-import { type Bench, issueLiveKey, resultFile, startAgent, startBench, waitFor } from './agent-harness.ts';
+import { type Bench, resultFile, startAgent, startBench, waitFor } from './agent-harness.ts';
 
 const sha256 = (text: string | Buffer) => createHash('sha256').update(text).digest('hex');
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
@@ -69,7 +69,7 @@ describe('meltwire-agent delivering a folder', () => {
     expect(log).toMatch(/server unreachable/);
     // The heartbeat after recovery: nothing waits, the error is cleared.
     const feed = await waitFor('a heartbeat with an empty queue', async () => {
-      const body = await readFeed();
+      const body = await bench.feed();
       return body.queue_length === 0 && body.last_error === null ? body : undefined;
     });
     expect(feed).toMatchObject({ state: 'alive', agent: { version: '0.1.0' }, last_file: { name: expect.stringMatching(/\.csv$/) } });
@@ -115,7 +115,7 @@ describe('meltwire-agent delivering a folder', () => {
         .map((e) => e.outcome)
         .sort(),
     ).toEqual(['rejected', 'sent']);
-    const feed = await readFeed();
+    const feed = await bench.feed();
     expect(feed).toMatchObject({
       state: 'alive',
       queue_length: 0,
@@ -138,7 +138,7 @@ describe('meltwire-agent delivering a folder', () => {
     expect(readFileSync(join(bench.dir, 'logs/agent.log'), 'utf8')).toContain(
       'the server refuses the agent’s settings: files kept, retrying',
     );
-    if (reported) expect(await readFeed()).toMatchObject({ queue_length: 1, last_error: { message: expect.stringContaining(reported) } });
+    if (reported) expect(await bench.feed()).toMatchObject({ queue_length: 1, last_error: { message: expect.stringContaining(reported) } });
   });
 
   it('delivers the kept files once the refused setting is corrected', async () => {
@@ -194,9 +194,3 @@ describe('meltwire-agent delivering a folder', () => {
     expect(bench.ledger()).toEqual([]);
   });
 });
-
-/** The instrument's feed as a reader (the console, a plant screen) sees it. */
-async function readFeed() {
-  const headers = { authorization: `Bearer ${await issueLiveKey(bench.server, ['samples:read'])}` };
-  return (await fetch(`${bench.url}/api/v1/instruments/${bench.instrumentId}/feed`, { headers })).json();
-}

@@ -5,7 +5,7 @@ import { createServer, request as httpRequest, type Server as HttpServer } from 
 import { existsSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { type Bench, resultFile, startAgent, startBench } from './agent-harness.ts';
+import { type Bench, resultFile, startAgent, startBench, waitFor } from './agent-harness.ts';
 
 const FRONT_PORT = 4504;
 
@@ -64,6 +64,22 @@ describe('meltwire-agent and a busy server, and deleting after success', () => {
       expect(bench.ledger()).toEqual([expect.objectContaining({ outcome: 'sent' })]);
     } finally {
       await front.close();
+    }
+  });
+
+  it('reports a delivery within seconds even with an hourly heartbeat', async () => {
+    bench.writeConfig({ heartbeat_seconds: 3600 });
+    const run = startAgent(['--config', bench.configFile]);
+    try {
+      await waitFor('the first heartbeat', async () => (await bench.feed()).state === 'alive');
+      writeFileSync(join(bench.folder, 'K24-1004.csv'), resultFile('K24-1004-F1'));
+      const feed = await waitFor('the delivery in the feed', async () => {
+        const body = await bench.feed();
+        return body.last_file?.name === 'K24-1004.csv' ? body : undefined;
+      });
+      expect(feed).toMatchObject({ state: 'alive', queue_length: 0 });
+    } finally {
+      await run.stop();
     }
   });
 
