@@ -18,15 +18,17 @@ afterEach(() => bench.close());
 
 describe('meltwire-agent delivering a folder', () => {
   it('sends a file written slowly in chunks once, and only when it is complete', async () => {
+    bench.writeConfig({ stable_seconds: 2 });
     const agent = startAgent(['--config', bench.configFile]);
     const path = join(bench.folder, 'K24-0901.csv');
-    const lines = resultFile('K24-0901-F1').split('\n').filter(Boolean);
-    // 2.4 s of writing, one line every 0.4 s: longer than stable_seconds (1 s) altogether, never
-    // paused long enough for the agent to take it.
+    const burns = Array.from({ length: 7 }, (_, i) => `K24-0901-F1,K24-0901,${i + 1},0.7${i},0.45${i}`);
+    const lines = ['Sample,Heat,Burn,Mn %,C %', ...burns];
+    // 4 s of writing, one line every 0.5 s: twice stable_seconds (2 s) altogether, yet never
+    // paused long enough for the agent to take it (a quarter of the stable time between writes).
     writeFileSync(path, '');
     for (const line of lines) {
       appendFileSync(path, `${line}\n`);
-      await sleep(400);
+      await sleep(500);
       expect(await bench.imports()).toEqual([]);
     }
     const [entry] = await waitFor('the ledger line', () => (bench.ledger().length > 0 ? bench.ledger() : undefined));
@@ -44,6 +46,12 @@ describe('meltwire-agent delivering a folder', () => {
       }),
     ]);
     expect(entry.import_id).toBe(imports[0].id);
+    const [{ n: burnsStored }] = await bench.server
+      .db('burns')
+      .join('samples', 'burns.sample_id', 'samples.id')
+      .where('samples.import_id', imports[0].id)
+      .count({ n: '*' });
+    expect(Number(burnsStored)).toBe(burns.length); // every line written, none cut off
     expect(existsSync(path)).toBe(true); // nothing is deleted unless configured
     expect(await agent.stop()).toEqual({ code: 0, signal: null });
   });
