@@ -11,7 +11,8 @@ import { lockLedger } from './single-instance.ts';
 
 const USAGE = `usage: meltwire-agent --config agent.json [--once] [--dry-run]
   --once     one pass: deliver the files that are complete now, report, exit
-             (exit code 0 when nothing waits, 2 when files remain queued)
+             (exit code 0 when nothing waits, 2 when files remain queued,
+             75 when another agent runs on the same ledger, 78 for a bad configuration)
   --dry-run  show what would be sent; sends and records nothing (implies --once)`;
 
 /** Exit code of --once when files remain queued (server down, files still being written). */
