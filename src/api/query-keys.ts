@@ -64,6 +64,7 @@ export const auditKeys = {
 
 export const systemKeys = {
   health: () => ['health'] as const,
+  instrumentFeeds: () => ['instrument-feeds'] as const,
   outbox: () => ['outbox'] as const,
 };
 

@@ -1,6 +1,7 @@
 // The real app with the built console, listening on a free port, on a SQLite file seeded
 // with the demo scenario — what `npm start` serves, minus the build step. API-only callers
-// (the example scripts) pass { console: false } and need no build.
+// (the example scripts) pass { console: false } and need no build. A test that restarts the
+// server passes its own `databaseFile` (kept after stop) and a fixed `port`.
 import { existsSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -13,13 +14,15 @@ import { createLogger } from '../../server/logger.ts';
 import { startFakeSmtp } from '../../server/mail/fake-smtp.ts';
 import { seedDemoIfEmpty } from '../../server/seed/demo.ts';
 
-export async function startLiveServer(options: { console?: boolean; config?: Partial<Config>; validateResponses?: boolean } = {}) {
+export async function startLiveServer(
+  options: { console?: boolean; config?: Partial<Config>; validateResponses?: boolean; databaseFile?: string; port?: number } = {},
+) {
   const withConsole = options.console ?? true;
   if (withConsole && !existsSync(join(DEFAULT_CONSOLE_DIR, 'index.html')))
     throw new Error('dist/ is missing: run `npm run build` first (npm test does)');
-  const dir = mkdtempSync(join(tmpdir(), 'meltwire-live-'));
+  const dir = options.databaseFile ? undefined : mkdtempSync(join(tmpdir(), 'meltwire-live-'));
   const smtp = await startFakeSmtp();
-  const config = testConfig({ databaseFile: join(dir, 'live.db'), smtpUrl: smtp.url, ...options.config });
+  const config = testConfig({ databaseFile: options.databaseFile ?? join(dir!, 'live.db'), smtpUrl: smtp.url, ...options.config });
   const db = createDb(config);
   await migrateLatest(db);
   await seedDemoIfEmpty(db);
@@ -34,14 +37,14 @@ export async function startLiveServer(options: { console?: boolean; config?: Par
     validateResponses: options.validateResponses ?? true,
     ...(withConsole ? {} : { consoleDir: '/nonexistent' }),
   });
-  const running = await listen(app, db, logger, 0, () => smtp.close());
+  const running = await listen(app, db, logger, options.port ?? 0, () => smtp.close());
   return {
     url: running.url,
     db,
     ctx: app.locals.ctx,
     async stop() {
       await running.stop();
-      rmSync(dir, { recursive: true, force: true });
+      if (dir) rmSync(dir, { recursive: true, force: true });
     },
   };
 }

@@ -3,6 +3,7 @@ import { Alert } from '../../components/ui/feedback.tsx';
 import { Card, PageHeader } from '../../components/ui/layout.tsx';
 import { hasScope, useMe } from '../../api/me.ts';
 import { HealthCard } from '../../features/health/health-card.tsx';
+import { InstrumentFeedsCard } from '../../features/instrument-feeds/components/instrument-feeds-card.tsx';
 import { RecentSamplesCard } from '../../features/samples/components/recent-samples-card.tsx';
 import { paths } from '../../config/paths.ts';
 
@@ -16,6 +17,7 @@ export function HomePage() {
       />
       <div className="grid gap-6 lg:grid-cols-2">
         {hasScope(me, 'samples:read') && <RecentSamplesCard />}
+        {hasScope(me, 'samples:read') && <InstrumentFeedsCard />}
         <HealthCard />
         <Card title="You">
           <dl className="grid grid-cols-[auto_1fr] gap-x-6 gap-y-2 text-sm">
