@@ -37,6 +37,7 @@ import * as createControlStatusChanges from './20261203400400_create_control_sta
 import * as createAlertPreferences from './20261203400500_create_alert_preferences.ts';
 import * as createPendingAlerts from './20261203400600_create_pending_alerts.ts';
 import * as createNodeCoordination from './20261203500100_create_node_coordination.ts';
+import * as addInstrumentFeedsStaleAlert from './20261203500200_add_instrument_feeds_stale_alert.ts';
 
 export interface Migration {
   up(knex: Knex): Promise<void>;
@@ -80,4 +81,5 @@ export const migrations: Record<string, Migration> = {
   '20261203400500_create_alert_preferences': createAlertPreferences,
   '20261203400600_create_pending_alerts': createPendingAlerts,
   '20261203500100_create_node_coordination': createNodeCoordination,
+  '20261203500200_add_instrument_feeds_stale_alert': addInstrumentFeedsStaleAlert,
 };

@@ -13,6 +13,7 @@ import { recorderFor } from './domain/request-log/recorder.ts';
 import { startDeliveryWorker } from './domain/webhooks/delivery-worker.ts';
 import { startHousekeeping } from './housekeeping.ts';
 import { startAlertFlusher } from './domain/alerts/alerts.service.ts';
+import { startFeedWatch } from './domain/feeds/feed-watch.ts';
 import { listen, stopOnSignals } from './index.ts';
 import { createLogger } from './logger.ts';
 import { startFakeSmtp, type FakeSmtp } from './mail/fake-smtp.ts';
@@ -50,11 +51,13 @@ async function main(): Promise<void> {
   const housekeeping = startHousekeeping(app.locals.ctx);
   const webhooks = startDeliveryWorker(app.locals.ctx, { perEndpoint: config.webhookInFlightPerEndpoint });
   const alerts = startAlertFlusher(app.locals.ctx);
+  const feedWatch = startFeedWatch(app.locals.ctx);
   const running = await listen(app, db, logger, config.port, async () => {
     // Attempts in flight are abandoned and sent again at the next start (same webhook-id).
     await webhooks.stop();
     await housekeeping.stop();
     await alerts.stop();
+    await feedWatch.stop();
     // The last answered calls may still be writing their request log entries.
     await recorderFor(app.locals.ctx).drain();
     await smtp?.close();

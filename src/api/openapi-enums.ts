@@ -52,12 +52,13 @@ export const CorrectionFlagValues = ["ok","warn","fail"] as const;
 
 export const ControlSampleKindValues = ["reference_material","in_house"] as const;
 
-export const AlertKindValues = ["out_of_spec","control_out_of_control","standardization_flagged","webhook_disabled"] as const;
+export const AlertKindValues = ["out_of_spec","control_out_of_control","standardization_flagged","webhook_disabled","feed_stale"] as const;
 export const AlertKindDescriptions = {
   "out_of_spec": "A sample does not conform to its grade",
   "control_out_of_control": "A control point breaks a run rule",
   "standardization_flagged": "A standardization run is flagged",
-  "webhook_disabled": "A webhook endpoint was disabled after failed deliveries"
+  "webhook_disabled": "A webhook endpoint was disabled after failed deliveries",
+  "feed_stale": "An instrument PC's agent has been silent for longer than AGENT_STALE_MINUTES"
 } as const;
 
 export const EventTypeValues = ["sample.created","sample.released","sample.amended","sample.out_of_spec","import.completed","import.failed","standardization.flagged","standardization.activated","control.out_of_control"] as const;

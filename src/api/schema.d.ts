@@ -3563,7 +3563,7 @@ export interface components {
          * @description What e-mails you.
          * @enum {string}
          */
-        AlertKind: "out_of_spec" | "control_out_of_control" | "standardization_flagged" | "webhook_disabled";
+        AlertKind: "out_of_spec" | "control_out_of_control" | "standardization_flagged" | "webhook_disabled" | "feed_stale";
         PutAlertPreferencesRequest: {
             data: components["schemas"]["AlertPreference"][];
         };

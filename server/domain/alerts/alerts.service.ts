@@ -17,6 +17,7 @@ export const ALERT_KINDS = {
   control_out_of_control: 'A control point breaks a run rule',
   standardization_flagged: 'A standardization run is flagged',
   webhook_disabled: 'A webhook endpoint was disabled after failed deliveries',
+  feed_stale: "An instrument PC's agent has been silent for longer than AGENT_STALE_MINUTES",
 } as const;
 export type AlertKind = keyof typeof ALERT_KINDS;
 

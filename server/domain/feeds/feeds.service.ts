@@ -54,6 +54,7 @@ export async function recordHeartbeat(
     last_error_at: heartbeat.last_error ? asUtc(heartbeat.last_error.at) : null,
     reported_at: nowIso(),
     reported_by_label: auth.label,
+    stale_alerted_at: null,
   };
   await saveFeedRow(ctx.db, row);
   return feedOf(instrument, row, ctx.config.agentStaleMinutes);
