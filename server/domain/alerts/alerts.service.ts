@@ -2,7 +2,7 @@
 // An alert is recorded as pending in the transaction of its event; flushAlerts() sends each
 // user's pending alerts as one message once the oldest is ALERT_GROUP_MINUTES old, so a burst
 // of violations becomes one e-mail (a timer in start.ts calls it every minute).
-import { claimJobRun } from '../../cluster/job-lease.ts';
+import { startLeasedJob } from '../../cluster/job-lease.ts';
 import type { AppContext } from '../../context.ts';
 import { inTransaction, type Queryable } from '../../db/transaction.ts';
 import { newId } from '../../lib/ids.ts';
@@ -103,20 +103,7 @@ export async function setAlertPreferences(
   return getAlertPreferences(ctx, auth);
 }
 
-/** Starts the minute timer that flushes alerts; stop() ends it. */
+/** Starts the minute timer that flushes alerts; stop() ends it. One node flushes per interval, so no alert is mailed twice. */
 export function startAlertFlusher(ctx: Pick<AppContext, 'db' | 'config' | 'mailer' | 'logger'>, intervalMs = 60_000) {
-  let running: Promise<unknown> = Promise.resolve();
-  // With several nodes on one database, one node flushes per interval (a job lease), so no alert is mailed twice.
-  const timer = setInterval(() => {
-    running = claimJobRun(ctx.db, 'alert-flush', intervalMs)
-      .then((mine) => (mine ? flushAlerts(ctx) : undefined))
-      .catch((error: unknown) => ctx.logger.error({ err: error }, 'alert flush failed'));
-  }, intervalMs);
-  timer.unref();
-  return {
-    async stop() {
-      clearInterval(timer);
-      await running;
-    },
-  };
+  return startLeasedJob(ctx, 'alert-flush', intervalMs, () => flushAlerts(ctx));
 }

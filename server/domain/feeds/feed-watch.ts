@@ -1,7 +1,7 @@
 // Watches the instrument feeds: once an agent has been silent for AGENT_STALE_MINUTES, the users
 // who asked for `feed_stale` alerts are told (once per silence; the next heartbeat re-arms it).
 // A timer in start.ts runs the check every minute, on one node at a time (a job lease).
-import { claimJobRun } from '../../cluster/job-lease.ts';
+import { startLeasedJob } from '../../cluster/job-lease.ts';
 import type { AppContext } from '../../context.ts';
 import { inTransaction } from '../../db/transaction.ts';
 import { queueAlert } from '../alerts/alerts.service.ts';
@@ -34,17 +34,5 @@ export async function alertStaleFeeds(ctx: Pick<AppContext, 'db' | 'config'>, no
 }
 
 export function startFeedWatch(ctx: Pick<AppContext, 'db' | 'config' | 'logger'>, intervalMs = CHECK_INTERVAL_MS) {
-  let running: Promise<unknown> = Promise.resolve();
-  const timer = setInterval(() => {
-    running = claimJobRun(ctx.db, 'feed-stale-check', intervalMs)
-      .then((mine) => (mine ? alertStaleFeeds(ctx) : 0))
-      .catch((error: unknown) => ctx.logger.error({ err: error }, 'feed watch failed'));
-  }, intervalMs);
-  timer.unref();
-  return {
-    async stop() {
-      clearInterval(timer);
-      await running;
-    },
-  };
+  return startLeasedJob(ctx, 'feed-stale-check', intervalMs, () => alertStaleFeeds(ctx));
 }
