@@ -86,15 +86,21 @@ export function snapshotRequestBody(req: Request, limit: number): BodySnapshot {
   return jsonSnapshot('json', contentType, body, declared || undefined, limit);
 }
 
+/** JSON answers up to this size are parsed before redaction; larger ones are redacted as text. */
+const PARSED_UP_TO_BYTES = 4096;
+
 export function snapshotResponseBody(contentType: string | null, captured: CapturedBody, limit: number): BodySnapshot {
   if (captured.size === 0) return none(contentType);
   const isJson = !!contentType && JSON_TYPE.test(contentType);
-  // A complete JSON answer larger than the limit is kept cut anyway: its first bytes are redacted
-  // as text (which handles a value cut in the middle) instead of parsing and walking all of it.
-  // Meltwire writes compact JSON, so that is the same text the parsed path would give.
-  if (isJson && captured.complete && captured.size > limit * 2) {
-    const head = new TextDecoder('utf-8', { fatal: false }).decode(captured.body.subarray(0, limit * 2));
-    return textSnapshot('json', contentType, head, captured.size, limit, true);
+  // A JSON answer above a few KB (a sample, a list page) is redacted as text instead of being
+  // parsed, walked and written again: Meltwire writes compact JSON, so the text is the one the
+  // parsed path would give, and text redaction handles a value cut in the middle, so only the
+  // first bytes of a large answer are read at all. Small answers (a new key with its secret) take
+  // the parsed path, which also redacts secret-named fields holding objects.
+  if (isJson && captured.complete && captured.size > PARSED_UP_TO_BYTES) {
+    const cut = captured.size > limit * 2;
+    const text = new TextDecoder('utf-8', { fatal: false }).decode(cut ? captured.body.subarray(0, limit * 2) : captured.body);
+    return textSnapshot('json', contentType, text, captured.size, limit, cut);
   }
   if (isJson && captured.complete) {
     try {

@@ -93,3 +93,21 @@ describe('snapshotResponseBody of a JSON answer far above the limit', () => {
     expect(snapshot.body).not.toContain(key);
   });
 });
+
+describe('snapshotResponseBody of a JSON answer of a few KB', () => {
+  it('keeps the same text the parsed path would, and still redacts secret-named fields and key shapes', () => {
+    const rows = Array.from({ length: 60 }, (_, i) => ({ id: `smp_${i}`, mean: i / 7, flags: ['x'], note: 'µ ≤ 100 %' }));
+    const text = JSON.stringify({ data: rows, next_cursor: null });
+    const body = Buffer.from(text);
+    expect(body.length).toBeGreaterThan(4096);
+    expect(snapshotResponseBody('application/json', { body, size: body.length, complete: true }, 16384)).toMatchObject({
+      body: JSON.stringify(JSON.parse(text)),
+      truncated: false,
+      redacted: false,
+    });
+    const withSecret = Buffer.from(JSON.stringify({ data: rows, token: 'abc', key: generateKeySecret() }));
+    const snapshot = snapshotResponseBody('application/json', { body: withSecret, size: withSecret.length, complete: true }, 16384);
+    expect(snapshot.redacted).toBe(true);
+    expect(JSON.parse(snapshot.body!)).toMatchObject({ token: '[redacted]', key: expect.stringMatching(/\[redacted\]$/) });
+  });
+});
