@@ -78,3 +78,13 @@ export const webhookKeys = {
 export const eventKeys = {
   feed: (after: string | undefined, types: string) => ['events', { after, types }] as const,
 };
+
+export const controlKeys = {
+  all: ['control'] as const,
+  list: () => [...controlKeys.all, 'list'] as const,
+  detail: (id: string) => [...controlKeys.all, 'detail', id] as const,
+  chart: (id: string, element: string) => [...controlKeys.all, 'chart', id, element] as const,
+  /** An instrument with its control status per method. */
+  instrument: (instrumentId: string) => [...controlKeys.all, 'instrument', instrumentId] as const,
+  alertPreferences: () => [...controlKeys.all, 'alert-preferences'] as const,
+};

@@ -6,6 +6,8 @@ import { ConsoleLayout } from './layout.tsx';
 import { AcceptInvitationPage } from './routes/accept-invitation.tsx';
 import { ApiKeysPage } from './routes/api-keys.tsx';
 import { AuditPage } from './routes/audit.tsx';
+import { ControlChartPage } from './routes/control-chart.tsx';
+import { ControlSamplesPage } from './routes/control-samples.tsx';
 import { DriftNewRunPage } from './routes/drift-new.tsx';
 import { DriftRunPage } from './routes/drift-run.tsx';
 import { EventsPage } from './routes/events.tsx';
@@ -64,6 +66,8 @@ export function createRouter(queryClient: QueryClient) {
             { path: 'drift', lazy: async () => ({ Component: (await import('./routes/drift.tsx')).DriftPage }) },
             { path: 'drift/new', element: <DriftNewRunPage /> },
             { path: 'drift/runs/:id', element: <DriftRunPage /> },
+            { path: 'control-samples', element: <ControlSamplesPage /> },
+            { path: 'control-samples/:id', element: <ControlChartPage /> },
             { path: 'grades', element: <GradesPage /> },
             { path: 'users', element: <UsersPage /> },
             { path: 'audit', element: <AuditPage /> },
