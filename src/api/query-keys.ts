@@ -86,5 +86,8 @@ export const controlKeys = {
   chart: (id: string, element: string) => [...controlKeys.all, 'chart', id, element] as const,
   /** An instrument with its control status per method. */
   instrument: (instrumentId: string) => [...controlKeys.all, 'instrument', instrumentId] as const,
-  alertPreferences: () => [...controlKeys.all, 'alert-preferences'] as const,
+};
+
+export const alertKeys = {
+  preferences: () => ['alert-preferences'] as const,
 };

@@ -15,6 +15,7 @@ import { GradesPage } from './routes/grades.tsx';
 import { HomePage } from './routes/home.tsx';
 import { ImportPage } from './routes/import.tsx';
 import { ImportsPage } from './routes/imports.tsx';
+import { MyAlertsPage } from './routes/my-alerts.tsx';
 import { NotFoundPage } from './routes/not-found.tsx';
 import { OutboxPage } from './routes/outbox.tsx';
 import { QuickStartPage } from './routes/quick-start.tsx';
@@ -75,6 +76,7 @@ export function createRouter(queryClient: QueryClient) {
             { path: 'webhooks', element: <WebhooksPage /> },
             { path: 'webhooks/:id', element: <WebhookEndpointPage /> },
             { path: 'events', element: <EventsPage /> },
+            { path: 'my-alerts', element: <MyAlertsPage /> },
             { path: '*', element: <NotFoundPage /> },
           ],
         },

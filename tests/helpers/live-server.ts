@@ -34,7 +34,8 @@ export async function startLiveServer(options: { console?: boolean; config?: Par
     validateResponses: options.validateResponses ?? true,
     ...(withConsole ? {} : { consoleDir: '/nonexistent' }),
   });
-  const running = await listen(app, db, logger, 0, () => smtp.close());
+  // LIVE_SERVER_PORT pins the port (a range given to one test run); else any free port.
+  const running = await listen(app, db, logger, Number(process.env.LIVE_SERVER_PORT ?? 0), () => smtp.close());
   return {
     url: running.url,
     db,

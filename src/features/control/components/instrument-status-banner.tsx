@@ -4,7 +4,7 @@
 import { useState } from 'react';
 import { hasScope, useMe } from '../../../api/me.ts';
 import { useInstrumentStatus } from '../../../api/instrument-status.ts';
-import { useMethods } from '../../../api/lookups.ts';
+import { useInstruments, useMethods } from '../../../api/lookups.ts';
 import { Button } from '../../../components/ui/button.tsx';
 import { Alert } from '../../../components/ui/feedback.tsx';
 import { formatWhen } from '../chart-geometry.ts';
@@ -56,5 +56,17 @@ export function InstrumentStatusBanner({ instrumentId, methodId }: { instrumentI
         />
       )}
     </div>
+  );
+}
+
+/** A banner for each instrument in verify, for the overview page. */
+export function InstrumentsStatusBanners() {
+  const instruments = useInstruments();
+  return (
+    <>
+      {instruments.data?.map((i) => (
+        <InstrumentStatusBanner key={i.id} instrumentId={i.id} />
+      ))}
+    </>
   );
 }
