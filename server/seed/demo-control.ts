@@ -23,6 +23,8 @@ import { generator } from './demo-samples.ts';
 
 const DAY = 24 * 3600_000;
 const WEEKS = 6;
+/** Two a shift day, six shift days a week. */
+const POINTS = WEEKS * 6 * 2;
 const MANAGER_EMAIL = 'lena.marsh@kestrelbend.test';
 
 interface Special {
@@ -104,19 +106,19 @@ function plannedZ(count: number, random: () => number, special: Special | undefi
   return z;
 }
 
-/** Shift-day measurement times, oldest first: 06:40 and 14:40 UTC, Sundays off. */
+/** The last six weeks of shift-day measurement times before now, oldest first: 06:40 and 14:40
+ * UTC, Sundays off — always the same number of points (72), whatever the time of day. */
 function measurementTimes(now: Date): Date[] {
   const times: Date[] = [];
-  const start = new Date(now.getTime() - WEEKS * 7 * DAY);
-  for (let d = 0; d <= WEEKS * 7; d++) {
-    const day = new Date(Date.UTC(start.getUTCFullYear(), start.getUTCMonth(), start.getUTCDate() + d));
-    if (day.getUTCDay() === 0) continue;
-    for (const hour of [6, 14]) {
-      const at = new Date(day.getTime() + hour * 3600_000 + 40 * 60_000);
-      if (at < now) times.push(at);
+  const today = Date.UTC(now.getUTCFullYear(), now.getUTCMonth(), now.getUTCDate());
+  for (let day = today; times.length < POINTS; day -= DAY) {
+    if (new Date(day).getUTCDay() === 0) continue;
+    for (const minutes of [14 * 60 + 40, 6 * 60 + 40]) {
+      const at = new Date(day + minutes * 60_000);
+      if (at < now && times.length < POINTS) times.push(at);
     }
   }
-  return times;
+  return times.reverse();
 }
 
 function burnsFor(

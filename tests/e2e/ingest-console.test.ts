@@ -86,7 +86,7 @@ describe('uploading results through the console', () => {
     expect(mnColumn).toMatch(/Mn %\s+Element\s+Mn\s+%/);
     expect(await preview.getByTestId('preview-burn-row').count()).toBe(5);
     expect(await preview.getByText('These bytes were imported before').count()).toBe(0);
-    expect(await count('samples')).toBe(26); // the preview stored nothing (26 demo samples)
+    expect(await count('samples')).toBe(170); // the preview stored nothing (26 demo heat and lot samples, 144 control points)
 
     // Mode is chosen with a plain explanation; all or nothing is the default.
     expect(await page.getByRole('radio', { name: /All or nothing/ }).isChecked()).toBe(true);

@@ -15,7 +15,7 @@ export function HomePage() {
         title={`Welcome, ${me?.user.name ?? ''}`}
         description="Meltwire is the results hub between the spark stand and everything else: ERP/MES, melt shop screens, quality and certificates."
       />
-      {hasScope(me, 'samples:read') && <InstrumentsStatusBanners />}
+      {hasScope(me, 'samples:read') && hasScope(me, 'control:read') && <InstrumentsStatusBanners />}
       <div className="grid gap-6 lg:grid-cols-2">
         {hasScope(me, 'samples:read') && <RecentSamplesCard />}
         <HealthCard />

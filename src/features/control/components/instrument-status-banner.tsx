@@ -4,9 +4,10 @@
 import { useState } from 'react';
 import { hasScope, useMe } from '../../../api/me.ts';
 import { useInstrumentStatus } from '../../../api/instrument-status.ts';
-import { useInstruments, useMethods } from '../../../api/lookups.ts';
+import { useMethods } from '../../../api/lookups.ts';
 import { Button } from '../../../components/ui/button.tsx';
 import { Alert } from '../../../components/ui/feedback.tsx';
+import { useControlSamples } from '../api/control-samples.ts';
 import { formatWhen } from '../chart-geometry.ts';
 import { DispositionDialog } from './disposition-dialog.tsx';
 
@@ -59,13 +60,14 @@ export function InstrumentStatusBanner({ instrumentId, methodId }: { instrumentI
   );
 }
 
-/** A banner for each instrument in verify, for the overview page. */
+/** A banner for each instrument with a control sample that is in verify, for the overview page. */
 export function InstrumentsStatusBanners() {
-  const instruments = useInstruments();
+  const definitions = useControlSamples();
+  const instrumentIds = [...new Set(definitions.data?.map((d) => d.instrument_id))];
   return (
     <>
-      {instruments.data?.map((i) => (
-        <InstrumentStatusBanner key={i.id} instrumentId={i.id} />
+      {instrumentIds.map((id) => (
+        <InstrumentStatusBanner key={id} instrumentId={id} />
       ))}
     </>
   );
