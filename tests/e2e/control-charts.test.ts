@@ -136,4 +136,64 @@ describe('Control charts', () => {
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Control charts', exact: true }).click();
     await expect.poll(() => row('KB-CTRL-FE1').innerText()).toMatch(/✓\s*In control/);
   });
+
+  it('shows a new control sample as empty, then provisional until its limits are established', async () => {
+    const { url } = session.server;
+    const instruments = (await (await page.request.get(`${url}/api/v1/instruments`)).json()).data;
+    const methods = (await (await page.request.get(`${url}/api/v1/methods`)).json()).data;
+    const oes2 = instruments.find((i: { code: string }) => i.code === 'OES-2');
+    const al = methods.find((m: { code: string }) => m.code === 'AL-WR');
+    const created = await page.request.post(`${url}/api/v1/control-samples`, {
+      data: {
+        instrument_id: oes2.id,
+        method_id: al.id,
+        code: 'KB-CTRL-AL2',
+        kind: 'in_house',
+        elements: [{ element: 'Si' }],
+        baseline_n: 20,
+      },
+    });
+    expect(created.status()).toBe(201);
+    const id = (await created.json()).id;
+
+    // Defined through the API: the list open in the console learns of it on the next load.
+    await page.goto(`${url}/control-samples`);
+    await openChart('KB-CTRL-AL2');
+    await page.getByText('No control points for Si yet').waitFor();
+
+    for (const [i, si] of [0.451, 0.455, 0.448].entries()) {
+      const at = new Date(Date.now() - (3 - i) * 3600_000).toISOString();
+      const pushed = await page.request.post(`${url}/api/v1/samples`, {
+        data: {
+          sample_code: 'KB-CTRL-AL2',
+          kind: 'control',
+          control_sample_id: id,
+          instrument_id: oes2.id,
+          method_id: al.id,
+          burns: [{ measured_at: at, values: { Si: si } }],
+        },
+      });
+      expect(pushed.status()).toBe(201);
+    }
+    await page.reload();
+    await page.getByTestId('provisional-badge').waitFor();
+    expect(await page.getByTestId('provisional-badge').innerText()).toContain('limits are established from the first 20 points');
+    expect(await page.getByTestId('chart-point').count()).toBe(3);
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Control charts', exact: true }).click();
+    await expect.poll(() => row('KB-CTRL-AL2').innerText()).toMatch(/3[\s\S]*◌\s*Provisional/);
+  });
+
+  it('saves which events e-mail me on My alerts', async () => {
+    await page.getByRole('link', { name: 'My alerts' }).click();
+    await page.getByRole('heading', { name: 'My alerts' }).waitFor();
+    const control = page.getByRole('group', { name: 'A control point breaks a run rule' });
+    await control.getByLabel('OES-1').check();
+    await page.getByRole('button', { name: 'Save my alerts' }).click();
+    await page.getByText('Saved: these events e-mail you from now on.').waitFor();
+    await page.reload();
+    await page.getByRole('heading', { name: 'My alerts' }).waitFor();
+    expect(await page.getByRole('group', { name: 'A control point breaks a run rule' }).getByLabel('OES-1').isChecked()).toBe(true);
+    const saved = await (await page.request.get(`${session.server.url}/api/v1/me/alert-preferences`)).json();
+    expect(saved.data).toEqual([{ kind: 'control_out_of_control', instrument_id: expect.stringMatching(/^ins_/) }]);
+  });
 });
