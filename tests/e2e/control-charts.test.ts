@@ -71,6 +71,7 @@ describe('Control charts', () => {
     const broken = page.getByTestId('violation-point');
     expect(await broken.count()).toBe(1);
     expect(await broken.locator('text').allTextContents()).toEqual(['Eight successive points on the same side of the centre line']);
+    expect(await page.getByTestId('run-outline').count()).toBe(1);
     expect(await page.getByTestId('run-rules').innerText()).toContain(
       'Western Electric Statistical Quality Control Handbook (1956), test 4',
     );

@@ -78,3 +78,22 @@ export function describePoint(point: ChartPoint): string {
     rules ? `breaks: ${rules}` : 'no rule broken',
   ].join(', ');
 }
+
+/** Rules broken by a run of points: how many points, ending at the one that completes it, make the run. */
+const RUN_LENGTHS: Partial<Record<ChartPoint['violations'][number]['rule'], number>> = {
+  eight_one_side: 8,
+  nine_one_side: 9,
+  six_trend: 6,
+};
+
+/** Index ranges [first, last] of the runs that break a rule, so the chart can outline them. */
+export function runSpans(points: readonly ChartPoint[]): [number, number][] {
+  const spans: [number, number][] = [];
+  points.forEach((p, i) => {
+    for (const v of p.violations) {
+      const length = RUN_LENGTHS[v.rule];
+      if (length) spans.push([Math.max(0, i - length + 1), i]);
+    }
+  });
+  return spans;
+}

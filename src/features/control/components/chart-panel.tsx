@@ -52,9 +52,9 @@ export function ChartPanel({ definition, element, instrumentCode, asTable, onTog
           <ControlChartSvg chart={data} instrumentCode={instrumentCode} />
           <MovingRangeChart chart={data} />
           <figcaption className="text-xs text-slag-500">
-            ● a point within the rules, ○ provisional, ◆ a point that breaks a run rule (named beside it). Bands: ±1σ, ±2σ, ±3σ of the
-            limits in force now; each point is judged with the limits in force when it was measured. Hover or focus a point for its sample,
-            time, value and burns.
+            ● a point within the rules, ○ provisional, ◆ a point that breaks a run rule (named beside it); a dashed outline marks the points
+            of a run that breaks one. Bands: ±1σ, ±2σ, ±3σ of the limits in force now; each point is judged with the limits in force when it
+            was measured. Hover or focus a point for its sample, time, value and burns.
           </figcaption>
         </figure>
       )}

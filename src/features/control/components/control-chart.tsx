@@ -2,7 +2,7 @@
 // force now, every point in time order, and points that break a rule as labelled diamonds.
 import { useState } from 'react';
 import type { ControlChart } from '../api/control-samples.ts';
-import { type Box, formatDay, formatValue, formatWhen, linearScale, ticks, timeDomain, valueDomain } from '../chart-geometry.ts';
+import { type Box, formatDay, formatValue, formatWhen, linearScale, runSpans, ticks, timeDomain, valueDomain } from '../chart-geometry.ts';
 import { ChartTooltip } from './chart-tooltip.tsx';
 import { PointMarker } from './point-marker.tsx';
 
@@ -78,6 +78,30 @@ export function ControlChartSvg({ chart, instrumentCode }: { chart: ControlChart
         <text x={box.left + plotWidth / 2} y={box.height - 4} textAnchor="middle" className="fill-slag-700 text-[11px]">
           Measured (UTC date)
         </text>
+        {runSpans(chart.points).map(([from, to]) => {
+          // The points of a run that breaks a rule, outlined (the rule is named at its last point).
+          const run = chart.points.slice(from, to + 1);
+          const values = run.map((p) => y(p.value));
+          const x0 = x(Date.parse(run[0].measured_at)) - 9;
+          const x1 = x(Date.parse(run.at(-1)!.measured_at)) + 9;
+          const y0 = Math.min(...values) - 9;
+          const y1 = Math.max(...values) + 9;
+          return (
+            <rect
+              key={`${from}-${to}`}
+              data-testid="run-outline"
+              aria-hidden
+              x={x0}
+              y={y0}
+              width={x1 - x0}
+              height={y1 - y0}
+              rx={8}
+              fill="none"
+              stroke="#b42318"
+              strokeDasharray="4 3"
+            />
+          );
+        })}
         <path d={line} fill="none" stroke="#6b7c8a" strokeWidth={1} />
         {chart.points.map((p, i) => {
           const px = x(Date.parse(p.measured_at));

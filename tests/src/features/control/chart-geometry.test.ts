@@ -2,7 +2,14 @@
 // described with (common practice, no source: z = (x − centre) / SD).
 import { describe, expect, it } from 'vitest';
 import type { ChartPoint } from '../../../../src/features/control/api/control-samples.ts';
-import { describePoint, linearScale, sigmaOffset, timeDomain, valueDomain } from '../../../../src/features/control/chart-geometry.ts';
+import {
+  describePoint,
+  linearScale,
+  runSpans,
+  sigmaOffset,
+  timeDomain,
+  valueDomain,
+} from '../../../../src/features/control/chart-geometry.ts';
 
 const point = (over: Partial<ChartPoint> = {}): ChartPoint => ({
   sample_id: 'smp_1',
@@ -50,5 +57,15 @@ describe('control chart geometry', () => {
       'CTRL-1, measured 2026-11-30 06:40 UTC, value 0.4285 %, 2 burns, +3.7σ, breaks: One point beyond 3σ',
     );
     expect(describePoint(point({ provisional: true }))).toContain('provisional (limits not established yet), no rule broken');
+  });
+
+  it('outlines the eight points of a run that breaks the rule, ending at the point that completes it', () => {
+    const run = {
+      rule: 'eight_one_side' as const,
+      title: 'Eight successive points on the same side of the centre line',
+      source: 'WE test 4',
+    };
+    const points = Array.from({ length: 12 }, (_, i) => point({ violations: i === 10 ? [run] : [] }));
+    expect(runSpans(points)).toEqual([[3, 10]]);
   });
 });
