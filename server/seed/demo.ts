@@ -1,5 +1,6 @@
 import type { Db } from '../db/knex.ts';
 import { countUsers } from '../domain/users/users.repository.ts';
+import { seedDemoControl } from './demo-control.ts';
 import { seedDemoDrift } from './demo-drift.ts';
 import { seedDemoGrades } from './demo-grades.ts';
 import { seedDemoLab } from './demo-lab.ts';
@@ -20,5 +21,6 @@ export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
   await seedDemoDrift(db, lab, references, now);
   const sampleIds = await seedDemoSamples(db, lab, now);
   await seedDemoRelease(db, sampleIds);
+  await seedDemoControl(db, lab, now);
   return true;
 }

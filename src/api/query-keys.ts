@@ -79,3 +79,16 @@ export const webhookKeys = {
 export const eventKeys = {
   feed: (after: string | undefined, types: string) => ['events', { after, types }] as const,
 };
+
+export const controlKeys = {
+  all: ['control'] as const,
+  list: () => [...controlKeys.all, 'list'] as const,
+  detail: (id: string) => [...controlKeys.all, 'detail', id] as const,
+  chart: (id: string, element: string) => [...controlKeys.all, 'chart', id, element] as const,
+  /** An instrument with its control status per method. */
+  instrument: (instrumentId: string) => [...controlKeys.all, 'instrument', instrumentId] as const,
+};
+
+export const alertKeys = {
+  preferences: () => ['alert-preferences'] as const,
+};

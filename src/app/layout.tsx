@@ -48,6 +48,9 @@ export function ConsoleLayout() {
             <p className="mt-1 font-mono text-xs text-ember-400" data-testid="current-role">
               {me.user.role}
             </p>
+            <NavLink to={paths.myAlerts} className="mt-2 block text-xs text-ash-100 underline hover:text-white">
+              My alerts
+            </NavLink>
             <Button
               variant="ghost"
               className="mt-3 w-full !text-ash-100 hover:!bg-slag-800"

@@ -6,6 +6,8 @@ import { ConsoleLayout } from './layout.tsx';
 import { AcceptInvitationPage } from './routes/accept-invitation.tsx';
 import { ApiKeysPage } from './routes/api-keys.tsx';
 import { AuditPage } from './routes/audit.tsx';
+import { ControlChartPage } from './routes/control-chart.tsx';
+import { ControlSamplesPage } from './routes/control-samples.tsx';
 import { DriftNewRunPage } from './routes/drift-new.tsx';
 import { DriftRunPage } from './routes/drift-run.tsx';
 import { EventsPage } from './routes/events.tsx';
@@ -13,6 +15,7 @@ import { GradesPage } from './routes/grades.tsx';
 import { HomePage } from './routes/home.tsx';
 import { ImportPage } from './routes/import.tsx';
 import { ImportsPage } from './routes/imports.tsx';
+import { MyAlertsPage } from './routes/my-alerts.tsx';
 import { NotFoundPage } from './routes/not-found.tsx';
 import { OutboxPage } from './routes/outbox.tsx';
 import { QuickStartPage } from './routes/quick-start.tsx';
@@ -64,6 +67,8 @@ export function createRouter(queryClient: QueryClient) {
             { path: 'drift', lazy: async () => ({ Component: (await import('./routes/drift.tsx')).DriftPage }) },
             { path: 'drift/new', element: <DriftNewRunPage /> },
             { path: 'drift/runs/:id', element: <DriftRunPage /> },
+            { path: 'control-samples', element: <ControlSamplesPage /> },
+            { path: 'control-samples/:id', element: <ControlChartPage /> },
             { path: 'grades', element: <GradesPage /> },
             { path: 'users', element: <UsersPage /> },
             { path: 'audit', element: <AuditPage /> },
@@ -71,6 +76,7 @@ export function createRouter(queryClient: QueryClient) {
             { path: 'webhooks', element: <WebhooksPage /> },
             { path: 'webhooks/:id', element: <WebhookEndpointPage /> },
             { path: 'events', element: <EventsPage /> },
+            { path: 'my-alerts', element: <MyAlertsPage /> },
             { path: '*', element: <NotFoundPage /> },
           ],
         },

@@ -16,6 +16,7 @@ export const NAV_ITEMS: NavItem[] = [
   { to: paths.imports, label: 'Imports', scope: 'samples:read', end: true }, // not lit on /imports/new, which has its own entry
   { to: paths.upload, label: 'Upload results', scope: 'imports:write' },
   { to: paths.drift, label: 'Drift', scope: 'standardizations:read' },
+  { to: paths.controlSamples, label: 'Control charts', scope: 'control:read' },
   { to: paths.grades, label: 'Grades', scope: 'grades:read' },
   { to: paths.quickStart, label: 'Quick start' },
   { to: paths.webhooks, label: 'Webhooks', scope: 'webhooks:read' },

@@ -30,4 +30,9 @@ export const paths = {
   webhooks: '/webhooks',
   webhookEndpoint: (endpointId: string) => `/webhooks/${id(endpointId)}`,
   events: '/events',
+  controlSamples: '/control-samples',
+  /** A control sample's chart, of one element when given. */
+  controlChart: (controlSampleId: string, element?: string) =>
+    `/control-samples/${id(controlSampleId)}${element ? `?element=${id(element)}` : ''}`,
+  myAlerts: '/my-alerts',
 } as const;

@@ -77,8 +77,8 @@ describe('integrator developer flow', () => {
     expect(list.data).toHaveLength(2);
     expect(list.next_cursor).toEqual(expect.any(String));
     expect(await runSnippet('quick-start-errors')).toMatch(/^HTTP\/1\.1 403 Forbidden[\s\S]*"required_scope":"users:read"/);
-    // Every demo sample, one JSON line each (the demo seeds 26).
-    expect((await runSnippet('quick-start-pages')).trim().split('\n')).toHaveLength(26);
+    // Every demo sample, one JSON line each (the demo seeds 26 heat and lot samples and 2 × 72 control points).
+    expect((await runSnippet('quick-start-pages')).trim().split('\n')).toHaveLength(170);
   });
 
   it('finds the call in the Request log, with its curl equivalent, and replays it as the signed-in user', async () => {

@@ -86,7 +86,7 @@ describe('uploading results through the console', () => {
     expect(mnColumn).toMatch(/Mn %\s+Element\s+Mn\s+%/);
     expect(await preview.getByTestId('preview-burn-row').count()).toBe(5);
     expect(await preview.getByText('These bytes were imported before').count()).toBe(0);
-    expect(await count('samples')).toBe(26); // the preview stored nothing (26 demo samples)
+    expect(await count('samples')).toBe(170); // the preview stored nothing (26 demo heat and lot samples, 144 control points)
 
     // Mode is chosen with a plain explanation; all or nothing is the default.
     expect(await page.getByRole('radio', { name: /All or nothing/ }).isChecked()).toBe(true);
@@ -97,7 +97,7 @@ describe('uploading results through the console', () => {
     expect(await countFigure('Samples created')).toBe('2');
     expect(await countFigure('Burns')).toBe('5');
     expect(await countFigure('Lines rejected')).toBe('0');
-    expect(await count('samples')).toBe(28);
+    expect(await count('samples')).toBe(172); // the demo's 170 and the 2 imported
 
     // The raw file comes back byte for byte, with the SHA-256 the report shows.
     const sha256 = createHash('sha256').update(GOOD_CSV).digest('hex');

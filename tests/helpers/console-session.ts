@@ -1,5 +1,6 @@
 // A live server with the built console, a browser page on it, and a demo user signed in there.
 import type { Page } from 'playwright-core';
+import { afterAll, beforeAll } from 'vitest';
 import type { Config } from '../../server/config.ts';
 import { DEMO_PASSWORD } from '../../server/seed/demo-users.ts';
 import { launchBrowser } from './browser.ts';
@@ -22,4 +23,16 @@ export async function consoleSession(email: string, config?: Partial<Config>) {
       await server.stop();
     },
   };
+}
+
+export type ConsoleSession = Awaited<ReturnType<typeof consoleSession>>;
+
+/** For one test file: a console session of `email`, opened before its tests and closed after them. */
+export function useConsoleSession(email: string, config?: Partial<Config>): ConsoleSession {
+  const state = {} as ConsoleSession;
+  beforeAll(async () => {
+    Object.assign(state, await consoleSession(email, config));
+  });
+  afterAll(() => state.close?.());
+  return state;
 }

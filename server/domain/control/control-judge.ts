@@ -48,19 +48,33 @@ async function definitionFor(trx: Transaction, sample: SampleRow, explicit: stri
   return findControlSampleByCode(trx, sample.instrument_id, sample.method_id, sample.sample_code);
 }
 
-/** Records the links of the new samples that are control measurements, then judges each. */
-export async function linkControlMeasurements(
+/**
+ * Finds the definition each new sample is a measurement of, before the samples are stored: a
+ * sample linked by its code without a kind becomes kind `control` in what is stored.
+ */
+export async function resolveControlLinks(
   trx: Transaction,
   built: Built[],
   explicitIds: (string | undefined)[] = [],
   batch = false,
-): Promise<void> {
+): Promise<(ControlSampleRow | undefined)[]> {
+  const links: (ControlSampleRow | undefined)[] = [];
   for (const [i, b] of built.entries()) {
     const definition = await definitionFor(trx, b.sample, explicitIds[i], batch ? i : -1);
+    links.push(definition);
     if (!definition) continue;
     if (b.sample.kind === null) b.sample.kind = 'control';
     if (b.sample.kind !== 'control')
       throw new UnprocessableProblem(`${b.sample.sample_code} is linked to a control sample, so its kind must be control.`);
+  }
+  return links;
+}
+
+/** Records the links of the stored samples that are control measurements, then judges each. */
+export async function linkControlMeasurements(trx: Transaction, built: Built[], links: (ControlSampleRow | undefined)[]): Promise<void> {
+  for (const [i, b] of built.entries()) {
+    const definition = links[i];
+    if (!definition) continue;
     await insertControlPoints(trx, [{ sample_id: b.sample.id, control_sample_id: definition.id, measured_at: measuredAt(b) }]);
     await judgeControlPoint(trx, definition, b.sample.id);
   }

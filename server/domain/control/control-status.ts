@@ -67,7 +67,7 @@ export async function getInstrumentDetail(ctx: AppContext, auth: AuthContext, id
 }
 
 export async function recordDisposition(
-  ctx: AppContext,
+  ctx: Pick<AppContext, 'db'>,
   auth: AuthContext,
   instrumentId: string,
   input: { method_id: string; cause: string; action: string },

@@ -102,7 +102,7 @@ export async function loadControlSample(db: Queryable, auth: AuthContext, id: st
 }
 
 export async function createControlSample(
-  ctx: AppContext,
+  ctx: Pick<AppContext, 'db'>,
   auth: AuthContext,
   input: z.output<typeof CreateControlSampleRequestSchema>,
   requestId?: string,

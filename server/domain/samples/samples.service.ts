@@ -24,7 +24,7 @@ import type { z } from '../../lib/zod.ts';
 import { conformanceJudge } from '../grades/sample-conformance.ts';
 import { recordEvent } from '../events/events.repository.ts';
 import { queueAlert } from '../alerts/alerts.service.ts';
-import { linkControlMeasurements, rejudgeControlPoint } from '../control/control-judge.ts';
+import { linkControlMeasurements, rejudgeControlPoint, resolveControlLinks } from '../control/control-judge.ts';
 
 export type PushedSample = z.output<typeof PushSampleRequestSchema>;
 
@@ -112,6 +112,8 @@ export async function storeNewSamples(
   requestId?: string,
   options: { auditEach?: boolean; userId?: string; controlSampleIds?: (string | undefined)[]; batch?: boolean } = {},
 ): Promise<void> {
+  // Control links first: a sample linked by its code is stored as kind control.
+  const controlLinks = await resolveControlLinks(trx, built, options.controlSampleIds, options.batch);
   const judge = conformanceJudge(trx);
   for (const { sample } of built) {
     Object.assign(sample, await judge(sample.grade, decodeResults(sample.results_json)), { changed_by_user_id: options.userId ?? null });
@@ -124,7 +126,7 @@ export async function storeNewSamples(
   // One sample.created event per sample, whatever the path (push, batch, import, seed).
   await recordSamplesCreated(trx, built);
   for (const { sample } of built) await recordOutOfSpec(trx, sample, null);
-  await linkControlMeasurements(trx, built, options.controlSampleIds, options.batch);
+  await linkControlMeasurements(trx, built, controlLinks);
   // A file import is audited once, as import.completed, naming the import that holds the samples.
   if (options.auditEach === false) return;
   for (const { sample } of built) {

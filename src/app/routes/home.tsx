@@ -2,6 +2,7 @@ import { Link } from 'react-router';
 import { Alert } from '../../components/ui/feedback.tsx';
 import { Card, PageHeader } from '../../components/ui/layout.tsx';
 import { hasScope, useMe } from '../../api/me.ts';
+import { InstrumentsStatusBanners } from '../../features/control/components/instrument-status-banner.tsx';
 import { HealthCard } from '../../features/health/health-card.tsx';
 import { InstrumentFeedsCard } from '../../features/instrument-feeds/components/instrument-feeds-card.tsx';
 import { RecentSamplesCard } from '../../features/samples/components/recent-samples-card.tsx';
@@ -15,6 +16,7 @@ export function HomePage() {
         title={`Welcome, ${me?.user.name ?? ''}`}
         description="Meltwire is the results hub between the spark stand and everything else: ERP/MES, melt shop screens, quality and certificates."
       />
+      {hasScope(me, 'samples:read') && hasScope(me, 'control:read') && <InstrumentsStatusBanners />}
       <div className="grid gap-6 lg:grid-cols-2">
         {hasScope(me, 'samples:read') && <RecentSamplesCard />}
         {hasScope(me, 'samples:read') && <InstrumentFeedsCard />}

@@ -7,6 +7,7 @@ import { RequireScope } from '../../features/auth/components/require-scope.tsx';
 import { useSample, type Burn } from '../../features/samples/api/samples.ts';
 import { ConformancePanel, ReleaseSummary } from '../../features/samples/components/conformance-panel.tsx';
 import { AmendDialog, ReleaseDialog } from '../../features/samples/components/release-dialogs.tsx';
+import { InstrumentStatusBanner } from '../../features/control/components/instrument-status-banner.tsx';
 import { RevisionHistory } from '../../features/samples/components/revision-history.tsx';
 import { Button } from '../../components/ui/button.tsx';
 import { BurnExclusionDialog } from '../../features/samples/components/burn-exclusion-dialog.tsx';
@@ -47,6 +48,7 @@ export function SamplePage() {
       <ProblemAlert error={sample.error} />
       {s && (
         <div className="space-y-6">
+          <InstrumentStatusBanner instrumentId={s.instrument.id} methodId={s.method.id} />
           <Alert tone="caution" title="Review before release">
             These results are computed from the burns as stored. They must be reviewed and authorised under your laboratory&apos;s own
             procedures before they are released or reported.

@@ -47,7 +47,10 @@ describe('demo drift history', () => {
   });
 
   it('corrects every demo sample with the set in force when its burns were measured', async () => {
-    const samples = (await viewer.get('/api/v1/samples').query({ limit: 200 })).body.data;
+    // The heats and lots; the control points (seeded after) are judged on their charts instead.
+    const samples = (await viewer.get('/api/v1/samples').query({ limit: 200 })).body.data.filter(
+      (s: { kind: string }) => s.kind !== 'control',
+    );
     expect(samples).toHaveLength(26);
     for (const summary of samples) {
       const sample = (await viewer.get(`/api/v1/samples/${summary.id}`)).body;

@@ -17,8 +17,9 @@ describe('demo scenario', () => {
     const instruments = await agent.get('/api/v1/instruments');
     expect(instruments.body.data.map((i: { code: string }) => i.code)).toEqual(['OES-1', 'OES-2']);
     const samples = await agent.get('/api/v1/samples').query({ limit: 200 });
-    expect(samples.body.data).toHaveLength(26);
-    expect(samples.body.data.every((s: { heat: string }) => /^(K24|B24)-\d{4}$/.test(s.heat))).toBe(true);
+    const heats = samples.body.data.filter((s: { kind: string }) => s.kind !== 'control');
+    expect(heats).toHaveLength(26);
+    expect(heats.every((s: { heat: string }) => /^(K24|B24)-\d{4}$/.test(s.heat))).toBe(true);
     const flagged = await agent.get('/api/v1/samples').query({ flag: 'repeatability_exceeded' });
     expect(flagged.body.data.map((s: { sample_code: string }) => s.sample_code)).toEqual(['K24-0414-F1']);
   });
@@ -76,5 +77,39 @@ describe('demo scenario', () => {
       .reduce((sum: Decimal, r: Result) => sum.plus(String(r.mean)), new Decimal(0));
     expect(al.mean).toBeCloseTo(new Decimal(100).minus(others).toNumber(), 12); // decimal.js
     expect(al.reported).toBe(new Decimal(100).minus(others).toDecimalPlaces(2, Decimal.ROUND_HALF_EVEN).toFixed(2));
+  });
+
+  it('charts six weeks of control points per instrument: one point beyond 3σ, one run of eight, each disposed of', async () => {
+    const { agent } = await signedInAgent(t, 'viewer');
+    const list = await agent.get('/api/v1/control-samples');
+    expect(list.status).toBe(200);
+    const definitions = list.body.data as { id: string; code: string; instrument_id: string; elements: string[]; status: string }[];
+    expect(definitions.map((d) => d.code)).toEqual(['KB-CTRL-FE1', 'KB-CTRL-AL1'].sort());
+    const violationsOf = async (code: string) => {
+      const d = definitions.find((x) => x.code === code)!;
+      expect(d.status).toBe('in_control');
+      const found: string[] = [];
+      for (const element of d.elements) {
+        const chart = await agent.get(`/api/v1/control-samples/${d.id}/chart`).query({ element });
+        expect(chart.status).toBe(200);
+        expect(chart.body.provisional).toBe(false);
+        // Two points a shift day, Sundays off, for six weeks.
+        expect(chart.body.points).toHaveLength(72);
+        for (const p of chart.body.points as { value: number; violations: { rule: string }[] }[])
+          for (const v of p.violations) found.push(`${element} ${v.rule}`);
+      }
+      return { d, found };
+    };
+    const fe = await violationsOf('KB-CTRL-FE1');
+    expect(fe.found).toEqual(['C beyond_3s']);
+    const al = await violationsOf('KB-CTRL-AL1');
+    expect(al.found).toEqual(['Mg eight_one_side']);
+
+    const instrument = await agent.get(`/api/v1/instruments/${fe.d.instrument_id}`);
+    const control = instrument.body.control[0];
+    expect(control.status).toBe('in_control');
+    expect(control.history.map((h: { status: string }) => h.status)).toEqual(['in_control', 'verify']);
+    expect(control.history[0]).toMatchObject({ cause: expect.stringMatching(/Electrode worn/), created_by: 'lena.marsh@kestrelbend.test' });
+    expect(control.history[1].violations).toEqual([expect.objectContaining({ element: 'C', rule: 'beyond_3s' })]);
   });
 });

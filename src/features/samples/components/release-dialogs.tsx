@@ -8,21 +8,28 @@ import { Alert, ProblemAlert } from '../../../components/ui/feedback.tsx';
 import { TextAreaField, TextField } from '../../../components/ui/field.tsx';
 import type { Sample } from '../api/samples.ts';
 import { useAmendSample, useReleaseSample } from '../api/release.ts';
+import { ControlAcknowledgement, useControlAcknowledgement } from './control-acknowledgement.tsx';
 
 export function ReleaseDialog({ sample, open, onClose }: { sample: Sample; open: boolean; onClose: () => void }) {
   const [comment, setComment] = useState('');
   const [concede, setConcede] = useState(false);
   const release = useReleaseSample();
+  const acknowledgement = useControlAcknowledgement(sample, release.error);
   const needsConcession = sample.conformance?.conforms !== true;
   const close = () => {
     release.reset();
     setComment('');
     setConcede(false);
+    acknowledgement.reset();
     onClose();
   };
   function submit(event: FormEvent) {
     event.preventDefault();
-    const body = { ...(comment.trim() ? { comment: comment.trim() } : {}), accept_nonconforming: needsConcession && concede };
+    const body = {
+      ...(comment.trim() ? { comment: comment.trim() } : {}),
+      accept_nonconforming: needsConcession && concede,
+      ...acknowledgement.body,
+    };
     release.mutate({ id: sample.id, body }, { onSuccess: close });
   }
   return (
@@ -43,6 +50,7 @@ export function ReleaseDialog({ sample, open, onClose }: { sample: Sample; open:
             </label>
           </Alert>
         )}
+        <ControlAcknowledgement state={acknowledgement} />
         <ProblemAlert error={release.error} fields={['comment']} />
         <TextAreaField
           label={needsConcession ? 'Comment (required for a concession)' : 'Comment (optional)'}
@@ -55,7 +63,7 @@ export function ReleaseDialog({ sample, open, onClose }: { sample: Sample; open:
           <Button variant="secondary" onClick={close}>
             Cancel
           </Button>
-          <Button type="submit" disabled={release.isPending}>
+          <Button type="submit" disabled={release.isPending || acknowledgement.blocking}>
             {release.isPending ? 'Releasing…' : 'Release'}
           </Button>
         </div>
