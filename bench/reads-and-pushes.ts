@@ -7,31 +7,19 @@
 //   floor: node:http + JSON.parse + one better-sqlite3 transaction writing the sample and its burns.
 // Prints one table and writes bench/results-api.json. Compare the ratios, not the figures.
 import { writeFileSync } from 'node:fs';
-import { createServer, request as httpRequest, type Server } from 'node:http';
+import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
-import autocannon from 'autocannon';
 import Database from 'better-sqlite3';
 import { createApiKey } from '../server/domain/api-keys/api-keys.service.ts';
 import { sessionAuthContext } from '../server/domain/auth/auth.service.ts';
 import { findUserByEmail } from '../server/domain/users/users.repository.ts';
 import { DEMO_USERS } from '../server/seed/demo-users.ts';
 import { startLiveServer } from '../tests/helpers/live-server.ts';
-import { WIDE_FILE_ELEMENTS } from './generate-wide-file.ts';
+import { cannon, closeLoadAgent, fill, pushBody, type Target, timedPushes } from './api-load.ts';
 
 const SAMPLES = Number(process.env.BENCH_SAMPLES ?? 5000);
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 10);
 const PUSHES = Number(process.env.BENCH_PUSHES ?? 300);
-
-const quantile = (xs: number[], q: number) => [...xs].sort((a, b) => a - b)[Math.min(xs.length - 1, Math.floor(xs.length * q))];
-
-/** Deterministic invented burns: 3 × 25 elements. */
-function burnsOf(i: number) {
-  return [0, 1, 2].map((b) => ({
-    values: Object.fromEntries(
-      WIDE_FILE_ELEMENTS.filter((e) => e !== 'Fe').map((e, k) => [e, ((((i * 7 + b * 3 + k) % 97) + 3) / 1000).toFixed(4)]),
-    ),
-  }));
-}
 
 const server = await startLiveServer({ console: false, validateResponses: false, config: { rateLimitPerMinute: 1_000_000_000 } });
 const admin = await findUserByEmail(server.db, DEMO_USERS[0].email);
@@ -44,14 +32,8 @@ const [instrument] = (await (await fetch(`${server.url}/api/v1/instruments`, { h
 const method = ((await (await fetch(`${server.url}/api/v1/methods`, { headers })).json()).data as { id: string; code: string }[]).find(
   (m) => m.code === 'FE-LA',
 )!;
-const pushBody = (code: string, i: number) =>
-  JSON.stringify({ sample_code: code, instrument_id: instrument.id, method_id: method.id, burns: burnsOf(i) });
-
-for (let i = 0; i < SAMPLES; i += 500) {
-  const samples = Array.from({ length: Math.min(500, SAMPLES - i) }, (_, j) => JSON.parse(pushBody(`RB-${i + j}`, i + j)) as unknown);
-  const res = await fetch(`${server.url}/api/v1/samples/batch`, { method: 'POST', headers, body: JSON.stringify({ samples }) });
-  if (res.status !== 201) throw new Error(`batch: ${res.status} ${await res.text()}`);
-}
+const target: Target = { base: server.url, headers, instrumentId: instrument.id, methodId: method.id };
+await fill(target, SAMPLES, 'RB');
 const databaseFile = server.ctx.config.databaseFile;
 const sampleId = ((await (await fetch(`${server.url}/api/v1/samples?limit=1`, { headers })).json()).data as { id: string }[])[0].id;
 
@@ -94,52 +76,27 @@ function pushFloor(): Promise<Server> {
   return new Promise((resolve) => floor.listen(0, '127.0.0.1', () => resolve(floor)));
 }
 
-async function cannon(url: string) {
-  const result = await autocannon({ url, connections: 50, duration: SECONDS, headers: { authorization: headers.authorization } });
-  if (result.non2xx > 0) throw new Error(`${url}: ${result.non2xx} answers were not 2xx`);
-  return { rps: result.requests.average, p99: result.latency.p99 };
-}
-
-const agent = new (await import('node:http')).Agent({ keepAlive: true, maxSockets: 10 });
-function post(base: string, path: string, body: string): Promise<number> {
-  const started = performance.now();
-  return new Promise((resolve, reject) => {
-    const req = httpRequest(`${base}${path}`, { method: 'POST', headers, agent }, (res) => {
-      res.resume();
-      res.on('end', () => (res.statusCode === 201 ? resolve(performance.now() - started) : reject(new Error(`push: ${res.statusCode}`))));
-    });
-    req.on('error', reject);
-    req.end(body);
-  });
-}
-
-async function pushes(base: string, path: string, tag: string) {
-  const sequential: number[] = [];
-  for (let i = 0; i < PUSHES; i++) sequential.push(await post(base, path, pushBody(`${tag}-S${i}`, i)));
-  const concurrent: number[] = [];
-  const started = performance.now();
-  await Promise.all(
-    Array.from({ length: 10 }, async (_, c) => {
-      for (let i = 0; i < PUSHES / 10; i++) concurrent.push(await post(base, path, pushBody(`${tag}-C${c}-${i}`, i)));
-    }),
-  );
-  const perSecond = (concurrent.length / (performance.now() - started)) * 1000;
-  return { p50: quantile(sequential, 0.5), p99: quantile(concurrent, 0.99), perSecond };
-}
-
 const floorRead = await readFloor();
 const floorReadUrl = `http://127.0.0.1:${(floorRead.address() as AddressInfo).port}`;
-const listProduct = await cannon(`${server.url}/api/v1/samples?limit=100`);
-const listFloor = await cannon(`${floorReadUrl}/list`);
-const oneProduct = await cannon(`${server.url}/api/v1/samples/${sampleId}`);
-const oneFloor = await cannon(`${floorReadUrl}/one`);
+const auth = { authorization: headers.authorization };
+const listProduct = await cannon([`${server.url}/api/v1/samples?limit=100`], SECONDS, auth);
+const listFloor = await cannon([`${floorReadUrl}/list`], SECONDS);
+const oneProduct = await cannon([`${server.url}/api/v1/samples/${sampleId}`], SECONDS, auth);
+const oneFloor = await cannon([`${floorReadUrl}/one`], SECONDS);
 floorRead.close();
 
 const floorPush = await pushFloor();
-const pushFloorFigures = await pushes(`http://127.0.0.1:${(floorPush.address() as AddressInfo).port}`, '/', 'FLOOR');
-const pushProduct = await pushes(server.url, '/api/v1/samples', 'PUSH');
+const body = (code: string, i: number) => pushBody(target, code, i);
+const pushFloorFigures = await timedPushes(
+  [`http://127.0.0.1:${(floorPush.address() as AddressInfo).port}/`],
+  headers,
+  PUSHES,
+  body,
+  'FLOOR',
+);
+const pushProduct = await timedPushes([`${server.url}/api/v1/samples`], headers, PUSHES, body, 'PUSH');
 floorPush.close();
-agent.destroy();
+closeLoadAgent();
 
 const rows = [
   { figure: 'list page req/s', value: listProduct.rps, floor: listFloor.rps, ratio: listProduct.rps / listFloor.rps, target: '≥ 0.60' },
