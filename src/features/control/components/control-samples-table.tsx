@@ -37,7 +37,8 @@ export function ControlSamplesTable() {
   const list = useControlSamples();
   const instruments = useInstruments();
   const methods = useMethods();
-  if (list.isPending) return <Spinner label="Loading control samples…" />;
+  // The instrument and method codes come with the rows: never a raw id while a lookup is on its way.
+  if (list.isPending || instruments.isPending || methods.isPending) return <Spinner label="Loading control samples…" />;
   if (list.error) return <ProblemAlert error={list.error} />;
   if (list.data.length === 0)
     return (
