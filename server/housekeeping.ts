@@ -3,7 +3,7 @@
 // once at start, then hourly on an unref'd timer so it never keeps the process alive; stop() ends
 // it on shutdown. With several nodes on one database, each hour's run happens on one node only
 // (a job lease, cluster/job-lease.ts).
-import { claimJobRun, NODE_ID } from './cluster/job-lease.ts';
+import { NODE_ID, startLeasedJob } from './cluster/job-lease.ts';
 import type { AppContext } from './context.ts';
 import { purgeEvents } from './domain/events/events.service.ts';
 import { purgeExpiredIdempotencyKeys } from './domain/idempotency/idempotency.repository.ts';
@@ -32,24 +32,5 @@ export async function sweepOnce(
 }
 
 export function startHousekeeping(ctx: Pick<AppContext, 'db' | 'config' | 'logger'>, intervalMs = HOUSEKEEPING_INTERVAL_MS): Housekeeping {
-  let running: Promise<unknown> = Promise.resolve();
-  const sweep = () => {
-    running = claimJobRun(ctx.db, 'housekeeping', intervalMs)
-      .then(async (mine) => {
-        if (mine) await sweepOnce(ctx);
-        else ctx.logger.debug('housekeeping ran on another node this hour');
-      })
-      .catch((error: unknown) => ctx.logger.error({ err: error }, 'housekeeping failed'));
-    return running;
-  };
-  const firstRun = sweep().then(() => undefined);
-  const timer = setInterval(sweep, intervalMs);
-  timer.unref();
-  return {
-    firstRun,
-    async stop() {
-      clearInterval(timer);
-      await running;
-    },
-  };
+  return startLeasedJob(ctx, 'housekeeping', intervalMs, () => sweepOnce(ctx), { atStart: true });
 }

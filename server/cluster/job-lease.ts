@@ -20,7 +20,8 @@ export async function claimJobRun(db: Queryable, job: string, intervalMs: number
 }
 
 /**
- * Runs `job` every `intervalMs` on an unref'd timer, on whichever node claims it first each time;
+ * Runs `job` every `intervalMs` on an unref'd timer (and once at start with `atStart`), on
+ * whichever node claims it first each time; `firstRun` settles when the start-up run is over.
  * stop() ends the timer and waits for a run in progress.
  */
 export function startLeasedJob(
@@ -28,15 +29,20 @@ export function startLeasedJob(
   job: string,
   intervalMs: number,
   run: () => Promise<unknown>,
-): { stop(): Promise<void> } {
+  options: { atStart?: boolean } = {},
+): { firstRun: Promise<void>; stop(): Promise<void> } {
   let running: Promise<unknown> = Promise.resolve();
-  const timer = setInterval(() => {
+  const tick = () => {
     running = claimJobRun(ctx.db, job, intervalMs)
-      .then((mine) => (mine ? run() : undefined))
+      .then((mine) => (mine ? run() : ctx.logger.debug({ job }, `${job} ran on another node this time`)))
       .catch((error: unknown) => ctx.logger.error({ err: error, job }, `${job} failed`));
-  }, intervalMs);
+    return running;
+  };
+  const firstRun = options.atStart ? tick().then(() => undefined) : Promise.resolve();
+  const timer = setInterval(tick, intervalMs);
   timer.unref();
   return {
+    firstRun,
     async stop() {
       clearInterval(timer);
       await running;
