@@ -66,9 +66,9 @@ for (let i = 0; i < EVENTS; i += BATCH) {
     method_id: lab.feMethod.id,
     burns: [{ values: { C: 0.45, Mn: 0.75, Si: 0.25 } }, { values: { C: 0.44, Mn: 0.76, Si: 0.24 } }],
   }));
-  const ids = await pushSamples(ctx, auth, samples, true);
+  const stored = await pushSamples(ctx, auth, samples, true);
   const now = performance.now();
-  for (const id of ids) committedAt.set(id, now);
+  for (const { id } of stored) committedAt.set(id, now);
   // As a server between requests: let the worker's I/O run, so that commit → receipt measures
   // the worker rather than a loop of pushes that never lets go of the event loop.
   await new Promise((resolve) => setImmediate(resolve));

@@ -59,7 +59,7 @@ export function createApp(options: AppOptions): Express & { locals: { ctx: AppCo
   const logger = options.logger ?? createLogger(config.logLevel);
   const mailer = options.mailer ?? createMailer({ smtpUrl: config.smtpUrl, from: config.mailFrom, logger });
   const importWorkers = options.importWorkers ?? createImportWorkers();
-  const ctx: AppContext = { db, config, logger, mailer, importWorkers, outbox: options.outbox };
+  const ctx: AppContext = { db, config, logger, mailer, importWorkers, outbox: options.outbox, checksResponses: options.validateResponses };
 
   const app = express();
   app.locals.ctx = ctx;

@@ -15,4 +15,6 @@ export interface AppContext {
   importWorkers: ImportWorkers;
   /** Present when the in-process SMTP server captures mail (development and tests). */
   outbox?: Outbox;
+  /** Tests only: every JSON answer is checked against the OpenAPI document (createApp's validateResponses). */
+  checksResponses?: boolean;
 }

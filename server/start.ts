@@ -18,6 +18,7 @@ import { listen, stopOnSignals } from './index.ts';
 import { createLogger } from './logger.ts';
 import { startFakeSmtp, type FakeSmtp } from './mail/fake-smtp.ts';
 import { demoAdminStillDefault, DEMO_PASSWORD, DEMO_USERS } from './seed/demo-users.ts';
+import { prepareStaleDocuments } from './domain/samples/prepared-documents.ts';
 import { seedDemoIfEmpty } from './seed/demo.ts';
 
 const DEV = process.argv.includes('--dev');
@@ -63,6 +64,11 @@ async function main(): Promise<void> {
     await smtp?.close();
   });
   stopOnSignals(running, logger);
+  // Samples stored before prepared documents existed, or under another representation version.
+  prepareStaleDocuments(db).then(
+    (count) => count > 0 && logger.info({ samples: count }, 'prepared documents made for reading'),
+    (error: unknown) => logger.warn({ err: error }, 'preparing documents for reading failed; those samples are computed on each read'),
+  );
 
   const lines = [
     `Meltwire ${config.version} is serving API and console on ${config.publicUrl}`,

@@ -6,6 +6,8 @@ import type { z, ZodType } from 'zod';
 import type { AppContext } from '../context.ts';
 import type { Scope } from '../domain/auth/scopes.ts';
 import { idempotency } from './idempotency.ts';
+import { PreparedJson } from '../lib/prepared-json.ts';
+import { sendPreparedJson } from './prepared-json.ts';
 import { ForbiddenProblem, UnauthorizedProblem, ValidationProblem } from '../lib/problems.ts';
 import type { AuthContext } from '../domain/auth/auth-context.ts';
 
@@ -36,7 +38,11 @@ export interface HandlerInput<P, Q, B, R extends Responses = Responses> {
    * Answers with one of the route's declared JSON responses: a body that disagrees with that
    * status's schema is a compile error. Non-JSON answers (CSV, files) use `res` directly.
    */
-  reply<S extends keyof R & number>(status: S, body: ReplyBody<R[S]>, headers?: Record<string, string>): void;
+  reply<S extends keyof R & number>(
+    status: S,
+    body: ReplyBody<R[S]> | PreparedJson<ReplyBody<R[S]>>,
+    headers?: Record<string, string>,
+  ): void;
   /** The caller; throws 401 when read on a public route without credentials. */
   readonly auth: AuthContext;
   req: Request;
@@ -145,7 +151,9 @@ export function mountRoutes(router: Router, routes: AnyRoute[], ctx: AppContext)
         ctx,
         reply(status, payload, headers) {
           if (headers) res.set(headers);
-          res.status(status).json(payload);
+          res.status(status);
+          if (payload instanceof PreparedJson) sendPreparedJson(res, payload, ctx.checksResponses === true);
+          else res.json(payload);
         },
         get auth(): AuthContext {
           if (!req.auth) throw new UnauthorizedProblem();

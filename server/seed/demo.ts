@@ -8,6 +8,7 @@ import { seedDemoReferences } from './demo-references.ts';
 import { seedDemoRelease } from './demo-release.ts';
 import { seedDemoSamples } from './demo-samples.ts';
 import { seedDemoUsers } from './demo-users.ts';
+import { prepareStaleDocuments } from '../domain/samples/prepared-documents.ts';
 
 /** Seeds the invented demo scenario into an empty database; returns false when it was not empty. */
 export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
@@ -22,5 +23,6 @@ export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
   const sampleIds = await seedDemoSamples(db, lab, now);
   await seedDemoRelease(db, sampleIds);
   await seedDemoControl(db, lab, now);
+  await prepareStaleDocuments(db);
   return true;
 }

@@ -17,6 +17,7 @@ import { correctBurn, correctionSetOf, type CorrectionSet, distinctSetIds, type 
 import { findStandardization } from './standardizations.repository.ts';
 import { decodeResults, encodeResults } from '../samples/results-codec.ts';
 import { inTransaction } from '../../db/transaction.ts';
+import { prepareSampleDocuments } from '../samples/prepared-documents.ts';
 import type { RecomputeSampleRequestSchema } from './recompute.schemas.ts';
 import type { z } from '../../lib/zod.ts';
 import { conformanceJudge } from '../grades/sample-conformance.ts';
@@ -79,6 +80,7 @@ export async function recomputeSample(
       ...verdict,
     });
     await recordOutOfSpec(trx, { ...sample, ...verdict }, sample.conforms);
+    await prepareSampleDocuments(trx, [sampleId]);
     await recordAudit(trx, {
       actor,
       requestId,

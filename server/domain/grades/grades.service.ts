@@ -3,6 +3,7 @@
 import type { AppContext } from '../../context.ts';
 import { isUniqueViolation } from '../../db/errors.ts';
 import { inTransaction, type Transaction } from '../../db/transaction.ts';
+import { prepareDocumentsSoon } from '../samples/prepared-documents.ts';
 import { newId } from '../../lib/ids.ts';
 import type { Page } from '../../lib/pagination.ts';
 import { ConflictProblem, NotFoundProblem } from '../../lib/problems.ts';
@@ -54,13 +55,15 @@ export async function getGradeVersion(ctx: AppContext, code: string, version: nu
 }
 
 /** Draft samples naming the grade follow its latest version; released ones keep the verdict they were released with. */
-async function rejudgeDrafts(trx: Transaction, grade: StoredGrade): Promise<void> {
+async function rejudgeDrafts(trx: Transaction, grade: StoredGrade): Promise<string[]> {
   const now = nowIso();
-  for (const sample of await findDraftSamplesOfGrade(trx, grade.code)) {
+  const drafts = await findDraftSamplesOfGrade(trx, grade.code);
+  for (const sample of drafts) {
     const verdict = conformanceOf(grade, decodeResults(sample.results_json));
     await updateSampleConformance(trx, sample.id, { ...verdict, updated_at: now });
     await recordOutOfSpec(trx, { ...sample, ...verdict }, sample.conforms);
   }
+  return drafts.map((sample) => sample.id);
 }
 
 async function storeVersion(
@@ -82,10 +85,11 @@ async function storeVersion(
     created_at: nowIso(),
   };
   const grade = toStoredGrade(row);
+  let rejudged: string[] = [];
   try {
     await inTransaction(ctx.db, async (trx) => {
       await insertGradeVersion(trx, row);
-      await rejudgeDrafts(trx, grade);
+      rejudged = await rejudgeDrafts(trx, grade);
       await recordAudit(trx, {
         actor: actorOf(auth),
         requestId,
@@ -105,6 +109,7 @@ async function storeVersion(
     }
     throw error;
   }
+  prepareDocumentsSoon(ctx.db, rejudged, (error) => ctx.logger.warn({ err: error, grade: code }, 'preparing re-judged samples failed'));
   return grade;
 }
 

@@ -23,6 +23,7 @@ import { findImportBySha, findImportFile, findImportMeta, insertImport, listImpo
 import { mapPage } from '../../lib/pagination.ts';
 import type { z } from '../../lib/zod.ts';
 import { inTransaction } from '../../db/transaction.ts';
+import { prepareDocumentsSoon } from '../samples/prepared-documents.ts';
 import type { ImportListQuerySchema, ImportPreviewRequestSchema } from './imports.schemas.ts';
 
 /** The upload's form fields as validated, with the file multer received. */
@@ -150,6 +151,11 @@ export async function uploadImport(
       if (error instanceof CorrectionsChanged) continue;
       throw error;
     }
+    prepareDocumentsSoon(
+      ctx.db,
+      built.map((b) => b.sample.id),
+      (error) => ctx.logger.warn({ err: error, import_id: id }, 'preparing the imported samples for reading failed'),
+    );
     const { content: _content, ...meta } = row;
     return { created: true, record: toImport(meta) };
   }

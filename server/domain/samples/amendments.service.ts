@@ -3,6 +3,7 @@
 // revision is kept exactly as it was served, with who, when, why and what changed per element.
 import type { AppContext } from '../../context.ts';
 import { inTransaction, type Transaction } from '../../db/transaction.ts';
+import { prepareSampleDocuments } from './prepared-documents.ts';
 import { newId } from '../../lib/ids.ts';
 import { ConflictProblem, type FieldError, NotFoundProblem, UnprocessableProblem } from '../../lib/problems.ts';
 import { nowIso } from '../../lib/time.ts';
@@ -102,6 +103,7 @@ export async function amendSample(ctx: Pick<AppContext, 'db'>, auth: AuthContext
       revision,
       updated_at: now,
     });
+    await prepareSampleDocuments(trx, [id]);
     const after = await loadSampleDetail(trx, auth, id, '%');
     const changes = elementChanges(before.results, after.results);
     await insertRevision(trx, {

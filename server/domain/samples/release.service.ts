@@ -4,6 +4,7 @@
 // sample or last changed its burns may not release it. Several samples (a heat) go all or none.
 import type { AppContext } from '../../context.ts';
 import { inTransaction, type Transaction } from '../../db/transaction.ts';
+import { prepareSampleDocuments } from './prepared-documents.ts';
 import { ConflictProblem, ForbiddenProblem, UnprocessableProblem, type FieldError } from '../../lib/problems.ts';
 import { nowIso } from '../../lib/time.ts';
 import type { z } from '../../lib/zod.ts';
@@ -86,6 +87,7 @@ async function release(
     concession,
     updated_at: now,
   });
+  await prepareSampleDocuments(trx, [sample.id]);
   const document = await loadSampleDetail(trx, auth, sample.id, '%');
   await recordReleasedRevision(trx, document, actor.label, now);
   await recordAudit(trx, {

@@ -13,6 +13,7 @@ import { CsvColumns, csvHeader, csvLines } from './samples-csv.ts';
 import { countSampleRows, listSampleColumnRows, listSampleRows, type SampleFilters, type SampleOrder } from './samples.repository.ts';
 import type { SampleListQuerySchema } from './samples.schemas.ts';
 import { toSampleSummary } from './sample-view.ts';
+import { preparedSamplesPage } from './prepared-documents.ts';
 
 /** The CSV export refuses more samples than this (422): narrow the filters. */
 export const CSV_MAX_ROWS = 100_000;
@@ -28,8 +29,10 @@ function orderOf(query: Pick<SampleListQuery, 'updated_since'>): SampleOrder {
   return query.updated_since ? 'updated_asc' : 'created_desc';
 }
 
+/** A page of GET /samples: in % from the prepared documents, in other units converted afresh. */
 export async function listSamplesPage(ctx: AppContext, auth: AuthContext, query: SampleListQuery) {
   const filters = { ...query, onlyInstrumentIds: auth.instrumentIds };
+  if (query.unit === '%') return preparedSamplesPage(ctx.db, filters, orderOf(query), query);
   const page = await listSampleRows(ctx.db, filters, orderOf(query), query);
   return mapPage(page, (row) => toSampleSummary(row, query.unit));
 }

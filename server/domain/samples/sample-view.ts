@@ -111,15 +111,14 @@ function toBurnView(burn: BurnRow, unit: OutputUnit) {
   };
 }
 
-/** A sample with its burns and provenance, as GET /samples/{id} returns it. */
-export function toSampleDetail(
+/** What GET /samples/{id} adds to the list entry: the burns and where the sample came from. */
+export function toSampleExtras(
   row: SampleRowWithRefs,
   burns: BurnRow[],
   importMeta: Pick<ImportMeta, 'sha256' | 'file_name'> | undefined,
   unit: OutputUnit,
 ) {
   return {
-    ...toSampleSummary(row, unit),
     burns: burns.map((b) => toBurnView(b, unit)),
     provenance: {
       source: row.source,
@@ -129,6 +128,16 @@ export function toSampleDetail(
       lines: burns.map((b) => b.source_line).filter((line): line is number => line !== null),
     },
   };
+}
+
+/** A sample with its burns and provenance, as GET /samples/{id} returns it. */
+export function toSampleDetail(
+  row: SampleRowWithRefs,
+  burns: BurnRow[],
+  importMeta: Pick<ImportMeta, 'sha256' | 'file_name'> | undefined,
+  unit: OutputUnit,
+) {
+  return { ...toSampleSummary(row, unit), ...toSampleExtras(row, burns, importMeta, unit) };
 }
 
 export async function loadSampleDetail(db: Queryable, auth: AuthContext, id: string, unit: OutputUnit) {

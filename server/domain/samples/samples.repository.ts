@@ -90,12 +90,43 @@ export async function insertSamples(db: Queryable, samples: SampleRow[], burns: 
   await bulkInsert(db, 'burns', burns as unknown as Record<string, unknown>[]);
 }
 
+/** Every column of SampleRow: the prepared documents (prepared-documents.repository.ts) are left out. */
+const SAMPLE_COLUMNS: (keyof SampleRow)[] = [
+  'id',
+  'sample_code',
+  'heat',
+  'grade',
+  'kind',
+  'instrument_id',
+  'method_id',
+  'fields_json',
+  'status',
+  'source',
+  'import_id',
+  'first_line',
+  'results_json',
+  'flags_json',
+  'correction_json',
+  'conformance_json',
+  'conforms',
+  'changed_by_user_id',
+  'released_by_user_id',
+  'released_by_label',
+  'released_at',
+  'release_comment',
+  'concession',
+  'revision',
+  'created_by_label',
+  'created_at',
+  'updated_at',
+];
+
 function withRefs(db: Queryable) {
   return db<SampleRow>('samples')
     .join('instruments', 'instruments.id', 'samples.instrument_id')
     .join('methods', 'methods.id', 'samples.method_id')
     .select<SampleRowWithRefs[]>(
-      'samples.*',
+      ...SAMPLE_COLUMNS.map((column) => `samples.${column}`),
       'instruments.code as instrument_code',
       'methods.code as method_code',
       db.raw('(select count(*) from burns where burns.sample_id = samples.id) as burn_count'),
@@ -104,6 +135,16 @@ function withRefs(db: Queryable) {
 
 export function findSample(db: Queryable, id: string): Promise<SampleRowWithRefs | undefined> {
   return withRefs(db).where('samples.id', id).first();
+}
+
+/** The samples with these ids, in no particular order. */
+export function findSamplesByIds(db: Queryable, ids: string[]): Promise<SampleRowWithRefs[]> {
+  return withRefs(db).whereIn('samples.id', ids);
+}
+
+/** The burns of these samples, by sample and burn number. */
+export function findBurnsOfSamples(db: Queryable, sampleIds: string[]): Promise<BurnRow[]> {
+  return db<BurnRow>('burns').whereIn('sample_id', sampleIds).orderBy(['sample_id', 'burn_number']);
 }
 
 export function findBurns(db: Queryable, sampleId: string): Promise<BurnRow[]> {
@@ -184,7 +225,7 @@ export interface SampleFilters {
 export type SampleOrder = 'created_desc' | 'updated_asc';
 
 /** Keyset orders of sample lists; they read only what every sample row has (id and times). */
-const SAMPLE_KEYSETS: Record<SampleOrder, KeysetColumn<Pick<SampleRow, 'id' | 'created_at' | 'updated_at'>>[]> = {
+export const SAMPLE_KEYSETS: Record<SampleOrder, KeysetColumn<Pick<SampleRow, 'id' | 'created_at' | 'updated_at'>>[]> = {
   created_desc: [
     { column: 'samples.created_at', order: 'desc', key: 't', valueOf: (row) => row.created_at },
     { column: 'samples.id', order: 'desc', key: 'id', valueOf: (row) => row.id },
@@ -196,7 +237,7 @@ const SAMPLE_KEYSETS: Record<SampleOrder, KeysetColumn<Pick<SampleRow, 'id' | 'c
 };
 
 /** The filters of GET /samples, the one place they are turned into SQL: lists, counts and exports share it. */
-function whereSamples(query: Knex.QueryBuilder, filters: SampleFilters): Knex.QueryBuilder {
+export function whereSamples(query: Knex.QueryBuilder, filters: SampleFilters): Knex.QueryBuilder {
   if (filters.heat) query.where('samples.heat', filters.heat);
   if (filters.grade) query.where('samples.grade', filters.grade);
   if (filters.sample_code) query.where('samples.sample_code', filters.sample_code);

@@ -18,6 +18,7 @@ import { computeSampleResults } from './sample-results.ts';
 import { type BurnRow, findBurns, insertSamples, type SampleRow, updateBurn, updateSampleResults } from './samples.repository.ts';
 import { decodeResults, encodeResults } from './results-codec.ts';
 import { loadSample } from './sample-access.ts';
+import { prepareSampleDocuments } from './prepared-documents.ts';
 import { recordSamplesCreated } from './sample-events.ts';
 import type { PushSampleRequestSchema } from './samples.schemas.ts';
 import type { z } from '../../lib/zod.ts';
@@ -54,14 +55,14 @@ async function resolveReferences(
   return methods;
 }
 
-/** Stores pushed samples in one transaction and returns their ids, in request order. */
+/** Stores pushed samples in one transaction; returns their ids and single-sample documents, in request order. */
 export async function pushSamples(
   ctx: AppContext,
   auth: AuthContext,
   samples: PushedSample[],
   batch: boolean,
   requestId?: string,
-): Promise<string[]> {
+): Promise<{ id: string; document: string }[]> {
   const location = (i: number) => (batch ? `body.samples.${i}` : 'body');
   const referenceErrors: FieldError[] = [];
   const methods = await resolveReferences(ctx.db, auth, samples, location, referenceErrors);
@@ -100,7 +101,9 @@ export async function pushSamples(
       controlSampleIds: samples.map((s) => s.control_sample_id),
       batch,
     });
-    return built.map((b) => b.sample.id);
+    const ids = built.map((b) => b.sample.id);
+    const documents = await prepareSampleDocuments(trx, ids);
+    return ids.map((id) => ({ id, document: documents.get(id)! }));
   });
 }
 
@@ -239,6 +242,7 @@ export async function setBurnExclusion(
     });
     await recordOutOfSpec(trx, { ...sample, ...verdict }, sample.conforms);
     await rejudgeControlPoint(trx, sampleId);
+    await prepareSampleDocuments(trx, [sampleId]);
     await recordAudit(trx, {
       actor,
       requestId,

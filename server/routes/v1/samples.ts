@@ -14,6 +14,8 @@ import {
 } from '../../domain/samples/samples.schemas.ts';
 import { pushSamples, setBurnExclusion } from '../../domain/samples/samples.service.ts';
 import { loadSampleDetail } from '../../domain/samples/sample-view.ts';
+import { preparedSampleDetail } from '../../domain/samples/prepared-documents.ts';
+import { PreparedJson } from '../../lib/prepared-json.ts';
 import { CSV_MAX_ROWS, exportSamplesCsv, listSamplesPage } from '../../domain/samples/sample-lists.ts';
 import { RESULTS_DESCRIPTION } from '../../domain/samples/results-docs.ts';
 import { z } from '../../lib/zod.ts';
@@ -72,8 +74,8 @@ export const sampleRoutes = [
       422: { description: 'The instrument or method does not exist.' },
     },
     async handler({ body, auth, req, ctx, reply }) {
-      const [id] = await pushSamples(ctx, auth, [body], false, req.requestId);
-      reply(201, await loadSampleDetail(ctx.db, auth, id, '%'), { Location: `/api/v1/samples/${id}` });
+      const [stored] = await pushSamples(ctx, auth, [body], false, req.requestId);
+      reply(201, new PreparedJson(stored.document), { Location: `/api/v1/samples/${stored.id}` });
     },
   }),
   defineRoute({
@@ -90,10 +92,8 @@ export const sampleRoutes = [
       422: { description: 'An instrument or method does not exist.' },
     },
     async handler({ body, auth, req, ctx, reply }) {
-      const ids = await pushSamples(ctx, auth, body.samples, true, req.requestId);
-      const data = [];
-      for (const id of ids) data.push(await loadSampleDetail(ctx.db, auth, id, '%'));
-      reply(201, { data });
+      const stored = await pushSamples(ctx, auth, body.samples, true, req.requestId);
+      reply(201, new PreparedJson(`{"data":[${stored.map((s) => s.document).join(',')}]}`));
     },
   }),
   defineRoute({
@@ -108,7 +108,12 @@ export const sampleRoutes = [
     query: UnitQuerySchema,
     responses: { 200: { description: 'The sample.', schema: SampleSchema }, 404: { description: 'No such sample.' } },
     async handler({ params, query, auth, ctx, reply }) {
-      reply(200, await loadSampleDetail(ctx.db, auth, params.id, query.unit));
+      reply(
+        200,
+        query.unit === '%'
+          ? await preparedSampleDetail(ctx.db, auth, params.id)
+          : await loadSampleDetail(ctx.db, auth, params.id, query.unit),
+      );
     },
   }),
   defineRoute({
