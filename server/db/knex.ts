@@ -4,12 +4,9 @@ import { dirname } from 'node:path';
 import Database from 'better-sqlite3';
 import knexFactory, { type Knex } from 'knex';
 import type { Config } from '../config.ts';
+import { cacheStatements } from './statement-cache.ts';
 
 export type Db = Knex;
-
-interface SqliteConnection {
-  pragma(source: string): unknown;
-}
 
 /** `schema` (PostgreSQL only) isolates a database in its own schema: the tests use it. */
 export function createDb(config: Pick<Config, 'databaseFile' | 'databaseUrl'>, options: { schema?: string } = {}): Db {
@@ -28,7 +25,8 @@ export function createDb(config: Pick<Config, 'databaseFile' | 'databaseUrl'>, o
     connection: { filename },
     useNullAsDefault: true,
     pool: {
-      afterCreate(connection: SqliteConnection, done: (error: Error | null, connection: unknown) => void) {
+      afterCreate(connection: Database.Database, done: (error: Error | null, connection: unknown) => void) {
+        cacheStatements(connection);
         connection.pragma('journal_mode = WAL');
         connection.pragma('foreign_keys = ON');
         connection.pragma('busy_timeout = 5000');

@@ -1,9 +1,10 @@
-// One recorder per app: writes log entries without holding up responses, lets readers wait for
+// One recorder per app: writes log entries without holding up responses (the entries of one turn
+// of the event loop together, one transaction instead of one per call), lets readers wait for
 // writes still in progress ("read your own calls"), and hands replays the id their entry will get.
 import { randomBytes } from 'node:crypto';
 import type { AppContext } from '../../context.ts';
 import { newId } from '../../lib/ids.ts';
-import { insertRequestLog, type RequestLogRow } from './request-log.repository.ts';
+import { insertRequestLogRows, type RequestLogRow } from './request-log.repository.ts';
 
 export interface ReplayTicket {
   token: string;
@@ -14,14 +15,29 @@ export interface ReplayTicket {
 class RequestLogRecorder {
   private readonly pending = new Map<string, Promise<void>>();
   private readonly replays = new Map<string, ReplayTicket>();
+  /** Entries recorded since the last write began; written together, in one transaction, after the current turn. */
+  private batch: RequestLogRow[] = [];
+  private batchWritten: Promise<void> | null = null;
 
   constructor(private readonly ctx: AppContext) {}
 
   record(row: RequestLogRow): void {
-    const write = insertRequestLog(this.ctx.db, row)
-      .catch((error: unknown) => this.ctx.logger.error({ err: error, requestId: row.request_id }, 'request log write failed'))
-      .finally(() => this.pending.delete(row.id));
-    this.pending.set(row.id, write);
+    this.batch.push(row);
+    this.batchWritten ??= new Promise<void>((resolve) => setImmediate(resolve)).then(() => this.writeBatch());
+    this.pending.set(row.id, this.batchWritten);
+  }
+
+  private async writeBatch(): Promise<void> {
+    const rows = this.batch;
+    this.batch = [];
+    this.batchWritten = null;
+    try {
+      await insertRequestLogRows(this.ctx.db, rows);
+    } catch (error) {
+      this.ctx.logger.error({ err: error, requestIds: rows.map((row) => row.request_id) }, 'request log write failed');
+    } finally {
+      for (const row of rows) this.pending.delete(row.id);
+    }
   }
 
   /** Resolves once every entry recorded so far is written. */

@@ -1,7 +1,8 @@
 // The only code that touches the request_log table. Rows are appended, read and aged out.
 import type { BodyKind } from './body-kinds.ts';
 import { type KeysetColumn, keysetPage, type PageRequest } from '../../db/keyset.ts';
-import type { Queryable } from '../../db/transaction.ts';
+import { bulkInsert } from '../../db/bulk-insert.ts';
+import { inTransaction, type Queryable } from '../../db/transaction.ts';
 import type { Page } from '../../lib/pagination.ts';
 
 export interface RequestLogRow {
@@ -74,8 +75,8 @@ function normalise(row: RequestLogRow): RequestLogRow {
   };
 }
 
-export async function insertRequestLog(db: Queryable, row: RequestLogRow): Promise<void> {
-  await db<RequestLogRow>('request_log').insert(row);
+export async function insertRequestLogRows(db: Queryable, rows: RequestLogRow[]): Promise<void> {
+  await inTransaction(db, (trx) => bulkInsert(trx, 'request_log', rows as unknown as Record<string, unknown>[]));
 }
 
 export async function findRequestLogRow(db: Queryable, id: string): Promise<RequestLogRow | undefined> {
