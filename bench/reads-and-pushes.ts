@@ -1,139 +1,89 @@
-// `npm run bench:api`: the read and push paths of the real app over HTTP on a SQLite file holding
-// 5,000 samples (3 burns × 25 elements), each against a floor measured in the same run:
+// `npm run bench:api`: the read and push paths of Meltwire as `npm start` runs it (its own process,
+// on a SQLite file holding 5,000 samples of 3 burns × 25 elements), each against a floor in the
+// same run (bench/floors.ts, also its own process); the load comes from this process:
 // - list page `GET /api/v1/samples?limit=100` and single `GET /api/v1/samples/{id}`, autocannon at
-//   50 connections for 10 s with an API key; floor: node:http answering with the same stored rows
-//   read by one better-sqlite3 query per request and JSON.stringify (no conversion, no checks);
-// - `POST /api/v1/samples` (3 burns × 25 elements) sequentially and from 10 concurrent clients;
-//   floor: node:http + JSON.parse + one better-sqlite3 transaction writing the sample and its burns.
-// Prints one table and writes bench/results-api.json. Compare the ratios, not the figures.
-import { writeFileSync } from 'node:fs';
-import { createServer, type Server } from 'node:http';
-import type { AddressInfo } from 'node:net';
-import Database from 'better-sqlite3';
-import { createApiKey } from '../server/domain/api-keys/api-keys.service.ts';
-import { sessionAuthContext } from '../server/domain/auth/auth.service.ts';
-import { findUserByEmail } from '../server/domain/users/users.repository.ts';
-import { DEMO_USERS } from '../server/seed/demo-users.ts';
-import { startLiveServer } from '../tests/helpers/live-server.ts';
+//   50 connections for 10 s with an API key (rate limit raised); the floor answers with the same
+//   stored bytes (the prepared documents) read by one better-sqlite3 query per request;
+// - `POST /api/v1/samples` (3 burns × 25 elements) one after another and from 10 concurrent
+//   clients; floor: JSON.parse and one better-sqlite3 transaction writing the sample and its burns.
+// The server logs at warn (no line per request). Writes bench/results-api.json; `npm run bench`
+// puts these rows in its one table. Compare the ratios, not the figures.
+import { type ChildProcess, spawn } from 'node:child_process';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { signIn, startServerProcess } from '../tests/helpers/server-process.ts';
 import { cannon, closeLoadAgent, fill, pushBody, type Target, timedPushes } from './api-load.ts';
+import { type BenchRow, printTable } from './bench-table.ts';
 
 const SAMPLES = Number(process.env.BENCH_SAMPLES ?? 5000);
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 10);
 const PUSHES = Number(process.env.BENCH_PUSHES ?? 300);
+const PORT = Number(process.env.BENCH_PORT ?? 4791);
 
-const server = await startLiveServer({ console: false, validateResponses: false, config: { rateLimitPerMinute: 1_000_000_000 } });
-const admin = await findUserByEmail(server.db, DEMO_USERS[0].email);
-const { secret } = await createApiKey(server.ctx, sessionAuthContext(admin!, 'bench'), {
-  name: 'bench',
-  scopes: ['samples:read', 'samples:write'],
-});
-const headers = { authorization: `Bearer ${secret}`, 'content-type': 'application/json' };
-const [instrument] = (await (await fetch(`${server.url}/api/v1/instruments`, { headers })).json()).data as { id: string }[];
-const method = ((await (await fetch(`${server.url}/api/v1/methods`, { headers })).json()).data as { id: string; code: string }[]).find(
-  (m) => m.code === 'FE-LA',
-)!;
-const target: Target = { base: server.url, headers, instrumentId: instrument.id, methodId: method.id };
-await fill(target, SAMPLES, 'RB');
-const databaseFile = server.ctx.config.databaseFile;
-const sampleId = ((await (await fetch(`${server.url}/api/v1/samples?limit=1`, { headers })).json()).data as { id: string }[])[0].id;
-
-/** The read floor: the same stored rows, one query per request, sent as JSON without any work on them. */
-function readFloor(): Promise<Server> {
-  const db = new Database(databaseFile, { readonly: true });
-  const list = db.prepare('select * from samples order by id limit 100');
-  const one = db.prepare('select * from samples where id = ?');
-  const burns = db.prepare('select * from burns where sample_id = ? order by burn_number');
-  const floor = createServer((req, res) => {
-    const body = req.url!.startsWith('/one') ? { ...(one.get(sampleId) as object), burns: burns.all(sampleId) } : { data: list.all() };
-    res.writeHead(200, { 'content-type': 'application/json' }).end(JSON.stringify(body));
+/** Starts bench/floors.ts on the database file; resolves with its URL once it listens. */
+function startFloors(databaseFile: string, sampleId: string): Promise<{ url: string; child: ChildProcess }> {
+  const child = spawn(process.execPath, ['--import', 'tsx', 'bench/floors.ts', databaseFile, sampleId], {
+    stdio: ['ignore', 'pipe', 'inherit'],
   });
-  return new Promise((resolve) => floor.listen(0, '127.0.0.1', () => resolve(floor)));
-}
-
-/** The push floor: JSON.parse and one transaction writing the sample and its burns. */
-function pushFloor(): Promise<Server> {
-  const db = new Database(databaseFile.replace(/\.db$/, '-floor.db'));
-  db.pragma('journal_mode = WAL');
-  db.pragma('synchronous = NORMAL');
-  db.exec(
-    'create table if not exists s (id integer primary key, code text, body text); create table if not exists b (s integer, n integer, v text)',
-  );
-  const insertSample = db.prepare('insert into s (code, body) values (?, ?)');
-  const insertBurn = db.prepare('insert into b (s, n, v) values (?, ?, ?)');
-  const write = db.transaction((parsed: { sample_code: string; burns: { values: unknown }[] }, text: string) => {
-    const id = insertSample.run(parsed.sample_code, text).lastInsertRowid;
-    parsed.burns.forEach((burn, n) => insertBurn.run(id, n + 1, JSON.stringify(burn.values)));
-    return id;
-  });
-  const floor = createServer((req, res) => {
-    let text = '';
-    req.on('data', (chunk: Buffer) => (text += chunk));
-    req.on('end', () => {
-      const id = write(JSON.parse(text), text);
-      res.writeHead(201, { 'content-type': 'application/json' }).end(JSON.stringify({ id: String(id) }));
+  return new Promise((resolve, reject) => {
+    child.once('exit', (code) => reject(new Error(`the floors exited with ${code}`)));
+    child.stdout!.on('data', (chunk: Buffer) => {
+      const port = /listening (\d+)/.exec(String(chunk))?.[1];
+      if (port) resolve({ url: `http://127.0.0.1:${port}`, child });
     });
   });
-  return new Promise((resolve) => floor.listen(0, '127.0.0.1', () => resolve(floor)));
 }
 
-const floorRead = await readFloor();
-const floorReadUrl = `http://127.0.0.1:${(floorRead.address() as AddressInfo).port}`;
-const auth = { authorization: headers.authorization };
-const listProduct = await cannon([`${server.url}/api/v1/samples?limit=100`], SECONDS, auth);
-const listFloor = await cannon([`${floorReadUrl}/list`], SECONDS);
-const oneProduct = await cannon([`${server.url}/api/v1/samples/${sampleId}`], SECONDS, auth);
-const oneFloor = await cannon([`${floorReadUrl}/one`], SECONDS);
-floorRead.close();
-
-const floorPush = await pushFloor();
-const body = (code: string, i: number) => pushBody(target, code, i);
-const pushFloorFigures = await timedPushes(
-  [`http://127.0.0.1:${(floorPush.address() as AddressInfo).port}/`],
-  headers,
-  PUSHES,
-  body,
-  'FLOOR',
-);
-const pushProduct = await timedPushes([`${server.url}/api/v1/samples`], headers, PUSHES, body, 'PUSH');
-floorPush.close();
-closeLoadAgent();
-
-const rows = [
-  { figure: 'list page req/s', value: listProduct.rps, floor: listFloor.rps, ratio: listProduct.rps / listFloor.rps, target: '≥ 0.60' },
-  { figure: 'list page p99 ms', value: listProduct.p99, floor: listFloor.p99, ratio: listProduct.p99 / listFloor.p99, target: '< 100 ms' },
-  { figure: 'single sample req/s', value: oneProduct.rps, floor: oneFloor.rps, ratio: oneProduct.rps / oneFloor.rps, target: '≥ 0.70' },
-  {
-    figure: 'push p50 ms (sequential)',
-    value: pushProduct.p50,
-    floor: pushFloorFigures.p50,
-    ratio: pushProduct.p50 / pushFloorFigures.p50,
-    target: '—',
-  },
-  {
-    figure: 'push p99 ms (10 clients)',
-    value: pushProduct.p99,
-    floor: pushFloorFigures.p99,
-    ratio: pushProduct.p99 / pushFloorFigures.p99,
-    target: '< 25 ms',
-  },
-  {
-    figure: 'push samples/s (10 clients)',
-    value: pushProduct.perSecond,
-    floor: pushFloorFigures.perSecond,
-    ratio: pushProduct.perSecond / pushFloorFigures.perSecond,
-    target: '≥ 0.50',
-  },
-];
-const pass = [rows[0].ratio >= 0.6, rows[1].value < 100, rows[2].ratio >= 0.7, true, rows[4].value < 25, rows[5].ratio >= 0.5];
-console.log(`reads and pushes on ${SAMPLES} samples (3 burns × 25 elements), autocannon 50 connections × ${SECONDS} s`);
-console.log('figure                        product      floor   ratio  target    ');
-rows.forEach((row, i) =>
-  console.log(
-    `${row.figure.padEnd(28)} ${row.value.toFixed(1).padStart(9)} ${row.floor.toFixed(1).padStart(10)} ${row.ratio.toFixed(2).padStart(7)}  ${row.target.padEnd(9)} ${pass[i] ? 'pass' : 'MISS'}`,
-  ),
-);
-writeFileSync(
-  new URL('./results-api.json', import.meta.url),
-  `${JSON.stringify({ samples: SAMPLES, seconds: SECONDS, rows, pass }, null, 2)}\n`,
-);
-await server.stop();
+const dir = mkdtempSync(join(tmpdir(), 'meltwire-bench-api-'));
+const databaseFile = join(dir, 'bench.db');
+const server = await startServerProcess(databaseFile, PORT, { RATE_LIMIT_PER_MINUTE: '1000000000', LOG_LEVEL: 'warn' });
+try {
+  const cookie = await signIn(server.url);
+  const created = await fetch(`${server.url}/api/v1/api-keys`, {
+    method: 'POST',
+    headers: { cookie, 'content-type': 'application/json' },
+    body: JSON.stringify({ name: 'bench', scopes: ['samples:read', 'samples:write'] }),
+  });
+  const { secret } = (await created.json()) as { secret: string };
+  const headers = { authorization: `Bearer ${secret}`, 'content-type': 'application/json' };
+  const lookup = async (path: string) =>
+    ((await (await fetch(`${server.url}/api/v1/${path}`, { headers })).json()) as { data: { id: string; code: string }[] }).data;
+  const instrument = (await lookup('instruments')).find((i) => i.code === 'OES-1')!;
+  const method = (await lookup('methods')).find((m) => m.code === 'FE-LA')!;
+  const target: Target = { base: server.url, headers, instrumentId: instrument.id, methodId: method.id };
+  await fill(target, SAMPLES, 'RB');
+  const sampleId = ((await (await fetch(`${server.url}/api/v1/samples?limit=1`, { headers })).json()) as { data: { id: string }[] }).data[0]
+    .id;
+  const floors = await startFloors(databaseFile, sampleId);
+  try {
+    const auth = { authorization: headers.authorization };
+    const listProduct = await cannon([`${server.url}/api/v1/samples?limit=100`], SECONDS, auth);
+    const listFloor = await cannon([`${floors.url}/list`], SECONDS);
+    const oneProduct = await cannon([`${server.url}/api/v1/samples/${sampleId}`], SECONDS, auth);
+    const oneFloor = await cannon([`${floors.url}/one`], SECONDS);
+    const body = (code: string, i: number) => pushBody(target, code, i);
+    const pushFloor = await timedPushes([`${floors.url}/push`], headers, PUSHES, body, 'FLOOR');
+    const pushProduct = await timedPushes([`${server.url}/api/v1/samples`], headers, PUSHES, body, 'PUSH');
+    closeLoadAgent();
+    const rows: BenchRow[] = [
+      { figure: 'list page req/s', value: listProduct.rps, floor: listFloor.rps, target: { ratioAtLeast: 0.6 } },
+      { figure: 'list page p99 ms', value: listProduct.p99, floor: listFloor.p99, target: { below: 100 } },
+      { figure: 'single sample req/s', value: oneProduct.rps, floor: oneFloor.rps, target: { ratioAtLeast: 0.7 } },
+      { figure: 'push p50 ms (one client)', value: pushProduct.p50, floor: pushFloor.p50, target: null },
+      { figure: 'push p99 ms (10 clients)', value: pushProduct.p99, floor: pushFloor.p99, target: { below: 25 } },
+      { figure: 'push samples/s (10 clients)', value: pushProduct.perSecond, floor: pushFloor.perSecond, target: { ratioAtLeast: 0.5 } },
+    ];
+    console.log(`reads and pushes on ${SAMPLES} samples (3 burns × 25 elements), autocannon 50 connections × ${SECONDS} s`);
+    printTable(rows);
+    writeFileSync(
+      new URL('./results-api.json', import.meta.url),
+      `${JSON.stringify({ samples: SAMPLES, seconds: SECONDS, rows }, null, 2)}\n`,
+    );
+  } finally {
+    floors.child.kill();
+  }
+} finally {
+  await server.stop();
+  rmSync(dir, { recursive: true, force: true });
+}

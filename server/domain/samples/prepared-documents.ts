@@ -20,7 +20,15 @@ import {
   writePreparedDocuments,
 } from './prepared-documents.repository.ts';
 import { isSampleVisible } from './sample-access.ts';
-import { type BurnRow, findBurnsOfSamples, findSamplesByIds, type SampleFilters, type SampleOrder } from './samples.repository.ts';
+import {
+  type BurnRow,
+  findBurnsOfSamples,
+  findSamplesByIds,
+  type SampleFilters,
+  type SampleOrder,
+  type SampleRow,
+  type SampleRowWithRefs,
+} from './samples.repository.ts';
 import type { SampleListSchema, SampleSchema } from './samples.schemas.ts';
 import { loadSampleDetail, toSampleExtras, toSampleSummary } from './sample-view.ts';
 
@@ -46,6 +54,38 @@ export function isCurrent(state: DocumentState, document: string | null): docume
   return document !== null && state.doc_key === documentKey(state);
 }
 
+/** The codes a new sample's documents show, by instrument and method id. */
+export interface DocumentCodes {
+  instrumentCode(id: string): string;
+  methodCode(id: string): string;
+}
+
+/** The stored columns of a sample about to be inserted (no import: a pushed sample). */
+export function documentsOfNewSample(
+  sample: SampleRow,
+  burns: BurnRow[],
+  codes: DocumentCodes,
+): Pick<PreparedDocuments, 'summary_doc' | 'detail_doc' | 'doc_key'> {
+  const row = {
+    ...sample,
+    instrument_code: codes.instrumentCode(sample.instrument_id),
+    method_code: codes.methodCode(sample.method_id),
+    burn_count: burns.length,
+  };
+  return documentsOf(row, burns, undefined);
+}
+
+function documentsOf(
+  row: SampleRowWithRefs,
+  burns: BurnRow[],
+  importMeta: ImportMeta | undefined,
+): Pick<PreparedDocuments, 'summary_doc' | 'detail_doc' | 'doc_key'> {
+  const summary = JSON.stringify(toSampleSummary(row, '%'));
+  const extras = JSON.stringify(toSampleExtras(row, burns, importMeta, '%'));
+  // JSON.stringify({ ...summary, ...extras }) without writing the summary twice: its keys, then the extras'.
+  return { summary_doc: summary, detail_doc: `${summary.slice(0, -1)},${extras.slice(1)}`, doc_key: documentKey(row) };
+}
+
 /** Makes and stores the documents of these samples; returns each one's single-sample text by id. */
 export async function prepareSampleDocuments(db: Queryable, ids: string[]): Promise<Map<string, string>> {
   const details = new Map<string, string>();
@@ -58,19 +98,9 @@ export async function prepareSampleDocuments(db: Queryable, ids: string[]): Prom
     for (const importId of new Set(rows.map((row) => row.import_id).filter((id) => id !== null)))
       imports.set(importId, await findImportMeta(db, importId));
     const documents: PreparedDocuments[] = rows.map((row) => {
-      const summary = JSON.stringify(toSampleSummary(row, '%'));
-      const importMeta = row.import_id ? imports.get(row.import_id) : undefined;
-      const extras = JSON.stringify(toSampleExtras(row, burns.get(row.id) ?? [], importMeta, '%'));
-      // JSON.stringify({ ...summary, ...extras }) without writing the summary twice: its keys, then the extras'.
-      const detail = `${summary.slice(0, -1)},${extras.slice(1)}`;
-      details.set(row.id, detail);
-      return {
-        id: row.id,
-        updated_at: row.updated_at,
-        summary_doc: summary,
-        detail_doc: detail,
-        doc_key: documentKey(row),
-      };
+      const prepared = documentsOf(row, burns.get(row.id) ?? [], row.import_id ? imports.get(row.import_id) : undefined);
+      details.set(row.id, prepared.detail_doc);
+      return { id: row.id, updated_at: row.updated_at, ...prepared };
     });
     await writePreparedDocuments(db, documents);
   }

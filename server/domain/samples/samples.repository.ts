@@ -85,7 +85,10 @@ export interface BurnRow {
   corrected_json: string | null;
 }
 
-export async function insertSamples(db: Queryable, samples: SampleRow[], burns: BurnRow[]): Promise<void> {
+/** A new sample's row, with its prepared documents when they were made with it (prepared-documents.ts). */
+export type NewSampleRow = SampleRow & { summary_doc?: string; detail_doc?: string; doc_key?: string };
+
+export async function insertSamples(db: Queryable, samples: NewSampleRow[], burns: BurnRow[]): Promise<void> {
   await bulkInsert(db, 'samples', samples as unknown as Record<string, unknown>[]);
   await bulkInsert(db, 'burns', burns as unknown as Record<string, unknown>[]);
 }

@@ -9,16 +9,24 @@ import { nowIso } from '../../lib/time.ts';
 import { type Actor, actorOf } from '../audit/actor.ts';
 import { recordAudit } from '../audit/audit.repository.ts';
 import { assertInstrumentAllowed } from '../instruments/instruments.service.ts';
-import { findInstrument } from '../instruments/instruments.repository.ts';
+import { findInstrument, type InstrumentRow } from '../instruments/instruments.repository.ts';
 import { findMethod, type Method } from '../methods/methods.repository.ts';
 import { timelineLoader } from '../drift/correction-timeline.ts';
 import { normalisePushedBurns } from './pushed-sample.ts';
 import { buildSampleRows } from './sample-builder.ts';
 import { computeSampleResults } from './sample-results.ts';
-import { type BurnRow, findBurns, insertSamples, type SampleRow, updateBurn, updateSampleResults } from './samples.repository.ts';
+import {
+  type BurnRow,
+  findBurns,
+  insertSamples,
+  type NewSampleRow,
+  type SampleRow,
+  updateBurn,
+  updateSampleResults,
+} from './samples.repository.ts';
 import { decodeResults, encodeResults } from './results-codec.ts';
 import { loadSample } from './sample-access.ts';
-import { prepareSampleDocuments } from './prepared-documents.ts';
+import { type DocumentCodes, documentsOfNewSample, prepareSampleDocuments } from './prepared-documents.ts';
 import { recordSamplesCreated } from './sample-events.ts';
 import type { PushSampleRequestSchema } from './samples.schemas.ts';
 import type { z } from '../../lib/zod.ts';
@@ -38,9 +46,9 @@ async function resolveReferences(
   errors: FieldError[],
 ) {
   const methods = new Map<string, Method | undefined>();
-  const instruments = new Map<string, boolean>();
+  const instruments = new Map<string, InstrumentRow | undefined>();
   for (const [i, sample] of samples.entries()) {
-    if (!instruments.has(sample.instrument_id)) instruments.set(sample.instrument_id, !!(await findInstrument(db, sample.instrument_id)));
+    if (!instruments.has(sample.instrument_id)) instruments.set(sample.instrument_id, await findInstrument(db, sample.instrument_id));
     if (!instruments.get(sample.instrument_id))
       errors.push({
         location: `${location(i)}.instrument_id`,
@@ -52,7 +60,7 @@ async function resolveReferences(
     if (!methods.get(sample.method_id))
       errors.push({ location: `${location(i)}.method_id`, message: `no method ${sample.method_id}`, code: 'unknown_reference' });
   }
-  return methods;
+  return { methods, instruments };
 }
 
 /** Stores pushed samples in one transaction; returns their ids and single-sample documents, in request order. */
@@ -65,7 +73,7 @@ export async function pushSamples(
 ): Promise<{ id: string; document: string }[]> {
   const location = (i: number) => (batch ? `body.samples.${i}` : 'body');
   const referenceErrors: FieldError[] = [];
-  const methods = await resolveReferences(ctx.db, auth, samples, location, referenceErrors);
+  const { methods, instruments } = await resolveReferences(ctx.db, auth, samples, location, referenceErrors);
   if (referenceErrors.length)
     throw new UnprocessableProblem('A sample refers to an instrument or method that does not exist.', referenceErrors);
 
@@ -96,34 +104,45 @@ export async function pushSamples(
       const corrections = await timelineOf(sample.instrument_id, method.id);
       built.push(buildSampleRows({ ...sample, method, source: 'push', created_by_label: actor.label, burns, corrections }, now));
     }
-    await storeNewSamples(trx, built, actor, requestId, {
+    const stored = await storeNewSamples(trx, built, actor, requestId, {
       userId: auth.userId,
       controlSampleIds: samples.map((s) => s.control_sample_id),
       batch,
+      documentCodes: { instrumentCode: (id) => instruments.get(id)!.code, methodCode: (id) => methods.get(id)!.code },
     });
-    const ids = built.map((b) => b.sample.id);
-    const documents = await prepareSampleDocuments(trx, ids);
-    return ids.map((id) => ({ id, document: documents.get(id)! }));
+    return stored.map((sample) => ({ id: sample.id, document: sample.detail_doc! }));
   });
 }
 
-/** Inserts built samples and audits each one; runs inside the caller's transaction. */
+/**
+ * Inserts built samples and audits each one; runs inside the caller's transaction. With
+ * `documentCodes` the samples are stored with their prepared documents (a push answers with them);
+ * otherwise the caller prepares them (an import does so after its transaction).
+ */
 export async function storeNewSamples(
   trx: Transaction,
   built: ReturnType<typeof buildSampleRows>[],
   actor: Actor,
   requestId?: string,
-  options: { auditEach?: boolean; userId?: string; controlSampleIds?: (string | undefined)[]; batch?: boolean } = {},
-): Promise<void> {
+  options: {
+    auditEach?: boolean;
+    userId?: string;
+    controlSampleIds?: (string | undefined)[];
+    batch?: boolean;
+    documentCodes?: DocumentCodes;
+  } = {},
+): Promise<NewSampleRow[]> {
   // Control links first: a sample linked by its code is stored as kind control.
   const controlLinks = await resolveControlLinks(trx, built, options.controlSampleIds, options.batch);
   const judge = conformanceJudge(trx);
   for (const { sample } of built) {
     Object.assign(sample, await judge(sample.grade, decodeResults(sample.results_json)), { changed_by_user_id: options.userId ?? null });
   }
+  const codes = options.documentCodes;
+  const rows: NewSampleRow[] = built.map((b) => (codes ? { ...b.sample, ...documentsOfNewSample(b.sample, b.burns, codes) } : b.sample));
   await insertSamples(
     trx,
-    built.map((b) => b.sample),
+    rows,
     built.flatMap((b) => b.burns),
   );
   // One sample.created event per sample, whatever the path (push, batch, import, seed).
@@ -131,7 +150,7 @@ export async function storeNewSamples(
   for (const { sample } of built) await recordOutOfSpec(trx, sample, null);
   await linkControlMeasurements(trx, built, controlLinks);
   // A file import is audited once, as import.completed, naming the import that holds the samples.
-  if (options.auditEach === false) return;
+  if (options.auditEach === false) return rows;
   for (const { sample } of built) {
     await recordAudit(trx, {
       actor,
@@ -148,6 +167,7 @@ export async function storeNewSamples(
       },
     });
   }
+  return rows;
 }
 
 /** Records sample.out_of_spec when a verdict has just become "does not conform". */
