@@ -2578,6 +2578,7 @@ export interface components {
             /** @enum {string|null} */
             default_unit: "%" | "ppm" | "ppb" | "fraction" | null;
             ignore_columns: string[];
+            keep_columns: string[];
             time: {
                 /** @enum {string} */
                 format: "auto" | "iso8601" | "YYYY-MM-DD HH:mm[:ss]" | "DD.MM.YYYY HH:mm[:ss]";
@@ -2656,6 +2657,11 @@ export interface components {
             default_unit: string | null;
             /** @default [] */
             ignore_columns: string[];
+            /**
+             * @description Headers whose automatic reading the lab has confirmed (for example an element the method does not list, kept as measured): the import no longer warns about them.
+             * @default []
+             */
+            keep_columns: string[];
             time?: components["schemas"]["ImportProfileTime"];
         };
         /**
@@ -2796,6 +2802,8 @@ export interface components {
              */
             default_unit?: string | null;
             ignore_columns?: string[];
+            /** @description Headers whose automatic reading the lab has confirmed (for example an element the method does not list, kept as measured): the import no longer warns about them. */
+            keep_columns?: string[];
             time?: components["schemas"]["ImportProfileTime"];
         };
         Import: {
@@ -2835,6 +2843,21 @@ export interface components {
                     role: string;
                     element?: string;
                     unit?: string;
+                    /** @description Role `field`: the key the column is stored under in `fields`. */
+                    field?: string;
+                    /**
+                     * @description `profile`: the import profile says how to read it; `auto`: recognised from the header.
+                     * @enum {string}
+                     */
+                    source?: "profile" | "auto";
+                    /** @description True when the profile's `keep_columns` confirms the automatic reading. */
+                    kept?: boolean;
+                    /** @description This reading is often wrong and no profile decides it: `computed_index` (`CE` read as cerium, usually the carbon equivalent), `balance_element` (the method's base element, usually printed as the balance), `not_in_method` (an element the method does not list). The same text is in `warnings` (code = attention code). Decide in an import profile: `ignore_columns`, `element_columns`, `columns.fields` or `keep_columns`. */
+                    attention?: {
+                        /** @enum {string} */
+                        code: "computed_index" | "balance_element" | "not_in_method";
+                        message: string;
+                    };
                 }[];
             };
             counts: {
@@ -2847,6 +2870,18 @@ export interface components {
                 values: number;
             };
             sample_ids: string[];
+            /** @description Result flags of the created samples, per element (method order, then by flag): how many samples carry each. Absent in reports stored before it was added. */
+            flag_summary?: {
+                /** @description Null for a flag of the whole sample (such as sum_above_100). */
+                element: string | null;
+                /**
+                 * @description A result flag (see GET /samples/{id}).
+                 * @example repeatability_exceeded
+                 */
+                flag: string;
+                /** @description How many of the created samples carry it. */
+                samples: number;
+            }[];
             warnings: components["schemas"]["ImportIssue"][];
             /** @description Lines that were not imported, with the reason (per-sample mode only; in all-or-nothing mode any of them stops the import). */
             rejected: components["schemas"]["ImportIssue"][];
@@ -2895,6 +2930,21 @@ export interface components {
                     role: string;
                     element?: string;
                     unit?: string;
+                    /** @description Role `field`: the key the column is stored under in `fields`. */
+                    field?: string;
+                    /**
+                     * @description `profile`: the import profile says how to read it; `auto`: recognised from the header.
+                     * @enum {string}
+                     */
+                    source?: "profile" | "auto";
+                    /** @description True when the profile's `keep_columns` confirms the automatic reading. */
+                    kept?: boolean;
+                    /** @description This reading is often wrong and no profile decides it: `computed_index` (`CE` read as cerium, usually the carbon equivalent), `balance_element` (the method's base element, usually printed as the balance), `not_in_method` (an element the method does not list). The same text is in `warnings` (code = attention code). Decide in an import profile: `ignore_columns`, `element_columns`, `columns.fields` or `keep_columns`. */
+                    attention?: {
+                        /** @enum {string} */
+                        code: "computed_index" | "balance_element" | "not_in_method";
+                        message: string;
+                    };
                 }[];
             };
             counts: {

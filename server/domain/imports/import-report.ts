@@ -33,16 +33,13 @@ export const ImportReportSchema = z
               .enum(['profile', 'auto'])
               .optional()
               .openapi({ description: '`profile`: the import profile says how to read it; `auto`: recognised from the header.' }),
-            kept: z
-              .boolean()
-              .optional()
-              .openapi({ description: "True when the profile's `keep_columns` confirms the automatic reading." }),
+            kept: z.boolean().optional().openapi({ description: "True when the profile's `keep_columns` confirms the automatic reading." }),
             attention: z
               .object({ code: z.enum(['computed_index', 'balance_element', 'not_in_method']), message: z.string() })
               .optional()
               .openapi({
                 description:
-                  'This reading is often wrong and no profile decides it: `computed_index` (`CE` read as cerium, usually the carbon equivalent), `balance_element` (the method\'s base element, usually printed as the balance), `not_in_method` (an element the method does not list). The same text is in `warnings` (code = attention code). Decide in an import profile: `ignore_columns`, `element_columns`, `columns.fields` or `keep_columns`.',
+                  "This reading is often wrong and no profile decides it: `computed_index` (`CE` read as cerium, usually the carbon equivalent), `balance_element` (the method's base element, usually printed as the balance), `not_in_method` (an element the method does not list). The same text is in `warnings` (code = attention code). Decide in an import profile: `ignore_columns`, `element_columns`, `columns.fields` or `keep_columns`.",
               }),
           }),
         ),

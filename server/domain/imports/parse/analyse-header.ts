@@ -69,7 +69,9 @@ export function analyseHeader(
   defaultUnit: Unit | undefined,
 ): HeaderAnalysis {
   const headers = rawHeader.map((cell) => cell.trim());
-  const { roles, kept } = profile ? assignProfile(headers, line, profile) : { roles: headers.map(() => undefined), kept: new Set<number>() };
+  const { roles, kept } = profile
+    ? assignProfile(headers, line, profile)
+    : { roles: headers.map(() => undefined), kept: new Set<number>() };
   const warnings: Issue[] = [];
   const elementErrors: Issue[] = [];
   const taken = new Set(roles.flatMap((role) => (role && SINGLE_ROLES.includes(role.role) ? [role.role] : [])));
