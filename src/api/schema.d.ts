@@ -2952,6 +2952,8 @@ export interface components {
                 samples: number;
                 burns: number;
                 values: number;
+                /** @description Samples with at least one line that cannot be read: an all-or-nothing import refuses the file, a per-sample import leaves them out. */
+                samples_with_rejected_lines: number;
             };
             /** @description The first 20 samples as they would be stored (values as written, with their qualifier). */
             samples: {

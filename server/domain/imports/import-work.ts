@@ -65,7 +65,13 @@ function layoutOf(parsed: ParsedFile): ImportReport['layout'] {
 function preview(parsed: ParsedFile): ImportPreview {
   return {
     layout: layoutOf(parsed),
-    counts: { rows: parsed.counts.rows, samples: parsed.samples.length, burns: parsed.counts.burns, values: parsed.counts.values },
+    counts: {
+      rows: parsed.counts.rows,
+      samples: parsed.samples.length,
+      burns: parsed.counts.burns,
+      values: parsed.counts.values,
+      samples_with_rejected_lines: parsed.samples.filter((s) => s.rejected.length > 0).length,
+    },
     samples: parsed.samples.slice(0, 20).map((s) => ({
       sample_code: s.sample_code,
       heat: s.heat ?? null,
