@@ -27,7 +27,7 @@ export function importPlan(preview: ImportPreview, mode: ImportMode): ImportPlan
   const { samples, samples_with_rejected_lines: broken } = preview.counts;
   const lines = new Set(preview.rejected.map((issue) => issue.line)).size;
   const readable = samples - broken;
-  if (broken > 0 && mode === 'all_or_nothing') {
+  if (lines > 0 && mode === 'all_or_nothing') {
     return {
       canProceed: false,
       title: 'This file would be refused whole',
@@ -39,16 +39,18 @@ export function importPlan(preview: ImportPreview, mode: ImportMode): ImportPlan
     return {
       canProceed: false,
       title: 'No sample can be stored',
-      text: `Every sample of this file has a line that cannot be read. Correct the file and upload it again.`,
+      text: 'Every sample of this file has a line that cannot be read. Correct the file and upload it again.',
       button: 'Import',
     };
   }
-  if (broken > 0) {
+  if (lines > 0) {
+    const leftOut = lines === 1 ? 'The line that cannot be read is' : `The ${lines} lines that cannot be read are`;
+    const alsoSamples = broken > 0 ? `, with the ${count(broken, 'sample')} they belong to,` : '';
     return {
       canProceed: true,
-      title: `${count(readable, 'sample')} will be stored, ${count(broken, 'sample')} left out`,
-      text: `${count(readable, 'sample')} will be added to the lab's results. ${count(broken, 'sample')} with a line that cannot be read ${broken === 1 ? 'is' : 'are'} left out and listed in the report. ${REVIEW}`,
-      button: `Import ${count(readable, 'sample')}, leave out ${broken}`,
+      title: `${count(readable, 'sample')} will be stored, ${broken > 0 ? count(broken, 'sample') : count(lines, 'line')} left out`,
+      text: `${count(readable, 'sample')} will be added to the lab's results. ${leftOut}${alsoSamples} left out and listed in the report. ${REVIEW}`,
+      button: `Import ${count(readable, 'sample')}, leave out ${broken > 0 ? count(broken, 'sample') : count(lines, 'line')}`,
     };
   }
   return {
