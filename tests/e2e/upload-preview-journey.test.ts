@@ -61,7 +61,11 @@ describe('previews a file with an ambiguous column', () => {
       const commit = page.getByRole('region', { name: 'Import' });
       await commit.getByText('Decide the flagged columns first').waitFor();
       expect(await commit.getByRole('button', { name: /^Import/ }).isDisabled()).toBe(true);
-      expect(await decision('Co %').getByRole('radio', { name: /Keep it as read/ }).isChecked()).toBe(true);
+      expect(
+        await decision('Co %')
+          .getByRole('radio', { name: /Keep it as read/ })
+          .isChecked(),
+      ).toBe(true);
 
       // The 300-digit burn number is clipped inside its cell, the whole value on hover.
       const rejected = page.getByTestId('preview-rejected');
@@ -77,9 +81,13 @@ describe('previews a file with an ambiguous column', () => {
       // Saving without a choice for CE and Fe says what is missing, beside each.
       await panel.getByRole('button', { name: 'Save the choices as a new profile' }).click();
       await decision('CE %').getByText('Choose what to do with this column.').waitFor();
-      await decision('CE %').getByRole('radio', { name: /identification field/ }).check();
+      await decision('CE %')
+        .getByRole('radio', { name: /identification field/ })
+        .check();
       expect(await decision('CE %').getByLabel('Field name for CE %').inputValue()).toBe('carbon_equivalent');
-      await decision('Fe %').getByRole('radio', { name: /Ignore it/ }).check();
+      await decision('Fe %')
+        .getByRole('radio', { name: /Ignore it/ })
+        .check();
       expect(await panel.getByLabel('Name of the new import profile').inputValue()).toBe(`Columns of ${fileName}`);
       await panel.getByRole('button', { name: 'Save the choices as a new profile' }).click();
 
@@ -117,20 +125,28 @@ describe('previews a file with an ambiguous column', () => {
       expect(await scrollsSideways(page)).toBe(false);
       await saveScreen(page, JOURNEY, 'report');
 
-      const stored = await session.server.db('samples').where({ sample_code: `K24-${width}-F1` }).first();
+      const stored = await session.server
+        .db('samples')
+        .where({ sample_code: `K24-${width}-F1` })
+        .first();
       expect(JSON.parse(stored.fields_json)).toMatchObject({ carbon_equivalent: '0.58' });
       const elements = (JSON.parse(stored.results_json) as { element: string }[]).map((r) => r.element);
       expect(elements).toEqual(expect.arrayContaining(['C', 'Mn', 'Co']));
       expect(elements).not.toContain('Ce');
       expect(elements).not.toContain('Fe');
-      const profile = await session.server.db('import_profiles').where({ name: `Columns of ${fileName}` }).first();
+      const profile = await session.server
+        .db('import_profiles')
+        .where({ name: `Columns of ${fileName}` })
+        .first();
       expect(JSON.parse(profile.definition_json)).toMatchObject({
         ignore_columns: ['Fe %'],
         keep_columns: ['Co %'],
         columns: { fields: { carbon_equivalent: 'CE %' } },
       });
       // The raw file is kept byte for byte, with the line that was left out.
-      const raw = await page.request.get(`${session.server.url}${await report.getByRole('link', { name: /raw file/ }).getAttribute('href')}`);
+      const raw = await page.request.get(
+        `${session.server.url}${await report.getByRole('link', { name: /raw file/ }).getAttribute('href')}`,
+      );
       expect((await raw.body()).toString('utf8')).toBe(fileFor(width));
     });
   }

@@ -65,8 +65,8 @@ export function CommitPanel({
       </fieldset>
       {blocked ? (
         <Alert tone="caution" title="Decide the flagged columns first">
-          {undecided.map((h) => `“${h}”`).join(', ')} {undecided.length === 1 ? 'is' : 'are'} not imported until you say what{' '}
-          {undecided.length === 1 ? 'it holds' : 'they hold'} and save the choices above.
+          The file is not imported until you say what {undecided.map((h) => `“${h}”`).join(' and ')}{' '}
+          {undecided.length === 1 ? 'holds' : 'hold'} and save the choices above.
         </Alert>
       ) : (
         <Alert tone={plan.canProceed ? 'info' : 'caution'} title={plan.title}>
