@@ -98,6 +98,11 @@ export function ColumnDecisionChoice({
         )}
         {option('keep', `Keep it as read: element ${column.element ?? ''}, in ${column.unit ?? '%'}`)}
       </div>
+      {decision?.action === 'field' && (
+        <p className="mt-2 text-xs text-slag-500">
+          A field holds one value per sample: the first burn&apos;s is kept, and the report warns where later burns differ.
+        </p>
+      )}
       {problem && (
         <p role="alert" className="mt-2 text-xs font-medium text-oxide-600">
           ⚠ {problem}

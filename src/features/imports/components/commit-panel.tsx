@@ -34,6 +34,7 @@ export function CommitPanel({
   busy: boolean;
 }) {
   const undecided = preview.layout.columns.filter(blocksImport).map((c) => c.header);
+  const outsideMethod = preview.layout.columns.filter((c) => c.attention && !blocksImport(c)).map((c) => `“${c.header}”`);
   const plan = importPlan(preview, mode);
   const blocked = undecided.length > 0 && !preview.duplicate_of;
   return (
@@ -71,6 +72,12 @@ export function CommitPanel({
       ) : (
         <Alert tone={plan.canProceed ? 'info' : 'caution'} title={plan.title}>
           <span data-testid="import-plan">{plan.text}</span>
+          {outsideMethod.length > 0 && !preview.duplicate_of && (
+            <span className="mt-1 block" data-testid="import-plan-kept">
+              {outsideMethod.join(', ')} {outsideMethod.length === 1 ? 'is' : 'are'} not in the method and will be kept as read unless you
+              save other choices above.
+            </span>
+          )}
         </Alert>
       )}
       <div className="flex flex-wrap justify-end gap-2">

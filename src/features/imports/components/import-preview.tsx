@@ -27,6 +27,7 @@ export function ImportPreviewView({ preview, decisions }: { preview: ImportPrevi
     preview.layout.columns,
     burns.map((b) => b.burn.values),
   );
+  const flaggedElements = new Set(preview.layout.columns.flatMap((c) => (c.attention && c.element ? [c.element] : [])));
   // The columns to decide are shown above, with their choices: their warnings are not repeated.
   const otherWarnings = preview.warnings.filter((w) => !isColumnReviewWarning(w));
   return (
@@ -93,7 +94,12 @@ export function ImportPreviewView({ preview, decisions }: { preview: ImportPrevi
               right('Burn'),
               'Time',
               ...elements.map((el) => (
-                <span key={el} className="block text-right normal-case">
+                <span
+                  key={el}
+                  className="block text-right normal-case"
+                  title={flaggedElements.has(el) ? 'This column needs a decision' : undefined}
+                >
+                  {flaggedElements.has(el) && <span aria-label="needs a decision">⚠ </span>}
                   {el}
                 </span>
               )),
