@@ -1,6 +1,7 @@
 // Element columns that are often misread are named before import (preview) and in the report,
 // and an import profile's per-column decisions (ignore, map to an element or a field, keep) are
 // honoured by the import. The report counts result flags per element.
+// Why these columns are doubtful: docs/references.md#import-column-review.
 import { describe, expect, it } from 'vitest';
 import { expectProblem, problemBody, useDemoLab } from '../../helpers/test-app.ts';
 
