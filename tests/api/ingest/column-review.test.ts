@@ -107,6 +107,26 @@ describe('decisions saved in an import profile', () => {
     expect(sample.body.fields).toMatchObject({ carbon_equivalent: '0.58' });
   });
 
+  it('adds decisions to a profile saved before keep_columns existed (PATCH), bumping its revision', async () => {
+    const created = await state.agent.post('/api/v1/import-profiles').send({ name: 'Older profile', ignore_columns: ['CE %'] });
+    const row = await state.t.db('import_profiles').where({ id: created.body.id }).first();
+    const { keep_columns: _dropped, ...older } = JSON.parse(row.definition_json);
+    await state.t
+      .db('import_profiles')
+      .where({ id: created.body.id })
+      .update({ definition_json: JSON.stringify(older) });
+    const fetched = await state.agent.get(`/api/v1/import-profiles/${created.body.id}`);
+    expect(fetched.body.keep_columns).toEqual([]);
+
+    const changed = await state.agent
+      .patch(`/api/v1/import-profiles/${created.body.id}`)
+      .send({ ignore_columns: ['CE %', 'Fe %'], keep_columns: ['Co %'] });
+    expect(changed.status).toBe(200);
+    expect(changed.body).toMatchObject({ revision: 2, ignore_columns: ['CE %', 'Fe %'], keep_columns: ['Co %'] });
+    const preview = await send('preview', AMBIGUOUS, { profile: created.body.id });
+    expect((preview.body.layout.columns as Column[]).filter((c) => c.attention)).toEqual([]);
+  });
+
   it('maps a column to another element', async () => {
     const profile = await state.agent.post('/api/v1/import-profiles').send({
       name: 'Cobalt column is really chromium',
