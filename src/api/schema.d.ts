@@ -904,6 +904,8 @@ export interface paths {
          * Upload an instrument result file
          * @description The raw bytes are kept with their SHA-256. Uploading the same bytes again returns the earlier import with 200 and creates nothing. By default a file is imported all or nothing: one unreadable value answers 422 with `errors[]` naming line and column (`file:line 12:Mn`), and the database is unchanged.
          *
+         *     Element columns that are often misread are named before anything is stored, in `layout.columns[].attention` and as `warnings` with the same code: `computed_index` (a `CE` header, usually the carbon equivalent, would be stored as cerium), `balance_element` (the method's base element, usually printed as the balance), `not_in_method` (an element the method does not list). An import profile decides each one (`ignore_columns`, `element_columns`, `columns.fields`, `keep_columns`); the warning then goes away. The API imports without a decision (the report keeps the warnings); the console waits for one on `computed_index` and `balance_element`.
+         *
          *     Cells obey the limits of a JSON push: sample code, heat and grade at most 100 characters, identification field names 60 and values 500, at most 30 fields per line, element cells 40; a longer cell is an issue of its line and column (`too_long`, `too_many_fields`, `invalid_value`).
          *
          *     Without a profile (and for whatever a profile leaves open) the parser detects: the encoding (UTF-8 with or without BOM, else Windows-1252); the delimiter (`,` `;` or tab: the one that splits the header into most columns and the data lines into as many); the decimal separator (`.` in comma-delimited files; otherwise `,` when more element cells write a digit-comma-digit than a digit-dot-digit); the header (the first non-blank line); the layout (long when an element column and a value column are named and no header is an element, else wide); element columns (a real element symbol in any case with an optional unit: `Mn`, `Mn %`, `%Mn`, `Mn [%]`, `C [ppm]`, `Si(%)`, `Cu mg/kg`; unit from the header, else the profile's default unit, else the caller's, else %); identification headers, ignoring case and treating `_ - . / :` as spaces — sample code (required): `sample`, `sample code`, `sample id`, `sample no`, `sample number`, `sample name`, `specimen`, `specimen id`; heat or lot number: `heat`, `heat no`, `heat number`, `heat id`, `lot`, `lot no`, `lot number`, `batch`, `cast`, `cast no`, `melt`, `melt no`; grade: `grade`, `steel grade`, `alloy`, `alloy grade`, `material`; sample kind (preliminary, final, ladle, incoming, control …): `kind`, `sample kind`, `sample type`, `type`; burn (replicate) number; without it burns count 1, 2, 3 … within a sample: `burn`, `burn no`, `burn number`, `replicate`, `rep`, `spark`, `spark no`; time of the burn: `time`, `timestamp`, `date time`, `datetime`, `measured at`, `measurement time`, `analysed at`, `analyzed at`; long layout: the element symbol: `element`, `analyte`; long layout: the value: `value`, `result`, `concentration`, `conc`; long layout: the unit of the value: `unit`, `units`; ignored (row counter): `no`, `nr`, `row`, `line`, `index`, `#`. Any other header becomes an identification field in `fields`. A header with a unit whose symbol is no element (`Xx %`) rejects the file.
@@ -929,6 +931,8 @@ export interface paths {
         /**
          * Read a result file without storing anything
          * @description Shows how the file would be read: recognised columns, the first samples, warnings and rejected lines, and whether these bytes were imported before.
+         *
+         *     Element columns that are often misread are named before anything is stored, in `layout.columns[].attention` and as `warnings` with the same code: `computed_index` (a `CE` header, usually the carbon equivalent, would be stored as cerium), `balance_element` (the method's base element, usually printed as the balance), `not_in_method` (an element the method does not list). An import profile decides each one (`ignore_columns`, `element_columns`, `columns.fields`, `keep_columns`); the warning then goes away. The API imports without a decision (the report keeps the warnings); the console waits for one on `computed_index` and `balance_element`.
          *
          *     Requires the scope `imports:write`.
          */
@@ -2578,6 +2582,7 @@ export interface components {
             /** @enum {string|null} */
             default_unit: "%" | "ppm" | "ppb" | "fraction" | null;
             ignore_columns: string[];
+            keep_columns: string[];
             time: {
                 /** @enum {string} */
                 format: "auto" | "iso8601" | "YYYY-MM-DD HH:mm[:ss]" | "DD.MM.YYYY HH:mm[:ss]";
@@ -2656,6 +2661,11 @@ export interface components {
             default_unit: string | null;
             /** @default [] */
             ignore_columns: string[];
+            /**
+             * @description Headers whose automatic reading the lab has confirmed (for example an element the method does not list, kept as measured): the import no longer warns about them.
+             * @default []
+             */
+            keep_columns: string[];
             time?: components["schemas"]["ImportProfileTime"];
         };
         /**
@@ -2796,6 +2806,8 @@ export interface components {
              */
             default_unit?: string | null;
             ignore_columns?: string[];
+            /** @description Headers whose automatic reading the lab has confirmed (for example an element the method does not list, kept as measured): the import no longer warns about them. */
+            keep_columns?: string[];
             time?: components["schemas"]["ImportProfileTime"];
         };
         Import: {
@@ -2835,6 +2847,21 @@ export interface components {
                     role: string;
                     element?: string;
                     unit?: string;
+                    /** @description Role `field`: the key the column is stored under in `fields`. */
+                    field?: string;
+                    /**
+                     * @description `profile`: the import profile says how to read it; `auto`: recognised from the header.
+                     * @enum {string}
+                     */
+                    source?: "profile" | "auto";
+                    /** @description True when the profile's `keep_columns` confirms the automatic reading. */
+                    kept?: boolean;
+                    /** @description This reading is often wrong and no profile decides it: `computed_index` (`CE` read as cerium, usually the carbon equivalent), `balance_element` (the method's base element, usually printed as the balance), `not_in_method` (an element the method does not list). The same text is in `warnings` (code = attention code). Decide in an import profile: `ignore_columns`, `element_columns`, `columns.fields` or `keep_columns`. */
+                    attention?: {
+                        /** @enum {string} */
+                        code: "computed_index" | "balance_element" | "not_in_method";
+                        message: string;
+                    };
                 }[];
             };
             counts: {
@@ -2847,6 +2874,18 @@ export interface components {
                 values: number;
             };
             sample_ids: string[];
+            /** @description Result flags of the created samples, per element (method order, then by flag): how many samples carry each. Absent in reports stored before it was added. */
+            flag_summary?: {
+                /** @description Null for a flag of the whole sample (such as sum_above_100). */
+                element: string | null;
+                /**
+                 * @description A result flag (see GET /samples/{id}).
+                 * @example repeatability_exceeded
+                 */
+                flag: string;
+                /** @description How many of the created samples carry it. */
+                samples: number;
+            }[];
             warnings: components["schemas"]["ImportIssue"][];
             /** @description Lines that were not imported, with the reason (per-sample mode only; in all-or-nothing mode any of them stops the import). */
             rejected: components["schemas"]["ImportIssue"][];
@@ -2895,6 +2934,21 @@ export interface components {
                     role: string;
                     element?: string;
                     unit?: string;
+                    /** @description Role `field`: the key the column is stored under in `fields`. */
+                    field?: string;
+                    /**
+                     * @description `profile`: the import profile says how to read it; `auto`: recognised from the header.
+                     * @enum {string}
+                     */
+                    source?: "profile" | "auto";
+                    /** @description True when the profile's `keep_columns` confirms the automatic reading. */
+                    kept?: boolean;
+                    /** @description This reading is often wrong and no profile decides it: `computed_index` (`CE` read as cerium, usually the carbon equivalent), `balance_element` (the method's base element, usually printed as the balance), `not_in_method` (an element the method does not list). The same text is in `warnings` (code = attention code). Decide in an import profile: `ignore_columns`, `element_columns`, `columns.fields` or `keep_columns`. */
+                    attention?: {
+                        /** @enum {string} */
+                        code: "computed_index" | "balance_element" | "not_in_method";
+                        message: string;
+                    };
                 }[];
             };
             counts: {
@@ -2902,6 +2956,8 @@ export interface components {
                 samples: number;
                 burns: number;
                 values: number;
+                /** @description Samples with at least one line that cannot be read: an all-or-nothing import refuses the file, a per-sample import leaves them out. */
+                samples_with_rejected_lines: number;
             };
             /** @description The first 20 samples as they would be stored (values as written, with their qualifier). */
             samples: {

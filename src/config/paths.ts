@@ -10,7 +10,8 @@ export const paths = {
   samples: '/samples',
   /** A sample, in a unit other than % when asked. */
   sample: (sampleId: string, unit?: string) => `/samples/${id(sampleId)}${unit && unit !== '%' ? `?unit=${id(unit)}` : ''}`,
-  samplesOfImport: (importId: string) => `/samples?import_id=${id(importId)}`,
+  /** The samples of an import, only those carrying a flag when given. */
+  samplesOfImport: (importId: string, flag?: string) => `/samples?import_id=${id(importId)}${flag ? `&flag=${id(flag)}` : ''}`,
   imports: '/imports',
   upload: '/imports/new',
   import: (importId: string) => `/imports/${id(importId)}`,

@@ -36,6 +36,7 @@ describe('POST /api/v1/import-profiles', () => {
       element_columns: [],
       default_unit: null,
       ignore_columns: [],
+      keep_columns: [],
       time: { format: 'auto', time_zone: null, utc_offset: null },
       revision: 1,
       created_at: expect.any(String),

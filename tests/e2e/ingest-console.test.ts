@@ -83,13 +83,17 @@ describe('uploading results through the console', () => {
     expect(await countFigure('Burns')).toBe('5');
     expect(await countFigure('Values')).toBe('15');
     const mnColumn = await preview.getByTestId('column-row').filter({ hasText: 'Mn %' }).innerText();
-    expect(mnColumn).toMatch(/Mn %\s+Element\s+Mn\s+%/);
+    expect(mnColumn).toMatch(/Mn %\s+Element\s+Element Mn, in %\s+Detected from the header/);
     expect(await preview.getByTestId('preview-burn-row').count()).toBe(5);
     expect(await preview.getByText('These bytes were imported before').count()).toBe(0);
     expect(await count('samples')).toBe(170); // the preview stored nothing (26 demo heat and lot samples, 144 control points)
 
-    // Mode is chosen with a plain explanation; all or nothing is the default.
-    expect(await page.getByRole('radio', { name: /All or nothing/ }).isChecked()).toBe(true);
+    // Mode is chosen with a plain explanation; the whole file or nothing is the default, and the
+    // panel says what will happen to the lab's data.
+    expect(await page.getByRole('radio', { name: /Whole file or nothing/ }).isChecked()).toBe(true);
+    expect(await page.getByTestId('import-plan').innerText()).toMatch(
+      /^2 samples \(5 burns, 15 values\) will be added to the lab's results\./,
+    );
     await page.getByRole('button', { name: 'Import 2 samples' }).click();
     const report = page.getByTestId('import-report');
     await report.waitFor();
@@ -210,7 +214,7 @@ describe('uploading results through the console', () => {
 });
 
 describe('files the console refuses', () => {
-  it('lists the line and column of a broken value (422) and stores nothing; the file is chosen with the keyboard', async () => {
+  it('lists the line and column of a broken value, says the whole file would be refused, and stores nothing; the file is chosen with the keyboard', async () => {
     await nav('Upload results').click();
     await chooseLab();
     const broken = GOOD_CSV.replace(/K24-095/g, 'K24-096').replace('0.76', '0.7.6');
@@ -221,20 +225,19 @@ describe('files the console refuses', () => {
     const [chooser] = await Promise.all([page.waitForEvent('filechooser'), page.keyboard.press('Space')]);
     await chooser.setFiles({ name: 'broken.csv', mimeType: 'text/csv', buffer: Buffer.from(broken) });
     await page.getByText('broken.csv').waitFor();
+    const before = await count('samples');
     await page.getByRole('button', { name: 'Preview' }).click();
     const rejected = page.getByTestId('preview-rejected');
     await rejected.waitFor();
     expect(await rejected.getByTestId('issue-row').innerText()).toMatch(/^3\s+Mn %\s+.*"0\.7\.6"/);
-    await page.getByText('1 rejected line in this file').waitFor();
-
-    const before = await count('samples');
-    await page.getByRole('button', { name: 'Import 2 samples' }).click();
-    const problem = page.getByTestId('import-problem');
-    await problem.waitFor();
-    expect(await problem.getByText(/^\W*Nothing was imported$/).count()).toBe(1);
-    const rows = await problem.getByTestId('issue-row').allInnerTexts();
-    expect(rows).toHaveLength(1);
-    expect(rows[0]).toMatch(/^3\s+Mn %\s+.*"0\.7\.6".*\s+invalid_value$/s);
+    // The whole file would be refused: the panel says so and offers no import that stores nothing.
+    await page.getByText('This file would be refused whole').waitFor();
+    expect(await page.getByTestId('import-plan').innerText()).toContain('1 line cannot be read');
+    expect(await page.getByRole('button', { name: 'Import the whole file' }).isDisabled()).toBe(true);
+    // Sample by sample says which part would be stored; back to the whole file, nothing is sent.
+    await page.getByRole('radio', { name: /Sample by sample/ }).check();
+    expect(await page.getByRole('button', { name: 'Import 1 sample, leave out 1 sample' }).isEnabled()).toBe(true);
+    await page.getByRole('radio', { name: /Whole file or nothing/ }).check();
     expect(await count('samples')).toBe(before);
   });
 

@@ -27,6 +27,8 @@ export function toImportProfile(row: ImportProfileRow) {
     name: row.name,
     description: row.description,
     ...definition,
+    // Profiles saved before per-column decisions existed keep none.
+    keep_columns: definition.keep_columns ?? [],
     // Profiles saved before time zones existed have none.
     time: { ...definition.time, time_zone: definition.time.time_zone ?? null },
     revision: Number(row.revision),

@@ -13,6 +13,7 @@ interface ProfileShape {
   long_columns: { element: string; value: string; unit?: string } | null;
   element_columns: { header: string; element: string }[];
   ignore_columns: string[];
+  keep_columns: string[];
 }
 
 type Path = (string | number)[];
@@ -28,6 +29,7 @@ export function namedHeaders(profile: ProfileShape): { path: Path; header: strin
   }
   profile.element_columns.forEach((column, i) => named.push({ path: ['element_columns', i, 'header'], header: column.header }));
   profile.ignore_columns.forEach((header, i) => named.push({ path: ['ignore_columns', i], header }));
+  profile.keep_columns.forEach((header, i) => named.push({ path: ['keep_columns', i], header }));
   return named;
 }
 

@@ -127,6 +127,10 @@ const fields = {
     description: "Unit of element columns whose header names none; null = the caller's default, else %.",
   }),
   ignore_columns: z.array(HeaderName).max(200),
+  keep_columns: z.array(HeaderName).max(200).openapi({
+    description:
+      'Headers whose automatic reading the lab has confirmed (for example an element the method does not list, kept as measured): the import no longer warns about them.',
+  }),
   time: TimeSchema,
 };
 
@@ -144,6 +148,7 @@ export const CreateImportProfileRequestSchema = z
     element_columns: fields.element_columns.default([]),
     default_unit: fields.default_unit.default(null),
     ignore_columns: fields.ignore_columns.default([]),
+    keep_columns: fields.keep_columns.default([]),
     time: TimeSchema.default({ format: 'auto', time_zone: null, utc_offset: null }),
   })
   .superRefine(checkProfileRules)
@@ -182,6 +187,7 @@ export const ImportProfileSchema = z
     element_columns: z.array(z.object({ header: z.string(), element: z.string(), unit: z.enum(UNITS).optional() })),
     default_unit: z.enum(UNITS).nullable(),
     ignore_columns: z.array(z.string()),
+    keep_columns: z.array(z.string()),
     time: z.object({ format: z.enum(TIME_FORMATS), time_zone: z.string().nullable(), utc_offset: z.string().nullable() }),
     revision: z.number().int().openapi({ description: 'Starts at 1; each change adds 1. Imports record the revision they used.' }),
     created_at: z.string().openapi({ format: 'date-time' }),

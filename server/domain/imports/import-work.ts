@@ -6,6 +6,7 @@ import { CorrectionTimeline, type TimelineRow } from '../drift/correction-timeli
 import type { Method } from '../methods/methods.repository.ts';
 import type { buildSampleRows } from '../samples/sample-builder.ts';
 import type { ImportIssue, ImportReport } from './import-report.ts';
+import { FlagCounter } from './import-flag-summary.ts';
 import { buildImportedSamples } from './import-samples.ts';
 import { refuseNaiveTimesNearCorrections } from './naive-times.ts';
 import type { ImportPreviewSchema } from './imports.schemas.ts';
@@ -53,6 +54,10 @@ function layoutOf(parsed: ParsedFile): ImportReport['layout'] {
       role: c.role,
       ...(c.element ? { element: c.element } : {}),
       ...(c.unit ? { unit: c.unit } : {}),
+      ...(c.field ? { field: c.field } : {}),
+      source: c.source,
+      ...(c.kept ? { kept: true } : {}),
+      ...(c.attention ? { attention: c.attention } : {}),
     })),
   };
 }
@@ -60,7 +65,13 @@ function layoutOf(parsed: ParsedFile): ImportReport['layout'] {
 function preview(parsed: ParsedFile): ImportPreview {
   return {
     layout: layoutOf(parsed),
-    counts: { rows: parsed.counts.rows, samples: parsed.samples.length, burns: parsed.counts.burns, values: parsed.counts.values },
+    counts: {
+      rows: parsed.counts.rows,
+      samples: parsed.samples.length,
+      burns: parsed.counts.burns,
+      values: parsed.counts.values,
+      samples_with_rejected_lines: parsed.samples.filter((s) => s.rejected.length > 0).length,
+    },
     samples: parsed.samples.slice(0, 20).map((s) => ({
       sample_code: s.sample_code,
       heat: s.heat ?? null,
@@ -85,7 +96,7 @@ function build(parsed: ParsedFile, task: BuildTask, sendChunk: (samples: BuiltSa
   if (task.mode === 'all_or_nothing' && parsed.rejected.length > 0) {
     return {
       kind: 'refused',
-      detail: `${parsed.rejected.length} value(s) cannot be read, so nothing was imported. Fix the lines listed in errors[], or upload with mode=per_sample to import the other samples.`,
+      detail: `${parsed.rejected.length} value(s) cannot be read, so nothing was imported: the whole file is refused when any value is unreadable. Correct the lines listed and upload the file again, or import per sample (mode per_sample) to store the other samples.`,
       issues: parsed.rejected,
     };
   }
@@ -96,11 +107,13 @@ function build(parsed: ParsedFile, task: BuildTask, sendChunk: (samples: BuiltSa
   const corrections = new CorrectionTimeline(context.corrections);
   const warnings: ImportIssue[] = [...parsed.warnings];
   const sampleIds: string[] = [];
+  const flags = new FlagCounter();
   let burns = 0;
   for (let i = 0; i < accepted.length; i += CHUNK_SAMPLES) {
     const built = buildImportedSamples(accepted.slice(i, i + CHUNK_SAMPLES), { ...context, corrections }, warnings);
     for (const b of built) {
       sampleIds.push(b.sample.id);
+      flags.count(b.sample);
       burns += b.burns.length;
     }
     sendChunk(built);
@@ -118,6 +131,7 @@ function build(parsed: ParsedFile, task: BuildTask, sendChunk: (samples: BuiltSa
         values: accepted.reduce((sum, s) => sum + s.burns.reduce((n, b) => n + Object.keys(b.values).length, 0), 0),
       },
       sample_ids: sampleIds,
+      flag_summary: flags.summary(context.method),
       warnings,
       rejected: parsed.rejected,
     },

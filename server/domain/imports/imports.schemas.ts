@@ -62,7 +62,16 @@ export const ImportPreviewRequestSchema = z.object(uploadFields).openapi('Import
 export const ImportPreviewSchema = z
   .object({
     layout: ImportReportSchema.shape.layout,
-    counts: z.object({ rows: z.number().int(), samples: z.number().int(), burns: z.number().int(), values: z.number().int() }),
+    counts: z.object({
+      rows: z.number().int(),
+      samples: z.number().int(),
+      burns: z.number().int(),
+      values: z.number().int(),
+      samples_with_rejected_lines: z.number().int().openapi({
+        description:
+          'Samples with at least one line that cannot be read: an all-or-nothing import refuses the file, a per-sample import leaves them out.',
+      }),
+    }),
     samples: z
       .array(
         z.object({

@@ -64,7 +64,14 @@ async function resolveReferences(ctx: AppContext, auth: AuthContext, input: Uplo
     }
   }
   if (errors.length) throw new UnprocessableProblem('The upload refers to an instrument, method or profile that does not exist.', errors);
-  return { method: method!, options: { profile, defaultUnit: method!.default_unit, latestTime: latestMeasurementTime() } };
+  const review = {
+    code: method!.code,
+    matrix: method!.matrix,
+    elements: method!.elements.map((e) => e.element),
+    balance_by_difference: method!.reporting.balance_by_difference,
+    unlisted_elements: method!.reporting.unlisted_elements,
+  };
+  return { method: method!, options: { profile, defaultUnit: method!.default_unit, latestTime: latestMeasurementTime(), method: review } };
 }
 
 /** Reads the file in an import worker; an unreadable or refused file becomes its 422 problem. */

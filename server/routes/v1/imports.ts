@@ -19,6 +19,9 @@ import { singleFileUpload } from '../../http/upload.ts';
 const FILE_ISSUES_NOTE =
   'For a file problem, `errors[]` locates each issue as `file:line 12:Mn`; the same issues come structured in `issues[]` (`line`, `column`, `message`, `code`), at most 200, with their full number in `errors_total`.';
 
+const COLUMN_REVIEW_NOTE =
+  "Element columns that are often misread are named before anything is stored, in `layout.columns[].attention` and as `warnings` with the same code: `computed_index` (a `CE` header, usually the carbon equivalent, would be stored as cerium), `balance_element` (the method's base element, usually printed as the balance), `not_in_method` (an element the method does not list). An import profile decides each one (`ignore_columns`, `element_columns`, `columns.fields`, `keep_columns`); the warning then goes away. The API imports without a decision (the report keeps the warnings); the console waits for one on `computed_index` and `balance_element`.";
+
 export const importRoutes = [
   defineRoute({
     method: 'post',
@@ -27,6 +30,7 @@ export const importRoutes = [
     summary: 'Upload an instrument result file',
     description:
       'The raw bytes are kept with their SHA-256. Uploading the same bytes again returns the earlier import with 200 and creates nothing. By default a file is imported all or nothing: one unreadable value answers 422 with `errors[]` naming line and column (`file:line 12:Mn`), and the database is unchanged.\n\n' +
+      `${COLUMN_REVIEW_NOTE}\n\n` +
       `Cells obey the limits of a JSON push: sample code, heat and grade at most ${L.identification} characters, identification field names ${L.fieldName} and values ${L.fieldValue}, at most ${L.fields} fields per line, element cells ${L.value}; a longer cell is an issue of its line and column (\`too_long\`, \`too_many_fields\`, \`invalid_value\`).\n\n` +
       AUTO_DETECTION_DESCRIPTION,
     tag: 'Imports',
@@ -62,8 +66,7 @@ export const importRoutes = [
     path: '/imports/preview',
     operationId: 'previewImport',
     summary: 'Read a result file without storing anything',
-    description:
-      'Shows how the file would be read: recognised columns, the first samples, warnings and rejected lines, and whether these bytes were imported before.',
+    description: `Shows how the file would be read: recognised columns, the first samples, warnings and rejected lines, and whether these bytes were imported before.\n\n${COLUMN_REVIEW_NOTE}`,
     tag: 'Imports',
     access: { scope: 'imports:write' },
     body: ImportPreviewRequestSchema,

@@ -5,6 +5,7 @@ import { RequireScope } from '../../features/auth/components/require-scope.tsx';
 import { useImport } from '../../features/imports/api/imports.ts';
 import { ImportReportView } from '../../features/imports/components/import-report.tsx';
 import { SamplesTable } from '../../features/samples/components/samples-table.tsx';
+import { flagInfo } from '../../features/samples/result-flags.ts';
 import { paths } from '../../config/paths.ts';
 
 export function ImportPage() {
@@ -25,7 +26,7 @@ export function ImportPage() {
       <ProblemAlert error={record.error} />
       {record.data && (
         <div className="space-y-6">
-          <ImportReportView record={record.data} />
+          <ImportReportView record={record.data} flagLabel={(flag) => flagInfo(flag).label} />
           {record.data.report.counts.samples_created > 0 && (
             <section className="space-y-2">
               <h2 className="text-lg font-semibold">Samples of this import</h2>

@@ -31,3 +31,19 @@ export function elementsOf(columns: { role: string; element?: string }[], valueR
   }
   return elements;
 }
+
+/** How a column will be stored, as a sentence: "Element Mn, in %", "Field “furnace”", "Not imported". */
+export function readingInWords(column: { role: string; element?: string; unit?: string; field?: string }): string {
+  if (column.role === 'element') return `Element ${column.element ?? '?'}, in ${column.unit ?? '%'}`;
+  if (column.role === 'field') return `Identification field “${column.field ?? ''}”`;
+  if (column.role === 'value') return `Value, in ${column.unit ?? '%'} unless the unit column says otherwise`;
+  if (column.role === 'ignored') return 'Not imported';
+  return roleInWords(column.role);
+}
+
+/** Who decided the reading: the import profile, or the header as detected. */
+export function decidedBy(column: { source?: string; kept?: boolean }): string {
+  if (column.kept) return 'Confirmed in the profile';
+  if (column.source === 'profile') return 'Import profile';
+  return 'Detected from the header';
+}

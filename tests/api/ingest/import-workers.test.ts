@@ -70,7 +70,7 @@ describe('imports in worker threads', () => {
     const res = await upload(s.analyst, s.lab.foundry.id, s.method.id, LATER_FILE, '/api/v1/imports/preview');
     spy.mockRestore();
     expect(res.status).toBe(200);
-    expect(res.body.counts).toEqual({ rows: 2, samples: 1, burns: 2, values: 6 });
+    expect(res.body.counts).toEqual({ rows: 2, samples: 1, burns: 2, values: 6, samples_with_rejected_lines: 0 });
     expect(kinds).toEqual(['preview']);
   });
 

@@ -193,7 +193,7 @@ describe('POST /api/v1/imports', () => {
       .field('method_id', lab.feMethod.id)
       .attach('file', Buffer.from(GOOD), 'results.csv');
     expect(res.status).toBe(200);
-    expect(res.body.counts).toEqual({ rows: 3, samples: 2, burns: 3, values: 6 });
+    expect(res.body.counts).toEqual({ rows: 3, samples: 2, burns: 3, values: 6, samples_with_rejected_lines: 0 });
     expect(res.body.layout.columns.map((c: { role: string }) => c.role)).toEqual([
       'sample_code',
       'heat',

@@ -39,11 +39,13 @@ function profileRole(path: (string | number)[], profile: ImportProfileDefinition
   return { role: 'ignored' };
 }
 
-function assignProfile(headers: string[], line: number, profile: ImportProfileDefinition): (ColumnRole | undefined)[] {
+/** The roles a profile gives, and the headers whose automatic reading it confirms (`keep_columns`). */
+function assignProfile(headers: string[], line: number, profile: ImportProfileDefinition) {
   const roles: (ColumnRole | undefined)[] = headers.map(() => undefined);
+  const kept = new Set<number>();
   const missing: Issue[] = [];
   for (const { path, header } of namedHeaders(profile)) {
-    const index = headers.findIndex((h, i) => !roles[i] && profileHeaderKey(h) === profileHeaderKey(header));
+    const index = headers.findIndex((h, i) => !roles[i] && !kept.has(i) && profileHeaderKey(h) === profileHeaderKey(header));
     if (index < 0) {
       missing.push({
         line,
@@ -53,10 +55,11 @@ function assignProfile(headers: string[], line: number, profile: ImportProfileDe
       });
       continue;
     }
-    roles[index] = { index, header: headers[index], source: 'profile', ...profileRole(path, profile) };
+    if (path[0] === 'keep_columns') kept.add(index);
+    else roles[index] = { index, header: headers[index], source: 'profile', ...profileRole(path, profile) };
   }
   if (missing.length > 0) throw new FileLayoutError(missing);
-  return roles;
+  return { roles, kept };
 }
 
 export function analyseHeader(
@@ -66,12 +69,14 @@ export function analyseHeader(
   defaultUnit: Unit | undefined,
 ): HeaderAnalysis {
   const headers = rawHeader.map((cell) => cell.trim());
-  const roles = profile ? assignProfile(headers, line, profile) : headers.map(() => undefined);
+  const { roles, kept } = profile
+    ? assignProfile(headers, line, profile)
+    : { roles: headers.map(() => undefined), kept: new Set<number>() };
   const warnings: Issue[] = [];
   const elementErrors: Issue[] = [];
   const taken = new Set(roles.flatMap((role) => (role && SINGLE_ROLES.includes(role.role) ? [role.role] : [])));
   const auto = (index: number, rest: Omit<ColumnRole, 'index' | 'header' | 'source'>) => {
-    roles[index] = { index, header: headers[index], source: 'auto', ...rest };
+    roles[index] = { index, header: headers[index], source: 'auto', ...(kept.has(index) ? { kept: true } : {}), ...rest };
   };
   headers.forEach((header, index) => {
     if (roles[index]) return;

@@ -4,6 +4,7 @@
 import type { Unit } from '../../chemistry/units.ts';
 import type { ImportProfileDefinition } from '../import-profiles.schemas.ts';
 import { analyseHeader } from './analyse-header.ts';
+import { type ReviewMethod, reviewColumns } from './column-review.ts';
 import { decodeBytes } from './decode.ts';
 import { detectDecimalSeparator } from './detect-decimal.ts';
 import { detectDelimiter, firstNonBlankLine, physicalLines } from './detect-delimiter.ts';
@@ -21,6 +22,8 @@ export interface ParseOptions {
   defaultUnit?: Unit;
   /** Burn times after this instant are refused (the caller's clock plus its skew allowance); without it none is. */
   latestTime?: string;
+  /** The method the file is imported under: element columns it would misread are named in warnings. */
+  method?: ReviewMethod;
 }
 
 const DELIMITERS: Record<string, Delimiter> = { ',': ',', ';': ';', tab: '\t' };
@@ -59,6 +62,7 @@ export function parseResultFile(bytes: Uint8Array, options: ParseOptions = {}): 
         );
 
   const warnings: Issue[] = [...analysis.warnings];
+  if (options.method && layout === 'wide') warnings.push(...reviewColumns(columns, options.method, headerRow));
   const rejected: Issue[] = [];
   const headerOf = (key: string) =>
     columns.find((c) => (key.startsWith('fields.') ? c.role === 'field' && `fields.${c.field}` === key : c.role === key))?.header;

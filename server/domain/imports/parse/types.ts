@@ -40,7 +40,14 @@ export interface ColumnRole {
   field?: string;
   /** How the role was decided. */
   source: 'profile' | 'auto';
+  /** The profile confirms the automatic reading of this header (`keep_columns`). */
+  kept?: boolean;
+  /** Why this column's reading needs a person's decision before import (column-review.ts). */
+  attention?: { code: ColumnAttentionCode; message: string };
 }
+
+/** Readings that are often wrong: a computed index read as an element, the method's balance, an element the method does not list. */
+export type ColumnAttentionCode = 'computed_index' | 'balance_element' | 'not_in_method';
 
 export interface ParsedValue {
   /** Mass fraction in %, as an exact decimal string ("0.75"); null for n.d. */

@@ -1,21 +1,23 @@
 import { Button } from '../../../components/ui/button.tsx';
 import { Alert } from '../../../components/ui/feedback.tsx';
 import type { ImportMode, ImportPreview } from '../api/imports.ts';
+import { blocksImport } from '../column-decisions.ts';
+import { importPlan } from '../import-plan.ts';
 
 const MODES: { value: ImportMode; title: string; text: string }[] = [
   {
     value: 'all_or_nothing',
-    title: 'All or nothing (recommended)',
-    text: 'If any value in the file cannot be read, nothing is imported and the lines are listed, so the file can be corrected and uploaded whole.',
+    title: 'Whole file or nothing (recommended)',
+    text: 'The file is stored only if every line can be read. If one cannot, nothing is stored and the lines are listed, so the file can be corrected and uploaded again.',
   },
   {
     value: 'per_sample',
-    title: 'Per sample',
-    text: 'Samples with an unreadable line are left out and listed in the report; every other sample is imported.',
+    title: 'Sample by sample',
+    text: 'A sample with a line that cannot be read is left out and listed in the report; the other samples are stored.',
   },
 ];
 
-/** Step 2: choose how strictly to import, then commit. */
+/** Step 2: choose how strictly to import, read what will happen to the lab's data, then import. */
 export function CommitPanel({
   preview,
   mode,
@@ -31,7 +33,10 @@ export function CommitPanel({
   onRestart: () => void;
   busy: boolean;
 }) {
-  const rejected = new Set(preview.rejected.map((issue) => issue.line)).size;
+  const undecided = preview.layout.columns.filter(blocksImport).map((c) => c.header);
+  const outsideMethod = preview.layout.columns.filter((c) => c.attention && !blocksImport(c)).map((c) => `“${c.header}”`);
+  const plan = importPlan(preview, mode);
+  const blocked = undecided.length > 0 && !preview.duplicate_of;
   return (
     <section aria-labelledby="commit-heading" className="space-y-4 rounded-lg border border-ash-200 bg-white p-5">
       <h2 id="commit-heading" className="text-lg font-semibold">
@@ -59,19 +64,28 @@ export function CommitPanel({
           </label>
         ))}
       </fieldset>
-      {rejected > 0 && mode === 'all_or_nothing' && (
-        <Alert tone="caution" title={`${rejected} rejected ${rejected === 1 ? 'line' : 'lines'} in this file`}>
-          All or nothing will refuse the whole file. Choose “Per sample” to import the other samples, or correct the file first.
+      {blocked ? (
+        <Alert tone="caution" title="Decide the flagged columns first">
+          The file is not imported until you say what {undecided.map((h) => `“${h}”`).join(' and ')}{' '}
+          {undecided.length === 1 ? 'holds' : 'hold'} and save the choices above.
+        </Alert>
+      ) : (
+        <Alert tone={plan.canProceed ? 'info' : 'caution'} title={plan.title}>
+          <span data-testid="import-plan">{plan.text}</span>
+          {outsideMethod.length > 0 && !preview.duplicate_of && (
+            <span className="mt-1 block" data-testid="import-plan-kept">
+              {outsideMethod.join(', ')} {outsideMethod.length === 1 ? 'is' : 'are'} not in the method and will be kept as read unless you
+              save other choices above.
+            </span>
+          )}
         </Alert>
       )}
       <div className="flex flex-wrap justify-end gap-2">
         <Button variant="secondary" onClick={onRestart} disabled={busy}>
           Choose another file
         </Button>
-        <Button onClick={onCommit} disabled={busy}>
-          {preview.duplicate_of
-            ? 'Show the earlier import'
-            : `Import ${preview.counts.samples} ${preview.counts.samples === 1 ? 'sample' : 'samples'}`}
+        <Button onClick={onCommit} disabled={busy || blocked || !plan.canProceed}>
+          {plan.button}
         </Button>
       </div>
     </section>

@@ -1,3 +1,4 @@
+import { ClippedText, ClippedWords } from '../../../components/ui/clipped-text.tsx';
 import { Table } from '../../../components/ui/layout.tsx';
 import type { ImportIssue } from '../api/imports.ts';
 
@@ -19,8 +20,10 @@ export function ImportIssuesTable({ issues, caption, testId }: { issues: ImportI
         {issues.map((issue, index) => (
           <tr key={`${issue.line}-${issue.column}-${index}`} className="align-top" data-testid="issue-row">
             <td className="px-3 py-1.5 text-right font-mono tabular-nums">{issue.line ?? '—'}</td>
-            <td className="px-3 py-1.5 font-mono text-xs">{issue.column ?? '—'}</td>
-            <td className="px-3 py-1.5">{issue.message}</td>
+            <td className="px-3 py-1.5 font-mono text-xs">{issue.column ? <ClippedText text={issue.column} /> : '—'}</td>
+            <td className="px-3 py-1.5">
+              <ClippedWords text={issue.message} />
+            </td>
             <td className="px-3 py-1.5 font-mono text-xs text-slag-500">{issue.code}</td>
           </tr>
         ))}

@@ -1,8 +1,11 @@
+import type { ReactNode } from 'react';
 import { Link } from 'react-router';
+import { ClippedText } from '../../../components/ui/clipped-text.tsx';
 import { Alert } from '../../../components/ui/feedback.tsx';
-import { Table } from '../../../components/ui/layout.tsx';
+import { Badge, Table } from '../../../components/ui/layout.tsx';
 import type { ImportPreview } from '../api/imports.ts';
-import { elementsOf, roleInWords } from '../column-roles.ts';
+import { isColumnReviewWarning } from '../column-decisions.ts';
+import { decidedBy, elementsOf, readingInWords, roleInWords } from '../column-roles.ts';
 import { IssuesSection } from './import-issues-table.tsx';
 import { LayoutSummary } from './layout-summary.tsx';
 import { paths } from '../../../config/paths.ts';
@@ -10,13 +13,23 @@ import { paths } from '../../../config/paths.ts';
 /** Samples whose burns the preview shows (the server sends up to 20). */
 const SHOWN_SAMPLES = 5;
 
-export function ImportPreviewView({ preview }: { preview: ImportPreview }) {
+const right = (text: string) => (
+  <span key={text} className="block text-right">
+    {text}
+  </span>
+);
+
+/** How the server reads the file: every column's reading, the first samples' burns, and what it found wrong. */
+export function ImportPreviewView({ preview, decisions }: { preview: ImportPreview; decisions?: ReactNode }) {
   const shown = preview.samples.slice(0, SHOWN_SAMPLES);
   const burns = shown.flatMap((sample) => sample.burns.map((burn) => ({ sample, burn })));
   const elements = elementsOf(
     preview.layout.columns,
     burns.map((b) => b.burn.values),
   );
+  const flaggedElements = new Set(preview.layout.columns.flatMap((c) => (c.attention && c.element ? [c.element] : [])));
+  // The columns to decide are shown above, with their choices: their warnings are not repeated.
+  const otherWarnings = preview.warnings.filter((w) => !isColumnReviewWarning(w));
   return (
     <div className="space-y-5" data-testid="import-preview">
       {preview.duplicate_of && (
@@ -37,16 +50,26 @@ export function ImportPreviewView({ preview }: { preview: ImportPreview }) {
           ['Values', preview.counts.values],
         ]}
       />
+      {decisions}
 
       <section className="space-y-2">
-        <h3 className="text-sm font-semibold text-slag-800">Recognised columns</h3>
-        <Table caption="How each column of the file is read" head={['Header', 'Read as', 'Element', 'Unit']}>
+        <h3 className="text-sm font-semibold text-slag-800">How each column will be read</h3>
+        <Table caption="How each column of the file is read" head={['Header', 'Read as', 'Stored as', 'Decided by']}>
           {preview.layout.columns.map((c, i) => (
-            <tr key={`${c.header}-${i}`} data-testid="column-row">
-              <td className="px-3 py-1.5 font-mono text-xs">{c.header || <span className="text-slag-500">(empty)</span>}</td>
+            <tr
+              key={`${c.header}-${i}`}
+              data-testid="column-row"
+              data-attention={c.attention?.code}
+              className={c.attention ? 'bg-ember-500/5' : undefined}
+            >
+              <td className="px-3 py-1.5 font-mono text-xs">
+                {c.header ? <ClippedText text={c.header} /> : <span className="text-slag-500">(empty)</span>}
+              </td>
               <td className="px-3 py-1.5">{roleInWords(c.role)}</td>
-              <td className="px-3 py-1.5 font-mono">{c.element ?? ''}</td>
-              <td className="px-3 py-1.5 font-mono">{c.unit ?? ''}</td>
+              <td className="px-3 py-1.5">{readingInWords(c)}</td>
+              <td className="px-3 py-1.5 text-xs text-slag-700">
+                {c.attention ? <Badge tone="accent">⚠ Needs a decision</Badge> : decidedBy(c)}
+              </td>
             </tr>
           ))}
         </Table>
@@ -65,13 +88,18 @@ export function ImportPreviewView({ preview }: { preview: ImportPreview }) {
           <Table
             caption="The first samples' burns as they would be stored"
             head={[
-              'Line',
+              right('Line'),
               'Sample code',
               'Heat',
-              'Burn',
+              right('Burn'),
               'Time',
               ...elements.map((el) => (
-                <span key={el} className="block text-right normal-case">
+                <span
+                  key={el}
+                  className="block text-right normal-case"
+                  title={flaggedElements.has(el) ? 'This column needs a decision' : undefined}
+                >
+                  {flaggedElements.has(el) && <span aria-label="needs a decision">⚠ </span>}
                   {el}
                 </span>
               )),
@@ -79,14 +107,16 @@ export function ImportPreviewView({ preview }: { preview: ImportPreview }) {
           >
             {burns.map(({ sample, burn }) => (
               <tr key={`${sample.first_line}-${burn.line}`} data-testid="preview-burn-row">
-                <td className="px-3 py-1.5 text-right font-mono text-xs">{burn.line}</td>
-                <td className="px-3 py-1.5 font-mono text-xs">{sample.sample_code}</td>
-                <td className="px-3 py-1.5 font-mono text-xs">{sample.heat ?? '—'}</td>
-                <td className="px-3 py-1.5 text-right font-mono text-xs">{burn.burn_number}</td>
+                <td className="px-3 py-1.5 text-right font-mono text-xs tabular-nums">{burn.line}</td>
+                <td className="px-3 py-1.5 font-mono text-xs">
+                  <ClippedText text={sample.sample_code} />
+                </td>
+                <td className="px-3 py-1.5 font-mono text-xs">{sample.heat ? <ClippedText text={sample.heat} /> : '—'}</td>
+                <td className="px-3 py-1.5 text-right font-mono text-xs tabular-nums">{burn.burn_number}</td>
                 <td className="px-3 py-1.5 whitespace-nowrap font-mono text-xs">{burn.measured_at ?? '—'}</td>
                 {elements.map((el) => (
                   <td key={el} className="px-3 py-1.5 text-right font-mono text-xs tabular-nums">
-                    {burn.values[el] ?? ''}
+                    <ClippedText text={burn.values[el] ?? ''} />
                   </td>
                 ))}
               </tr>
@@ -95,8 +125,8 @@ export function ImportPreviewView({ preview }: { preview: ImportPreview }) {
         )}
       </section>
 
-      <IssuesSection title="Rejected lines" issues={preview.rejected} testId="preview-rejected" />
-      <IssuesSection title="Warnings" issues={preview.warnings} testId="preview-warnings" />
+      <IssuesSection title="Lines that cannot be read" issues={preview.rejected} testId="preview-rejected" />
+      <IssuesSection title="Warnings" issues={otherWarnings} testId="preview-warnings" />
     </div>
   );
 }

@@ -37,7 +37,16 @@ export function ImportProblem({ error, fileSize, during }: { error: Error | null
   return (
     <div className="space-y-3" data-testid="import-problem">
       <Alert title={during === 'preview' ? 'The file cannot be read' : 'Nothing was imported'}>
-        <p>{problem.message}</p>
+        <p>
+          {during === 'preview' ? (
+            problem.message
+          ) : (
+            <>
+              No sample of this file was stored: the lines below cannot be read, and the whole file is refused when any line cannot be.
+              Correct them and upload the file again, or choose “Sample by sample” to store the other samples.
+            </>
+          )}
+        </p>
         {total > issues.length && (
           <p className="mt-1">
             The first {issues.length} of {total} problems are listed.

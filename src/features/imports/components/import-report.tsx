@@ -4,18 +4,22 @@ import { formatBytes } from '../../../lib/format-bytes.ts';
 import { utcSecond } from '../../../lib/utc-time.ts';
 import { useInstruments, useMethods } from '../../../api/lookups.ts';
 import type { Import } from '../api/imports.ts';
+import { FlagSummary, type FlagLabel } from './flag-summary.tsx';
 import { IssuesSection } from './import-issues-table.tsx';
 import { LayoutSummary } from './layout-summary.tsx';
 import { paths } from '../../../config/paths.ts';
 
-const MODE_WORDS: Record<Import['mode'], string> = { all_or_nothing: 'all or nothing', per_sample: 'per sample' };
+const MODE_WORDS: Record<Import['mode'], string> = {
+  all_or_nothing: 'Whole file or nothing: every line could be read',
+  per_sample: 'Sample by sample: samples with a line that cannot be read were left out',
+};
 
 function rawFileHref(importId: string): string {
   return `/api/v1/imports/${encodeURIComponent(importId)}/file`;
 }
 
 /** The stored report of one import: what was created, what was left out and why, and the file. */
-export function ImportReportView({ record }: { record: Import }) {
+export function ImportReportView({ record, flagLabel }: { record: Import; flagLabel?: FlagLabel }) {
   const instrument = useInstruments().data?.find((i) => i.id === record.instrument_id);
   const method = useMethods().data?.find((m) => m.id === record.method_id);
   const { counts } = record.report;
@@ -44,7 +48,7 @@ export function ImportReportView({ record }: { record: Import }) {
           <dd className="font-mono">{instrument?.code ?? record.instrument_id}</dd>
           <dt className="text-slag-500">Method</dt>
           <dd className="font-mono">{method?.code ?? record.method_id}</dd>
-          <dt className="text-slag-500">Mode</dt>
+          <dt className="text-slag-500">Imported</dt>
           <dd>{MODE_WORDS[record.mode]}</dd>
           <dt className="text-slag-500">Uploaded (UTC)</dt>
           <dd>
@@ -62,7 +66,8 @@ export function ImportReportView({ record }: { record: Import }) {
           )}
         </div>
       </Card>
-      <IssuesSection title="Rejected lines" issues={record.report.rejected} testId="report-rejected" />
+      <FlagSummary record={record} flagLabel={flagLabel} />
+      <IssuesSection title="Lines left out" issues={record.report.rejected} testId="report-rejected" />
       <IssuesSection title="Warnings" issues={record.report.warnings} testId="report-warnings" />
     </div>
   );

@@ -4,9 +4,12 @@ import { useState, type ReactNode } from 'react';
 import { Button } from '../../../components/ui/button.tsx';
 import { Alert } from '../../../components/ui/feedback.tsx';
 import { useCommitImport, usePreviewImport, type ImportMode, type UploadChoice } from '../api/imports.ts';
+import { useImportProfiles, type ImportProfile } from '../../../api/lookups.ts';
+import { ColumnDecisionsPanel } from './column-decisions-panel.tsx';
 import { CommitPanel } from './commit-panel.tsx';
 import { ImportPreviewView } from './import-preview.tsx';
 import { ImportProblem } from './import-problem.tsx';
+import type { FlagLabel } from './flag-summary.tsx';
 import { ImportReportView } from './import-report.tsx';
 import { EMPTY_DRAFT, UploadChoicesForm, type UploadDraft } from './upload-choices-form.tsx';
 import { UploadProgressBar } from './upload-progress.tsx';
@@ -23,16 +26,24 @@ function choiceOf(draft: UploadDraft): UploadChoice {
 }
 
 /** `createdSamples` renders the samples an import created (the page composes it from the samples feature). */
-export function UploadWizard({ createdSamples }: { createdSamples: (importId: string) => ReactNode }) {
+export function UploadWizard({ createdSamples, flagLabel }: { createdSamples: (importId: string) => ReactNode; flagLabel?: FlagLabel }) {
   const [draft, setDraft] = useState<UploadDraft>(EMPTY_DRAFT);
   const [mode, setMode] = useState<ImportMode>('all_or_nothing');
   const preview = usePreviewImport();
+  const profiles = useImportProfiles();
   const commit = useCommitImport();
 
   function changeDraft(next: UploadDraft) {
     setDraft(next);
     preview.reset();
     commit.reset();
+  }
+
+  /** The decisions were saved into `profile`: read the file again with it. */
+  function previewWith(profile: ImportProfile) {
+    const next = { ...draft, profileId: profile.id };
+    changeDraft(next);
+    preview.mutate(choiceOf(next));
   }
 
   function restart() {
@@ -57,7 +68,7 @@ export function UploadWizard({ createdSamples }: { createdSamples: (importId: st
             This is the report of the earlier import of the same file.
           </Alert>
         )}
-        <ImportReportView record={record} />
+        <ImportReportView record={record} flagLabel={flagLabel} />
         {record.report.counts.samples_created > 0 && (
           <section className="space-y-2">
             <h2 className="text-lg font-semibold">Samples of this import</h2>
@@ -81,7 +92,19 @@ export function UploadWizard({ createdSamples }: { createdSamples: (importId: st
       <ImportProblem error={preview.error} fileSize={draft.file?.size} during="preview" />
       {preview.data && (
         <>
-          <ImportPreviewView preview={preview.data} />
+          <ImportPreviewView
+            preview={preview.data}
+            decisions={
+              <ColumnDecisionsPanel
+                // A new preview (after saving) starts the choices afresh.
+                key={preview.submittedAt}
+                preview={preview.data}
+                profile={profiles.data?.find((p) => p.id === draft.profileId)}
+                fileName={draft.file?.name ?? 'the file'}
+                onSaved={previewWith}
+              />
+            }
+          />
           <CommitPanel
             preview={preview.data}
             mode={mode}
