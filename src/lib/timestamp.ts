@@ -84,3 +84,14 @@ export function formatInstant(value: string | number | Date | null | undefined, 
 export function instantTitle(view: InstantView): string {
   return `${view.utc} (shown in ${view.timeZone}, ${view.zone})`;
 }
+
+/** How long ago an instant was, in the largest whole unit: "45 min", "5 h", "3 d"; "in the future" for a later one. */
+export function formatAge(value: string | number | Date, now: number = Date.now()): string {
+  const date = toDate(value);
+  if (!date) return '—';
+  const minutes = Math.floor((now - date.getTime()) / 60_000);
+  if (minutes < 0) return 'in the future';
+  if (minutes < 60) return `${minutes} min`;
+  if (minutes < 48 * 60) return `${Math.floor(minutes / 60)} h`;
+  return `${Math.floor(minutes / (24 * 60))} d`;
+}

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatInstant, instantTitle, viewInstant } from '../../../src/lib/timestamp.ts';
+import { formatAge, formatInstant, instantTitle, viewInstant } from '../../../src/lib/timestamp.ts';
 
 // Reference offsets from the IANA time zone database (tzdata, zones "Europe/Berlin", "Asia/Kolkata",
 // "America/New_York"): the EU changes clocks at 01:00 UTC on the last Sunday of March and October
@@ -57,5 +57,19 @@ describe('viewInstant', () => {
     expect(viewInstant('')).toBeNull();
     expect(viewInstant('not a time')).toBeNull();
     expect(formatInstant(undefined)).toBe('—');
+  });
+});
+
+describe('formatAge', () => {
+  const now = Date.parse('2026-12-03T12:00:00Z');
+  it('says how long ago in minutes, then hours up to two days, then days (whole units, rounded down)', () => {
+    expect(formatAge('2026-12-03T11:59:30Z', now)).toBe('0 min');
+    expect(formatAge('2026-12-03T11:15:00Z', now)).toBe('45 min');
+    expect(formatAge('2026-12-02T13:00:00Z', now)).toBe('23 h');
+    expect(formatAge('2026-12-01T12:30:00Z', now)).toBe('47 h');
+    expect(formatAge('2026-11-30T12:00:00Z', now)).toBe('3 d');
+  });
+  it('does not count backwards for an instant after now', () => {
+    expect(formatAge('2026-12-03T12:05:00Z', now)).toBe('in the future');
   });
 });
