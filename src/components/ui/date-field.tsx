@@ -1,4 +1,4 @@
-import { useState, type InputHTMLAttributes } from 'react';
+import { useState, type ChangeEventHandler, type InputHTMLAttributes } from 'react';
 import { ISO_DATE_PATTERN, ISO_DATE_TIME_PATTERN, readIsoDate, readIsoDateTime } from '../../lib/iso-date.ts';
 import { localZoneName } from '../../lib/local-time.ts';
 import { TextField } from './field.tsx';
@@ -8,7 +8,7 @@ type TextInputProps = Omit<InputHTMLAttributes<HTMLInputElement>, 'type' | 'patt
 interface IsoFieldProps extends TextInputProps {
   label: string;
   value: string;
-  onChange: (text: string) => void;
+  onChange: ChangeEventHandler<HTMLInputElement>;
   error?: string;
   hint?: string;
 }
@@ -46,7 +46,7 @@ function IsoField({ format, label, value, onChange, error, hint, onBlur, ...inpu
       placeholder={format.placeholder}
       pattern={format.pattern}
       value={value}
-      onChange={(event) => onChange(event.target.value)}
+      onChange={onChange}
       onBlur={(event) => {
         setLeft(true);
         onBlur?.(event);
