@@ -97,6 +97,27 @@ describe.each(JOURNEY_WIDTHS)('the lab Overview and the console shell at %i px',
     await saveScreen(page, 'lab-overview', 'imports');
   });
 
+  it('shows times on one clock and takes dates as yyyy-mm-dd', async () => {
+    await page.goto(`${server.url}/samples`);
+    const created = page.getByTestId('sample-row').first().locator('time');
+    await created.waitFor();
+    // The browser runs in the machine's zone (UTC here): local time with its zone named, UTC and the zone on hover, ISO in dateTime.
+    expect(await created.innerText()).toMatch(/^\d{4}-\d{2}-\d{2} \d{2}:\d{2} UTC([+-]\d{1,2}(:\d{2})?)?$/);
+    expect(await created.getAttribute('dateTime')).toMatch(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}\.\d{3}Z$/);
+    expect(await created.getAttribute('title')).toMatch(/^\d{4}-\d{2}-\d{2} \d{2}:\d{2}:\d{2} UTC \(shown in /);
+
+    const from = page.getByLabel('Created from');
+    expect(await from.getAttribute('type')).toBe('text');
+    expect(await from.getAttribute('placeholder')).toBe('yyyy-mm-dd');
+    await from.fill('12/03/2026');
+    await from.blur();
+    await page.getByText('Write the date as yyyy-mm-dd, e.g. 2026-12-03.').waitFor();
+    await from.fill('2026-01-01');
+    await from.blur();
+    expect(await page.getByText('Write the date as yyyy-mm-dd').count()).toBe(0);
+    await saveScreen(page, 'lab-overview', 'date-field');
+  });
+
   it('folds the navigation away, remembers it after a reload, and opens it again', async () => {
     await page.goto(`${server.url}/samples`);
     await heading('Samples').first().waitFor();

@@ -41,7 +41,7 @@ function IsoField({ format, label, value, onChange, error, hint, onBlur, ...inpu
   return (
     <TextField
       label={label}
-      inputMode="numeric"
+      type="text"
       autoComplete="off"
       placeholder={format.placeholder}
       pattern={format.pattern}
