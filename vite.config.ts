@@ -8,7 +8,7 @@ export default defineConfig({
   plugins: [react(), tailwindcss()],
   // The Host header is kept (changeOrigin: false) so the API's cross-site check sees the console's
   // own origin on writes sent from it.
-  server: { proxy: { '/api': { target: 'http://localhost:3000', changeOrigin: false } } },
+  server: { proxy: { '/api': { target: 'http://127.0.0.1:3000', changeOrigin: false } } },
   build: {
     outDir: 'dist',
     emptyOutDir: true,

@@ -10,6 +10,13 @@ const booleanFlag = z
 const envSchema = z.object({
   NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
   PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  HOST: z
+    .string()
+    .regex(
+      /^(\d{1,3}(\.\d{1,3}){3}|[0-9a-fA-F:]*:[0-9a-fA-F:.]*|[A-Za-z0-9]([A-Za-z0-9.-]*[A-Za-z0-9])?)$/,
+      'must be an IP address or host name to listen on, e.g. 127.0.0.1 (this machine only) or 0.0.0.0 (every interface)',
+    )
+    .optional(),
   DATABASE_FILE: z.string().min(1).default('./data/meltwire.db'),
   DATABASE_URL: z
     .string()
@@ -82,6 +89,8 @@ function trustProxy(value: string): boolean | number | string {
 export interface Config {
   env: 'development' | 'production' | 'test';
   port: number;
+  /** The address the server listens on: 127.0.0.1 (this machine only) unless HOST says otherwise; 0.0.0.0 by default in production. */
+  host: string;
   databaseFile: string;
   databaseUrl?: string;
   sessionSecret: string;
@@ -142,6 +151,9 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   return {
     env: e.NODE_ENV,
     port: e.PORT,
+    // A demo or development server is reachable from this machine only unless HOST opens it;
+    // production (typically behind a proxy or in a container) listens on every interface.
+    host: e.HOST ?? (e.NODE_ENV === 'production' ? '0.0.0.0' : '127.0.0.1'),
     databaseFile: e.DATABASE_FILE,
     databaseUrl: e.DATABASE_URL,
     // Without a configured secret, sessions last until the process restarts (development only).

@@ -12,9 +12,24 @@ export interface RunningServer {
   stop(): Promise<void>;
 }
 
-export async function listen(app: Express, db: Db, logger: Logger, port: number, onStop?: () => Promise<void>): Promise<RunningServer> {
+/** An address to reach a server bound to `host` from this machine: a wildcard bind is reached on loopback. */
+function reachableHost(host: string): string {
+  if (host === '0.0.0.0') return '127.0.0.1';
+  if (host === '::') return '[::1]';
+  return host.includes(':') ? `[${host}]` : host;
+}
+
+/** Listens on `host` (loopback unless told otherwise) and `port` (0: any free port); `url` is where it answers. */
+export async function listen(
+  app: Express,
+  db: Db,
+  logger: Logger,
+  port: number,
+  onStop?: () => Promise<void>,
+  host = '127.0.0.1',
+): Promise<RunningServer> {
   const server = await new Promise<Server>((resolve, reject) => {
-    const s = app.listen(port, (error?: Error) => (error ? reject(error) : resolve(s)));
+    const s = app.listen(port, host, (error?: Error) => (error ? reject(error) : resolve(s)));
   });
   const address = server.address();
   const boundPort = typeof address === 'object' && address ? address.port : port;
@@ -39,7 +54,7 @@ export async function listen(app: Express, db: Db, logger: Logger, port: number,
       await db.destroy();
       logger.info('stopped');
     })());
-  return { server, url: `http://localhost:${boundPort}`, stop };
+  return { server, url: `http://${reachableHost(host)}:${boundPort}`, stop };
 }
 
 export function stopOnSignals(running: RunningServer, logger: Logger): void {

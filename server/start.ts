@@ -53,16 +53,23 @@ async function main(): Promise<void> {
   const webhooks = startDeliveryWorker(app.locals.ctx, { perEndpoint: config.webhookInFlightPerEndpoint });
   const alerts = startAlertFlusher(app.locals.ctx);
   const feedWatch = startFeedWatch(app.locals.ctx);
-  const running = await listen(app, db, logger, config.port, async () => {
-    // Attempts in flight are abandoned and sent again at the next start (same webhook-id).
-    await webhooks.stop();
-    await housekeeping.stop();
-    await alerts.stop();
-    await feedWatch.stop();
-    // The last answered calls may still be writing their request log entries.
-    await recorderFor(app.locals.ctx).drain();
-    await smtp?.close();
-  });
+  const running = await listen(
+    app,
+    db,
+    logger,
+    config.port,
+    async () => {
+      // Attempts in flight are abandoned and sent again at the next start (same webhook-id).
+      await webhooks.stop();
+      await housekeeping.stop();
+      await alerts.stop();
+      await feedWatch.stop();
+      // The last answered calls may still be writing their request log entries.
+      await recorderFor(app.locals.ctx).drain();
+      await smtp?.close();
+    },
+    config.host,
+  );
   stopOnSignals(running, logger);
   // Samples stored before prepared documents existed, or under another representation version.
   prepareStaleDocuments(db).then(
@@ -71,7 +78,7 @@ async function main(): Promise<void> {
   );
 
   const lines = [
-    `Meltwire ${config.version} is serving API and console on ${config.publicUrl}`,
+    `Meltwire ${config.version} is serving API and console on ${config.publicUrl} (listening on ${config.host}:${config.port}${config.host === '127.0.0.1' ? ', this machine only: set HOST=0.0.0.0 to open it to the network' : ''})`,
     `  API reference: ${config.publicUrl}/api/v1/openapi.json`,
   ];
   if (DEV) lines.push('  Console with hot reload: http://localhost:5173 (Vite, forwarding /api here)');

@@ -10,6 +10,8 @@ export const paths = {
   samples: '/samples',
   /** A sample, in a unit other than % when asked. */
   sample: (sampleId: string, unit?: string) => `/samples/${id(sampleId)}${unit && unit !== '%' ? `?unit=${id(unit)}` : ''}`,
+  /** The Samples page with a filter query already written (see writeFilters). */
+  samplesMatching: (query: URLSearchParams) => `/samples${query.size > 0 ? `?${query.toString()}` : ''}`,
   /** The samples of an import, only those carrying a flag when given. */
   samplesOfImport: (importId: string, flag?: string) => `/samples?import_id=${id(importId)}${flag ? `&flag=${id(flag)}` : ''}`,
   imports: '/imports',

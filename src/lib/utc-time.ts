@@ -1,12 +1,13 @@
-// Times as the console writes them: UTC, like the API, with the zone named in the column header.
-const NO_TIME = '—';
+// @deprecated: the console's one clock is <Timestamp> (src/components/ui/timestamp.tsx) or
+// formatInstant (src/lib/timestamp.ts) in plain text. These names remain for code still calling them.
+import { formatInstant } from './timestamp.ts';
 
-/** "2024-03-04 06:00" from an ISO instant. */
+/** @deprecated Use <Timestamp> or formatInstant. */
 export function utcMinute(iso: string | null): string {
-  return iso ? iso.slice(0, 16).replace('T', ' ') : NO_TIME;
+  return formatInstant(iso);
 }
 
-/** "2024-03-04 06:00:40" from an ISO instant. */
+/** @deprecated Use <Timestamp seconds> or formatInstant(iso, { seconds: true }). */
 export function utcSecond(iso: string | null): string {
-  return iso ? iso.slice(0, 19).replace('T', ' ') : NO_TIME;
+  return formatInstant(iso, { seconds: true });
 }

@@ -37,7 +37,7 @@ export async function startLiveServer(
     validateResponses: options.validateResponses ?? true,
     ...(withConsole ? {} : { consoleDir: '/nonexistent' }),
   });
-  const running = await listen(app, db, logger, options.port ?? 0, () => smtp.close());
+  const running = await listen(app, db, logger, options.port ?? 0, () => smtp.close(), config.host);
   return {
     url: running.url,
     db,

@@ -52,6 +52,18 @@ describe('loadConfig', () => {
     expect(loadConfig({ NODE_ENV: 'test', WEBHOOK_ALLOW_PRIVATE: 'true' }).webhookAllowPrivate).toBe(true);
   });
 
+  it('listens on this machine only unless HOST opens it; production listens on every interface', () => {
+    expect(loadConfig({}).host).toBe('127.0.0.1');
+    expect(loadConfig({ NODE_ENV: 'test' }).host).toBe('127.0.0.1');
+    expect(loadConfig({ HOST: '' }).host).toBe('127.0.0.1');
+    expect(loadConfig({ NODE_ENV: 'production', SESSION_SECRET: 's'.repeat(40) }).host).toBe('0.0.0.0');
+    expect(loadConfig({ NODE_ENV: 'production', SESSION_SECRET: 's'.repeat(40), HOST: '127.0.0.1' }).host).toBe('127.0.0.1');
+    for (const host of ['0.0.0.0', '::', '::1', '192.168.10.5', 'localhost', 'lab-server.kestrelbend.test'])
+      expect(loadConfig({ HOST: host }).host).toBe(host);
+    for (const host of ['http://0.0.0.0', '0.0.0.0:3000', 'two words', '-bad'])
+      expect(() => loadConfig({ HOST: host }), host).toThrow(/HOST: must be an IP address or host name/);
+  });
+
   it('treats empty variables as unset', () => {
     expect(loadConfig({ PORT: '', SMTP_URL: '' })).toMatchObject({ port: 3000, smtpUrl: undefined });
   });

@@ -6,11 +6,12 @@ import { Card, PageHeader } from '../../components/ui/layout.tsx';
 import { hasScope, useMe } from '../../api/me.ts';
 import { RequireScope } from '../../features/auth/components/require-scope.tsx';
 import { useCorrectionsInForce, useRun } from '../../features/drift/api/standardizations.ts';
-import { formatTime } from '../../features/drift/chart-data.ts';
 import { ActivateDialog } from '../../features/drift/components/activate-dialog.tsx';
 import { CorrectionsTable } from '../../features/drift/components/corrections-table.tsx';
 import { FlagBadge, StatusText } from '../../features/drift/components/flag-badge.tsx';
 import { paths } from '../../config/paths.ts';
+import { Timestamp } from '../../components/ui/timestamp.tsx';
+import { formatInstant } from '../../lib/timestamp.ts';
 
 export function DriftRunPage() {
   const { id = '' } = useParams();
@@ -35,7 +36,7 @@ export function DriftRunPage() {
             title={`Standardization of ${run.data.instrument.code} · ${run.data.method.code}`}
             description={
               <>
-                Measured {formatTime(run.data.measured_at)} by {run.data.created_by}.{' '}
+                Measured <Timestamp value={run.data.measured_at} /> by {run.data.created_by}.{' '}
                 <Link className="text-copper-700 underline" to={paths.driftOf(run.data.instrument.id, run.data.method.id)}>
                   Back to the drift history
                 </Link>
@@ -59,7 +60,7 @@ export function DriftRunPage() {
             {run.data.activation && (
               <Alert
                 tone={run.data.activation.override_reason ? 'caution' : 'info'}
-                title={`Activated ${formatTime(run.data.activation.activated_at)} by ${run.data.activation.activated_by}, in force from ${formatTime(run.data.activation.effective_from)}`}
+                title={`Activated ${formatInstant(run.data.activation.activated_at)} by ${run.data.activation.activated_by}, in force from ${formatInstant(run.data.activation.effective_from)}`}
               >
                 {run.data.activation.override_reason && (
                   <p data-testid="override-reason">Override: {run.data.activation.override_reason}</p>

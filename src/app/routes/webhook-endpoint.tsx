@@ -3,12 +3,13 @@ import { Alert, ProblemAlert, Spinner } from '../../components/ui/feedback.tsx';
 import { Badge, Card, PageHeader } from '../../components/ui/layout.tsx';
 import { hasScope, useMe } from '../../api/me.ts';
 import { paths } from '../../config/paths.ts';
-import { localDateTime } from '../../lib/local-time.ts';
 import { RequireScope } from '../../features/auth/components/require-scope.tsx';
 import { useWebhookEndpoint } from '../../features/webhooks/api/endpoints.ts';
 import { DeliveriesTable } from '../../features/webhooks/components/deliveries-table.tsx';
 import { EndpointActions } from '../../features/webhooks/components/endpoint-actions.tsx';
 import { RecoverForm } from '../../features/webhooks/components/recover-form.tsx';
+import { Timestamp } from '../../components/ui/timestamp.tsx';
+import { formatInstant } from '../../lib/timestamp.ts';
 
 export function WebhookEndpointPage() {
   const { id = '' } = useParams();
@@ -42,9 +43,13 @@ export function WebhookEndpointPage() {
                   {e.disabled_reason}
                 </Alert>
               )}
-              {e.failing_since && <Alert tone="caution" title={`Every attempt has failed since ${localDateTime(e.failing_since)}`} />}
+              {e.failing_since && (
+                <Alert tone="caution" title={`Every attempt has failed since ${formatInstant(e.failing_since, { seconds: true })}`} />
+              )}
               {e.previous_secret_expires_at && (
-                <p className="text-slag-700">Also signed with the previous secret until {localDateTime(e.previous_secret_expires_at)}.</p>
+                <p className="text-slag-700">
+                  Also signed with the previous secret until <Timestamp value={e.previous_secret_expires_at} seconds />.
+                </p>
               )}
               <div className="flex flex-wrap gap-1">
                 {e.event_types.map((type) => (

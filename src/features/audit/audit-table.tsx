@@ -6,6 +6,7 @@ import { EmptyState, ProblemAlert, Spinner } from '../../components/ui/feedback.
 import { TextField } from '../../components/ui/field.tsx';
 import { Table } from '../../components/ui/layout.tsx';
 import { auditKeys } from '../../api/query-keys.ts';
+import { Timestamp } from '../../components/ui/timestamp.tsx';
 
 const auditQuery = (action: string, targetId: string) =>
   infiniteQueryOptions({
@@ -45,10 +46,12 @@ export function AuditTable() {
       {events.isPending && <Spinner label="Loading the audit trail…" />}
       {!events.isPending && rows.length === 0 && <EmptyState title="No audit events match" />}
       {rows.length > 0 && (
-        <Table head={['When (UTC)', 'Actor', 'Action', 'Target', 'Before', 'After']} caption="Audit events">
+        <Table head={['When', 'Actor', 'Action', 'Target', 'Before', 'After']} caption="Audit events">
           {rows.map((event) => (
             <tr key={event.id} className="align-top">
-              <td className="px-3 py-2 font-mono text-xs">{event.occurred_at}</td>
+              <td className="px-3 py-2 font-mono text-xs">
+                <Timestamp value={event.occurred_at} seconds />
+              </td>
               <td className="px-3 py-2 text-xs">
                 {event.actor.label} <span className="text-slag-500">({event.actor.type})</span>
               </td>

@@ -1,6 +1,7 @@
 // Plain logic of the control charts: linear scales from data to the SVG's box, the value range
 // that fits every point and the ±3σ band, and the short human forms of values and rules.
 import type { ChartPoint, ControlChart } from './api/control-samples.ts';
+import { formatInstant } from '../../lib/timestamp.ts';
 
 export interface Box {
   width: number;
@@ -50,9 +51,9 @@ export function formatValue(value: number | null): string {
   return value === null ? '—' : VALUE.format(value);
 }
 
-/** "2026-11-03 06:40 UTC". */
+/** @deprecated The console's one clock: use <Timestamp> (or formatInstant in plain text). Kept for code still calling it. */
 export function formatWhen(iso: string): string {
-  return `${iso.slice(0, 16).replace('T', ' ')} UTC`;
+  return formatInstant(iso);
 }
 
 /** "11-03" for the time axis. */
@@ -71,7 +72,7 @@ export function sigmaOffset(point: ChartPoint): string {
 export function describePoint(point: ChartPoint): string {
   const rules = point.violations.map((v) => v.title).join('; ');
   return [
-    `${point.sample_code}, measured ${formatWhen(point.measured_at)}`,
+    `${point.sample_code}, measured ${formatInstant(point.measured_at)}`,
     `value ${formatValue(point.value)} %`,
     `${point.burns_n} burns`,
     point.provisional ? 'provisional (limits not established yet)' : sigmaOffset(point),

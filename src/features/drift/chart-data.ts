@@ -1,6 +1,7 @@
 // Plain logic of the drift chart: API points (decimal strings) → chart rows (numbers), and the
 // short human forms shown in the table and tooltips.
 import type { DriftPoint } from './api/standardizations.ts';
+import { formatInstant } from '../../lib/timestamp.ts';
 
 export interface ChartRow {
   id: string;
@@ -31,9 +32,9 @@ export function shortDecimal(value: string | null): string {
   return value === null ? '—' : SHORT.format(Number(value));
 }
 
+/** @deprecated The console's one clock: use <Timestamp> (or formatInstant in plain text). Kept for code still calling it. */
 export function formatTime(iso: string | number): string {
-  const d = new Date(iso);
-  return `${d.toISOString().slice(0, 10)} ${d.toISOString().slice(11, 16)} UTC`;
+  return formatInstant(iso);
 }
 
 export function formatDay(time: number): string {

@@ -3,6 +3,7 @@ import { api, unwrap } from '../../api/client.ts';
 import { isProblem } from '../../api/problem.ts';
 import { Alert, EmptyState, ProblemAlert, Spinner } from '../../components/ui/feedback.tsx';
 import { systemKeys } from '../../api/query-keys.ts';
+import { Timestamp } from '../../components/ui/timestamp.tsx';
 
 export function OutboxList() {
   const outbox = useQuery({ queryKey: systemKeys.outbox(), queryFn: () => unwrap(api.GET('/dev/outbox')), refetchInterval: 5000 });
@@ -23,7 +24,7 @@ export function OutboxList() {
         <li key={mail.id} className="rounded-lg border border-ash-200 bg-white p-4">
           <p className="font-medium">{mail.subject}</p>
           <p className="text-xs text-slag-500">
-            to {mail.to.join(', ')} · {mail.received_at}
+            to {mail.to.join(', ')} · <Timestamp value={mail.received_at} seconds />
           </p>
           <pre className="mt-2 whitespace-pre-wrap font-mono text-xs text-slag-800">{mail.text}</pre>
         </li>

@@ -6,6 +6,7 @@ import { Badge, Table } from '../../../components/ui/layout.tsx';
 import { useApiKeys, useRevokeApiKey, useRollApiKey, type ApiKey } from '../api/api-keys.ts';
 import { SecretOnce } from '../../../components/ui/secret-once.tsx';
 import { KEY_SECRET_WARNING } from './key-secret-warning.ts';
+import { Timestamp } from '../../../components/ui/timestamp.tsx';
 
 export function ApiKeysTable({ canWrite }: { canWrite: boolean }) {
   const [includeRevoked, setIncludeRevoked] = useState(false);
@@ -47,8 +48,12 @@ export function ApiKeysTable({ canWrite }: { canWrite: boolean }) {
                 </div>
               </td>
               <td className="px-3 py-2 text-xs">{key.created_by.email}</td>
-              <td className="px-3 py-2 font-mono text-xs text-slag-500">{key.last_used_at ?? 'never'}</td>
-              <td className="px-3 py-2 font-mono text-xs text-slag-500">{key.expires_at ?? '—'}</td>
+              <td className="px-3 py-2 font-mono text-xs text-slag-500">
+                {key.last_used_at ? <Timestamp value={key.last_used_at} /> : 'never'}
+              </td>
+              <td className="px-3 py-2 font-mono text-xs text-slag-500">
+                <Timestamp value={key.expires_at} />
+              </td>
               <td className="px-3 py-2">
                 <Badge tone={key.status === 'active' ? 'good' : 'bad'}>{key.status}</Badge>
               </td>

@@ -8,6 +8,9 @@ import type { Scope } from '../../../api/me.ts';
 import { useCreateApiKey } from '../api/api-keys.ts';
 import { SecretOnce } from '../../../components/ui/secret-once.tsx';
 import { KEY_SECRET_WARNING } from './key-secret-warning.ts';
+import { DateTimeField } from '../../../components/ui/date-field.tsx';
+import { readIsoDateTime } from '../../../lib/iso-date.ts';
+import { localZoneName } from '../../../lib/local-time.ts';
 
 export function CreateKeyDialog({ open, grantable, onClose }: { open: boolean; grantable: Scope[]; onClose: () => void }) {
   const [name, setName] = useState('');
@@ -30,7 +33,9 @@ export function CreateKeyDialog({ open, grantable, onClose }: { open: boolean; g
 
   function submit(event: FormEvent) {
     event.preventDefault();
-    create.mutate({ name, scopes, ...(expiresAt ? { expires_at: new Date(expiresAt).toISOString() } : {}) });
+    const expires = readIsoDateTime(expiresAt);
+    if (expiresAt.trim() !== '' && !expires) return; // the field says how to write it
+    create.mutate({ name, scopes, ...(expires ? { expires_at: expires.toISOString() } : {}) });
   }
 
   return (
@@ -64,13 +69,12 @@ export function CreateKeyDialog({ open, grantable, onClose }: { open: boolean; g
               </p>
             )}
           </fieldset>
-          <TextField
+          <DateTimeField
             label="Expires (optional)"
-            type="datetime-local"
             value={expiresAt}
             onChange={(e) => setExpiresAt(e.target.value)}
             error={problem?.fieldError('expires_at')}
-            hint="Leave empty for a key that lives until revoked."
+            hint={`yyyy-mm-dd hh:mm, your time (${localZoneName()}). Leave empty for a key that lives until revoked.`}
           />
           <DialogFooter>
             <Button variant="secondary" onClick={close}>

@@ -1,6 +1,7 @@
 // Under the chart: the limits' validity periods and the run rules, each named with its source.
 import type { ControlChart } from '../api/control-samples.ts';
-import { formatValue, formatWhen } from '../chart-geometry.ts';
+import { formatValue } from '../chart-geometry.ts';
+import { formatInstant } from '../../../lib/timestamp.ts';
 
 export function ChartLimits({ chart }: { chart: ControlChart }) {
   return (
@@ -16,8 +17,8 @@ export function ChartLimits({ chart }: { chart: ControlChart }) {
               — {l.source}
               {l.provisional && ' (provisional)'}
               <span className="block text-xs text-slag-500">
-                {l.valid_from ? `from ${formatWhen(l.valid_from)}` : 'from the first point'}
-                {l.valid_to ? ` to ${formatWhen(l.valid_to)}` : ', in force'}
+                {l.valid_from ? `from ${formatInstant(l.valid_from)}` : 'from the first point'}
+                {l.valid_to ? ` to ${formatInstant(l.valid_to)}` : ', in force'}
               </span>
             </li>
           ))}

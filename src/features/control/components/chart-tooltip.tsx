@@ -1,6 +1,7 @@
 // The box that names a hovered or focused point: sample code, time, value, burns and the rules it breaks.
 import type { ChartPoint } from '../api/control-samples.ts';
-import { formatValue, formatWhen, sigmaOffset } from '../chart-geometry.ts';
+import { formatValue, sigmaOffset } from '../chart-geometry.ts';
+import { Timestamp } from '../../../components/ui/timestamp.tsx';
 
 export function ChartTooltip({ point, left, top }: { point: ChartPoint; left: number; top: number }) {
   return (
@@ -11,7 +12,9 @@ export function ChartTooltip({ point, left, top }: { point: ChartPoint; left: nu
       style={{ left: `${left}%`, top: `calc(${top}% + 14px)` }}
     >
       <p className="font-mono font-semibold text-slag-900">{point.sample_code}</p>
-      <p className="text-slag-500">{formatWhen(point.measured_at)}</p>
+      <p className="text-slag-500">
+        <Timestamp value={point.measured_at} />
+      </p>
       <p className="mt-1">
         <span className="font-mono">{formatValue(point.value)} %</span> · {point.burns_n} burns ·{' '}
         {point.provisional ? 'provisional' : sigmaOffset(point)}

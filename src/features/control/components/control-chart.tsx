@@ -2,9 +2,10 @@
 // force now, every point in time order, and points that break a rule as labelled diamonds.
 import { useState } from 'react';
 import type { ControlChart } from '../api/control-samples.ts';
-import { type Box, formatDay, formatValue, formatWhen, linearScale, runSpans, ticks, timeDomain, valueDomain } from '../chart-geometry.ts';
+import { type Box, formatDay, formatValue, linearScale, runSpans, ticks, timeDomain, valueDomain } from '../chart-geometry.ts';
 import { ChartTooltip } from './chart-tooltip.tsx';
 import { PointMarker } from './point-marker.tsx';
+import { formatInstant } from '../../../lib/timestamp.ts';
 
 export const CHART_BOX: Box = { width: 900, height: 340, left: 64, right: 56, top: 28, bottom: 36 };
 
@@ -25,7 +26,7 @@ export function ControlChartSvg({ chart, instrumentCode }: { chart: ControlChart
   const broken = chart.points.filter((p) => p.violations.length).length;
   const first = chart.points[0];
   const last = chart.points.at(-1)!;
-  const summary = `Control chart of ${chart.element} on ${instrumentCode}: ${chart.points.length} points from ${formatWhen(first.measured_at)} to ${formatWhen(last.measured_at)}, ${broken} breaking a run rule. Centre line ${formatValue(chart.centre)} %.`;
+  const summary = `Control chart of ${chart.element} on ${instrumentCode}: ${chart.points.length} points from ${formatInstant(first.measured_at)} to ${formatInstant(last.measured_at)}, ${broken} breaking a run rule. Centre line ${formatValue(chart.centre)} %.`;
   const activePoint = active === null ? null : chart.points[active];
   const [t0, t1] = timeDomain(chart.points.map((p) => p.measured_at));
 

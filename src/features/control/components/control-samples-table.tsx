@@ -5,9 +5,9 @@ import { useInstruments, useMethods } from '../../../api/lookups.ts';
 import { EmptyState, ProblemAlert, Spinner } from '../../../components/ui/feedback.tsx';
 import { Table } from '../../../components/ui/layout.tsx';
 import { type ControlSample, useControlChart, useControlSamples } from '../api/control-samples.ts';
-import { formatWhen } from '../chart-geometry.ts';
 import { ControlStatus } from './control-status.tsx';
 import { paths } from '../../../config/paths.ts';
+import { Timestamp } from '../../../components/ui/timestamp.tsx';
 
 function Row({ definition, instrumentCode, methodCode }: { definition: ControlSample; instrumentCode: string; methodCode: string }) {
   // The first element's chart says whether the limits are still provisional and how many points there are.
@@ -25,7 +25,9 @@ function Row({ definition, instrumentCode, methodCode }: { definition: ControlSa
       <td className="px-3 py-2">{methodCode}</td>
       <td className="px-3 py-2 font-mono text-xs">{definition.elements.join(', ')}</td>
       <td className="px-3 py-2 font-mono text-xs">{chart.data ? chart.data.points.length : '…'}</td>
-      <td className="px-3 py-2 font-mono text-xs">{definition.latest_point_at ? formatWhen(definition.latest_point_at) : '—'}</td>
+      <td className="px-3 py-2 font-mono text-xs">
+        <Timestamp value={definition.latest_point_at} />
+      </td>
       <td className="px-3 py-2">
         <ControlStatus state={definition.status === 'verify' ? 'verify' : provisional ? 'provisional' : 'in_control'} />
       </td>

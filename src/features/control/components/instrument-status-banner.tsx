@@ -8,8 +8,8 @@ import { useMethods } from '../../../api/lookups.ts';
 import { Button } from '../../../components/ui/button.tsx';
 import { Alert } from '../../../components/ui/feedback.tsx';
 import { useControlSamples } from '../api/control-samples.ts';
-import { formatWhen } from '../chart-geometry.ts';
 import { DispositionDialog } from './disposition-dialog.tsx';
+import { Timestamp } from '../../../components/ui/timestamp.tsx';
 
 /** Nothing while the instrument is in control for the method (or every method when none is given). */
 export function InstrumentStatusBanner({ instrumentId, methodId }: { instrumentId: string; methodId?: string }) {
@@ -36,8 +36,8 @@ export function InstrumentStatusBanner({ instrumentId, methodId }: { instrumentI
               ))}
             </ul>
             <p className="mt-1">
-              Control point measured {c.reason?.measured_at ? formatWhen(c.reason.measured_at) : '—'}. Check results measured on{' '}
-              {instrument.code} since then before releasing them; each release asks for an acknowledgement until a disposition is recorded.
+              Control point measured <Timestamp value={c.reason?.measured_at} />. Check results measured on {instrument.code} since then
+              before releasing them; each release asks for an acknowledgement until a disposition is recorded.
             </p>
             {canDispose && (
               <Button className="mt-2" variant="secondary" onClick={() => setDisposing(c.method_id)}>

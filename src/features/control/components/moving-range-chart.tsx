@@ -1,8 +1,9 @@
 // The moving range |xᵢ − xᵢ₋₁| of the same points, on the same time axis as the chart above it,
 // with the mean moving range as a dashed line.
 import type { ControlChart } from '../api/control-samples.ts';
-import { formatValue, formatWhen, linearScale, ticks, timeDomain } from '../chart-geometry.ts';
+import { formatValue, linearScale, ticks, timeDomain } from '../chart-geometry.ts';
 import { CHART_BOX } from './control-chart.tsx';
+import { formatInstant } from '../../../lib/timestamp.ts';
 
 export function MovingRangeChart({ chart }: { chart: ControlChart }) {
   const box = { ...CHART_BOX, height: 170 };
@@ -37,7 +38,7 @@ export function MovingRangeChart({ chart }: { chart: ControlChart }) {
       <path d={path} fill="none" stroke="#6b7c8a" />
       {ranges.map((r) => (
         <circle key={r.sample_id} cx={x(Date.parse(r.measured_at))} cy={y(r.value)} r={2.5} fill="#2f4858">
-          <title>{`${formatWhen(r.measured_at)}: ${formatValue(r.value)} %`}</title>
+          <title>{`${formatInstant(r.measured_at)}: ${formatValue(r.value)} %`}</title>
         </circle>
       ))}
     </svg>

@@ -2,20 +2,23 @@
 import { Link } from 'react-router';
 import { Table } from '../../../components/ui/layout.tsx';
 import type { ControlChart } from '../api/control-samples.ts';
-import { formatValue, formatWhen, sigmaOffset } from '../chart-geometry.ts';
+import { formatValue, sigmaOffset } from '../chart-geometry.ts';
 import { paths } from '../../../config/paths.ts';
+import { Timestamp } from '../../../components/ui/timestamp.tsx';
 
 export function PointsTable({ chart, instrumentCode }: { chart: ControlChart; instrumentCode: string }) {
   return (
     <div data-testid="points-table">
       <Table
-        head={['#', 'Measured (UTC)', 'Sample', 'Value (%)', 'Burns', 'Centre ± SD (%)', 'From centre', 'Rules broken']}
+        head={['#', 'Measured', 'Sample', 'Value (%)', 'Burns', 'Centre ± SD (%)', 'From centre', 'Rules broken']}
         caption={`Control points of ${chart.element} on ${instrumentCode}`}
       >
         {chart.points.map((p, i) => (
           <tr key={p.sample_id} data-testid="point-row" className={p.violations.length ? 'bg-oxide-50' : undefined}>
             <td className="px-3 py-1.5 font-mono text-xs">{i + 1}</td>
-            <td className="px-3 py-1.5 font-mono text-xs">{formatWhen(p.measured_at).replace(' UTC', '')}</td>
+            <td className="px-3 py-1.5 font-mono text-xs">
+              <Timestamp value={p.measured_at} />
+            </td>
             <td className="px-3 py-1.5">
               <Link className="font-mono text-xs text-copper-700 underline" to={paths.sample(p.sample_id)}>
                 {p.sample_code}

@@ -5,9 +5,11 @@ import { CartesianGrid, Legend, Line, LineChart, ResponsiveContainer, Tooltip, X
 import { Link } from 'react-router';
 import { Table } from '../../../components/ui/layout.tsx';
 import type { DriftPoint } from '../api/standardizations.ts';
-import { type ChartRow, formatDay, formatTime, shortDecimal, toChartRows } from '../chart-data.ts';
+import { type ChartRow, formatDay, shortDecimal, toChartRows } from '../chart-data.ts';
 import { FlagBadge, StatusText } from './flag-badge.tsx';
 import { paths } from '../../../config/paths.ts';
+import { Timestamp } from '../../../components/ui/timestamp.tsx';
+import { formatInstant } from '../../../lib/timestamp.ts';
 
 const AXIS = new Intl.NumberFormat('en-US', { maximumSignificantDigits: 3, useGrouping: false });
 
@@ -36,7 +38,7 @@ export function DriftChart({ points, element, instrumentCode }: { points: DriftP
   const rows = toChartRows(points);
   const first = points[0];
   const last = points[points.length - 1];
-  const summary = `Slope and offset of ${element} on ${instrumentCode}: ${points.length} standardization runs from ${formatTime(first.measured_at)} to ${formatTime(last.measured_at)}. The data table below lists every point.`;
+  const summary = `Slope and offset of ${element} on ${instrumentCode}: ${points.length} standardization runs from ${formatInstant(first.measured_at)} to ${formatInstant(last.measured_at)}. The data table below lists every point.`;
   return (
     <figure className="space-y-3">
       <div role="img" aria-label={summary} data-testid="drift-chart" className="h-80 w-full rounded-lg border border-ash-200 bg-white p-3">
@@ -67,7 +69,7 @@ export function DriftChart({ points, element, instrumentCode }: { points: DriftP
               label={{ value: 'Offset β (%)', position: 'top', offset: 14 }}
             />
             <Tooltip
-              labelFormatter={(t) => formatTime(Number(t))}
+              labelFormatter={(t) => formatInstant(Number(t))}
               formatter={(value, name) => [typeof value === 'number' ? shortDecimal(String(value)) : '—', name]}
             />
             <Legend verticalAlign="bottom" height={20} wrapperStyle={{ bottom: -4 }} />
@@ -104,7 +106,9 @@ export function DriftChart({ points, element, instrumentCode }: { points: DriftP
         <Table head={['Measured', 'Slope', 'Offset (%)', 'Flag', 'State', '']} caption={`Drift of ${element} on ${instrumentCode}`}>
           {points.map((p) => (
             <tr key={p.standardization_id}>
-              <td className="px-3 py-1.5 font-mono text-xs">{formatTime(p.measured_at)}</td>
+              <td className="px-3 py-1.5 font-mono text-xs">
+                <Timestamp value={p.measured_at} />
+              </td>
               <td className="px-3 py-1.5 font-mono text-xs" title={p.slope ?? undefined}>
                 {shortDecimal(p.slope)}
               </td>
@@ -121,7 +125,7 @@ export function DriftChart({ points, element, instrumentCode }: { points: DriftP
                 <Link
                   className="text-sm text-copper-700 underline"
                   to={paths.driftRun(p.standardization_id)}
-                  aria-label={`Open the run of ${formatTime(p.measured_at)}`}
+                  aria-label={`Open the run of ${formatInstant(p.measured_at)}`}
                 >
                   Open
                 </Link>

@@ -1,9 +1,9 @@
 import { Link } from 'react-router';
 import { Card } from '../../../components/ui/layout.tsx';
 import { useCorrectionsInForce } from '../api/standardizations.ts';
-import { formatTime } from '../chart-data.ts';
 import { FlagBadge } from './flag-badge.tsx';
 import { paths } from '../../../config/paths.ts';
+import { Timestamp } from '../../../components/ui/timestamp.tsx';
 
 /** The set in force now for an instrument and method, or a plain statement that there is none. */
 export function InForceCard({ instrumentId, methodId }: { instrumentId: string; methodId: string }) {
@@ -20,9 +20,13 @@ export function InForceCard({ instrumentId, methodId }: { instrumentId: string; 
       ) : (
         <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm" data-testid="in-force">
           <dt className="text-slag-500">Measured</dt>
-          <dd className="font-mono text-xs">{formatTime(entry.set.measured_at)}</dd>
+          <dd className="font-mono text-xs">
+            <Timestamp value={entry.set.measured_at} />
+          </dd>
           <dt className="text-slag-500">In force since</dt>
-          <dd className="font-mono text-xs">{entry.set.activation && formatTime(entry.set.activation.effective_from)}</dd>
+          <dd className="font-mono text-xs">
+            <Timestamp value={entry.set.activation?.effective_from} />
+          </dd>
           <dt className="text-slag-500">Activated by</dt>
           <dd>{entry.set.activation?.activated_by}</dd>
           <dt className="text-slag-500">Flag</dt>

@@ -3,9 +3,10 @@ import { Button } from '../../../components/ui/button.tsx';
 import { EmptyState, ProblemAlert, Spinner } from '../../../components/ui/feedback.tsx';
 import { Table } from '../../../components/ui/layout.tsx';
 import { useRuns } from '../api/standardizations.ts';
-import { formatTime } from '../chart-data.ts';
 import { FlagBadge, StatusText } from './flag-badge.tsx';
 import { paths } from '../../../config/paths.ts';
+import { Timestamp } from '../../../components/ui/timestamp.tsx';
+import { formatInstant } from '../../../lib/timestamp.ts';
 
 const MODES: Record<string, string> = {
   two_point: 'Two-point',
@@ -28,7 +29,9 @@ export function RunsTable({ instrumentId, methodId }: { instrumentId: string; me
           const flagged = run.corrections.filter((c) => c.flag !== 'ok').map((c) => c.element);
           return (
             <tr key={run.id} data-testid="run-row">
-              <td className="px-3 py-2 font-mono text-xs">{formatTime(run.measured_at)}</td>
+              <td className="px-3 py-2 font-mono text-xs">
+                <Timestamp value={run.measured_at} />
+              </td>
               <td className="px-3 py-2">{run.method.code}</td>
               <td className="px-3 py-2">{MODES[run.mode]}</td>
               <td className="px-3 py-2">
@@ -42,7 +45,7 @@ export function RunsTable({ instrumentId, methodId }: { instrumentId: string; me
                 <Link
                   className="text-sm font-medium text-copper-700 underline"
                   to={paths.driftRun(run.id)}
-                  aria-label={`Open the run of ${formatTime(run.measured_at)}`}
+                  aria-label={`Open the run of ${formatInstant(run.measured_at)}`}
                 >
                   Open
                 </Link>

@@ -6,9 +6,9 @@ import { CodeBlock } from '../../../components/ui/code-block.tsx';
 import { EmptyState, ProblemAlert, Spinner } from '../../../components/ui/feedback.tsx';
 import { SelectField } from '../../../components/ui/field.tsx';
 import { Table } from '../../../components/ui/layout.tsx';
-import { localDateTime } from '../../../lib/local-time.ts';
 import { useEventFeed } from '../api/events.ts';
 import { resourceLink } from '../resource-link.ts';
+import { Timestamp } from '../../../components/ui/timestamp.tsx';
 
 /** The change feed page by page, as an integration reads it: each page starts after the cursor shown. */
 export function EventsFeed() {
@@ -63,7 +63,9 @@ export function EventsFeed() {
               <tr key={event.id} data-testid="event-row">
                 <td className="px-3 py-2 text-right font-mono">{event.sequence}</td>
                 <td className="px-3 py-2 font-mono text-xs">{event.type}</td>
-                <td className="px-3 py-2 text-xs">{localDateTime(event.occurred_at)}</td>
+                <td className="px-3 py-2 text-xs">
+                  <Timestamp value={event.occurred_at} seconds />
+                </td>
                 <td className="px-3 py-2">
                   {link ? (
                     <Link to={link.to} className="text-copper-700 underline">

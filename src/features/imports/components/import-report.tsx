@@ -1,13 +1,13 @@
 import { Link } from 'react-router';
 import { Card } from '../../../components/ui/layout.tsx';
 import { formatBytes } from '../../../lib/format-bytes.ts';
-import { utcSecond } from '../../../lib/utc-time.ts';
 import { useInstruments, useMethods } from '../../../api/lookups.ts';
 import type { Import } from '../api/imports.ts';
 import { FlagSummary, type FlagLabel } from './flag-summary.tsx';
 import { IssuesSection } from './import-issues-table.tsx';
 import { LayoutSummary } from './layout-summary.tsx';
 import { paths } from '../../../config/paths.ts';
+import { Timestamp } from '../../../components/ui/timestamp.tsx';
 
 const MODE_WORDS: Record<Import['mode'], string> = {
   all_or_nothing: 'Whole file or nothing: every line could be read',
@@ -50,9 +50,9 @@ export function ImportReportView({ record, flagLabel }: { record: Import; flagLa
           <dd className="font-mono">{method?.code ?? record.method_id}</dd>
           <dt className="text-slag-500">Imported</dt>
           <dd>{MODE_WORDS[record.mode]}</dd>
-          <dt className="text-slag-500">Uploaded (UTC)</dt>
+          <dt className="text-slag-500">Uploaded</dt>
           <dd>
-            <span className="font-mono text-xs">{utcSecond(record.created_at)}</span> by {record.created_by}
+            <Timestamp value={record.created_at} seconds className="font-mono text-xs" /> by {record.created_by}
           </dd>
         </dl>
         <div className="mt-3 flex flex-wrap gap-4 text-sm">

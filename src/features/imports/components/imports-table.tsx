@@ -2,10 +2,11 @@ import { Link } from 'react-router';
 import { EmptyState, ProblemAlert, Spinner } from '../../../components/ui/feedback.tsx';
 import { LoadMore } from '../../../components/ui/load-more.tsx';
 import { Table } from '../../../components/ui/layout.tsx';
-import { utcMinute } from '../../../lib/utc-time.ts';
 import { useInstruments } from '../../../api/lookups.ts';
 import { useImports } from '../api/imports.ts';
 import { paths } from '../../../config/paths.ts';
+import { Timestamp } from '../../../components/ui/timestamp.tsx';
+import { formatInstant } from '../../../lib/timestamp.ts';
 
 const figure = 'px-3 py-2 text-right font-mono tabular-nums';
 const right = (text: string) => (
@@ -28,21 +29,13 @@ export function ImportsTable() {
       {rows.length > 0 && (
         <Table
           caption="Imports, newest first"
-          head={[
-            'Uploaded (UTC)',
-            'File',
-            'Instrument',
-            right('Samples'),
-            right('Burns'),
-            right('Rejected lines'),
-            right('Warnings'),
-            'By',
-            '',
-          ]}
+          head={['Uploaded', 'File', 'Instrument', right('Samples'), right('Burns'), right('Rejected lines'), right('Warnings'), 'By', '']}
         >
           {rows.map((record) => (
             <tr key={record.id} className="align-top hover:bg-ash-50" data-testid="import-row">
-              <td className="whitespace-nowrap px-3 py-2 font-mono text-xs">{utcMinute(record.created_at)}</td>
+              <td className="whitespace-nowrap px-3 py-2 font-mono text-xs">
+                <Timestamp value={record.created_at} />
+              </td>
               <td className="max-w-xs break-words px-3 py-2">{record.file.name}</td>
               <td className="px-3 py-2 font-mono">
                 {instruments?.find((i) => i.id === record.instrument_id)?.code ?? record.instrument_id}
@@ -56,7 +49,7 @@ export function ImportsTable() {
                 <Link
                   to={paths.import(record.id)}
                   className="text-copper-700 underline"
-                  aria-label={`Report of ${record.file.name}, uploaded ${record.created_at}`}
+                  aria-label={`Report of ${record.file.name}, uploaded ${formatInstant(record.created_at)}`}
                 >
                   Report
                 </Link>

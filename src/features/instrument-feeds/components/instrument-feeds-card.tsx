@@ -1,8 +1,8 @@
 import { ProblemAlert, Spinner } from '../../../components/ui/feedback.tsx';
 import { Badge, Card } from '../../../components/ui/layout.tsx';
-import { localDateTime } from '../../../lib/local-time.ts';
 import { type InstrumentFeed, useInstrumentFeeds } from '../api/instrument-feeds.ts';
 import { summarizeFeed } from '../feed-summary.ts';
+import { Timestamp } from '../../../components/ui/timestamp.tsx';
 
 function FeedRow({ feed }: { feed: InstrumentFeed }) {
   const summary = summarizeFeed(feed);
@@ -17,10 +17,18 @@ function FeedRow({ feed }: { feed: InstrumentFeed }) {
       {feed.state !== 'no_agent' && (
         <dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-xs">
           <dt className="text-slag-500">Last file</dt>
-          <dd>{feed.last_file ? `${feed.last_file.name} at ${localDateTime(feed.last_file.at)}` : 'none delivered yet'}</dd>
+          <dd>
+            {feed.last_file ? (
+              <>
+                {feed.last_file.name} at <Timestamp value={feed.last_file.at} seconds />
+              </>
+            ) : (
+              'none delivered yet'
+            )}
+          </dd>
           <dt className="text-slag-500">Last report</dt>
           <dd>
-            {localDateTime(feed.reported_at)}
+            <Timestamp value={feed.reported_at} seconds />
             {feed.agent && (
               <span className="text-slag-500">
                 {' '}
@@ -33,7 +41,10 @@ function FeedRow({ feed }: { feed: InstrumentFeed }) {
             <>
               <dt className="text-oxide-600">Last error</dt>
               <dd className="text-oxide-600">
-                {feed.last_error.message} <span className="text-slag-500">({localDateTime(feed.last_error.at)})</span>
+                {feed.last_error.message}{' '}
+                <span className="text-slag-500">
+                  (<Timestamp value={feed.last_error.at} seconds />)
+                </span>
               </dd>
             </>
           )}

@@ -7,6 +7,7 @@ import { useReplay, useRequestLogEntry, type RequestLogEntry } from '../api/requ
 import { curlCommand } from '../curl.ts';
 import { StatusBadge } from './status-badge.tsx';
 import { paths } from '../../../config/paths.ts';
+import { Timestamp } from '../../../components/ui/timestamp.tsx';
 
 type Message = RequestLogEntry['request'];
 
@@ -98,8 +99,10 @@ export function RequestLogDetail({ id }: { id: string }) {
         <dd>
           <StatusBadge status={e.status} /> <span className="ml-2 font-mono text-xs">{e.duration_ms.toFixed(1)} ms</span>
         </dd>
-        <dt className="text-slag-500">When (UTC)</dt>
-        <dd className="font-mono text-xs">{e.occurred_at}</dd>
+        <dt className="text-slag-500">When</dt>
+        <dd className="font-mono text-xs">
+          <Timestamp value={e.occurred_at} seconds />
+        </dd>
         <dt className="text-slag-500">Caller</dt>
         <dd>
           {e.caller.label ?? 'anonymous'} <span className="text-slag-500">({e.caller.type.replace('_', ' ')})</span>

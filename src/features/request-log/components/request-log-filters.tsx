@@ -2,13 +2,15 @@ import { useState, type FormEvent } from 'react';
 import { Button } from '../../../components/ui/button.tsx';
 import { SelectField, TextField } from '../../../components/ui/field.tsx';
 import type { RequestLogFilters } from '../api/request-log.ts';
+import { DateTimeField } from '../../../components/ui/date-field.tsx';
+import { readIsoDateTime } from '../../../lib/iso-date.ts';
 
 const METHODS = ['GET', 'POST', 'PUT', 'PATCH', 'DELETE'] as const;
 const EMPTY = { method: '', status: '', path_prefix: '', caller_id: '', since: '', until: '' };
 
-/** datetime-local gives local wall time without a zone; the API wants UTC. */
+/** A time typed in the reader's zone (yyyy-mm-dd hh:mm); the API wants UTC. */
 function toIso(local: string): string | undefined {
-  return local ? new Date(local).toISOString() : undefined;
+  return readIsoDateTime(local)?.toISOString();
 }
 
 export function RequestLogFilterForm({ onApply }: { onApply: (filters: RequestLogFilters) => void }) {
@@ -18,6 +20,8 @@ export function RequestLogFilterForm({ onApply }: { onApply: (filters: RequestLo
 
   function submit(event: FormEvent) {
     event.preventDefault();
+    // A time that is not yyyy-mm-dd hh:mm is not applied; its field says why.
+    if ([form.since, form.until].some((text) => text.trim() !== '' && !toIso(text))) return;
     onApply({
       method: (form.method || undefined) as RequestLogFilters['method'],
       status: form.status.trim() || undefined,
@@ -43,8 +47,8 @@ export function RequestLogFilterForm({ onApply }: { onApply: (filters: RequestLo
       <TextField label="Status" placeholder="404 or 4xx" value={form.status} onChange={set('status')} />
       <TextField label="Path starts with" placeholder="/api/v1/samples" value={form.path_prefix} onChange={set('path_prefix')} />
       <TextField label="Caller id" placeholder="key_… or usr_…" value={form.caller_id} onChange={set('caller_id')} />
-      <TextField label="Since" type="datetime-local" value={form.since} onChange={set('since')} />
-      <TextField label="Until" type="datetime-local" value={form.until} onChange={set('until')} />
+      <DateTimeField label="Since" value={form.since} onChange={set('since')} />
+      <DateTimeField label="Until" value={form.until} onChange={set('until')} />
       <div className="flex gap-2">
         <Button type="submit">Apply</Button>
         <Button

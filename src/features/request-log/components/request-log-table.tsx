@@ -4,6 +4,8 @@ import { LoadMore } from '../../../components/ui/load-more.tsx';
 import { Badge, Table } from '../../../components/ui/layout.tsx';
 import { useRequestLog, type RequestLogFilters } from '../api/request-log.ts';
 import { StatusBadge } from './status-badge.tsx';
+import { Timestamp } from '../../../components/ui/timestamp.tsx';
+import { formatInstant } from '../../../lib/timestamp.ts';
 
 export function RequestLogTable({ filters, onOpen }: { filters: RequestLogFilters; onOpen: (id: string) => void }) {
   const log = useRequestLog(filters);
@@ -18,10 +20,12 @@ export function RequestLogTable({ filters, onOpen }: { filters: RequestLogFilter
         </EmptyState>
       )}
       {rows.length > 0 && (
-        <Table head={['When (UTC)', 'Method', 'Path', 'Status', 'ms', 'Caller', '']} caption="Calls to the API, newest first">
+        <Table head={['When', 'Method', 'Path', 'Status', 'ms', 'Caller', '']} caption="Calls to the API, newest first">
           {rows.map((entry) => (
             <tr key={entry.id} className="align-top hover:bg-ash-50" data-testid="request-log-row">
-              <td className="whitespace-nowrap px-3 py-2 font-mono text-xs">{entry.occurred_at.replace('T', ' ').replace('Z', '')}</td>
+              <td className="whitespace-nowrap px-3 py-2 font-mono text-xs">
+                <Timestamp value={entry.occurred_at} seconds />
+              </td>
               <td className="px-3 py-2 font-mono text-xs font-semibold">{entry.method}</td>
               <td className="max-w-md break-all px-3 py-2 font-mono text-xs">
                 {entry.path}
@@ -43,7 +47,7 @@ export function RequestLogTable({ filters, onOpen }: { filters: RequestLogFilter
                 <Button
                   variant="ghost"
                   onClick={() => onOpen(entry.id)}
-                  aria-label={`Details of ${entry.method} ${entry.path} at ${entry.occurred_at}`}
+                  aria-label={`Details of ${entry.method} ${entry.path} at ${formatInstant(entry.occurred_at, { seconds: true })}`}
                 >
                   Details
                 </Button>

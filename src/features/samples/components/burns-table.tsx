@@ -1,8 +1,8 @@
 import { Button } from '../../../components/ui/button.tsx';
 import { Table } from '../../../components/ui/layout.tsx';
 import type { Burn } from '../api/samples.ts';
-import { utcSecond } from '../../../lib/utc-time.ts';
 import { burnFigure } from '../figures.ts';
+import { Timestamp } from '../../../components/ui/timestamp.tsx';
 
 const cell = 'px-3 py-2';
 
@@ -33,7 +33,7 @@ export function BurnsTable({
       caption={`Burns, one row each, values in ${unit}; hover a value for the value as received`}
       head={[
         'Burn',
-        'Measured (UTC)',
+        'Measured',
         'Line',
         'State',
         ...elements.map((el) => (
@@ -54,7 +54,9 @@ export function BurnsTable({
           <th scope="row" className={`${cell} text-right font-mono`}>
             {burn.number}
           </th>
-          <td className={`${cell} whitespace-nowrap font-mono text-xs`}>{utcSecond(burn.measured_at)}</td>
+          <td className={`${cell} whitespace-nowrap font-mono text-xs`}>
+            <Timestamp value={burn.measured_at} seconds />
+          </td>
           <td className={`${cell} text-right font-mono text-xs`}>{burn.source_line ?? '—'}</td>
           <td className={`${cell} min-w-40 text-xs`}>
             {burn.excluded ? (
@@ -62,7 +64,7 @@ export function BurnsTable({
                 <span className="font-semibold text-oxide-600">✕ Excluded</span>
                 {burn.exclusion && (
                   <span className="block text-slag-700">
-                    “{burn.exclusion.reason}” — {burn.exclusion.by}, {utcSecond(burn.exclusion.at)}
+                    “{burn.exclusion.reason}” — {burn.exclusion.by}, <Timestamp value={burn.exclusion.at} seconds />
                   </span>
                 )}
               </span>

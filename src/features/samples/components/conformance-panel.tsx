@@ -5,6 +5,7 @@ import { Alert } from '../../../components/ui/feedback.tsx';
 import { Badge, Table } from '../../../components/ui/layout.tsx';
 import type { Sample } from '../api/samples.ts';
 import { OtherGrades } from './other-grades.tsx';
+import { Timestamp } from '../../../components/ui/timestamp.tsx';
 
 type Conformance = NonNullable<Sample['conformance']>;
 type Verdict = Conformance['elements'][number]['verdict'];
@@ -103,7 +104,7 @@ export function ReleaseSummary({ sample }: { sample: Sample }) {
   if (!sample.release) return <p className="text-sm text-slag-500">Draft: not released.</p>;
   return (
     <p className="text-sm" data-testid="release">
-      Released by {sample.release.by} at <span className="font-mono">{sample.release.at}</span>
+      Released by {sample.release.by} at <Timestamp value={sample.release.at} seconds className="font-mono" />
       {sample.release.concession && ' as a concession'} · revision {sample.revision}
       {sample.release.comment && <> · “{sample.release.comment}”</>}
     </p>

@@ -2,6 +2,7 @@
 import { ProblemAlert, Spinner } from '../../../components/ui/feedback.tsx';
 import { Table } from '../../../components/ui/layout.tsx';
 import { useRevisions } from '../api/release.ts';
+import { Timestamp } from '../../../components/ui/timestamp.tsx';
 
 export function RevisionHistory({ sampleId, released }: { sampleId: string; released: boolean }) {
   const revisions = useRevisions(sampleId, released);
@@ -9,11 +10,13 @@ export function RevisionHistory({ sampleId, released }: { sampleId: string; rele
   if (revisions.isPending) return <Spinner label="Loading revisions…" />;
   if (revisions.error) return <ProblemAlert error={revisions.error} />;
   return (
-    <Table head={['Revision', 'When (UTC)', 'By', 'Why', 'Changed']} caption="Revisions of this sample">
+    <Table head={['Revision', 'When', 'By', 'Why', 'Changed']} caption="Revisions of this sample">
       {revisions.data.data.map((r) => (
         <tr key={r.revision} data-testid="revision-row">
           <td className="px-3 py-1.5 font-mono">{r.revision}</td>
-          <td className="px-3 py-1.5 font-mono text-xs">{r.at}</td>
+          <td className="px-3 py-1.5 font-mono text-xs">
+            <Timestamp value={r.at} seconds />
+          </td>
           <td className="px-3 py-1.5">{r.by}</td>
           <td className="px-3 py-1.5">{r.reason ?? 'Released'}</td>
           <td className="px-3 py-1.5 font-mono text-xs">

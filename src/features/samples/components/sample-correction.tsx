@@ -1,6 +1,7 @@
 import { Link } from 'react-router';
 import type { Sample } from '../api/samples.ts';
 import { paths } from '../../../config/paths.ts';
+import { Timestamp } from '../../../components/ui/timestamp.tsx';
 
 /** Which drift correction produced the results: the set(s), how they were chosen, and on what. */
 export function SampleCorrection({ correction }: { correction: Sample['correction'] }) {
@@ -31,7 +32,8 @@ export function SampleCorrection({ correction }: { correction: Sample['correctio
       </p>
       {correction.selection === 'requested' && (
         <p className="mt-1 text-xs text-slag-500">
-          Recomputed by {correction.recomputed_by} at <span className="font-mono">{correction.recomputed_at}</span>: “{correction.reason}”
+          Recomputed by {correction.recomputed_by} at <Timestamp value={correction.recomputed_at} seconds className="font-mono" />: “
+          {correction.reason}”
         </p>
       )}
     </div>

@@ -5,6 +5,7 @@ import { useInstruments, useMethods } from '../../../api/lookups.ts';
 import { SAMPLE_KINDS, SAMPLE_STATUSES, type SampleFilters, VERDICT_LABELS, VERDICTS } from '../filters.ts';
 import { flagInfo, RESULT_FLAG_NAMES } from '../result-flags.ts';
 import { InstrumentOptions, MethodOptions } from '../../../components/lookup-options.tsx';
+import { DateField } from '../../../components/ui/date-field.tsx';
 
 type Draft = Record<Exclude<keyof SampleFilters, 'import_id'>, string>;
 
@@ -96,8 +97,8 @@ export function SampleFilterForm({ filters, onApply }: { filters: SampleFilters;
           </option>
         ))}
       </SelectField>
-      <TextField label="Created from" type="date" value={draft.created_from} onChange={set('created_from')} />
-      <TextField label="Created to (included)" type="date" value={draft.created_to} onChange={set('created_to')} />
+      <DateField label="Created from" value={draft.created_from} onChange={set('created_from')} />
+      <DateField label="Created to (included)" value={draft.created_to} onChange={set('created_to')} />
       <div className="flex gap-2 xl:col-span-2">
         <Button type="submit">Apply filters</Button>
         <Button variant="secondary" onClick={() => onApply({})}>

@@ -2,8 +2,8 @@ import type { ReactNode } from 'react';
 import { Card } from '../../../components/ui/layout.tsx';
 import { useInstruments, useMethods } from '../../../api/lookups.ts';
 import type { Sample } from '../api/samples.ts';
-import { utcSecond } from '../../../lib/utc-time.ts';
 import { StatusBadge } from './status-badge.tsx';
+import { Timestamp } from '../../../components/ui/timestamp.tsx';
 
 function Row({ label, children }: { label: string; children: ReactNode }) {
   return (
@@ -42,11 +42,11 @@ export function SampleIdentity({ sample }: { sample: Sample }) {
         <Row label="Status">
           <StatusBadge status={sample.status} />
         </Row>
-        <Row label="Created (UTC)">
-          <span className="font-mono text-xs">{utcSecond(sample.created_at)}</span> by {sample.created_by}
+        <Row label="Created">
+          <Timestamp value={sample.created_at} seconds className="font-mono text-xs" /> by {sample.created_by}
         </Row>
-        <Row label="Last change (UTC)">
-          <span className="font-mono text-xs">{utcSecond(sample.updated_at)}</span>
+        <Row label="Last change">
+          <Timestamp value={sample.updated_at} seconds className="font-mono text-xs" />
         </Row>
       </dl>
     </Card>

@@ -3,12 +3,12 @@ import { EmptyState, ProblemAlert, Spinner } from '../../../components/ui/feedba
 import { LoadMore } from '../../../components/ui/load-more.tsx';
 import { Badge, Table } from '../../../components/ui/layout.tsx';
 import { useSamples, type SampleSummary } from '../api/samples.ts';
-import { utcMinute } from '../../../lib/utc-time.ts';
 import { reportedFigure } from '../figures.ts';
 import type { OutputUnit, SampleFilters } from '../filters.ts';
 import { FlagList } from './flag-badges.tsx';
 import { StatusBadge } from './status-badge.tsx';
 import { paths } from '../../../config/paths.ts';
+import { Timestamp } from '../../../components/ui/timestamp.tsx';
 
 /** How many reported values the table previews per sample. */
 const PREVIEW_ELEMENTS = 3;
@@ -56,7 +56,7 @@ export function SamplesTable({ filters, unit, emptyHint }: { filters: SampleFilt
             </span>,
             'Flags',
             `Reported (${unit})`,
-            'Created (UTC)',
+            'Created',
           ]}
         >
           {rows.map((s) => (
@@ -90,7 +90,9 @@ export function SamplesTable({ filters, unit, emptyHint }: { filters: SampleFilt
               <td className={cell}>
                 <ResultsPreview sample={s} unit={unit} />
               </td>
-              <td className={`${cell} whitespace-nowrap font-mono text-xs`}>{utcMinute(s.created_at)}</td>
+              <td className={`${cell} whitespace-nowrap font-mono text-xs`}>
+                <Timestamp value={s.created_at} />
+              </td>
             </tr>
           ))}
         </Table>

@@ -2,6 +2,7 @@ import { Button } from '../../../components/ui/button.tsx';
 import { EmptyState, ProblemAlert, Spinner } from '../../../components/ui/feedback.tsx';
 import { Badge, Table } from '../../../components/ui/layout.tsx';
 import { ROLES, useResendInvitation, useUpdateUser, useUsers, type Role, type User } from '../api/users.ts';
+import { Timestamp } from '../../../components/ui/timestamp.tsx';
 
 function StatusBadge({ status }: { status: User['status'] }) {
   const tone = status === 'active' ? 'good' : status === 'disabled' ? 'bad' : 'accent';
@@ -46,7 +47,9 @@ export function UsersTable({ canEdit, selfId }: { canEdit: boolean; selfId?: str
             <td className="px-3 py-2">
               <StatusBadge status={user.status} />
             </td>
-            <td className="px-3 py-2 font-mono text-xs text-slag-500">{user.last_login_at ?? '—'}</td>
+            <td className="px-3 py-2 font-mono text-xs text-slag-500">
+              <Timestamp value={user.last_login_at} />
+            </td>
             <td className="px-3 py-2 text-right">
               {canEdit && user.status === 'invited' && (
                 <Button variant="ghost" onClick={() => resend.mutate(user.id)} disabled={resend.isPending}>

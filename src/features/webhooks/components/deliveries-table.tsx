@@ -3,10 +3,10 @@ import { Button } from '../../../components/ui/button.tsx';
 import { EmptyState, ProblemAlert, Spinner } from '../../../components/ui/feedback.tsx';
 import { LoadMore } from '../../../components/ui/load-more.tsx';
 import { Table } from '../../../components/ui/layout.tsx';
-import { localDateTime } from '../../../lib/local-time.ts';
 import { useDeliveries, useRetryDelivery } from '../api/deliveries.ts';
 import { DeliveryDrawer } from './delivery-drawer.tsx';
 import { DeliveryStatus } from './delivery-status.tsx';
+import { Timestamp } from '../../../components/ui/timestamp.tsx';
 
 /** An endpoint's delivery log; a row opens its attempts, a failed one can be retried. */
 export function DeliveriesTable({ endpointId, canWrite }: { endpointId: string; canWrite: boolean }) {
@@ -36,8 +36,12 @@ export function DeliveriesTable({ endpointId, canWrite }: { endpointId: string; 
               <td className="px-3 py-2 font-mono text-xs">{delivery.event_type}</td>
               <td className="px-3 py-2 text-right font-mono">{delivery.attempts}</td>
               <td className="px-3 py-2 font-mono">{delivery.last_status_code ?? '—'}</td>
-              <td className="px-3 py-2 text-xs">{localDateTime(delivery.next_attempt_at)}</td>
-              <td className="px-3 py-2 text-xs text-slag-500">{localDateTime(delivery.created_at)}</td>
+              <td className="px-3 py-2 text-xs">
+                <Timestamp value={delivery.next_attempt_at} seconds />
+              </td>
+              <td className="px-3 py-2 text-xs text-slag-500">
+                <Timestamp value={delivery.created_at} seconds />
+              </td>
               <td className="whitespace-nowrap px-3 py-2 text-right">
                 <Button
                   variant="ghost"

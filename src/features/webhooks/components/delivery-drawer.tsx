@@ -1,9 +1,9 @@
 import { Button } from '../../../components/ui/button.tsx';
 import { Drawer } from '../../../components/ui/drawer.tsx';
 import { EmptyState, ProblemAlert, Spinner } from '../../../components/ui/feedback.tsx';
-import { localDateTime } from '../../../lib/local-time.ts';
 import { useDelivery, type WebhookAttempt } from '../api/deliveries.ts';
 import { DeliveryStatus } from './delivery-status.tsx';
+import { Timestamp } from '../../../components/ui/timestamp.tsx';
 
 const OUTCOME: Record<WebhookAttempt['outcome'], string> = {
   delivered: '✓ Delivered',
@@ -42,7 +42,9 @@ export function DeliveryDrawer({
             <dt className="text-slag-500">webhook-id</dt>
             <dd className="font-mono text-xs">{d.event_id}</dd>
             <dt className="text-slag-500">Next attempt</dt>
-            <dd>{localDateTime(d.next_attempt_at)}</dd>
+            <dd>
+              <Timestamp value={d.next_attempt_at} seconds />
+            </dd>
           </dl>
           {canRetry && d.status === 'failed' && (
             <Button onClick={() => onRetry(d.id)} disabled={retrying}>
@@ -54,7 +56,7 @@ export function DeliveryDrawer({
             {d.attempt_log.map((attempt) => (
               <li key={attempt.number} data-testid="attempt" className="rounded-md border border-ash-200 bg-white p-3 text-sm">
                 <p className="font-medium">
-                  Attempt {attempt.number} · {localDateTime(attempt.started_at)} · {OUTCOME[attempt.outcome]}
+                  Attempt {attempt.number} · <Timestamp value={attempt.started_at} seconds /> · {OUTCOME[attempt.outcome]}
                 </p>
                 <p className="mt-1 font-mono text-xs text-slag-700">
                   HTTP {attempt.status_code ?? '—'} · {Math.round(attempt.duration_ms)} ms

@@ -3,9 +3,9 @@ import { EmptyState, ProblemAlert, Spinner } from '../../../components/ui/feedba
 import { LoadMore } from '../../../components/ui/load-more.tsx';
 import { Badge, Table } from '../../../components/ui/layout.tsx';
 import { paths } from '../../../config/paths.ts';
-import { localDateTime } from '../../../lib/local-time.ts';
 import { lastDeliveryOf, useWebhookEndpoints } from '../api/endpoints.ts';
 import { DeliveryStatus } from './delivery-status.tsx';
+import { Timestamp } from '../../../components/ui/timestamp.tsx';
 
 export function EndpointsTable() {
   const endpoints = useWebhookEndpoints();
@@ -53,7 +53,9 @@ export function EndpointsTable() {
                 <Badge tone={endpoint.enabled ? 'good' : 'bad'}>{endpoint.enabled ? '✓ Enabled' : '✕ Disabled'}</Badge>
               </td>
               <td className="px-3 py-2">{last ? <DeliveryStatus status={last.status} /> : '—'}</td>
-              <td className="px-3 py-2 text-xs text-slag-500">{localDateTime(endpoint.created_at)}</td>
+              <td className="px-3 py-2 text-xs text-slag-500">
+                <Timestamp value={endpoint.created_at} />
+              </td>
             </tr>
           );
         })}

@@ -2,32 +2,32 @@ import { useState, type FormEvent } from 'react';
 import { ApiProblem } from '../../../api/problem.ts';
 import { Button } from '../../../components/ui/button.tsx';
 import { Alert, ProblemAlert } from '../../../components/ui/feedback.tsx';
-import { TextField } from '../../../components/ui/field.tsx';
-import { isoToLocalInput, localInputToIso, localZoneName } from '../../../lib/local-time.ts';
+import { readIsoDateTime, toIsoDateTimeText } from '../../../lib/iso-date.ts';
+import { localZoneName } from '../../../lib/local-time.ts';
 import { useRecoverDeliveries } from '../api/deliveries.ts';
+import { DateTimeField } from '../../../components/ui/date-field.tsx';
 
 const DAY_MS = 24 * 60 * 60 * 1000;
 
 /** "Recover since": put every delivery that failed since a time back in the queue, e.g. after the receiver was down. */
 export function RecoverForm({ endpointId }: { endpointId: string }) {
-  const [since, setSince] = useState(() => isoToLocalInput(new Date(Date.now() - DAY_MS)));
+  const [since, setSince] = useState(() => toIsoDateTimeText(new Date(Date.now() - DAY_MS)));
   const recover = useRecoverDeliveries(endpointId);
   const problem = recover.error instanceof ApiProblem ? recover.error : undefined;
   const [localError, setLocalError] = useState<string>();
 
   function submit(event: FormEvent) {
     event.preventDefault();
-    const iso = localInputToIso(since);
-    setLocalError(iso ? undefined : 'Enter a date and time.');
+    const iso = readIsoDateTime(since)?.toISOString();
+    setLocalError(iso ? undefined : 'Write the time as yyyy-mm-dd hh:mm (24-hour), e.g. 2026-12-03 06:00.');
     if (iso) recover.mutate(iso);
   }
 
   return (
     <form onSubmit={submit} className="flex flex-wrap items-end gap-3" noValidate>
       <div className="w-72">
-        <TextField
+        <DateTimeField
           label={`Recover failed deliveries since (${localZoneName()})`}
-          type="datetime-local"
           value={since}
           onChange={(e) => setSince(e.target.value)}
           error={localError ?? problem?.fieldError('since')}

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { parseBurnsJson } from '../../../../src/features/drift/burns-json.ts';
 import { formatTime, shortDecimal, toChartRows } from '../../../../src/features/drift/chart-data.ts';
+import { formatInstant } from '../../../../src/lib/timestamp.ts';
 
 describe('drift chart data', () => {
   it('turns points into numeric rows, keeping null where a run did not correct the element', () => {
@@ -52,7 +53,8 @@ describe('drift chart data', () => {
     expect(shortDecimal('-0.00000004')).toBe('-0.00000004');
     expect(shortDecimal('1')).toBe('1');
     expect(shortDecimal(null)).toBe('—');
-    expect(formatTime('2026-03-02T05:10:00.000Z')).toBe('2026-03-02 05:10 UTC');
+    // formatTime is kept for older callers and shows the console's one clock (tests/src/lib/timestamp.test.ts).
+    expect(formatTime('2026-03-02T05:10:00.000Z')).toBe(formatInstant('2026-03-02T05:10:00.000Z'));
   });
 });
 
