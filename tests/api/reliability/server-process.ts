@@ -32,4 +32,3 @@ export function readDatabaseFile<T>(file: string, read: (db: Database.Database) 
     db.close();
   }
 }
-
