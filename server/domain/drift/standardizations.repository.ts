@@ -153,9 +153,15 @@ export async function latestActivatedMeasuredAt(db: Queryable, instrumentId: str
   return (row as { latest?: string | null } | undefined)?.latest ?? null;
 }
 
-/** Every activated set of an instrument and method, in the order they take effect. */
-export function listActivatedRows(db: Queryable, instrumentId: string, methodId: string): Promise<StandardizationRow[]> {
+/** Every activated set of an instrument and method, in the order they take effect: only what a
+ * correction timeline needs (every push and import reads it; the measurements are the bulk of a row). */
+export function listActivatedRows(
+  db: Queryable,
+  instrumentId: string,
+  methodId: string,
+): Promise<Pick<StandardizationRow, 'id' | 'corrections_json' | 'effective_from'>[]> {
   return db<StandardizationRow>('standardizations')
+    .select('id', 'corrections_json', 'effective_from')
     .where({ instrument_id: instrumentId, method_id: methodId, status: 'activated' })
     .orderBy([
       { column: 'effective_from', order: 'asc' },
