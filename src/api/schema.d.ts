@@ -691,11 +691,33 @@ export interface paths {
         head?: never;
         /**
          * Exclude a burn from the results, or include it again
-         * @description The burn is never deleted. The results are recomputed, and the change is audited with the reason, who and when. Released samples cannot be changed this way (409).
+         * @description The burn is never deleted. The results are recomputed, and the change is audited with the reason, who and when. Refused with 409 when the sample is released (amend it instead) or when the exclusion would leave fewer included burns than the method's `reporting.min_included_burns` (default 2; the problem carries `min_included_burns` and `included_burns`). GET /samples/{id}/burns/{n}/exclusion-preview says beforehand what the change would do.
          *
          *     Requires the scope `samples:write`.
          */
         patch: operations["setBurnExclusion"];
+        trace?: never;
+    };
+    "/samples/{id}/burns/{n}/exclusion-preview": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Preview excluding (or including) a burn
+         * @description Computes the results as PATCH /samples/{id}/burns/{n} would, without storing anything, and lists per element the reported value before and after and the flags the change would clear or raise (e.g. `repeatability_exceeded` cleared by excluding the outlier), the sample flags and the verdict against the grade. `allowed` and `refusal` say whether the change would be accepted now. Nothing is audited.
+         *
+         *     Requires the scope `samples:read`.
+         */
+        get: operations["previewBurnExclusion"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
         trace?: never;
     };
     "/samples/{id}/recompute": {
@@ -2154,6 +2176,12 @@ export interface components {
              * @enum {string}
              */
             unlisted_elements: "keep_unreported" | "report";
+            /**
+             * @description How many burns must stay included when a burn is excluded (PATCH /samples/{id}/burns/{n}, amendments): default 2, so that a result always rests on burns that can be compared; 1 lets a result rest on a single burn (flag single_burn). A sample stored with fewer burns keeps them; the rule only refuses exclusions. Repeat measurements on at least two burns: common practice, no source.
+             * @default 2
+             * @example 2
+             */
+            min_included_burns: number;
         };
         CreateMethodRequest: {
             /** @example FE-LA */
@@ -2257,7 +2285,7 @@ export interface components {
             /** @description Mean before drift correction. */
             raw_mean: number | null;
             /**
-             * @description The mean rounded half to even (ASTM E29) to the method's decimals, as a string; with `qualifier` when qualified.
+             * @description The mean rounded half to even (ASTM E29), in one step from the full-precision mean in `unit`, to `decimals` places (the reporting step), as a string; with `qualifier` when qualified. In % the step is the method's (2 decimals → 0.01 %); in ppm and ppb it is whole ppm (ppb), or the method's step when that is finer — the value is rounded from the mean in that unit, never the % value scaled (a mean of 5943 ppm is reported 5943, not 5900). The method's repeatability, not the step, says how far the value can be relied on.
              * @example 0.71
              */
             reported: string | null;
@@ -2266,7 +2294,7 @@ export interface components {
              * @enum {string|null}
              */
             qualifier: "<" | ">" | null;
-            /** @description Decimal places of `reported` in this unit: the method's decimals in %, shifted for ppm (−4) and ppb (−7). Negative = rounded to tens, hundreds … */
+            /** @description Decimal places of `reported` in `unit` (the reporting step is 10^−decimals): the method's decimals in %; in ppm max(0, decimals in % − 4), in ppb max(0, decimals in % − 7), so ppm and ppb are never rounded coarser than a whole unit. */
             decimals: number;
             /** @description See the result flags in the operation description. */
             flags: components["schemas"]["ResultFlag"][];
@@ -2471,6 +2499,40 @@ export interface components {
         SetBurnExclusionRequest: {
             excluded: boolean;
             reason: string;
+        };
+        /** @description The results the sample would have after the change, computed exactly as PATCH /samples/{id}/burns/{n} would, compared with the results stored now. Nothing is stored or audited. */
+        BurnExclusionPreview: {
+            burn: number;
+            /** @description The state previewed. */
+            excluded: boolean;
+            /** @description Whether PATCH /samples/{id}/burns/{n} with this state would be accepted now. */
+            allowed: boolean;
+            /** @description Why it would be refused (released sample, too few included burns); null when allowed. */
+            refusal: string | null;
+            /** @description The method's `reporting.min_included_burns`. */
+            min_included_burns: number;
+            included_burns_after: number;
+            /** @enum {string} */
+            unit: "%" | "ppm" | "ppb";
+            /** @description Only the elements whose reported value or flags would change. */
+            changes: {
+                element: string;
+                /** @description Reported value with its qualifier ("<0.002"), as stored now. */
+                reported_before: string | null;
+                reported_after: string | null;
+                /** @description Flags on the element now that the change would clear. */
+                flags_cleared: ("not_measured" | "single_burn" | "repeatability_exceeded" | "repeatability_unchecked" | "below_detection_limit" | "below_working_range" | "above_working_range" | "burns_outside_working_range" | "below_zero" | "all_burns_qualified" | "mixed_qualified_burns" | "not_detected" | "conflicting_qualified_burns" | "limit_missing" | "negative_after_correction" | "balance_by_difference" | "sum_above_100" | "not_in_method")[];
+                flags_raised: ("not_measured" | "single_burn" | "repeatability_exceeded" | "repeatability_unchecked" | "below_detection_limit" | "below_working_range" | "above_working_range" | "burns_outside_working_range" | "below_zero" | "all_burns_qualified" | "mixed_qualified_burns" | "not_detected" | "conflicting_qualified_burns" | "limit_missing" | "negative_after_correction" | "balance_by_difference" | "sum_above_100" | "not_in_method")[];
+            }[];
+            sample_flags_cleared: ("not_measured" | "single_burn" | "repeatability_exceeded" | "repeatability_unchecked" | "below_detection_limit" | "below_working_range" | "above_working_range" | "burns_outside_working_range" | "below_zero" | "all_burns_qualified" | "mixed_qualified_burns" | "not_detected" | "conflicting_qualified_burns" | "limit_missing" | "negative_after_correction" | "balance_by_difference" | "sum_above_100" | "not_in_method")[];
+            sample_flags_raised: ("not_measured" | "single_burn" | "repeatability_exceeded" | "repeatability_unchecked" | "below_detection_limit" | "below_working_range" | "above_working_range" | "burns_outside_working_range" | "below_zero" | "all_burns_qualified" | "mixed_qualified_burns" | "not_detected" | "conflicting_qualified_burns" | "limit_missing" | "negative_after_correction" | "balance_by_difference" | "sum_above_100" | "not_in_method")[];
+            /**
+             * @description The verdict against the grade now (`undecided`: could not be judged); null without a grade.
+             * @enum {string|null}
+             */
+            conforms_before: "true" | "false" | "undecided" | null;
+            /** @enum {string|null} */
+            conforms_after: "true" | "false" | "undecided" | null;
         };
         RecomputeSampleRequest: {
             /** @description An activated standardization of the sample's instrument and method, or null for no correction. */
@@ -7297,7 +7359,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The sample is released, or this is its only included burn. */
+            /** @description The sample is released, or the exclusion would leave fewer included burns than the method requires. */
             409: {
                 headers: {
                     [name: string]: unknown;
@@ -7326,6 +7388,88 @@ export interface operations {
             };
             /** @description The `Idempotency-Key` was already used for a different request. */
             422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    previewBurnExclusion: {
+        parameters: {
+            query: {
+                /** @description `true`: preview excluding the burn; `false`: including it again. */
+                excluded: "true" | "false";
+                /** @description Unit of the reported values in the preview. */
+                unit?: "%" | "ppm" | "ppb";
+            };
+            header?: never;
+            path: {
+                id: string;
+                n: number;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description What the change would do. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["BurnExclusionPreview"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `samples:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such sample or burn. */
+            404: {
                 headers: {
                     [name: string]: unknown;
                 };
