@@ -6817,6 +6817,8 @@ export interface operations {
                 import_id?: string;
                 status?: components["schemas"]["SampleStatus"];
                 kind?: components["schemas"]["SampleKind"];
+                /** @description Leave out samples of this kind (samples without a kind stay), e.g. `control` for a list of heats and lots without control-sample points. */
+                exclude_kind?: components["schemas"]["SampleKind"] & unknown;
                 /** @description Only samples with this flag on some element. */
                 flag?: string;
                 /** @description Only samples whose verdict against their grade is this (`undecided`: a value could not be judged or was not measured). */
@@ -7016,6 +7018,8 @@ export interface operations {
                 import_id?: string;
                 status?: components["schemas"]["SampleStatus"];
                 kind?: components["schemas"]["SampleKind"];
+                /** @description Leave out samples of this kind (samples without a kind stay), e.g. `control` for a list of heats and lots without control-sample points. */
+                exclude_kind?: components["schemas"]["SampleKind"] & unknown;
                 /** @description Only samples with this flag on some element. */
                 flag?: string;
                 /** @description Only samples whose verdict against their grade is this (`undecided`: a value could not be judged or was not measured). */

@@ -230,6 +230,10 @@ export const SampleListQuerySchema = paginationQuery.extend({
   import_id: z.string().max(40).optional(),
   status: SampleStatusSchema.optional(),
   kind: SampleKindSchema.optional(),
+  exclude_kind: SampleKindSchema.optional().openapi({
+    description:
+      'Leave out samples of this kind (samples without a kind stay), e.g. `control` for a list of heats and lots without control-sample points.',
+  }),
   flag: z.string().max(60).optional().openapi({ description: 'Only samples with this flag on some element.' }),
   conforms: z.enum(['true', 'false', 'undecided']).optional().openapi({
     description: 'Only samples whose verdict against their grade is this (`undecided`: a value could not be judged or was not measured).',

@@ -1,7 +1,7 @@
-import { Table } from '../../../components/ui/layout.tsx';
 import type { ElementResult } from '../api/samples.ts';
-import { plain, reportedFigure, rsdFigure, statistic } from '../figures.ts';
+import { plain, reportedFigure, reportingStep, rsdFigure, statistic } from '../figures.ts';
 import { FlagList } from './flag-badges.tsx';
+import { ScrollingTable } from './scrolling-table.tsx';
 
 const cell = 'px-3 py-2';
 const figure = `${cell} text-right font-mono tabular-nums whitespace-nowrap`;
@@ -25,11 +25,13 @@ function Stat({ value, decimals }: { value: number | null; decimals: number }) {
 
 export function ResultsTable({ results, unit }: { results: ElementResult[]; unit: string }) {
   return (
-    <Table
+    <ScrollingTable
+      label="Results"
       caption={`Results per element, in ${unit}`}
       head={[
         'Element',
         right(`Reported (${unit})`),
+        right('Step'),
         right('Mean'),
         right('SD'),
         right('RSD %'),
@@ -42,7 +44,7 @@ export function ResultsTable({ results, unit }: { results: ElementResult[]; unit
     >
       {results.map((r) => (
         <tr key={r.element} className="align-top" data-testid="result-row" data-element={r.element}>
-          <th scope="row" className={`${cell} font-mono font-semibold`}>
+          <th scope="row" className={`${cell} sticky left-0 z-10 bg-white font-mono font-semibold shadow-[1px_0_0_var(--color-ash-200)]`}>
             {r.element}
           </th>
           <td className={`${figure} font-semibold`} data-testid="reported">
@@ -51,6 +53,13 @@ export function ResultsTable({ results, unit }: { results: ElementResult[]; unit
             ) : (
               reportedFigure(r)
             )}
+          </td>
+          <td
+            className={`${figure} text-xs text-slag-500`}
+            data-testid="step"
+            title={`Rounded half to even to steps of ${reportingStep(r.decimals)} ${unit}`}
+          >
+            {reportingStep(r.decimals)}
           </td>
           <td className={figure}>
             <Stat value={r.mean} decimals={r.decimals} />
@@ -76,6 +85,6 @@ export function ResultsTable({ results, unit }: { results: ElementResult[]; unit
           </td>
         </tr>
       ))}
-    </Table>
+    </ScrollingTable>
   );
 }

@@ -6,7 +6,7 @@ import { SAMPLE_KINDS, SAMPLE_STATUSES, type SampleFilters, VERDICT_LABELS, VERD
 import { flagInfo, RESULT_FLAG_NAMES } from '../result-flags.ts';
 import { InstrumentOptions, MethodOptions } from '../../../components/lookup-options.tsx';
 
-type Draft = Record<Exclude<keyof SampleFilters, 'import_id'>, string>;
+type Draft = Record<Exclude<keyof SampleFilters, 'import_id' | 'controls' | 'exclude_kind'>, string>;
 
 function draftOf(filters: SampleFilters): Draft {
   return {

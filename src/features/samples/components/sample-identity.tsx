@@ -1,6 +1,7 @@
 import type { ReactNode } from 'react';
 import { Card } from '../../../components/ui/layout.tsx';
-import { useInstruments, useMethods } from '../../../api/lookups.ts';
+import { useImportProfiles, useInstruments, useMethods } from '../../../api/lookups.ts';
+import { fieldLabels } from '../field-labels.ts';
 import type { Sample } from '../api/samples.ts';
 import { utcSecond } from '../../../lib/utc-time.ts';
 import { StatusBadge } from './status-badge.tsx';
@@ -17,6 +18,7 @@ function Row({ label, children }: { label: string; children: ReactNode }) {
 export function SampleIdentity({ sample }: { sample: Sample }) {
   const instrument = useInstruments().data?.find((i) => i.id === sample.instrument.id);
   const method = useMethods().data?.find((m) => m.id === sample.method.id);
+  const labelOf = fieldLabels(useImportProfiles().data);
   return (
     <Card title="Identification">
       <dl className="grid grid-cols-[auto_1fr] gap-x-6 gap-y-1.5 text-sm" data-testid="sample-identity">
@@ -27,8 +29,8 @@ export function SampleIdentity({ sample }: { sample: Sample }) {
         <Row label="Grade">{sample.grade ?? '—'}</Row>
         <Row label="Kind">{sample.kind ?? '—'}</Row>
         {Object.entries(sample.fields).map(([name, value]) => (
-          <Row key={name} label={name}>
-            {value}
+          <Row key={name} label={labelOf(name)}>
+            <span title={`Field ${name}`}>{value}</span>
           </Row>
         ))}
         <Row label="Instrument">

@@ -13,15 +13,16 @@ import { paths } from '../../../config/paths.ts';
 /** How many reported values the table previews per sample. */
 const PREVIEW_ELEMENTS = 3;
 
+/** The first reported values, each element with its value right-aligned in a column of its own width, so rows line up. */
 function ResultsPreview({ sample, unit }: { sample: SampleSummary; unit: OutputUnit }) {
   const shown = sample.results.filter((r) => r.reported !== null).slice(0, PREVIEW_ELEMENTS);
   if (shown.length === 0) return <span className="text-xs text-slag-500">no results</span>;
   return (
-    <span className="font-mono text-xs whitespace-nowrap" title={`Reported values in ${unit}`}>
-      {shown.map((r, i) => (
-        <span key={r.element}>
-          {i > 0 && <span className="text-slag-300"> · </span>}
-          <span className="text-slag-500">{r.element}</span> {reportedFigure(r)}
+    <span className="inline-flex gap-3 font-mono text-xs whitespace-nowrap tabular-nums" title={`Reported values in ${unit}`}>
+      {shown.map((r) => (
+        <span key={r.element} className="inline-flex gap-1">
+          <span className="w-5 text-slag-500">{r.element}</span>
+          <span className="min-w-[8ch] text-right">{reportedFigure(r)}</span>
         </span>
       ))}
     </span>
@@ -55,7 +56,9 @@ export function SamplesTable({ filters, unit, emptyHint }: { filters: SampleFilt
               Burns
             </span>,
             'Flags',
-            `Reported (${unit})`,
+            <span key="reported" className="block text-right">
+              Reported ({unit})
+            </span>,
             'Created (UTC)',
           ]}
         >
@@ -87,7 +90,7 @@ export function SamplesTable({ filters, unit, emptyHint }: { filters: SampleFilt
               <td className="min-w-48 px-3 py-2">
                 <FlagList flags={s.flags} empty="none" />
               </td>
-              <td className={cell}>
+              <td className={`${cell} text-right`}>
                 <ResultsPreview sample={s} unit={unit} />
               </td>
               <td className={`${cell} whitespace-nowrap font-mono text-xs`}>{utcMinute(s.created_at)}</td>
