@@ -49,11 +49,11 @@ export function FlagLegend({ flags }: { flags: string[] }) {
         {unique.map((name) => {
           const info = flagInfo(name);
           return (
-            <div key={name} className="grid gap-x-3 sm:grid-cols-[14rem_1fr]">
-              <dt>
+            <div key={name} className="flex flex-wrap items-baseline gap-x-3 gap-y-0.5">
+              <dt className="shrink-0">
                 <FlagBadge name={name} />
               </dt>
-              <dd className="text-slag-700">
+              <dd className="min-w-60 flex-1 text-slag-700">
                 {info.description ?? (
                   <>
                     Not described in this console version (flag <code>{name}</code>); see the API reference.

@@ -3,7 +3,8 @@ import { plain, reportedFigure, reportingStep, rsdFigure, statistic } from '../f
 import { FlagList } from './flag-badges.tsx';
 import { ScrollingTable } from './scrolling-table.tsx';
 
-const cell = 'px-3 py-2';
+// Flags come right after the reported value, so they are in view on a tablet before the statistics.
+const cell = 'px-2.5 py-2';
 const figure = `${cell} text-right font-mono tabular-nums whitespace-nowrap`;
 const right = (text: string) => (
   <span key={text} className="block text-right">
@@ -32,6 +33,7 @@ export function ResultsTable({ results, unit }: { results: ElementResult[]; unit
         'Element',
         right(`Reported (${unit})`),
         right('Step'),
+        'Flags',
         right('Mean'),
         right('SD'),
         right('RSD %'),
@@ -39,7 +41,6 @@ export function ResultsTable({ results, unit }: { results: ElementResult[]; unit
         right('Min'),
         right('Max'),
         right('Raw mean'),
-        'Flags',
       ]}
     >
       {results.map((r) => (
@@ -61,6 +62,9 @@ export function ResultsTable({ results, unit }: { results: ElementResult[]; unit
           >
             {reportingStep(r.decimals)}
           </td>
+          <td className={`${cell} min-w-44`}>
+            <FlagList flags={r.flags} />
+          </td>
           <td className={figure}>
             <Stat value={r.mean} decimals={r.decimals} />
           </td>
@@ -79,9 +83,6 @@ export function ResultsTable({ results, unit }: { results: ElementResult[]; unit
           </td>
           <td className={figure}>
             <Stat value={r.raw_mean} decimals={r.decimals} />
-          </td>
-          <td className={cell}>
-            <FlagList flags={r.flags} />
           </td>
         </tr>
       ))}

@@ -29,7 +29,7 @@ function elementDetail(result: ElementResult, flag: string): string {
   const reported = result.reported === null ? 'nothing reported' : reportedFigure(result);
   if (flag === 'repeatability_exceeded' && result.repeatability) {
     const { range, critical_range } = result.repeatability;
-    return `${result.element}: burns span ${statistic(range, result.decimals)} ${result.unit}, more than the critical range ${statistic(critical_range, result.decimals)}`;
+    return `${result.element}: burns span ${statistic(range, result.decimals)} ${result.unit}, more than the critical range ${statistic(critical_range, result.decimals)} ${result.unit}`;
   }
   return `${result.element} (${reported})`;
 }

@@ -1,12 +1,14 @@
 import { Link } from 'react-router';
 import { EmptyState, ProblemAlert, Spinner } from '../../../components/ui/feedback.tsx';
 import { LoadMore } from '../../../components/ui/load-more.tsx';
-import { Badge, Table } from '../../../components/ui/layout.tsx';
+import { Badge } from '../../../components/ui/layout.tsx';
 import { useSamples, type SampleSummary } from '../api/samples.ts';
 import { utcMinute } from '../../../lib/utc-time.ts';
 import { reportedFigure } from '../figures.ts';
 import type { OutputUnit, SampleFilters } from '../filters.ts';
 import { FlagList } from './flag-badges.tsx';
+import { needsAttention, flagInfo } from '../result-flags.ts';
+import { ScrollingTable } from './scrolling-table.tsx';
 import { StatusBadge } from './status-badge.tsx';
 import { paths } from '../../../config/paths.ts';
 
@@ -29,6 +31,25 @@ function ResultsPreview({ sample, unit }: { sample: SampleSummary; unit: OutputU
   );
 }
 
+/**
+ * The flags that need someone to look, in full; the notes (a "<" trace element, a balance by
+ * difference) folded into a quiet count with their names on hover, so that a normal sample reads as one.
+ */
+function AttentionFlags({ flags }: { flags: string[] }) {
+  const attention = flags.filter(needsAttention);
+  const notes = flags.filter((f) => !needsAttention(f));
+  return (
+    <span className="flex flex-wrap items-center gap-1">
+      {attention.length > 0 ? <FlagList flags={attention} /> : <span className="text-xs text-slag-500">none</span>}
+      {notes.length > 0 && (
+        <span className="text-xs text-slag-400" title={notes.map((f) => flagInfo(f).label).join('\n')} data-testid="note-count">
+          + {notes.length} {notes.length === 1 ? 'note' : 'notes'}
+        </span>
+      )}
+    </span>
+  );
+}
+
 const cell = 'px-3 py-2 whitespace-nowrap';
 const figure = `${cell} text-right font-mono tabular-nums`;
 
@@ -43,28 +64,29 @@ export function SamplesTable({ filters, unit, emptyHint }: { filters: SampleFilt
         <EmptyState title="No samples match">{emptyHint ?? 'Try wider filters, or upload a result file.'}</EmptyState>
       )}
       {rows.length > 0 && (
-        <Table
+        <ScrollingTable
+          label="Samples"
           caption="Samples, newest first"
           head={[
             'Sample code',
             'Heat',
             'Grade',
             'Kind',
-            'Instrument',
             'Status',
+            'Needs attention',
             <span key="b" className="block text-right">
               Burns
             </span>,
-            'Flags',
             <span key="reported" className="block text-right">
               Reported ({unit})
             </span>,
+            'Instrument',
             'Created (UTC)',
           ]}
         >
           {rows.map((s) => (
-            <tr key={s.id} className="align-top hover:bg-ash-50" data-testid="sample-row">
-              <td className={cell}>
+            <tr key={s.id} className="bg-white align-top hover:bg-ash-50" data-testid="sample-row">
+              <td className={`${cell} sticky left-0 z-10 bg-inherit shadow-[1px_0_0_var(--color-ash-200)]`}>
                 <Link to={paths.sample(s.id, unit)} className="font-mono font-medium text-copper-700 underline">
                   {s.sample_code}
                 </Link>
@@ -72,7 +94,6 @@ export function SamplesTable({ filters, unit, emptyHint }: { filters: SampleFilt
               <td className={`${cell} font-mono`}>{s.heat ?? '—'}</td>
               <td className={cell}>{s.grade ?? '—'}</td>
               <td className={cell}>{s.kind ?? '—'}</td>
-              <td className={`${cell} font-mono`}>{s.instrument.code}</td>
               <td className={cell}>
                 <StatusBadge status={s.status} />
                 {s.conformance?.conforms === false && (
@@ -86,17 +107,18 @@ export function SamplesTable({ filters, unit, emptyHint }: { filters: SampleFilt
                   </span>
                 )}
               </td>
-              <td className={figure}>{s.burn_count}</td>
               <td className="min-w-48 px-3 py-2">
-                <FlagList flags={s.flags} empty="none" />
+                <AttentionFlags flags={s.flags} />
               </td>
+              <td className={figure}>{s.burn_count}</td>
               <td className={`${cell} text-right`}>
                 <ResultsPreview sample={s} unit={unit} />
               </td>
+              <td className={`${cell} font-mono`}>{s.instrument.code}</td>
               <td className={`${cell} whitespace-nowrap font-mono text-xs`}>{utcMinute(s.created_at)}</td>
             </tr>
           ))}
-        </Table>
+        </ScrollingTable>
       )}
       <LoadMore list={samples} />
     </div>
