@@ -7,6 +7,7 @@ export const lookupKeys = {
   methods: () => [...lookupKeys.all, 'methods'] as const,
   importProfiles: () => [...lookupKeys.all, 'import-profiles'] as const,
   referenceMaterials: () => [...lookupKeys.all, 'reference-materials'] as const,
+  sampleFields: () => [...lookupKeys.all, 'sample-fields'] as const,
 };
 
 export const authKeys = {

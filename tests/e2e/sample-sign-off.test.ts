@@ -70,6 +70,15 @@ describe.each(JOURNEY_WIDTHS.map((width, index) => ({ width, first: index === 0 
       expect(await lot.getByTestId('note-count').innerText()).toMatch(/^\+ \d notes?$/);
       await saveScreen(page(), JOURNEY, 'samples-list');
 
+      // That lot's page is quiet too: nothing needs attention, Pb "<0.002" said as normal, fields by their label.
+      await lot.getByRole('link', { name: 'B24-0118-S1' }).click();
+      await attention().getByText('✓ Nothing in the results needs attention').waitFor();
+      expect(await attention().getByTestId('at-limit').innerText()).toContain('Pb <0.002');
+      expect(await resultRow('Pb').locator('[data-tone="check"], [data-tone="problem"]').count()).toBe(0);
+      expect(await page().getByTestId('sample-identity').innerText()).toMatch(/Casting station\s+VDC-1/);
+      await saveScreen(page(), JOURNEY, 'quiet-lot');
+      await page().goto(`${session.server.url}/samples`);
+
       await page().getByRole('button', { name: 'Show them too' }).click();
       await page().waitForURL(/controls=shown/);
       await expect.poll(async () => page().getByTestId('sample-row').count()).toBe(50); // a full first page
