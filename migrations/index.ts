@@ -39,6 +39,7 @@ import * as createPendingAlerts from './20261203400600_create_pending_alerts.ts'
 import * as createNodeCoordination from './20261203500100_create_node_coordination.ts';
 import * as addInstrumentFeedsStaleAlert from './20261203500200_add_instrument_feeds_stale_alert.ts';
 import * as addSamplesPreparedDocuments from './20261203600100_add_samples_prepared_documents.ts';
+import * as createSampleFieldDefinitions from './20261203600100_create_sample_field_definitions.ts';
 
 export interface Migration {
   up(knex: Knex): Promise<void>;
@@ -84,4 +85,5 @@ export const migrations: Record<string, Migration> = {
   '20261203500100_create_node_coordination': createNodeCoordination,
   '20261203500200_add_instrument_feeds_stale_alert': addInstrumentFeedsStaleAlert,
   '20261203600100_add_samples_prepared_documents': addSamplesPreparedDocuments,
+  '20261203600100_create_sample_field_definitions': createSampleFieldDefinitions,
 };

@@ -1,4 +1,5 @@
-// The lab's short reference lists (instruments, methods, import profiles, reference materials),
+// The lab's short reference lists (instruments, methods, import profiles, reference materials,
+// custom sample fields),
 // loaded whole — every page — for selects and for showing codes next to ids. Every page of the
 // console reads them from here, under one set of keys, so they show the same thing everywhere.
 // They change rarely, so they stay fresh for five minutes.
@@ -12,6 +13,7 @@ export type Instrument = components['schemas']['Instrument'];
 export type Method = components['schemas']['Method'];
 export type ImportProfile = components['schemas']['ImportProfile'];
 export type ReferenceMaterial = components['schemas']['ReferenceMaterial'];
+export type SampleField = components['schemas']['SampleFieldList']['data'][number];
 
 const FRESH = 5 * 60_000;
 
@@ -39,7 +41,14 @@ const referenceMaterialsQuery = queryOptions({
   staleTime: FRESH,
 });
 
+const sampleFieldsQuery = queryOptions({
+  queryKey: lookupKeys.sampleFields(),
+  queryFn: async () => (await unwrap(api.GET('/sample-fields'))).data,
+  staleTime: FRESH,
+});
+
 export const useInstruments = () => useQuery(instrumentsQuery);
 export const useMethods = () => useQuery(methodsQuery);
 export const useImportProfiles = () => useQuery(importProfilesQuery);
 export const useReferenceMaterials = () => useQuery(referenceMaterialsQuery);
+export const useSampleFields = () => useQuery(sampleFieldsQuery);

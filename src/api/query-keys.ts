@@ -7,6 +7,7 @@ export const lookupKeys = {
   methods: () => [...lookupKeys.all, 'methods'] as const,
   importProfiles: () => [...lookupKeys.all, 'import-profiles'] as const,
   referenceMaterials: () => [...lookupKeys.all, 'reference-materials'] as const,
+  sampleFields: () => [...lookupKeys.all, 'sample-fields'] as const,
 };
 
 export const authKeys = {
@@ -20,6 +21,9 @@ export const sampleKeys = {
   details: (id: string) => [...sampleKeys.all, 'detail', id] as const,
   detail: (id: string, unit: string) => [...sampleKeys.details(id), unit] as const,
   revisions: (id: string) => [...sampleKeys.all, 'revisions', id] as const,
+  /** Under the sample's details, so any change to the sample makes its previews stale too. */
+  exclusionPreview: (id: string, burn: number, excluded: boolean, unit: string) =>
+    [...sampleKeys.details(id), 'exclusion-preview', burn, excluded, unit] as const,
 };
 
 export const importKeys = {

@@ -520,7 +520,7 @@ export interface paths {
          *     **How results are computed** (per element, over the included burns; mass fractions in %, converted exactly for `unit=ppm|ppb`):
          *
          *     1. The mean, SD (n − 1), RSD % = 100·SD/|mean|, n, min and max are computed over the included burns that carry a numeric value. SD and RSD are null for one burn, RSD also when the mean is 0. (Basis: Averaging two or three burns: common practice, no source. SD and coefficient of variation as defined in ISO 3534-1 (from memory).)
-         *     2. reported = the mean rounded half to even, in one step from the full-precision mean, to the method's decimals for the element, written with trailing zeros ("0.70"). (Basis: ASTM E29 (rounding method); ISO 80000-1 Annex B, rule A.)
+         *     2. reported = the mean rounded half to even, in one step from the full-precision mean, to the method's decimals for the element, written with trailing zeros ("0.70"). In ppm and ppb (`?unit=`) it is rounded the same way from the mean in that unit, to whole ppm (ppb) or to the method's step where that is finer — decimals max(0, d − 4) in ppm and max(0, d − 7) in ppb — never the % value scaled (a Si mean of 5943 ppm is reported "5943", not "5900"). The step says how the value is written; the method's repeatability says how far it can be relied on. (Basis: ASTM E29 (rounding method); ISO 80000-1 Annex B, rule A.)
          *     3. An element that no included burn measured has no result: all values null, flag not_measured. (Basis: Common practice, no source.)
          *     4. A mean below the detection limit or below the lower end of the working range is reported as "<" the lowest reportable value, i.e. the larger of those two limits that the method sets. A mean above the upper end of the working range is reported as ">" that end. Limits are compared with the full-precision mean; a mean equal to a limit is inside. A mean below 0 (after an additive drift correction) is reported as "<" the lowest reportable value too — "<" one reporting step when the method sets no limit — with the flag below_zero; `mean` keeps the computed value. (Basis: Qualifiers "<"/">" for results outside what the method can quantify: product requirement; reporting "< limit" is common practice, no source.)
          *     5. Burns all reported as "<" (n.d. counts as "<" the detection limit): the result is "<" an upper bound — the mean of the burns at their limits — but never less than the lowest reportable value (one reporting step when the method sets none), so no bound is ever below 0 (flag all_burns_qualified). Numeric and "<", ">" or n.d. burns together (flag mixed_qualified_burns), usually a failed spark, follow the method's rule: `withhold` (the default) reports nothing — spark again; `treat_as_bound` reports "<" the same upper bound (">" a lower bound) with `mean`, SD and RSD null, so that mean and bound never contradict each other. (Basis: Upper-bound substitution for left-censored data (WHO GEMS/Food 1995; EFSA 2010 — from memory); applying it to burns is our choice, no source.)
@@ -629,7 +629,7 @@ export interface paths {
          * @description **How results are computed** (per element, over the included burns; mass fractions in %, converted exactly for `unit=ppm|ppb`):
          *
          *     1. The mean, SD (n − 1), RSD % = 100·SD/|mean|, n, min and max are computed over the included burns that carry a numeric value. SD and RSD are null for one burn, RSD also when the mean is 0. (Basis: Averaging two or three burns: common practice, no source. SD and coefficient of variation as defined in ISO 3534-1 (from memory).)
-         *     2. reported = the mean rounded half to even, in one step from the full-precision mean, to the method's decimals for the element, written with trailing zeros ("0.70"). (Basis: ASTM E29 (rounding method); ISO 80000-1 Annex B, rule A.)
+         *     2. reported = the mean rounded half to even, in one step from the full-precision mean, to the method's decimals for the element, written with trailing zeros ("0.70"). In ppm and ppb (`?unit=`) it is rounded the same way from the mean in that unit, to whole ppm (ppb) or to the method's step where that is finer — decimals max(0, d − 4) in ppm and max(0, d − 7) in ppb — never the % value scaled (a Si mean of 5943 ppm is reported "5943", not "5900"). The step says how the value is written; the method's repeatability says how far it can be relied on. (Basis: ASTM E29 (rounding method); ISO 80000-1 Annex B, rule A.)
          *     3. An element that no included burn measured has no result: all values null, flag not_measured. (Basis: Common practice, no source.)
          *     4. A mean below the detection limit or below the lower end of the working range is reported as "<" the lowest reportable value, i.e. the larger of those two limits that the method sets. A mean above the upper end of the working range is reported as ">" that end. Limits are compared with the full-precision mean; a mean equal to a limit is inside. A mean below 0 (after an additive drift correction) is reported as "<" the lowest reportable value too — "<" one reporting step when the method sets no limit — with the flag below_zero; `mean` keeps the computed value. (Basis: Qualifiers "<"/">" for results outside what the method can quantify: product requirement; reporting "< limit" is common practice, no source.)
          *     5. Burns all reported as "<" (n.d. counts as "<" the detection limit): the result is "<" an upper bound — the mean of the burns at their limits — but never less than the lowest reportable value (one reporting step when the method sets none), so no bound is ever below 0 (flag all_burns_qualified). Numeric and "<", ">" or n.d. burns together (flag mixed_qualified_burns), usually a failed spark, follow the method's rule: `withhold` (the default) reports nothing — spark again; `treat_as_bound` reports "<" the same upper bound (">" a lower bound) with `mean`, SD and RSD null, so that mean and bound never contradict each other. (Basis: Upper-bound substitution for left-censored data (WHO GEMS/Food 1995; EFSA 2010 — from memory); applying it to burns is our choice, no source.)
@@ -691,11 +691,33 @@ export interface paths {
         head?: never;
         /**
          * Exclude a burn from the results, or include it again
-         * @description The burn is never deleted. The results are recomputed, and the change is audited with the reason, who and when. Released samples cannot be changed this way (409).
+         * @description The burn is never deleted. The results are recomputed, and the change is audited with the reason, who and when. Refused with 409 when the sample is released (amend it instead) or when the exclusion would leave fewer included burns than the method's `reporting.min_included_burns` (default 2; the problem carries `min_included_burns` and `included_burns`). GET /samples/{id}/burns/{n}/exclusion-preview says beforehand what the change would do.
          *
          *     Requires the scope `samples:write`.
          */
         patch: operations["setBurnExclusion"];
+        trace?: never;
+    };
+    "/samples/{id}/burns/{n}/exclusion-preview": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Preview excluding (or including) a burn
+         * @description Computes the results as PATCH /samples/{id}/burns/{n} would, without storing anything, and lists per element the reported value before and after and the flags the change would clear or raise (e.g. `repeatability_exceeded` cleared by excluding the outlier), the sample flags and the verdict against the grade. `allowed` and `refusal` say whether the change would be accepted now. Nothing is audited.
+         *
+         *     Requires the scope `samples:read`.
+         */
+        get: operations["previewBurnExclusion"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
         trace?: never;
     };
     "/samples/{id}/recompute": {
@@ -826,6 +848,34 @@ export interface paths {
          */
         get: operations["getSampleRevision"];
         put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/sample-fields": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * The lab's custom sample fields and their labels
+         * @description Labels for the keys samples carry in `fields` (`furnace` → "Furnace"), in the order the console lists them. A key without a definition is shown as it is.
+         *
+         *     Requires the scope `samples:read`.
+         */
+        get: operations["listSampleFields"];
+        /**
+         * Define the custom sample fields
+         * @description Replaces every definition; audited with before and after. Samples keep their keys and values.
+         *
+         *     Requires the scope `methods:write`. A lab-wide change: not open to API keys restricted to instruments.
+         */
+        put: operations["putSampleFields"];
         post?: never;
         delete?: never;
         options?: never;
@@ -2158,6 +2208,12 @@ export interface components {
              * @enum {string}
              */
             unlisted_elements: "keep_unreported" | "report";
+            /**
+             * @description How many burns must stay included when a burn is excluded (PATCH /samples/{id}/burns/{n}, amendments): default 2, so that a result always rests on burns that can be compared; 1 lets a result rest on a single burn (flag single_burn). A sample stored with fewer burns keeps them; the rule only refuses exclusions. Repeat measurements on at least two burns: common practice, no source.
+             * @default 2
+             * @example 2
+             */
+            min_included_burns: number;
         };
         CreateMethodRequest: {
             /** @example FE-LA */
@@ -2261,7 +2317,7 @@ export interface components {
             /** @description Mean before drift correction. */
             raw_mean: number | null;
             /**
-             * @description The mean rounded half to even (ASTM E29) to the method's decimals, as a string; with `qualifier` when qualified.
+             * @description The mean rounded half to even (ASTM E29), in one step from the full-precision mean in `unit`, to `decimals` places (the reporting step), as a string; with `qualifier` when qualified. In % the step is the method's (2 decimals → 0.01 %); in ppm and ppb it is whole ppm (ppb), or the method's step when that is finer — the value is rounded from the mean in that unit, never the % value scaled (a mean of 5943 ppm is reported 5943, not 5900). The method's repeatability, not the step, says how far the value can be relied on.
              * @example 0.71
              */
             reported: string | null;
@@ -2270,7 +2326,7 @@ export interface components {
              * @enum {string|null}
              */
             qualifier: "<" | ">" | null;
-            /** @description Decimal places of `reported` in this unit: the method's decimals in %, shifted for ppm (−4) and ppb (−7). Negative = rounded to tens, hundreds … */
+            /** @description Decimal places of `reported` in `unit` (the reporting step is 10^−decimals): the method's decimals in %; in ppm max(0, decimals in % − 4), in ppb max(0, decimals in % − 7), so ppm and ppb are never rounded coarser than a whole unit. */
             decimals: number;
             /** @description See the result flags in the operation description. */
             flags: components["schemas"]["ResultFlag"][];
@@ -2476,6 +2532,40 @@ export interface components {
             excluded: boolean;
             reason: string;
         };
+        /** @description The results the sample would have after the change, computed exactly as PATCH /samples/{id}/burns/{n} would, compared with the results stored now. Nothing is stored or audited. */
+        BurnExclusionPreview: {
+            burn: number;
+            /** @description The state previewed. */
+            excluded: boolean;
+            /** @description Whether PATCH /samples/{id}/burns/{n} with this state would be accepted now. */
+            allowed: boolean;
+            /** @description Why it would be refused (released sample, too few included burns); null when allowed. */
+            refusal: string | null;
+            /** @description The method's `reporting.min_included_burns`. */
+            min_included_burns: number;
+            included_burns_after: number;
+            /** @enum {string} */
+            unit: "%" | "ppm" | "ppb";
+            /** @description Only the elements whose reported value or flags would change. */
+            changes: {
+                element: string;
+                /** @description Reported value with its qualifier ("<0.002"), as stored now. */
+                reported_before: string | null;
+                reported_after: string | null;
+                /** @description Flags on the element now that the change would clear. */
+                flags_cleared: ("not_measured" | "single_burn" | "repeatability_exceeded" | "repeatability_unchecked" | "below_detection_limit" | "below_working_range" | "above_working_range" | "burns_outside_working_range" | "below_zero" | "all_burns_qualified" | "mixed_qualified_burns" | "not_detected" | "conflicting_qualified_burns" | "limit_missing" | "negative_after_correction" | "balance_by_difference" | "sum_above_100" | "not_in_method")[];
+                flags_raised: ("not_measured" | "single_burn" | "repeatability_exceeded" | "repeatability_unchecked" | "below_detection_limit" | "below_working_range" | "above_working_range" | "burns_outside_working_range" | "below_zero" | "all_burns_qualified" | "mixed_qualified_burns" | "not_detected" | "conflicting_qualified_burns" | "limit_missing" | "negative_after_correction" | "balance_by_difference" | "sum_above_100" | "not_in_method")[];
+            }[];
+            sample_flags_cleared: ("not_measured" | "single_burn" | "repeatability_exceeded" | "repeatability_unchecked" | "below_detection_limit" | "below_working_range" | "above_working_range" | "burns_outside_working_range" | "below_zero" | "all_burns_qualified" | "mixed_qualified_burns" | "not_detected" | "conflicting_qualified_burns" | "limit_missing" | "negative_after_correction" | "balance_by_difference" | "sum_above_100" | "not_in_method")[];
+            sample_flags_raised: ("not_measured" | "single_burn" | "repeatability_exceeded" | "repeatability_unchecked" | "below_detection_limit" | "below_working_range" | "above_working_range" | "burns_outside_working_range" | "below_zero" | "all_burns_qualified" | "mixed_qualified_burns" | "not_detected" | "conflicting_qualified_burns" | "limit_missing" | "negative_after_correction" | "balance_by_difference" | "sum_above_100" | "not_in_method")[];
+            /**
+             * @description The verdict against the grade now (`undecided`: could not be judged); null without a grade.
+             * @enum {string|null}
+             */
+            conforms_before: "true" | "false" | "undecided" | null;
+            /** @enum {string|null} */
+            conforms_after: "true" | "false" | "undecided" | null;
+        };
         RecomputeSampleRequest: {
             /** @description An activated standardization of the sample's instrument and method, or null for no correction. */
             correction_set_id: string | null;
@@ -2530,6 +2620,33 @@ export interface components {
                     after: string | null;
                 }[];
             }[];
+        };
+        SampleFieldList: {
+            data: (components["schemas"]["SampleField"] & {
+                /** Format: date-time */
+                updated_at: string;
+            })[];
+        };
+        SampleField: {
+            /**
+             * @description The key as samples carry it in `fields` (matched exactly, e.g. `furnace`).
+             * @example cast_station
+             */
+            key: string;
+            /**
+             * @description What the console shows for it.
+             * @example Casting station
+             */
+            label: string;
+            /**
+             * @description What the field holds, for people.
+             * @default null
+             */
+            description: string | null;
+        };
+        /** @description Every definition, in the order the console lists them; replaces the stored ones. Samples are not changed. */
+        PutSampleFieldsRequest: {
+            fields: components["schemas"]["SampleField"][];
         };
         ImportProfileList: {
             data: components["schemas"]["ImportProfile"][];
@@ -6811,6 +6928,8 @@ export interface operations {
                 import_id?: string;
                 status?: components["schemas"]["SampleStatus"];
                 kind?: components["schemas"]["SampleKind"];
+                /** @description Leave out samples of this kind (samples without a kind stay), e.g. `control` for a list of heats and lots without control-sample points. */
+                exclude_kind?: components["schemas"]["SampleKind"] & unknown;
                 /** @description Only samples with this flag on some element. */
                 flag?: string;
                 /** @description Only samples whose verdict against their grade is this (`undecided`: a value could not be judged or was not measured). */
@@ -7010,6 +7129,8 @@ export interface operations {
                 import_id?: string;
                 status?: components["schemas"]["SampleStatus"];
                 kind?: components["schemas"]["SampleKind"];
+                /** @description Leave out samples of this kind (samples without a kind stay), e.g. `control` for a list of heats and lots without control-sample points. */
+                exclude_kind?: components["schemas"]["SampleKind"] & unknown;
                 /** @description Only samples with this flag on some element. */
                 flag?: string;
                 /** @description Only samples whose verdict against their grade is this (`undecided`: a value could not be judged or was not measured). */
@@ -7353,7 +7474,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description The sample is released, or this is its only included burn. */
+            /** @description The sample is released, or the exclusion would leave fewer included burns than the method requires. */
             409: {
                 headers: {
                     [name: string]: unknown;
@@ -7382,6 +7503,88 @@ export interface operations {
             };
             /** @description The `Idempotency-Key` was already used for a different request. */
             422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    previewBurnExclusion: {
+        parameters: {
+            query: {
+                /** @description `true`: preview excluding the burn; `false`: including it again. */
+                excluded: "true" | "false";
+                /** @description Unit of the reported values in the preview. */
+                unit?: "%" | "ppm" | "ppb";
+            };
+            header?: never;
+            path: {
+                id: string;
+                n: number;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description What the change would do. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["BurnExclusionPreview"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `samples:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such sample or burn. */
+            404: {
                 headers: {
                     [name: string]: unknown;
                 };
@@ -8022,6 +8225,175 @@ export interface operations {
             };
             /** @description No such sample or revision. */
             404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    listSampleFields: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description Every definition. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["SampleFieldList"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `samples:read`. */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
+    putSampleFields: {
+        parameters: {
+            query?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["PutSampleFieldsRequest"];
+            };
+        };
+        responses: {
+            /** @description The definitions now stored. */
+            200: {
+                headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["SampleFieldList"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `methods:write`. Or: The caller is an API key restricted to instruments. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body is larger than the server accepts (`BODY_LIMIT`). */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The body has a Content-Encoding other than gzip, deflate or br, or a charset other than UTF-8. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The `Idempotency-Key` was already used for a different request. */
+            422: {
                 headers: {
                     [name: string]: unknown;
                 };

@@ -28,7 +28,12 @@ beforeAll(async () => {
         sample_code: `HC-${i}`,
         instrument_id: lab.foundry.id,
         method_id: lab.feMethod.id,
-        burns: [{ values: { C: 0.2, Mn: 0.7, Si: 0.25 } }, { values: { C: 0.21, Mn: 0.71, Si: 0.26 } }],
+        // Three burns, so one can be excluded (the method keeps at least two included).
+        burns: [
+          { values: { C: 0.2, Mn: 0.7, Si: 0.25 } },
+          { values: { C: 0.21, Mn: 0.71, Si: 0.26 } },
+          { values: { C: 0.2, Mn: 0.7, Si: 0.26 } },
+        ],
       });
     expect(res.status).toBe(201);
   }

@@ -109,6 +109,8 @@ describe('scope matrix', () => {
         'createMethod',
         'updateMethod',
         'createReferenceMaterial',
+        // The custom sample fields' labels are shared by every instrument's samples.
+        'putSampleFields',
         'inviteUser',
         'updateUser',
         'resendInvitation',

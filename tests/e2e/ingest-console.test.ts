@@ -53,10 +53,9 @@ async function reportedAfterCorrection(element: string, measured: string[], deci
     .reduce((sum, x) => sum.plus(new D100(c.slope).times(x).plus(c.offset)), new D100(0))
     .div(measured.length)
     .times(new D100(10).pow(shift));
-  const places = decimals - shift;
-  if (places >= 0) return mean.toDecimalPlaces(places, Decimal.ROUND_HALF_EVEN).toFixed(places);
-  const step = new D100(10).pow(-places);
-  return mean.div(step).toDecimalPlaces(0, Decimal.ROUND_HALF_EVEN).times(step).toFixed(0);
+  // In ppm and ppb: whole units, or the method's step where that is finer (never the % rounding scaled).
+  const places = Math.max(0, decimals - shift);
+  return mean.toDecimalPlaces(places, Decimal.ROUND_HALF_EVEN).toFixed(places);
 }
 
 async function chooseLab() {
@@ -134,9 +133,11 @@ describe('uploading results through the console', () => {
     expect(await correction.innerText()).toMatch(
       /Drift correction: slope·x \+ offset applied to each burn's concentration, with std_\w+ — the set in force when each burn was measured\./,
     );
-    // The raw value as received is on hover.
+    // The raw value as received is on hover; the burns are shown drift-corrected, or as measured on request.
     const burn3 = page.locator('[data-testid="burn-row"][data-burn="3"]');
-    expect(await burn3.locator('td', { hasText: '0.71' }).getAttribute('title')).toBe('As received: 0.71 %');
+    await page.getByText('As measured', { exact: true }).click();
+    expect(await burn3.locator('td[data-element="Mn"]').innerText()).toBe('0.7100');
+    expect(await burn3.locator('td[data-element="Mn"]').getAttribute('title')).toBe('Full value: 0.71. As received: 0.71 %');
 
     await page.getByRole('button', { name: 'Exclude burn 3' }).click();
     const dialog = page.getByRole('dialog');
@@ -148,7 +149,7 @@ describe('uploading results through the console', () => {
     await dialog.waitFor({ state: 'hidden' });
 
     expect(await burn3.innerText()).toMatch(/✕ Excluded\s+“Spark on a pore” — omar\.reyes@kestrelbend\.test/);
-    const struck = await burn3.locator('td', { hasText: '0.71' }).evaluate((el) => getComputedStyle(el).textDecorationLine);
+    const struck = await burn3.locator('td[data-element="Mn"]').evaluate((el) => getComputedStyle(el).textDecorationLine);
     expect(struck).toBe('line-through');
     await page.waitForFunction(() => document.querySelector('[data-element="Mn"] [data-testid="n"]')?.textContent === '2');
     expect(await resultRow('Mn').getByTestId('reported').innerText()).toBe(await reportedAfterCorrection('Mn', ['0.75', '0.76'], 2));
@@ -157,7 +158,7 @@ describe('uploading results through the console', () => {
     const audit = await server.db('audit_events').where({ action: 'sample.burn_excluded' }).first();
     expect(JSON.parse(audit.after_json)).toMatchObject({ reason: 'Spark on a pore' });
 
-    // In ppm (1 % = 10 000 ppm, NIST SP 811), reported at the method's 2 decimals in % = hundreds of ppm.
+    // In ppm (1 % = 10 000 ppm, NIST SP 811), reported at whole ppm from the mean in ppm.
     // The unit switch is a radio group: arrow keys move from % to ppm.
     const ppm = await reportedAfterCorrection('Mn', ['0.75', '0.76'], 2, 4);
     await page.getByRole('radio', { name: '%' }).focus();
@@ -169,32 +170,30 @@ describe('uploading results through the console', () => {
     );
   });
 
-  it('says readably why the only included burn cannot be excluded', async () => {
+  it('says readably, before anything is sent, why a burn cannot be excluded below two', async () => {
     await nav('Samples').click();
     await page.getByLabel('Heat').fill('K24-0951');
     await page.getByRole('button', { name: 'Apply filters' }).click();
     await page.waitForURL(/heat=K24-0951/);
     await page.getByRole('link', { name: 'K24-0951-P1' }).click();
     await page.getByRole('button', { name: 'Exclude burn 1' }).click();
-    await page.getByRole('dialog').getByLabel('Reason (required)').fill('Burn mark off-centre');
-    await page.getByRole('dialog').getByRole('button', { name: 'Exclude burn' }).click();
-    await page.locator('[data-testid="burn-row"][data-burn="1"][data-excluded="true"]').waitFor();
-
-    await page.getByRole('button', { name: 'Exclude burn 2' }).click();
     const dialog = page.getByRole('dialog');
-    await dialog.getByLabel('Reason (required)').fill('Also doubtful');
-    await dialog.getByRole('button', { name: 'Exclude burn' }).click();
     await dialog.getByText('This burn cannot be changed').waitFor();
-    expect(await dialog.innerText()).toContain('This is the only included burn; include another one first, or measure the sample again.');
+    expect(await dialog.getByTestId('preview-refusal').innerText()).toBe(
+      'Method FE-LA needs at least 2 included burns for a result, and this would leave 1. Spark the sample again (or include another burn first), then exclude this one.',
+    );
+    expect(await dialog.getByRole('button', { name: 'Exclude burn' }).isDisabled()).toBe(true);
     await dialog.getByRole('button', { name: 'Cancel' }).click();
-    expect(await page.locator('[data-testid="burn-row"][data-burn="2"]').getAttribute('data-excluded')).toBe('false');
+    expect(await page.locator('[data-testid="burn-row"][data-burn="1"]').getAttribute('data-excluded')).toBe('false');
 
-    // Including a burn again asks for a reason too, and says so on the burn.
-    await page.getByRole('button', { name: 'Include burn 1' }).click();
+    // Including a burn again asks for a reason too, and says so on the burn (K24-0950-F1's burn 3, excluded above).
+    await page.goto(`${server.url}/samples?heat=K24-0950`);
+    await page.getByRole('link', { name: 'K24-0950-F1' }).click();
+    await page.getByRole('button', { name: 'Include burn 3' }).click();
     await dialog.getByLabel('Reason (required)').fill('Checked the burn mark again: fine');
     await dialog.getByRole('button', { name: 'Include burn' }).click();
-    await page.locator('[data-testid="burn-row"][data-burn="1"][data-excluded="false"]').waitFor();
-    expect(await page.locator('[data-testid="burn-row"][data-burn="1"]').innerText()).toContain(
+    await page.locator('[data-testid="burn-row"][data-burn="3"][data-excluded="false"]').waitFor();
+    expect(await page.locator('[data-testid="burn-row"][data-burn="3"]').innerText()).toContain(
       'Included again: “Checked the burn mark again: fine”',
     );
   });

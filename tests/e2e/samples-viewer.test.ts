@@ -38,7 +38,11 @@ describe('samples for a viewer', () => {
     expect((await codes()).every((code) => code.endsWith('-P1'))).toBe(true);
     expect(await page.getByTestId('sample-row').first().innerText()).toContain('Out of spec');
     await page.getByRole('button', { name: 'Reset' }).click();
-    // A full first page again: 26 heat and lot samples and 144 control points.
+    // Every heat and lot sample again: 26 (10 heats × 2 + 6 lots). The list leaves out the 144
+    // control points by default; shown, they fill a first page of 50.
+    await expect.poll(async () => (await codes()).length).toBe(26);
+    await page.getByRole('button', { name: 'Show them too' }).click();
+    await page.waitForURL(/controls=shown/);
     await expect.poll(async () => (await codes()).length).toBe(50);
   });
 
@@ -67,7 +71,7 @@ describe('samples for a viewer', () => {
     await page.getByRole('heading', { name: 'Sample B24-0122-S1' }).waitFor();
     const ni = page.locator('[data-testid="result-row"][data-element="Ni"]');
     expect(await ni.getByTestId('reported').innerText()).toBe('withheld');
-    expect(await ni.innerText()).toContain('Withheld: burns disagree (spark again)');
+    expect(await ni.innerText()).toContain('Withheld: burns mix values and limits (spark again)');
     const al = page.locator('[data-testid="result-row"][data-element="Al"]');
     expect(await al.innerText()).toContain('Balance, by difference');
     await page.getByText('What the flags mean').waitFor();
@@ -77,7 +81,8 @@ describe('samples for a viewer', () => {
   it('filters the table by heat, keeps the filter in the address and across a reload', async () => {
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Samples', exact: true }).click();
     await page.getByTestId('sample-row').first().waitFor();
-    expect(await page.getByTestId('sample-row').count()).toBe(50); // a full first page: the demo has 170 samples
+    // The 26 heat and lot samples of the demo; its 144 control points are left out by default.
+    await expect.poll(async () => page.getByTestId('sample-row').count()).toBe(26);
 
     await page.getByLabel('Heat').fill('K24-0412');
     await page.getByRole('button', { name: 'Apply filters' }).click();
@@ -90,9 +95,9 @@ describe('samples for a viewer', () => {
     expect(await codes()).toEqual(['K24-0412-F1', 'K24-0412-P1']);
     expect(await page.getByLabel('Heat').inputValue()).toBe('K24-0412');
 
-    // The CSV link carries the same filter.
+    // The CSV link carries the same filter, control points left out as in the table.
     const href = await page.getByRole('link', { name: /Download CSV/ }).getAttribute('href');
-    expect(href).toBe('/api/v1/samples.csv?heat=K24-0412&unit=%25');
+    expect(href).toBe('/api/v1/samples.csv?heat=K24-0412&exclude_kind=control&unit=%25');
     const csv = await page.request.get(`${server.url}${href}`);
     expect(csv.status()).toBe(200);
     const [header, ...rows] = (await csv.text()).trim().split('\n');
@@ -109,7 +114,7 @@ describe('samples for a viewer', () => {
     // Heat K24-0414's final sample has a Mn burn 10 % high in the demo data (server/seed/demo-samples.ts).
     expect(await codes()).toEqual(['K24-0414-F1']);
     const badge = page.getByTestId('sample-row').locator('[data-flag="repeatability_exceeded"]');
-    expect((await badge.innerText()).replace(/\s+/g, ' ')).toBe('⚠ Repeatability exceeded');
+    expect((await badge.innerText()).replace(/\s+/g, ' ')).toBe('⚠ Burns disagree (repeatability exceeded)');
     expect(await badge.getAttribute('title')).toContain('ISO 5725-6 critical range');
 
     await page.goto(`${server.url}/samples?heat=K99-0000`);
@@ -122,7 +127,7 @@ describe('samples for a viewer', () => {
     await page.getByRole('heading', { name: 'Sample K24-0414-F1' }).waitFor();
     const mn = page.locator('[data-testid="result-row"][data-element="Mn"]');
     expect(await mn.getByTestId('n').innerText()).toBe('3');
-    expect(await mn.innerText()).toContain('Repeatability exceeded');
+    expect(await mn.innerText()).toContain('Burns disagree (repeatability exceeded)');
     await page.getByText('What the flags mean').waitFor();
     expect(await page.getByTestId('burn-row').count()).toBe(3);
     expect(await page.getByRole('button', { name: /Exclude burn/ }).count()).toBe(0);

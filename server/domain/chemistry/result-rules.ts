@@ -47,7 +47,7 @@ export const RESULT_RULE_LIST: readonly ResultRule[] = [
       'Averaging two or three burns: common practice, no source. SD and coefficient of variation as defined in ISO 3534-1 (from memory).',
   },
   {
-    rule: 'reported = the mean rounded half to even, in one step from the full-precision mean, to the method\'s decimals for the element, written with trailing zeros ("0.70").',
+    rule: 'reported = the mean rounded half to even, in one step from the full-precision mean, to the method\'s decimals for the element, written with trailing zeros ("0.70"). In ppm and ppb (`?unit=`) it is rounded the same way from the mean in that unit, to whole ppm (ppb) or to the method\'s step where that is finer — decimals max(0, d − 4) in ppm and max(0, d − 7) in ppb — never the % value scaled (a Si mean of 5943 ppm is reported "5943", not "5900"). The step says how the value is written; the method\'s repeatability says how far it can be relied on.',
     basis: 'ASTM E29 (rounding method); ISO 80000-1 Annex B, rule A.',
   },
   {

@@ -5,13 +5,15 @@
 // reported bound, range). The SD, a double, is scaled through its shortest decimal form, so
 // 0.0001 % becomes exactly 1 ppm and not 1.0000000000000002.
 //
-// Reporting precision follows the method's decimals in %: the same place, expressed in the other
-// unit, i.e. decimals − 4 in ppm and decimals − 7 in ppb. 4 decimals in % (0.0001 % = 1 ppm) →
-// 0 decimals in ppm; 5 → 1; 2 decimals in % (0.01 % = 100 ppm) → −2, i.e. ppm rounded to the
-// hundred and written without decimals (0.07 % → "700"). The numeric `reported` is rounded again
-// from the full-precision mean in the new unit — never from the already rounded % string. Because
-// the scale is a power of ten, half-even rounding lands on the same value either way; the
-// conversion test checks that. A "<"/">" bound is a limit, not a rounded mean: it is scaled exactly.
+// Reporting step in ppm and ppb: the reported value is rounded half to even (ASTM E29) from the
+// full-precision mean in THAT unit, to whole ppm (ppb) — or finer when the method's step in % is
+// finer (5 decimals in % = 0.1 ppm → 1 decimal in ppm). It is never the % rounding scaled: a Si
+// mean of 0.5943 % reported at 2 decimals is "0.59" in %, but "5943" in ppm, not "5900" beside a
+// mean of 5943. So every element of a sample is written with the same, stated step in ppm and
+// ppb: decimals = max(0, decimals in % − 4) for ppm, max(0, decimals in % − 7) for ppb. The
+// numeric precision a reader can rely on is still the method's (its repeatability), which the
+// API documentation says beside the step. A "<"/">" bound is a limit, not a rounded mean: it is
+// scaled exactly (a power-of-ten shift always fits the step).
 import { Decimal } from 'decimal.js';
 import type { ElementResult } from './element-result.ts';
 import { roundHalfEven } from './rounding.ts';
@@ -21,9 +23,10 @@ export interface UnitElementResult extends ElementResult {
   unit: OutputUnit;
 }
 
-/** The reporting decimals in `unit` that correspond to `decimalsInPercent` (may be negative). */
+/** The reporting decimals in `unit` for a method reporting `decimalsInPercent` in %: the same place, but at least whole ppm/ppb. */
 export function reportingDecimals(decimalsInPercent: number, unit: OutputUnit): number {
-  return decimalsInPercent - PERCENT_SHIFT[unit];
+  if (unit === '%') return decimalsInPercent;
+  return Math.max(0, decimalsInPercent - PERCENT_SHIFT[unit]);
 }
 
 /** Converts a result computed in % to `unit`; `decimalsInPercent` are the method's decimals. */
@@ -36,7 +39,7 @@ export function convertResult(result: ElementResult, unit: OutputUnit, decimalsI
     reported =
       result.qualifier === null && result.mean !== null
         ? roundHalfEven(fromPercent(result.mean, unit), decimals)
-        : new Decimal(fromPercent(result.reported, unit)).toFixed(Math.max(0, decimals));
+        : new Decimal(fromPercent(result.reported, unit)).toFixed(decimals);
   }
   const repeatability = result.repeatability && {
     ...result.repeatability,

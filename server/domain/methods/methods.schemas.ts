@@ -74,14 +74,16 @@ export interface MethodReporting {
   balance_by_difference: boolean;
   sum_tolerance: string;
   unlisted_elements: 'keep_unreported' | 'report';
+  min_included_burns: number;
 }
 
-/** Safe defaults: withhold mixed burns, no balance, 0.5 % over 100 % tolerated, unlisted elements not reported. */
+/** Safe defaults: withhold mixed burns, no balance, 0.5 % over 100 % tolerated, unlisted elements not reported, two burns at least. */
 export const DEFAULT_REPORTING: MethodReporting = {
   mixed_qualified_burns: 'withhold',
   balance_by_difference: false,
   sum_tolerance: '0.5',
   unlisted_elements: 'keep_unreported',
+  min_included_burns: 2,
 };
 
 const MethodReportingSchema = z
@@ -100,6 +102,11 @@ const MethodReportingSchema = z
     unlisted_elements: z.enum(['keep_unreported', 'report']).default(DEFAULT_REPORTING.unlisted_elements).openapi({
       description:
         'Elements measured but not listed in the method: `keep_unreported` keeps their burns and mean but reports nothing (flag not_in_method); `report` reports them with 4 decimals and no limits.',
+    }),
+    min_included_burns: z.number().int().min(1).max(10).default(DEFAULT_REPORTING.min_included_burns).openapi({
+      description:
+        'How many burns must stay included when a burn is excluded (PATCH /samples/{id}/burns/{n}, amendments): default 2, so that a result always rests on burns that can be compared; 1 lets a result rest on a single burn (flag single_burn). A sample stored with fewer burns keeps them; the rule only refuses exclusions. Repeat measurements on at least two burns: common practice, no source.',
+      example: DEFAULT_REPORTING.min_included_burns,
     }),
   })
   .openapi('MethodReporting', {

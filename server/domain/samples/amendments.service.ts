@@ -13,7 +13,8 @@ import { recordAudit } from '../audit/audit.repository.ts';
 import type { AuthContext } from '../auth/auth-context.ts';
 import { recordEvent } from '../events/events.repository.ts';
 import { conformanceJudge } from '../grades/sample-conformance.ts';
-import { findMethod } from '../methods/methods.repository.ts';
+import { findMethod, type Method } from '../methods/methods.repository.ts';
+import { tooFewIncludedBurns } from './burn-exclusion-rules.ts';
 import { decodeResults, encodeResults } from './results-codec.ts';
 import { type ElementChange, findRevision, insertRevision, listRevisions } from './revisions.repository.ts';
 import { loadSampleDetail } from './sample-view.ts';
@@ -53,7 +54,7 @@ export async function recordReleasedRevision(trx: Transaction, document: SampleD
   });
 }
 
-function applyBurnChanges(burns: BurnRow[], input: AmendmentInput, errors: FieldError[]): BurnRow[] {
+function applyBurnChanges(burns: BurnRow[], input: AmendmentInput, method: Method, errors: FieldError[]): BurnRow[] {
   const wanted = new Map<number, boolean>([
     ...(input.exclude_burns ?? []).map((n) => [n, true] as const),
     ...(input.include_burns ?? []).map((n) => [n, false] as const),
@@ -61,7 +62,8 @@ function applyBurnChanges(burns: BurnRow[], input: AmendmentInput, errors: Field
   for (const n of wanted.keys())
     if (!burns.some((b) => b.burn_number === n)) errors.push({ location: 'body', message: `There is no burn ${n}.` });
   const next = burns.map((b) => (wanted.has(b.burn_number) ? { ...b, excluded: wanted.get(b.burn_number)! } : b));
-  if (next.every((b) => b.excluded)) errors.push({ location: 'body.exclude_burns', message: 'At least one burn must stay included.' });
+  const refusal = tooFewIncludedBurns(next, burns, method);
+  if (refusal) errors.push({ location: 'body.exclude_burns', message: refusal, code: 'too_few_included_burns' });
   return next;
 }
 
@@ -75,7 +77,8 @@ export async function amendSample(ctx: Pick<AppContext, 'db'>, auth: AuthContext
       await recordReleasedRevision(trx, before, sample.released_by_label ?? '', sample.released_at ?? nowIso());
     const errors: FieldError[] = [];
     const burns = await findBurns(trx, id);
-    const next = applyBurnChanges(burns, input, errors);
+    const method = (await findMethod(trx, sample.method_id))!;
+    const next = applyBurnChanges(burns, input, method, errors);
     if (errors.length > 0) throw new UnprocessableProblem('Nothing was amended; see errors[].', errors);
 
     const now = nowIso();
@@ -88,8 +91,7 @@ export async function amendSample(ctx: Pick<AppContext, 'db'>, auth: AuthContext
         excluded_at: now,
       });
     }
-    const method = await findMethod(trx, sample.method_id);
-    const { results, flags } = resultsOfBurns(next, method!);
+    const { results, flags } = resultsOfBurns(next, method);
     const grade = input.grade === undefined ? sample.grade : input.grade;
     const verdict = await conformanceJudge(trx)(grade, results);
     const revision = sample.revision + 1;

@@ -217,6 +217,7 @@ export interface SampleFilters {
   import_id?: string;
   status?: string;
   kind?: string;
+  exclude_kind?: string;
   flag?: string;
   conforms?: 'true' | 'false' | 'undecided';
   created_from?: string;
@@ -249,6 +250,8 @@ export function whereSamples(query: Knex.QueryBuilder, filters: SampleFilters): 
   if (filters.import_id) query.where('samples.import_id', filters.import_id);
   if (filters.status) query.where('samples.status', filters.status);
   if (filters.kind) query.where('samples.kind', filters.kind);
+  const excluded = filters.exclude_kind;
+  if (excluded) query.where((q) => q.whereNull('samples.kind').orWhereNot('samples.kind', excluded));
   if (filters.flag) query.where('samples.flags_json', 'like', `%${JSON.stringify(filters.flag)}%`);
   if (filters.conforms) query.where('samples.conforms', filters.conforms);
   if (filters.created_from) query.where('samples.created_at', '>=', filters.created_from);

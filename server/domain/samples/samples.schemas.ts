@@ -74,7 +74,8 @@ const ResultSchema = z
     unit: OutputUnitSchema,
     raw_mean: z.number().nullable().openapi({ description: 'Mean before drift correction.' }),
     reported: z.string().nullable().openapi({
-      description: "The mean rounded half to even (ASTM E29) to the method's decimals, as a string; with `qualifier` when qualified.",
+      description:
+        "The mean rounded half to even (ASTM E29), in one step from the full-precision mean in `unit`, to `decimals` places (the reporting step), as a string; with `qualifier` when qualified. In % the step is the method's (2 decimals → 0.01 %); in ppm and ppb it is whole ppm (ppb), or the method's step when that is finer — the value is rounded from the mean in that unit, never the % value scaled (a mean of 5943 ppm is reported 5943, not 5900). The method's repeatability, not the step, says how far the value can be relied on.",
       example: '0.71',
     }),
     qualifier: z
@@ -83,7 +84,7 @@ const ResultSchema = z
       .openapi({ description: '`<` below the detection limit or working range, `>` above the working range.' }),
     decimals: z.number().int().openapi({
       description:
-        "Decimal places of `reported` in this unit: the method's decimals in %, shifted for ppm (−4) and ppb (−7). Negative = rounded to tens, hundreds …",
+        "Decimal places of `reported` in `unit` (the reporting step is 10^−decimals): the method's decimals in %; in ppm max(0, decimals in % − 4), in ppb max(0, decimals in % − 7), so ppm and ppb are never rounded coarser than a whole unit.",
     }),
     flags: z.array(ResultFlagSchema).openapi({ description: 'See the result flags in the operation description.' }),
     repeatability: z.object({ range: z.number(), critical_range: z.number(), exceeded: z.boolean() }).nullable().openapi({
@@ -229,6 +230,10 @@ export const SampleListQuerySchema = paginationQuery.extend({
   import_id: z.string().max(40).optional(),
   status: SampleStatusSchema.optional(),
   kind: SampleKindSchema.optional(),
+  exclude_kind: SampleKindSchema.optional().openapi({
+    description:
+      'Leave out samples of this kind (samples without a kind stay), e.g. `control` for a list of heats and lots without control-sample points.',
+  }),
   flag: z.string().max(60).optional().openapi({ description: 'Only samples with this flag on some element.' }),
   conforms: z.enum(['true', 'false', 'undecided']).optional().openapi({
     description: 'Only samples whose verdict against their grade is this (`undecided`: a value could not be judged or was not measured).',

@@ -15,6 +15,7 @@ import { timelineLoader } from '../drift/correction-timeline.ts';
 import { normalisePushedBurns } from './pushed-sample.ts';
 import { buildSampleRows } from './sample-builder.ts';
 import { computeSampleResults } from './sample-results.ts';
+import { minimumBurnsExtension, tooFewIncludedBurns } from './burn-exclusion-rules.ts';
 import {
   type BurnRow,
   findBurns,
@@ -230,10 +231,7 @@ export async function setBurnExclusion(
     const burn = burns.find((b) => b.burn_number === burnNumber);
     if (!burn) throw new NotFoundProblem(`Sample ${sampleId} has no burn ${burnNumber}.`);
     if (Boolean(burn.excluded) === change.excluded) return;
-    if (change.excluded && burns.filter((b) => !b.excluded).length === 1) {
-      throw new ConflictProblem('This is the only included burn; include another one first, or measure the sample again.');
-    }
-    const method = await findMethod(trx, sample.method_id);
+    const method = (await findMethod(trx, sample.method_id))!;
     const now = nowIso();
     const actor = actorOf(auth);
     const updated: BurnRow = {
@@ -244,8 +242,10 @@ export async function setBurnExclusion(
       excluded_at: now,
     };
     const next = burns.map((b) => (b.id === burn.id ? updated : b));
+    const refusal = tooFewIncludedBurns(next, burns, method);
+    if (refusal) throw new ConflictProblem(refusal, minimumBurnsExtension(burns, method));
     // The burns keep the correction they were stored with: excluding one never changes the set applied.
-    const { results, flags } = resultsOfBurns(next, method!);
+    const { results, flags } = resultsOfBurns(next, method);
     await updateBurn(trx, burn.id, {
       excluded: change.excluded,
       exclusion_reason: change.reason,

@@ -20,6 +20,7 @@ import { requestLogRoutes } from './request-log.ts';
 import { sampleRecomputeRoutes } from './sample-recompute.ts';
 import { sampleReleaseRoutes } from './sample-release.ts';
 import { sampleRoutes } from './samples.ts';
+import { sampleFieldRoutes } from './sample-fields.ts';
 import { standardizationRoutes } from './standardizations.ts';
 import { userRoutes } from './users.ts';
 import { webhookDeliveryRoutes } from './webhook-deliveries.ts';
@@ -38,6 +39,7 @@ export const v1Routes: AnyRoute[] = [
   ...sampleRoutes,
   ...sampleRecomputeRoutes,
   ...sampleReleaseRoutes,
+  ...sampleFieldRoutes,
   ...importProfileRoutes,
   ...importRoutes,
   ...referenceMaterialRoutes,

@@ -18,6 +18,8 @@ import { preparedSampleDetail } from '../../domain/samples/prepared-documents.ts
 import { PreparedJson } from '../../lib/prepared-json.ts';
 import { CSV_MAX_ROWS, exportSamplesCsv, listSamplesPage } from '../../domain/samples/sample-lists.ts';
 import { RESULTS_DESCRIPTION } from '../../domain/samples/results-docs.ts';
+import { BurnExclusionPreviewQuerySchema, BurnExclusionPreviewSchema } from '../../domain/samples/burn-exclusion.schemas.ts';
+import { previewBurnExclusion } from '../../domain/samples/burn-exclusion-preview.ts';
 import { z } from '../../lib/zod.ts';
 import { defineRoute } from '../../http/route.ts';
 
@@ -122,7 +124,7 @@ export const sampleRoutes = [
     operationId: 'setBurnExclusion',
     summary: 'Exclude a burn from the results, or include it again',
     description:
-      'The burn is never deleted. The results are recomputed, and the change is audited with the reason, who and when. Released samples cannot be changed this way (409).',
+      "The burn is never deleted. The results are recomputed, and the change is audited with the reason, who and when. Refused with 409 when the sample is released (amend it instead) or when the exclusion would leave fewer included burns than the method's `reporting.min_included_burns` (default 2; the problem carries `min_included_burns` and `included_burns`). GET /samples/{id}/burns/{n}/exclusion-preview says beforehand what the change would do.",
     tag: 'Samples',
     access: { scope: 'samples:write' },
     params: BurnParams,
@@ -130,11 +132,30 @@ export const sampleRoutes = [
     responses: {
       200: { description: 'The sample with recomputed results.', schema: SampleSchema },
       404: { description: 'No such sample or burn.' },
-      409: { description: 'The sample is released, or this is its only included burn.' },
+      409: { description: 'The sample is released, or the exclusion would leave fewer included burns than the method requires.' },
     },
     async handler({ params, body, auth, req, ctx, reply }) {
       await setBurnExclusion(ctx, auth, params.id, params.n, body, req.requestId);
       reply(200, await loadSampleDetail(ctx.db, auth, params.id, '%'));
+    },
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/samples/{id}/burns/{n}/exclusion-preview',
+    operationId: 'previewBurnExclusion',
+    summary: 'Preview excluding (or including) a burn',
+    description:
+      'Computes the results as PATCH /samples/{id}/burns/{n} would, without storing anything, and lists per element the reported value before and after and the flags the change would clear or raise (e.g. `repeatability_exceeded` cleared by excluding the outlier), the sample flags and the verdict against the grade. `allowed` and `refusal` say whether the change would be accepted now. Nothing is audited.',
+    tag: 'Samples',
+    access: { scope: 'samples:read' },
+    params: BurnParams,
+    query: BurnExclusionPreviewQuerySchema,
+    responses: {
+      200: { description: 'What the change would do.', schema: BurnExclusionPreviewSchema },
+      404: { description: 'No such sample or burn.' },
+    },
+    async handler({ params, query, auth, ctx, reply }) {
+      reply(200, await previewBurnExclusion(ctx.db, auth, params.id, params.n, query.excluded, query.unit));
     },
   }),
 ];

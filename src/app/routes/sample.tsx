@@ -11,7 +11,8 @@ import { InstrumentStatusBanner } from '../../features/control/components/instru
 import { RevisionHistory } from '../../features/samples/components/revision-history.tsx';
 import { Button } from '../../components/ui/button.tsx';
 import { BurnExclusionDialog } from '../../features/samples/components/burn-exclusion-dialog.tsx';
-import { burnElements, BurnsTable } from '../../features/samples/components/burns-table.tsx';
+import { BurnsTable } from '../../features/samples/components/burns-table.tsx';
+import { SampleAttention } from '../../features/samples/components/sample-attention.tsx';
 import { FlagLegend } from '../../features/samples/components/flag-badges.tsx';
 import { ResultsTable } from '../../features/samples/components/results-table.tsx';
 import { SampleIdentity } from '../../features/samples/components/sample-identity.tsx';
@@ -48,6 +49,7 @@ export function SamplePage() {
       <ProblemAlert error={sample.error} />
       {s && (
         <div className="space-y-6">
+          <SampleAttention sample={s} />
           <InstrumentStatusBanner instrumentId={s.instrument.id} methodId={s.method.id} />
           <Alert tone="caution" title="Review before release">
             These results are computed from the burns as stored. They must be reviewed and authorised under your laboratory&apos;s own
@@ -90,9 +92,14 @@ export function SamplePage() {
               </Alert>
             )}
             <ResultsTable results={s.results} unit={unit} />
-            <p className="text-xs text-slag-500">
-              Reported: the mean rounded half to even to the method&apos;s decimals. Mean, SD, min and max show two more decimals (hover for
-              the full value); raw mean is before drift correction.
+            <p className="text-xs text-slag-500" data-testid="rounding-note">
+              Reported: the mean of the included burns after drift correction, rounded half to even (ASTM E29) in one step from its full
+              value in {unit}, to the step shown per element —{' '}
+              {unit === '%'
+                ? "the method's reporting decimals."
+                : `whole ${unit}, or the method's step where that is finer (never the % value scaled).`}{' '}
+              Mean, SD, min and max show two more decimals (hover for the full value); raw mean is before drift correction. How far a value
+              can be relied on is the method&apos;s repeatability, not the step.
             </p>
             <FlagLegend flags={[...s.flags, ...s.results.flatMap((r) => r.flags)]} />
           </section>
@@ -108,15 +115,13 @@ export function SamplePage() {
             )}
             <BurnsTable
               burns={s.burns}
-              elements={burnElements(
-                s.burns,
-                s.results.map((r) => r.element),
-              )}
+              results={s.results}
               unit={unit}
+              corrected={s.burns.some((b) => Object.values(b.values).some((v) => v.corrected !== null))}
               onToggle={canChangeBurns ? setToggling : undefined}
             />
           </section>
-          <BurnExclusionDialog sampleId={s.id} burn={toggling} onClose={() => setToggling(null)} />
+          <BurnExclusionDialog sampleId={s.id} burn={toggling} unit={unit} onClose={() => setToggling(null)} />
         </div>
       )}
     </RequireScope>

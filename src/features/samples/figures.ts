@@ -28,6 +28,11 @@ export function statistic(value: number | null, decimals: number): string {
   return roundedFigure(value, decimals + GUARD_DIGITS);
 }
 
+/** The reporting step for `decimals` places: "0.01" for 2, "1" for 0 (the API never gives fewer than 0 decimals). */
+export function reportingStep(decimals: number): string {
+  return new Decimal(10).pow(-decimals).toFixed();
+}
+
 /** RSD in % with two decimals. */
 export function rsdFigure(rsd: number | null): string {
   return roundedFigure(rsd, 2);
@@ -38,11 +43,16 @@ export function reportedFigure(result: { reported: string | null; qualifier: '<'
   return result.reported === null ? NO_VALUE : `${result.qualifier ?? ''}${result.reported}`;
 }
 
-/** One burn value as stored (in the requested unit), with its qualifier; n.d. for not detected. */
-export function burnFigure(cell: { value: number | null; qualifier: Qualifier }): string {
+/**
+ * One burn value in the requested unit: numeric values at the precision of the element's mean
+ * (`decimals` + guard digits, the same as the mean beside them) so a column's decimals align;
+ * "<"/">" limits as stated; n.d. for not detected. Without `decimals`, the value in full.
+ */
+export function burnFigure(cell: { value: number | null; qualifier: Qualifier }, decimals: number | null = null): string {
   if (cell.qualifier === 'nd') return 'n.d.';
   if (cell.value === null) return cell.qualifier ?? NO_VALUE;
-  return `${cell.qualifier ?? ''}${plain(cell.value)}`;
+  if (cell.qualifier) return `${cell.qualifier}${plain(cell.value)}`;
+  return decimals === null ? plain(cell.value) : statistic(cell.value, decimals);
 }
 
 /** "2–4, 7" from [2, 3, 4, 7]: file lines, compactly. */

@@ -20,7 +20,7 @@ export const VERDICT_LABELS: Record<Verdict, string> = { true: 'conforms', false
 export const OUTPUT_UNITS: readonly OutputUnit[] = OutputUnitValues;
 
 const TEXT_FILTERS = ['sample_code', 'heat', 'grade', 'instrument_id', 'method_id', 'import_id', 'flag'] as const;
-const FILTER_KEYS = [...TEXT_FILTERS, 'kind', 'status', 'conforms', 'created_from', 'created_to'] as const;
+const FILTER_KEYS = [...TEXT_FILTERS, 'kind', 'status', 'conforms', 'created_from', 'created_to', 'controls'] as const;
 export type FilterKey = (typeof FILTER_KEYS)[number];
 
 export interface SampleFilters {
@@ -39,6 +39,10 @@ export interface SampleFilters {
   created_from?: string;
   /** YYYY-MM-DD, last day included. */
   created_to?: string;
+  /** `shown`: the Samples list includes control-sample points, which it leaves out by default. */
+  controls?: 'shown';
+  /** Not in the URL: set by samplesListFilters for the API's `exclude_kind`. */
+  exclude_kind?: SampleKind;
 }
 
 const DAY = /^\d{4}-\d{2}-\d{2}$/;
@@ -68,8 +72,22 @@ export function readFilters(params: URLSearchParams): SampleFilters {
     const value = params.get(key) ?? '';
     if (isDay(value)) filters[key] = value;
   }
+  if (params.get('controls') === 'shown') filters.controls = 'shown';
   return filters;
 }
+
+/**
+ * The Samples list leaves out control-sample points unless asked (`controls=shown`), a kind is
+ * chosen or an import is shown: the list is where heats and lots are reviewed, and routine
+ * control measurements (on their charts) would otherwise fill its pages.
+ */
+export function samplesListFilters(filters: SampleFilters): SampleFilters {
+  const hides = !filters.kind && !filters.import_id && filters.controls !== 'shown';
+  return hides ? { ...filters, exclude_kind: 'control' } : filters;
+}
+
+/** Whether the Samples list is leaving out control-sample points for these filters. */
+export const hidesControls = (filters: SampleFilters) => samplesListFilters(filters).exclude_kind === 'control';
 
 export function readUnit(params: URLSearchParams): OutputUnit {
   const unit = params.get('unit') ?? '';
@@ -93,7 +111,7 @@ export function localDayStart(day: string, offsetDays = 0): string {
   return new Date(y, m - 1, d + offsetDays).toISOString();
 }
 
-export type SamplesApiQuery = Omit<SampleFilters, 'created_from' | 'created_to'> & {
+export type SamplesApiQuery = Omit<SampleFilters, 'created_from' | 'created_to' | 'controls'> & {
   created_from?: string;
   created_to?: string;
   unit: OutputUnit;
@@ -101,7 +119,8 @@ export type SamplesApiQuery = Omit<SampleFilters, 'created_from' | 'created_to'>
 
 /** The query for GET /samples and /samples.csv. */
 export function toApiQuery(filters: SampleFilters, unit: OutputUnit): SamplesApiQuery {
-  const { created_from, created_to, ...rest } = filters;
+  // `controls` is the console's own switch; the API gets exclude_kind from samplesListFilters.
+  const { created_from, created_to, controls: _controls, ...rest } = filters;
   return {
     ...rest,
     ...(created_from ? { created_from: localDayStart(created_from) } : {}),

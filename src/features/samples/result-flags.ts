@@ -8,29 +8,40 @@ export const RESULT_FLAG_DESCRIPTIONS: Readonly<Record<ResultFlag, string>> = Re
 export type ResultFlag = (typeof ResultFlagValues)[number];
 export const RESULT_FLAG_NAMES: readonly ResultFlag[] = ResultFlagValues;
 
-/** `attention`: someone should look before the result is used; `note`: context for reading it. */
-export type FlagTone = 'attention' | 'note';
+/**
+ * `problem`: the result cannot be used as it stands (burns disagree, nothing reported, sum over
+ * 100 %) — act before release; `check`: look before using it (outside the working range, one
+ * burn, a burn below 0 after correction); `note`: context, normal in daily work (a trace element
+ * reported as "<" its limit, a balance by difference). The labels say what happened in a lab's
+ * words: a result "at a limit" is not an approval, so no label uses "qualified".
+ */
+export type FlagTone = 'problem' | 'check' | 'note';
 
 const LABELS: Record<ResultFlag, [label: string, tone: FlagTone]> = {
   not_measured: ['Not measured', 'note'],
-  single_burn: ['Single burn', 'note'],
-  repeatability_exceeded: ['Repeatability exceeded', 'attention'],
-  repeatability_unchecked: ['Repeatability not checked', 'note'],
-  below_detection_limit: ['Below detection limit', 'note'],
-  below_working_range: ['Below working range', 'attention'],
-  above_working_range: ['Above working range', 'attention'],
-  burns_outside_working_range: ['Burn outside working range', 'attention'],
-  below_zero: ['Below 0 % after correction: reported as "<"', 'attention'],
-  all_burns_qualified: ['All burns qualified', 'note'],
-  mixed_qualified_burns: ['Withheld: burns disagree (spark again)', 'attention'],
-  not_detected: ['Not detected', 'note'],
-  negative_after_correction: ['Below 0 after drift correction', 'attention'],
-  conflicting_qualified_burns: ['Conflicting qualified burns', 'attention'],
-  limit_missing: ['Limit missing', 'attention'],
+  single_burn: ['One burn only: agreement not checked', 'check'],
+  repeatability_exceeded: ['Burns disagree (repeatability exceeded)', 'problem'],
+  repeatability_unchecked: ['Over 20 burns: agreement not checked', 'note'],
+  below_detection_limit: ['Below detection limit: reported as <', 'note'],
+  below_working_range: ['Under the working range: reported as <', 'note'],
+  above_working_range: ['Above the working range: reported as >', 'check'],
+  burns_outside_working_range: ['A burn outside the working range', 'check'],
+  below_zero: ['Below 0 after drift correction: reported as <', 'problem'],
+  all_burns_qualified: ['Every burn at a limit (<, > or n.d.)', 'note'],
+  mixed_qualified_burns: ['Withheld: burns mix values and limits (spark again)', 'problem'],
+  not_detected: ['Not detected in a burn', 'note'],
+  negative_after_correction: ['A burn below 0 after drift correction', 'check'],
+  conflicting_qualified_burns: ['Not reported: burns say both < and >', 'problem'],
+  limit_missing: ['Not reported: no limit to stand for a < burn', 'problem'],
   balance_by_difference: ['Balance, by difference', 'note'],
-  sum_above_100: ['Sum above 100 %', 'attention'],
-  not_in_method: ['Not in method: not reported', 'attention'],
+  sum_above_100: ['Elements add up to over 100 %', 'problem'],
+  not_in_method: ['Not in the method: not reported', 'check'],
 };
+
+/** Flags that say a result needs someone to look before it is used (problem and check). */
+export function needsAttention(name: string): boolean {
+  return flagInfo(name).tone !== 'note';
+}
 
 export interface FlagInfo {
   name: string;
@@ -43,7 +54,14 @@ export interface FlagInfo {
 const isKnown = (name: string): name is ResultFlag => Object.hasOwn(RESULT_FLAG_DESCRIPTIONS, name);
 
 export function flagInfo(name: string): FlagInfo {
-  if (!isKnown(name)) return { name, label: name.replaceAll('_', ' '), tone: 'attention', description: null };
+  if (!isKnown(name)) return { name, label: name.replaceAll('_', ' '), tone: 'check', description: null };
   const [label, tone] = LABELS[name];
   return { name, label, tone, description: RESULT_FLAG_DESCRIPTIONS[name] };
+}
+
+const TONE_ORDER: Record<FlagTone, number> = { problem: 0, check: 1, note: 2 };
+
+/** Problems first, then checks, then notes: what needs action is seen first when a list wraps. */
+export function byTone(a: string, b: string): number {
+  return TONE_ORDER[flagInfo(a).tone] - TONE_ORDER[flagInfo(b).tone];
 }

@@ -96,7 +96,8 @@ describe('control sample definitions', () => {
     const id = await define('CRM-C', [
       { element: 'Cr', centre: '2.00', sd: '0.01', source: 'certificate', valid_from: '2026-01-01T00:00:00Z' },
     ]);
-    const sample = await point(id, 'CRM-C', [{ Cr: 2.0 }, { Cr: 2.1 }], '2026-09-01T00:00:00Z');
+    // Three burns, mean 2.033 (beyond 2.00 + 3 × 0.01); without burn 2 the mean is 2.00. The method keeps two included.
+    const sample = await point(id, 'CRM-C', [{ Cr: 2.0 }, { Cr: 2.1 }, { Cr: 2.0 }], '2026-09-01T00:00:00Z');
     expect(rulesOf(await chart(id, 'Cr'))).toEqual([['beyond_3s']]);
     const excluded = await s.analyst.patch(`/api/v1/samples/${sample}/burns/2`).send({ excluded: true, reason: 'bad spark' });
     expect(excluded.status).toBe(200);

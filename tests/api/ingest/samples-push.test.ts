@@ -86,6 +86,22 @@ describe('POST /api/v1/samples', () => {
     expect(ppm.body.burns[0].values.B).toEqual({ value: 4, qualifier: null, raw: '0.0004', raw_unit: '%', corrected: null });
   });
 
+  it('reports in ppm and ppb from the mean in that unit at whole units, not the % rounding scaled', async () => {
+    // Si at 2 decimals in %: mean 0.5943 % → "0.59" %, but 5943 ppm and 5 943 000 ppb (1 % = 10^4 ppm = 10^7 ppb, NIST SP 811).
+    const created = await env.agent.post('/api/v1/samples').send(steel('K24-0431-F1', [{ Si: '0.5941' }, { Si: '0.5945' }]));
+    const si = (unit: string) =>
+      env.agent
+        .get(`/api/v1/samples/${created.body.id}`)
+        .query({ unit })
+        .then((res) => res.body.results.find((r: { element: string }) => r.element === 'Si'));
+    expect(await si('%')).toMatchObject({ reported: '0.59', decimals: 2 });
+    const ppm = await si('ppm');
+    // Independent: decimal.js half-even (ASTM E29) of the mean in ppm, to whole ppm.
+    expect(ppm).toMatchObject({ mean: 5943, decimals: 0 });
+    expect(ppm.reported).toBe(new Decimal(ppm.mean).toDecimalPlaces(0, Decimal.ROUND_HALF_EVEN).toFixed(0));
+    expect(await si('ppb')).toMatchObject({ reported: '5943000', decimals: 0 });
+  });
+
   it('accepts values pushed in ppm and stores them canonically in %', async () => {
     const res = await env.agent.post('/api/v1/samples').send(
       steel(

@@ -1,4 +1,5 @@
 import fc from 'fast-check';
+import { Decimal } from 'decimal.js';
 import Qty from 'js-quantities';
 import { describe, expect, it } from 'vitest';
 import { computeElementResult, type BurnCell } from '../../../server/domain/chemistry/element-result.ts';
@@ -9,13 +10,14 @@ import { decimalString } from '../../helpers/decimal-arbitrary.ts';
 
 const num = (value: string): BurnCell => ({ value, qualifier: null });
 
-describe('reportingDecimals (the same place in another unit; 1 % = 10^4 ppm = 10^7 ppb, NIST SP 811 §7.10)', () => {
+describe('reportingDecimals (the same place in another unit, 1 % = 10^4 ppm = 10^7 ppb, NIST SP 811 §7.10; never coarser than a whole ppm/ppb)', () => {
   it.each([
     [4, 'ppm', 0],
     [5, 'ppm', 1],
-    [2, 'ppm', -2],
-    [4, 'ppb', -3],
+    [2, 'ppm', 0],
+    [4, 'ppb', 0],
     [7, 'ppb', 0],
+    [6, 'ppm', 2],
     [3, '%', 3],
   ] as const)('%i decimals in %% → %s with %i decimals', (decimals, unit, expected) => {
     expect(reportingDecimals(decimals, unit)).toBe(expected);
@@ -48,15 +50,22 @@ describe('convertResult', () => {
     const r = computeElementResult({ element: 'Cr', cells: [num('0.07255'), num('0.07256')], settings: { decimals: 4 } });
     expect(r.reported).toBe('0.0726');
     expect(convertResult(r, 'ppm', 4).reported).toBe('726');
-    expect(convertResult(r, 'ppb', 4).reported).toBe('726000'); // −3 decimals: to the thousand
+    expect(convertResult(r, 'ppb', 4).reported).toBe('725550'); // whole ppb, from the mean in ppb
   });
 
-  it('rounds to the hundred in ppm for 2 decimals in % (0.0725 % → 700 ppm; tie 0.075 % → 800 ppm)', () => {
-    const r = computeElementResult({ element: 'Cr', cells: [num('0.0725')], settings: { decimals: 2 } });
-    expect(convertResult(r, 'ppm', 2).reported).toBe('700');
-    const tie = computeElementResult({ element: 'Cr', cells: [num('0.075')], settings: { decimals: 2 } });
-    expect(tie.reported).toBe('0.08'); // half-even: 7.5 → 8
-    expect(convertResult(tie, 'ppm', 2).reported).toBe('800');
+  it('rounds from the mean in ppm at whole ppm, not the % rounding scaled (Si 0.5943 % → "0.59" %, "5943" ppm, never "5900")', () => {
+    const si = computeElementResult({ element: 'Si', cells: [num('0.5941'), num('0.5945')], settings: { decimals: 2 } });
+    expect(si.reported).toBe('0.59');
+    expect(convertResult(si, 'ppm', 2)).toMatchObject({ mean: '5943', reported: '5943', unit: 'ppm' });
+    expect(reportingDecimals(2, 'ppm')).toBe(0);
+  });
+
+  it('breaks ties half to even in ppm (ASTM E29 §6.4: 725.5 → 726, 724.5 → 724; decimal.js ROUND_HALF_EVEN agrees)', () => {
+    const up = computeElementResult({ element: 'Cr', cells: [num('0.07255')], settings: { decimals: 2 } });
+    const down = computeElementResult({ element: 'Cr', cells: [num('0.07245')], settings: { decimals: 2 } });
+    expect(convertResult(up, 'ppm', 2).reported).toBe('726');
+    expect(convertResult(down, 'ppm', 2).reported).toBe('724');
+    expect(new Decimal('724.5').toDecimalPlaces(0, Decimal.ROUND_HALF_EVEN).toFixed(0)).toBe('724');
   });
 
   it('keeps one decimal in ppm for 5 decimals in %, from the full mean', () => {
@@ -82,9 +91,11 @@ describe('convertResult', () => {
     expect(convertResult(r, 'ppm', 4)).toMatchObject({ mean: null, sd: null, min: null, max: null, reported: null, unit: 'ppm' });
   });
 
-  it('agrees with rounding the scaled mean and with the rounded % string scaled (property)', () => {
-    // Scaling by 10^k moves the decimal point, so half-even at d decimals in % and at d − k in the
-    // other unit must give the same quantity; checked both ways, and the mean against js-quantities.
+  it('rounds the mean in the unit with decimal.js half-even, within half a % step of the % value scaled (property)', () => {
+    // The reported value is the mean in the unit rounded half-even (decimal.js ROUND_HALF_EVEN) at
+    // max(0, d − k) decimals. Where that is the same place as d decimals in %, it equals the %
+    // string scaled (scaling by 10^k moves the decimal point); where it is finer, the two differ by
+    // at most half a % step. The mean is checked against js-quantities.
     const decimal = decimalString({ maxDigits: 10n ** 9n, maxScale: 9 }).filter((value) => Number(value) > 0);
     fc.assert(
       fc.property(
@@ -95,8 +106,14 @@ describe('convertResult', () => {
           const r = computeElementResult({ element: 'Mn', cells: values.map(num), settings: { decimals } });
           const converted = convertResult(r, unit, decimals);
           const shift = unit === 'ppm' ? 4 : 7;
-          expect(converted.reported).toBe(roundHalfEven(fromPercent(r.mean as string, unit), decimals - shift));
-          expect(Number(converted.reported)).toBe(Number(fromPercent(r.reported as string, unit)));
+          const places = Math.max(0, decimals - shift);
+          const inUnit = new Decimal(fromPercent(r.mean as string, unit));
+          expect(converted.reported).toBe(inUnit.toDecimalPlaces(places, Decimal.ROUND_HALF_EVEN).toFixed(places));
+          expect(converted.reported).toBe(roundHalfEven(inUnit.toFixed(), places));
+          const scaledPercent = new Decimal(fromPercent(r.reported as string, unit));
+          const halfStep = new Decimal(10).pow(shift - decimals).div(2);
+          if (decimals >= shift) expect(converted.reported).toBe(scaledPercent.toFixed(places));
+          else expect(new Decimal(converted.reported as string).minus(scaledPercent).abs().lte(halfStep)).toBe(true);
           const theirs = Qty(`${Number(r.mean)} %`).to(unit).scalar; // js-quantities 1.8.0 (doubles)
           expect(Math.abs(Number(converted.mean) - theirs)).toBeLessThanOrEqual(1e-12 * theirs);
         },

@@ -8,6 +8,7 @@ export type SampleSummary = components['schemas']['SampleSummary'];
 export type Sample = components['schemas']['Sample'];
 export type ElementResult = components['schemas']['ElementResult'];
 export type Burn = components['schemas']['Burn'];
+export type BurnExclusionPreview = components['schemas']['BurnExclusionPreview'];
 
 const samplesQuery = (filters: SampleFilters, unit: OutputUnit, pageSize = 50) =>
   infiniteQueryOptions({
@@ -50,5 +51,21 @@ export function useSetBurnExclusion() {
         queryClient.invalidateQueries({ queryKey: sampleKeys.details(input.sampleId) }),
         queryClient.invalidateQueries({ queryKey: sampleKeys.lists() }),
       ]),
+  });
+}
+
+/** What excluding (or including) a burn would change, computed by the server without storing anything. */
+export function useBurnExclusionPreview(sampleId: string, burn: Burn | null, unit: OutputUnit) {
+  const excluded = !burn?.excluded;
+  const number = burn?.number ?? 0;
+  return useQuery({
+    queryKey: sampleKeys.exclusionPreview(sampleId, number, excluded, unit),
+    queryFn: () =>
+      unwrap(
+        api.GET('/samples/{id}/burns/{n}/exclusion-preview', {
+          params: { path: { id: sampleId, n: number }, query: { excluded: excluded ? 'true' : 'false', unit } },
+        }),
+      ),
+    enabled: burn !== null,
   });
 }

@@ -4,15 +4,29 @@ import { Button } from '../../../components/ui/button.tsx';
 import { Dialog } from '../../../components/ui/dialog.tsx';
 import { Alert, ProblemAlert } from '../../../components/ui/feedback.tsx';
 import { TextAreaField } from '../../../components/ui/field.tsx';
-import { useSetBurnExclusion, type Burn } from '../api/samples.ts';
+import { useBurnExclusionPreview, useSetBurnExclusion, type Burn } from '../api/samples.ts';
+import type { OutputUnit } from '../filters.ts';
+import { ExclusionPreview } from './exclusion-preview.tsx';
 
 /** The server's own minimum (SetBurnExclusionRequest.reason), checked here first to say it sooner. */
 const MIN_REASON = 3;
 
-export function BurnExclusionDialog({ sampleId, burn, onClose }: { sampleId: string; burn: Burn | null; onClose: () => void }) {
+export function BurnExclusionDialog({
+  sampleId,
+  burn,
+  unit,
+  onClose,
+}: {
+  sampleId: string;
+  burn: Burn | null;
+  unit: OutputUnit;
+  onClose: () => void;
+}) {
   const [reason, setReason] = useState('');
   const [tooShort, setTooShort] = useState(false);
   const change = useSetBurnExclusion();
+  const preview = useBurnExclusionPreview(sampleId, burn, unit);
+  const refused = preview.data?.allowed === false;
   const excluding = !burn?.excluded;
 
   function close() {
@@ -47,7 +61,8 @@ export function BurnExclusionDialog({ sampleId, burn, onClose }: { sampleId: str
             ? 'The burn stays stored with its values; it no longer counts in the mean, SD and flags. The reason, you and the time are recorded in the audit trail.'
             : 'The burn counts in the results again. The reason, you and the time are recorded in the audit trail.'}
         </p>
-        {conflict && (
+        <ExclusionPreview preview={preview.data} error={preview.error} pending={preview.isPending && !!burn} />
+        {conflict && !refused && (
           <Alert title="This burn cannot be changed">
             <p>{conflict.message}</p>
           </Alert>
@@ -70,7 +85,7 @@ export function BurnExclusionDialog({ sampleId, burn, onClose }: { sampleId: str
           <Button variant="secondary" onClick={close}>
             Cancel
           </Button>
-          <Button type="submit" variant={excluding ? 'danger' : 'primary'} disabled={change.isPending}>
+          <Button type="submit" variant={excluding ? 'danger' : 'primary'} disabled={change.isPending || refused}>
             {change.isPending ? 'Saving…' : excluding ? 'Exclude burn' : 'Include burn'}
           </Button>
         </div>

@@ -53,7 +53,15 @@ export function ConformancePanel({ sample }: { sample: Sample }) {
       </p>
       <p className="text-xs text-slag-500">{RULES[c.decision_rule]}</p>
       <Table
-        head={['Element', 'Verdict', 'Value (%)', 'Rounded', 'Limits (%)', 'Margin']}
+        head={[
+          'Element',
+          'Verdict',
+          ...['Value (%)', 'Rounded', 'Limits (%)', 'Margin'].map((h) => (
+            <span key={h} className="block text-right">
+              {h}
+            </span>
+          )),
+        ]}
         caption={`Verdict per element against ${c.grade.code}`}
       >
         {c.elements.map((e) => {
@@ -68,12 +76,12 @@ export function ConformancePanel({ sample }: { sample: Sample }) {
                   {icon} {word}
                 </Badge>
               </td>
-              <td className="px-3 py-1.5 font-mono" title={e.value ?? undefined}>
+              <td className="px-3 py-1.5 text-right font-mono tabular-nums whitespace-nowrap" title={e.value ?? undefined}>
                 {shown(e.value)}
               </td>
-              <td className="px-3 py-1.5 font-mono">{e.rounded ?? '—'}</td>
-              <td className="px-3 py-1.5 font-mono">{limits(e.limit_min, e.limit_max)}</td>
-              <td className="px-3 py-1.5 font-mono">{e.margin ?? '—'}</td>
+              <td className="px-3 py-1.5 text-right font-mono tabular-nums whitespace-nowrap">{e.rounded ?? '—'}</td>
+              <td className="px-3 py-1.5 text-right font-mono tabular-nums whitespace-nowrap">{limits(e.limit_min, e.limit_max)}</td>
+              <td className="px-3 py-1.5 text-right font-mono tabular-nums whitespace-nowrap">{e.margin ?? '—'}</td>
             </tr>
           );
         })}

@@ -1,9 +1,11 @@
 // Flags are told by an icon AND words, never by colour alone; the meaning is on hover and in the legend.
-import { flagInfo, type FlagTone } from '../result-flags.ts';
+import { byTone, flagInfo, type FlagTone } from '../result-flags.ts';
 
+// A problem is the strongest mark on the page (filled, bold); a check is outlined orange; a note is quiet grey.
 const TONE: Record<FlagTone, { icon: string; className: string }> = {
-  attention: { icon: '⚠', className: 'border-ember-500/40 bg-ember-500/10 text-ember-700' },
-  note: { icon: 'ℹ', className: 'border-ash-200 bg-ash-100 text-slag-700' },
+  problem: { icon: '⚠', className: 'border-oxide-600 bg-oxide-600 font-semibold text-white' },
+  check: { icon: '!', className: 'border-ember-500/40 bg-ember-500/10 font-medium text-ember-700' },
+  note: { icon: 'ℹ', className: 'border-ash-200 bg-ash-50 font-normal text-slag-500' },
 };
 
 export function FlagBadge({ name }: { name: string }) {
@@ -11,9 +13,10 @@ export function FlagBadge({ name }: { name: string }) {
   const tone = TONE[info.tone];
   return (
     <span
-      className={`inline-flex items-center gap-1 whitespace-nowrap rounded border px-1.5 py-0.5 text-xs font-medium ${tone.className}`}
+      className={`inline-flex items-center gap-1 whitespace-nowrap rounded border px-1.5 py-0.5 text-xs ${tone.className}`}
       title={info.description ?? `Flag ${info.name}`}
       data-flag={info.name}
+      data-tone={info.tone}
     >
       <span aria-hidden>{tone.icon}</span>
       {info.label}
@@ -23,8 +26,7 @@ export function FlagBadge({ name }: { name: string }) {
 
 export function FlagList({ flags, empty = '' }: { flags: string[]; empty?: string }) {
   if (flags.length === 0) return empty ? <span className="text-xs text-slag-500">{empty}</span> : null;
-  // Those that need attention first, so they are seen when the list wraps.
-  const ordered = [...flags].sort((a, b) => Number(flagInfo(a).tone === 'note') - Number(flagInfo(b).tone === 'note'));
+  const ordered = [...flags].sort(byTone);
   return (
     <span className="flex flex-wrap gap-1">
       {ordered.map((flag) => (
@@ -36,7 +38,7 @@ export function FlagList({ flags, empty = '' }: { flags: string[]; empty?: strin
 
 /** What each flag present on the page means, in full. */
 export function FlagLegend({ flags }: { flags: string[] }) {
-  const unique = [...new Set(flags)];
+  const unique = [...new Set(flags)].sort(byTone);
   if (unique.length === 0) return null;
   return (
     <section aria-labelledby="flag-legend" className="rounded-lg border border-ash-200 bg-white p-4">
@@ -47,11 +49,11 @@ export function FlagLegend({ flags }: { flags: string[] }) {
         {unique.map((name) => {
           const info = flagInfo(name);
           return (
-            <div key={name} className="grid gap-x-3 sm:grid-cols-[14rem_1fr]">
-              <dt>
+            <div key={name} className="flex flex-wrap items-baseline gap-x-3 gap-y-0.5">
+              <dt className="shrink-0">
                 <FlagBadge name={name} />
               </dt>
-              <dd className="text-slag-700">
+              <dd className="min-w-60 flex-1 text-slag-700">
                 {info.description ?? (
                   <>
                     Not described in this console version (flag <code>{name}</code>); see the API reference.

@@ -1,9 +1,10 @@
-import { Table } from '../../../components/ui/layout.tsx';
 import type { ElementResult } from '../api/samples.ts';
-import { plain, reportedFigure, rsdFigure, statistic } from '../figures.ts';
+import { plain, reportedFigure, reportingStep, rsdFigure, statistic } from '../figures.ts';
 import { FlagList } from './flag-badges.tsx';
+import { ScrollingTable } from './scrolling-table.tsx';
 
-const cell = 'px-3 py-2';
+// Flags come right after the reported value, so they are in view on a tablet before the statistics.
+const cell = 'px-2.5 py-2';
 const figure = `${cell} text-right font-mono tabular-nums whitespace-nowrap`;
 const right = (text: string) => (
   <span key={text} className="block text-right">
@@ -25,11 +26,14 @@ function Stat({ value, decimals }: { value: number | null; decimals: number }) {
 
 export function ResultsTable({ results, unit }: { results: ElementResult[]; unit: string }) {
   return (
-    <Table
+    <ScrollingTable
+      label="Results"
       caption={`Results per element, in ${unit}`}
       head={[
         'Element',
         right(`Reported (${unit})`),
+        right('Step'),
+        'Flags',
         right('Mean'),
         right('SD'),
         right('RSD %'),
@@ -37,12 +41,11 @@ export function ResultsTable({ results, unit }: { results: ElementResult[]; unit
         right('Min'),
         right('Max'),
         right('Raw mean'),
-        'Flags',
       ]}
     >
       {results.map((r) => (
         <tr key={r.element} className="align-top" data-testid="result-row" data-element={r.element}>
-          <th scope="row" className={`${cell} font-mono font-semibold`}>
+          <th scope="row" className={`${cell} sticky left-0 z-10 bg-white font-mono font-semibold shadow-[1px_0_0_var(--color-ash-200)]`}>
             {r.element}
           </th>
           <td className={`${figure} font-semibold`} data-testid="reported">
@@ -51,6 +54,16 @@ export function ResultsTable({ results, unit }: { results: ElementResult[]; unit
             ) : (
               reportedFigure(r)
             )}
+          </td>
+          <td
+            className={`${figure} text-xs text-slag-500`}
+            data-testid="step"
+            title={`Rounded half to even to steps of ${reportingStep(r.decimals)} ${unit}`}
+          >
+            {reportingStep(r.decimals)}
+          </td>
+          <td className={`${cell} min-w-44`}>
+            <FlagList flags={r.flags} />
           </td>
           <td className={figure}>
             <Stat value={r.mean} decimals={r.decimals} />
@@ -71,11 +84,8 @@ export function ResultsTable({ results, unit }: { results: ElementResult[]; unit
           <td className={figure}>
             <Stat value={r.raw_mean} decimals={r.decimals} />
           </td>
-          <td className={cell}>
-            <FlagList flags={r.flags} />
-          </td>
         </tr>
       ))}
-    </Table>
+    </ScrollingTable>
   );
 }

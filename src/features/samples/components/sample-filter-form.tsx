@@ -7,7 +7,7 @@ import { flagInfo, RESULT_FLAG_NAMES } from '../result-flags.ts';
 import { InstrumentOptions, MethodOptions } from '../../../components/lookup-options.tsx';
 import { DateField } from '../../../components/ui/date-field.tsx';
 
-type Draft = Record<Exclude<keyof SampleFilters, 'import_id'>, string>;
+type Draft = Record<Exclude<keyof SampleFilters, 'import_id' | 'controls' | 'exclude_kind'>, string>;
 
 function draftOf(filters: SampleFilters): Draft {
   return {

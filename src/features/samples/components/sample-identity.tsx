@@ -1,6 +1,7 @@
 import type { ReactNode } from 'react';
 import { Card } from '../../../components/ui/layout.tsx';
-import { useInstruments, useMethods } from '../../../api/lookups.ts';
+import { useInstruments, useMethods, useSampleFields } from '../../../api/lookups.ts';
+import { fieldLabels } from '../field-labels.ts';
 import type { Sample } from '../api/samples.ts';
 import { StatusBadge } from './status-badge.tsx';
 import { Timestamp } from '../../../components/ui/timestamp.tsx';
@@ -17,6 +18,7 @@ function Row({ label, children }: { label: string; children: ReactNode }) {
 export function SampleIdentity({ sample }: { sample: Sample }) {
   const instrument = useInstruments().data?.find((i) => i.id === sample.instrument.id);
   const method = useMethods().data?.find((m) => m.id === sample.method.id);
+  const fields = fieldLabels(useSampleFields().data);
   return (
     <Card title="Identification">
       <dl className="grid grid-cols-[auto_1fr] gap-x-6 gap-y-1.5 text-sm" data-testid="sample-identity">
@@ -26,11 +28,16 @@ export function SampleIdentity({ sample }: { sample: Sample }) {
         <Row label="Heat / lot">{sample.heat ? <span className="font-mono">{sample.heat}</span> : '—'}</Row>
         <Row label="Grade">{sample.grade ?? '—'}</Row>
         <Row label="Kind">{sample.kind ?? '—'}</Row>
-        {Object.entries(sample.fields).map(([name, value]) => (
-          <Row key={name} label={name}>
-            {value}
-          </Row>
-        ))}
+        {fields.order(Object.keys(sample.fields)).map((key) => {
+          const { label, description } = fields.labelOf(key);
+          return (
+            <Row key={key} label={label}>
+              <span title={description ? `${description} (field ${key})` : `Field ${key}`} data-field={key}>
+                {sample.fields[key]}
+              </span>
+            </Row>
+          );
+        })}
         <Row label="Instrument">
           <span className="font-mono">{sample.instrument.code}</span>
           {instrument && <span className="text-slag-500"> — {instrument.name}</span>}

@@ -6,13 +6,13 @@ import { ProblemAlert, Spinner } from '../../../components/ui/feedback.tsx';
 import { Card } from '../../../components/ui/layout.tsx';
 import { Timestamp } from '../../../components/ui/timestamp.tsx';
 import { useSamples, type SampleSummary } from '../api/samples.ts';
-import { flagInfo } from '../result-flags.ts';
+import { needsAttention } from '../result-flags.ts';
 import { writeFilters, type SampleFilters } from '../filters.ts';
 import { FlagList } from './flag-badges.tsx';
 import { paths } from '../../../config/paths.ts';
 
 /** The flags someone should look at before the result is used; notes are left to the sample page. */
-export const attentionFlags = (flags: string[]) => flags.filter((flag) => flagInfo(flag).tone === 'attention');
+export const attentionFlags = (flags: string[]) => flags.filter(needsAttention);
 
 interface SampleListCardProps {
   title: string;

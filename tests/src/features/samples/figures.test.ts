@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { roundHalfEven } from '../../../../server/domain/chemistry/rounding.ts';
 import {
   burnFigure,
+  reportingStep,
   lineRanges,
   plain,
   reportedFigure,
@@ -74,6 +75,20 @@ describe('chemistry figures', () => {
     expect(burnFigure({ value: 0.0005, qualifier: '<' })).toBe('<0.0005');
     expect(burnFigure({ value: null, qualifier: 'nd' })).toBe('n.d.');
     expect(burnFigure({ value: 0.452, qualifier: null })).toBe('0.452');
+  });
+
+  it('writes burns at the precision of their mean, so a column of burns aligns (decimal.js half-even)', () => {
+    expect(burnFigure({ value: 0.75, qualifier: null }, 2)).toBe('0.7500');
+    expect(burnFigure({ value: 0.751249, qualifier: null }, 2)).toBe('0.7512');
+    expect(burnFigure({ value: 0.00125, qualifier: null }, 2)).toBe('0.0012'); // tie to even (ASTM E29)
+    expect(burnFigure({ value: 5943.2, qualifier: null }, 0)).toBe('5943.20'); // ppm
+    expect(burnFigure({ value: 0.002, qualifier: '<' }, 4)).toBe('<0.002'); // a limit as stated
+  });
+
+  it('states the reporting step of a number of decimals', () => {
+    expect(reportingStep(2)).toBe('0.01');
+    expect(reportingStep(4)).toBe('0.0001');
+    expect(reportingStep(0)).toBe('1');
   });
 
   it('writes file lines as ranges', () => {

@@ -1,5 +1,13 @@
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { csvHref, localDayStart, readFilters, readUnit, toApiQuery, writeFilters } from '../../../../src/features/samples/filters.ts';
+import {
+  csvHref,
+  localDayStart,
+  readFilters,
+  readUnit,
+  samplesListFilters,
+  toApiQuery,
+  writeFilters,
+} from '../../../../src/features/samples/filters.ts';
 
 // tests/src is type-checked for the browser (no Node types); the time zone is set through the env.
 const env = (globalThis as unknown as { process: { env: Record<string, string | undefined> } }).process.env;
@@ -74,5 +82,19 @@ describe('days → instants for the API', () => {
       unit: 'ppb',
     });
     expect(csvHref({}, '%')).toBe('/api/v1/samples.csv?unit=%25');
+  });
+});
+
+describe('the Samples list default', () => {
+  it('leaves out control-sample points unless shown, a kind is chosen or an import is shown', () => {
+    expect(samplesListFilters({})).toEqual({ exclude_kind: 'control' });
+    expect(toApiQuery(samplesListFilters({ heat: 'K24-0412' }), '%')).toEqual({ heat: 'K24-0412', exclude_kind: 'control', unit: '%' });
+    expect(samplesListFilters({ controls: 'shown' })).toEqual({ controls: 'shown' });
+    expect(toApiQuery({ controls: 'shown' }, '%')).toEqual({ unit: '%' });
+    expect(samplesListFilters({ kind: 'control' })).toEqual({ kind: 'control' });
+    expect(samplesListFilters({ import_id: 'imp_1' })).toEqual({ import_id: 'imp_1' });
+    expect(readFilters(new URLSearchParams('controls=shown')).controls).toBe('shown');
+    expect(readFilters(new URLSearchParams('controls=yes')).controls).toBeUndefined();
+    expect(writeFilters({ heat: 'K24-0412', controls: 'shown' }).toString()).toBe('heat=K24-0412&controls=shown');
   });
 });
