@@ -27,6 +27,7 @@ export function toStandardizationView(row: StandardizationRowWithRefs, inForceId
     in_force: row.id === inForceId,
     measured_at: row.measured_at,
     note: row.note,
+    source_file: row.source_file_json ? (JSON.parse(row.source_file_json) as { name: string; sha256: string }) : null,
     base_set_id: row.base_set_id,
     activation:
       row.status === 'activated'
