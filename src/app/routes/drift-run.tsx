@@ -35,7 +35,18 @@ export function DriftRunPage() {
             title={`Standardization of ${run.data.instrument.code} · ${run.data.method.code}`}
             description={
               <>
-                Measured {formatTime(run.data.measured_at)} by {run.data.created_by}.{' '}
+                Measured {formatTime(run.data.measured_at)}, run by {run.data.created_by}
+                {run.data.source_file ? (
+                  <>
+                    , burns read from{' '}
+                    <span className="font-mono" title={`SHA-256 ${run.data.source_file.sha256}`}>
+                      {run.data.source_file.name}
+                    </span>
+                  </>
+                ) : (
+                  ', burns typed'
+                )}
+                .{' '}
                 <Link className="text-copper-700 underline" to={paths.driftOf(run.data.instrument.id, run.data.method.id)}>
                   Back to the drift history
                 </Link>

@@ -1,5 +1,4 @@
 import { describe, expect, it } from 'vitest';
-import { parseBurnsJson } from '../../../../src/features/drift/burns-json.ts';
 import { formatTime, shortDecimal, toChartRows } from '../../../../src/features/drift/chart-data.ts';
 
 describe('drift chart data', () => {
@@ -53,15 +52,5 @@ describe('drift chart data', () => {
     expect(shortDecimal('1')).toBe('1');
     expect(shortDecimal(null)).toBe('—');
     expect(formatTime('2026-03-02T05:10:00.000Z')).toBe('2026-03-02 05:10 UTC');
-  });
-});
-
-describe('burns typed as JSON', () => {
-  it('accepts an array of element → value objects and explains what is wrong otherwise', () => {
-    expect(parseBurnsJson('[{"C": 0.8, "Mn": "1.47"}]')).toEqual({ burns: [{ C: 0.8, Mn: '1.47' }] });
-    expect(parseBurnsJson('[{"C": 0.8,}]').error).toMatch(/^Not valid JSON/);
-    expect(parseBurnsJson('[]').error).toBe('Write an array with at least one burn.');
-    expect(parseBurnsJson('[{"C": 0.8}, 3]').error).toBe('Burn 2 is not an object of element → value.');
-    expect(parseBurnsJson('[{"C": [1]}]').error).toBe('Burn 1: the value of C must be a number or a string such as "<0.002".');
   });
 });
