@@ -1060,6 +1060,7 @@ export interface paths {
          *     - `two_point` with the measured levels closer than 10 % of the higher one (|H − L| < 0.1·max(|H|, |L|)) → `warn`: burn noise then moves the slope a lot. (Common practice, no source.)
          *     - An element without a nominal value or without a numeric measurement in a reference → `warn`, and the set does not correct that element (slope and offset null): its results stay uncorrected while the set is in force.
          *     - A reference's burns that disagree — range above the ISO 5725-6 critical range f(n)·σr with the method's σr — → `warn`. (ISO 5725-6:1994 §5.2.)
+         *     - Compared with the previous run: the slope moved from `previous_slope` (the set in force at the run's measurement time) by more than the method's `drift_limits.slope_change_warn` (default 0.05, i.e. 5 %) → `warn`; more than `slope_change_fail` (default 0.15) → `fail`. `slope_change` gives α / α_previous − 1 and `offset_change` β − β_previous. (Common practice, no source.)
          *
          *     Requires the scope `standardizations:write`.
          */
@@ -2138,7 +2139,7 @@ export interface components {
              */
             repeatability_sd: string | null;
         };
-        /** @description Limits on the distance of a standardization slope from 1, as decimal strings. Defaults warn 0.2, fail 0.5 (a slope outside 0.8–1.2 deserves a look, outside 0.5–1.5 signals trouble): common practice, no source — set them from your own validation data. */
+        /** @description Limits on the distance of a standardization slope from 1, as decimal strings. Defaults warn 0.2, fail 0.5 (a slope outside 0.8–1.2 deserves a look, outside 0.5–1.5 signals trouble). And limits on how far the slope moved from the set before it: defaults 0.05 and 0.15 (5 % and 15 %). Common practice, no source — set them from your own validation data. */
         DriftLimits: {
             /**
              * @description Flag an element `warn` when |slope − 1| is above this.
@@ -2150,6 +2151,18 @@ export interface components {
              * @example 0.5
              */
             fail: string;
+            /**
+             * @description Flag an element `warn` when its slope moved more than this fraction from the set in force at the run's measurement time: |α / α_previous − 1| (0.05 = 5 %). null: not compared.
+             * @default 0.05
+             * @example 0.05
+             */
+            slope_change_warn: string | null;
+            /**
+             * @description Flag an element `fail` when its slope moved more than this fraction from the set before. null: not compared.
+             * @default 0.15
+             * @example 0.15
+             */
+            slope_change_fail: string | null;
         };
         /** @description Reporting rules of the method (see the result rules in GET /samples/{id}). Changing them affects results computed from then on. */
         MethodReporting: {
@@ -3103,6 +3116,16 @@ export interface components {
             /** @description α of the set in force at the run's measurement time; null when none corrected the element. */
             previous_slope: string | null;
             previous_offset: string | null;
+            /**
+             * @description How far the slope moved from the set before: α / previous_slope − 1 (0.08 = +8 %), 20 significant digits; null without both.
+             * @example 0.0123
+             */
+            slope_change: string | null;
+            /**
+             * @description offset − previous_offset, %, exact; null without both.
+             * @example -0.0004
+             */
+            offset_change: string | null;
             flag: components["schemas"]["CorrectionFlag"] & unknown;
             /** @description One sentence per finding, each explaining itself; empty when `ok`. */
             reasons: string[];

@@ -21,15 +21,9 @@ export const ReadStandardizationFileRequestSchema = z
         description: 'The result file (CSV or other delimited text), as the instrument wrote it.',
       }),
     method_id: z.string().min(1).max(40),
-    profile_id: z
-      .string()
-      .min(1)
-      .max(40)
-      .optional()
-      .openapi({
-        description:
-          'An import profile describing the layout (the same profiles the sample import uses); without it the layout is detected.',
-      }),
+    profile_id: z.string().min(1).max(40).optional().openapi({
+      description: 'An import profile describing the layout (the same profiles the sample import uses); without it the layout is detected.',
+    }),
   })
   .openapi('ReadStandardizationFileRequest');
 

@@ -55,6 +55,15 @@ const ElementCorrectionSchema = z
       .nullable()
       .openapi({ description: "α of the set in force at the run's measurement time; null when none corrected the element." }),
     previous_offset: z.string().nullable(),
+    slope_change: z.string().nullable().openapi({
+      description:
+        'How far the slope moved from the set before: α / previous_slope − 1 (0.08 = +8 %), 20 significant digits; null without both.',
+      example: '0.0123',
+    }),
+    offset_change: z
+      .string()
+      .nullable()
+      .openapi({ description: 'offset − previous_offset, %, exact; null without both.', example: '-0.0004' }),
     flag: CorrectionFlagSchema,
     reasons: z.array(z.string()).openapi({ description: 'One sentence per finding, each explaining itself; empty when `ok`.' }),
     levels: z.array(ElementLevelSchema).openapi({ description: 'Nominal and measured value of each reference for this element.' }),
