@@ -141,9 +141,18 @@ describe('Drift page', () => {
       await page.getByRole('heading', { name: 'Standardization of OES-1 · FE-LA' }).waitFor();
       await page.getByText(`session-${width}.csv`).waitFor();
       const runId = page.url().split('/').pop()!;
-      const failRows = page.getByTestId('correction-row').filter({ hasText: 'Fail' });
+      const failRows = page.locator('[data-testid="correction-row"][data-flag="fail"]');
       expect(await failRows.count()).toBe(1);
       expect(await failRows.getByRole('rowheader').innerText()).toBe('B');
+      // Each element shows what each reference should read and did read, and how far the slope moved from the set before.
+      const cRow = page.getByTestId('correction-row').filter({ has: page.getByRole('rowheader', { name: 'C', exact: true }) });
+      const cText = await cRow.innerText();
+      expect(cText).toContain('KB-FE-HI');
+      expect(cText).toContain(high.values.find((v) => v.element === 'C')!.nominal);
+      expect(await cRow.getByTestId('slope-change').innerText()).toMatch(/^([+−]\d+\.\d|0\.0) %$/);
+      // The journey's burns read 1 % high everywhere, so a slope that had drifted several % in the demo moves back: told in words.
+      const moved = page.getByTestId('correction-row').filter({ hasText: /moved [+−]\d+(\.\d)? % from [\d.]+ of the set before/ });
+      expect(await moved.count()).toBeGreaterThan(0);
       await saveScreen(page, 'standardization-from-file', 'run');
       expect(await scrollsSideways(page)).toBe(false);
 
