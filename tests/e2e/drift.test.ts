@@ -62,8 +62,23 @@ describe('Drift page', () => {
     const axes = await chart.locator('.recharts-label').allTextContents();
     expect(axes).toEqual(expect.arrayContaining(['Slope α', 'Offset β (%)', 'Measured (UTC date)']));
 
+    await saveScreen(page, 'drift-chart', 'carbon');
+    // Round ticks on both axes (no 0.9771 or 1.0413 labels).
+    const ticks = await chart.locator('.recharts-yAxis-tick-labels .recharts-cartesian-axis-tick-value').allTextContents();
+    expect(ticks.length).toBeGreaterThan(4);
+    for (const tick of ticks) expect(tick).toMatch(/^-?\d+(\.\d{1,4})?$/);
+
     await page.getByLabel('Element').selectOption('B');
-    await page.getByRole('img', { name: /^Slope and offset of B on OES-1/ }).waitFor();
+    const bChart = page.getByRole('img', {
+      name: /^Slope and offset of B on OES-1: 14 standardization runs .*, 2 of them drafts never activated \(shown off the line\)/,
+    });
+    await bChart.waitFor();
+    // The failed draft (slope 0.45) is a loose point, not part of the line; the fail band shows where it fell.
+    expect(await bChart.locator('.recharts-scatter-symbol').count()).toBe(4);
+    expect(await bChart.locator('.drift-band-fail').count()).toBeGreaterThan(0);
+    // B is reported to 0.0001 %: its offsets are in ppm.
+    expect(await bChart.locator('.recharts-label').allTextContents()).toContain('Offset β (ppm)');
+    await saveScreen(page, 'drift-chart', 'boron');
     const table = page.getByTestId('drift-table');
     await table.getByText('Data table (14 runs)').click();
     const rows = table.getByRole('table', { name: 'Drift of B on OES-1' }).locator('tbody tr');
