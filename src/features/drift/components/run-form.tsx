@@ -10,39 +10,14 @@ import { ProblemAlert } from '../../../components/ui/feedback.tsx';
 import { SelectField, TextField } from '../../../components/ui/field.tsx';
 import { type ImportProfile, type Instrument, type Method, type ReferenceMaterial } from '../../../api/lookups.ts';
 import { type CreateStandardizationRequest, useCorrectionsInForce, useCreateRun, useRuns } from '../api/standardizations.ts';
+import { cellErrorsOf, emptySlots, fillSlots, type Mode, MODES, type Slot, slotsOf } from '../run-slots.ts';
 import type { StandardizationFileReading } from '../api/standardization-file.ts';
-import { type BurnRow, burnsFromRows, emptyRows, sentRowIndexes } from '../burns-grid.ts';
+import { burnsFromRows } from '../burns-grid.ts';
 import { formatTime } from '../chart-data.ts';
 import { initialMapping, mappedMeasuredAt, mappedReferences } from '../file-mapping.ts';
 import { BurnsGridInput } from './burns-grid-input.tsx';
 import { FileReadingPanel } from './file-reading-panel.tsx';
 import { paths } from '../../../config/paths.ts';
-
-type Mode = CreateStandardizationRequest['mode'];
-type Kind = ReferenceMaterial['kind'];
-const MODES: { value: Mode; label: string; slots: { label: string; kinds: Kind[] }[] }[] = [
-  {
-    value: 'two_point',
-    label: 'Two-point (high and low reference)',
-    slots: [
-      { label: 'High reference', kinds: ['high'] },
-      { label: 'Low reference', kinds: ['low'] },
-    ],
-  },
-  { value: 'one_point_factor', label: 'One-point factor', slots: [{ label: 'Reference', kinds: ['high', 'low', 'type'] }] },
-  { value: 'one_point_offset', label: 'One-point offset', slots: [{ label: 'Reference', kinds: ['high', 'low', 'type'] }] },
-  { value: 'type', label: 'Type standardization (similar composition)', slots: [{ label: 'Reference', kinds: ['type'] }] },
-];
-
-interface Slot {
-  referenceId: string;
-  rows: BurnRow[];
-}
-
-const emptySlots = (): Slot[] => [
-  { referenceId: '', rows: emptyRows() },
-  { referenceId: '', rows: emptyRows() },
-];
 
 /** An instant with its zone, as the API takes it: 2026-11-30T06:05Z or 2026-11-30T07:05:00+01:00. */
 const ISO_WITH_ZONE = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2}(\.\d+)?)?(Z|[+-]\d{2}:\d{2})$/;
@@ -53,19 +28,6 @@ function useInstrumentMethodId(instrumentId: string): { methodId?: string; pendi
   const inForce = useCorrectionsInForce(instrumentId);
   const latest = runs.data?.pages[0]?.data[0]?.method.id;
   return { methodId: latest ?? inForce.data?.data[0]?.method.id, pending: runs.isPending || inForce.isPending };
-}
-
-/** Server errors on burn cells ("body.measurements.0.burns.2.values.Mn") → "row|element" of each grid. */
-function cellErrorsOf(problem: ApiProblem | undefined, slots: Slot[]): Map<string, string>[] {
-  return slots.map((slot, i) => {
-    const rows = sentRowIndexes(slot.rows);
-    const errors = new Map<string, string>();
-    for (const e of problem?.problem.errors ?? []) {
-      const match = new RegExp(`^body\\.measurements\\.${i}\\.burns\\.(\\d+)\\.values\\.(\\w+)$`).exec(e.location);
-      if (match && rows[Number(match[1])] !== undefined) errors.set(`${rows[Number(match[1])]}|${match[2]}`, e.message);
-    }
-    return errors;
-  });
 }
 
 export function RunForm({
@@ -95,7 +57,7 @@ export function RunForm({
   const method = methods.find((m) => m.id === methodId);
   const elements = method?.elements.map((e) => e.element) ?? [];
   const usable = references.filter((r) => r.kind !== 'control' && (!method || r.matrix === method.matrix));
-  const modeSlots = MODES.find((m) => m.value === mode)!.slots;
+  const modeSlots = slotsOf(mode);
 
   function startOver(next: { instrumentId?: string; methodId?: string }) {
     if (next.instrumentId !== undefined) setInstrumentId(next.instrumentId);
@@ -110,23 +72,10 @@ export function RunForm({
   /** Fills each reference of the mode from the samples mapped to a reference of a fitting kind. */
   function applyMapping(file: StandardizationFileReading, next: string[], forMode: Mode) {
     setMapping(next);
-    const mapped = mappedReferences(file, next);
     const kindOf = (id: string) => references.find((r) => r.id === id)?.kind;
-    const kinds = mapped.map((m) => kindOf(m.referenceId));
-    // Two references of kind high and low make a two-point run; a lone type reference a type run.
-    const nextMode: Mode =
-      kinds.includes('high') && kinds.includes('low') ? 'two_point' : mapped.length === 1 && kinds[0] === 'type' ? 'type' : forMode;
-    setMode(nextMode);
-    const used = new Set<string>();
-    const targets = MODES.find((m) => m.value === nextMode)!.slots;
-    setSlots((current) =>
-      current.map((slot, i) => {
-        const found = targets[i] && mapped.find((m) => !used.has(m.referenceId) && targets[i].kinds.includes(kindOf(m.referenceId)!));
-        if (!found) return slot;
-        used.add(found.referenceId);
-        return { referenceId: found.referenceId, rows: found.rows.length ? found.rows : emptyRows() };
-      }),
-    );
+    const filled = fillSlots(mappedReferences(file, next), kindOf, forMode, slots);
+    setMode(filled.mode);
+    setSlots(filled.slots);
     const at = mappedMeasuredAt(file, next);
     if (at) setMeasuredAt(at);
   }
