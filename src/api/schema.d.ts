@@ -2163,6 +2163,11 @@ export interface components {
              * @example 0.15
              */
             slope_change_fail: string | null;
+            /**
+             * @description When true, a standardization run of this method is activated by someone other than the person (or key) who ran it (409 otherwise): a second pair of eyes on every correction set. Default false.
+             * @default false
+             */
+            second_person_activation: boolean;
         };
         /** @description Reporting rules of the method (see the result rules in GET /samples/{id}). Changing them affects results computed from then on. */
         MethodReporting: {
@@ -9712,7 +9717,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description Already activated; a run measured later is already activated; or an element is flagged `fail` and no `override_reason` was given (`failing_elements` lists them). */
+            /** @description Already activated; a run measured later is already activated; the method asks for a second person (`drift_limits.second_person_activation`) and the caller ran this standardization (`rule`: `second_person_activation`); or an element is flagged `fail` and no `override_reason` was given (`failing_elements` lists them). */
             409: {
                 headers: {
                     [name: string]: unknown;

@@ -45,6 +45,8 @@ export interface DriftLimits {
   slope_change_warn: string | null;
   /** |α / α_previous − 1| above this → fail; null = not compared. */
   slope_change_fail: string | null;
+  /** When true, a run is activated by someone other than the one who ran it. */
+  second_person_activation: boolean;
 }
 
 /**
@@ -52,7 +54,13 @@ export interface DriftLimits {
  * trouble; between two runs an instrument in good order moves a few %, so a move of more than
  * 5 % deserves a look and more than 15 % is trouble.
  */
-export const DEFAULT_DRIFT_LIMITS: DriftLimits = { warn: '0.2', fail: '0.5', slope_change_warn: '0.05', slope_change_fail: '0.15' };
+export const DEFAULT_DRIFT_LIMITS: DriftLimits = {
+  warn: '0.2',
+  fail: '0.5',
+  slope_change_warn: '0.05',
+  slope_change_fail: '0.15',
+  second_person_activation: false,
+};
 
 const DriftLimitsSchema = z
   .object({
@@ -72,6 +80,10 @@ const DriftLimitsSchema = z
     slope_change_fail: DecimalString.nullable().default(DEFAULT_DRIFT_LIMITS.slope_change_fail).openapi({
       description: 'Flag an element `fail` when its slope moved more than this fraction from the set before. null: not compared.',
       example: DEFAULT_DRIFT_LIMITS.slope_change_fail,
+    }),
+    second_person_activation: z.boolean().default(DEFAULT_DRIFT_LIMITS.second_person_activation).openapi({
+      description:
+        'When true, a standardization run of this method is activated by someone other than the person (or key) who ran it (409 otherwise): a second pair of eyes on every correction set. Default false.',
     }),
   })
   .refine(

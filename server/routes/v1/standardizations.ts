@@ -123,7 +123,7 @@ export const standardizationRoutes = [
       404: { description: 'No such standardization.' },
       409: {
         description:
-          'Already activated; a run measured later is already activated; or an element is flagged `fail` and no `override_reason` was given (`failing_elements` lists them).',
+          'Already activated; a run measured later is already activated; the method asks for a second person (`drift_limits.second_person_activation`) and the caller ran this standardization (`rule`: `second_person_activation`); or an element is flagged `fail` and no `override_reason` was given (`failing_elements` lists them).',
       },
       422: { description: '`effective_from` is in the past.' },
     },

@@ -58,6 +58,7 @@ describe('comparing a run with the set before', () => {
       fail: '0.5',
       slope_change_warn: null,
       slope_change_fail: null,
+      second_person_activation: false,
     });
     const unchecked = await createRun(s, twoPointRun(s, burnsAt('high', 0.93), burnsAt('low', 0.93)));
     expect(unchecked.corrections.map((c) => c.flag)).toEqual(['ok', 'ok', 'ok']);

@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { repeatabilityCheck } from '../../../server/domain/chemistry/repeatability.ts';
 import { agreementFlag, changeFlag, limitFlags, spanFlag, worstFlag } from '../../../server/domain/drift/correction-flags.ts';
 
-const LIMITS = { warn: '0.2', fail: '0.5', slope_change_warn: '0.05', slope_change_fail: '0.15' };
+const LIMITS = { warn: '0.2', fail: '0.5', slope_change_warn: '0.05', slope_change_fail: '0.15', second_person_activation: false };
 
 describe('slope limits', () => {
   it('passes a distance equal to a limit and flags anything beyond it', () => {
