@@ -40,6 +40,7 @@ import * as createNodeCoordination from './20261203500100_create_node_coordinati
 import * as addInstrumentFeedsStaleAlert from './20261203500200_add_instrument_feeds_stale_alert.ts';
 import * as addSamplesPreparedDocuments from './20261203600100_add_samples_prepared_documents.ts';
 import * as createSampleFieldDefinitions from './20261203600100_create_sample_field_definitions.ts';
+import * as addStandardizationsSourceFile from './20261203600100_add_standardizations_source_file.ts';
 
 export interface Migration {
   up(knex: Knex): Promise<void>;
@@ -86,4 +87,5 @@ export const migrations: Record<string, Migration> = {
   '20261203500200_add_instrument_feeds_stale_alert': addInstrumentFeedsStaleAlert,
   '20261203600100_add_samples_prepared_documents': addSamplesPreparedDocuments,
   '20261203600100_create_sample_field_definitions': createSampleFieldDefinitions,
+  '20261203600100_add_standardizations_source_file': addStandardizationsSourceFile,
 };

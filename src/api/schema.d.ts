@@ -1100,7 +1100,7 @@ export interface paths {
         put?: never;
         /**
          * Run a standardization: per-element corrections from reference burns
-         * @description Send the burns of each reference material as measured (uncorrected), in `unit` (default: the method's). The run is stored as a `draft` with a correction per element of the method, its flag and reasons, and the slope and offset of the set in force for comparison; it changes nothing until activated (`POST /standardizations/{id}/activate`). A run with any `warn` or `fail` element records the event `standardization.flagged`. Burns are entered as JSON; reading them from a result file is not offered yet.
+         * @description Send the burns of each reference material as measured (uncorrected), in `unit` (default: the method's). The run is stored as a `draft` with a correction per element of the method, its flag and reasons, and the slope and offset of the set in force for comparison; it changes nothing until activated (`POST /standardizations/{id}/activate`). A run with any `warn` or `fail` element records the event `standardization.flagged`. To read the burns from the instrument's result file, send it to `POST /instruments/{id}/standardizations/file` first.
          *
          *     **How a correction is computed** (per element of the method; values in %):
          *     - `two_point`: slope α = (H⁰ − L⁰)/(H − L), offset β = L⁰ − α·L, with H⁰, L⁰ the nominal values of the `high` and `low` references and H, L the exact means of their burns. `one_point_factor`: α = N/M, β = 0. `one_point_offset`: α = 1, β = N − M. `type` (reference of kind `type`, similar composition; multiplicative): t = N/(α₀·M + β₀) on top of the set in force (α₀, β₀; identity when none), stored as α = t·α₀, β = t·β₀. (Math as practised; no readable standard gives it — from memory.)
@@ -1114,10 +1114,33 @@ export interface paths {
          *     - `two_point` with the measured levels closer than 10 % of the higher one (|H − L| < 0.1·max(|H|, |L|)) → `warn`: burn noise then moves the slope a lot. (Common practice, no source.)
          *     - An element without a nominal value or without a numeric measurement in a reference → `warn`, and the set does not correct that element (slope and offset null): its results stay uncorrected while the set is in force.
          *     - A reference's burns that disagree — range above the ISO 5725-6 critical range f(n)·σr with the method's σr — → `warn`. (ISO 5725-6:1994 §5.2.)
+         *     - Compared with the previous run: the slope moved from `previous_slope` (the set in force at the run's measurement time) by more than the method's `drift_limits.slope_change_warn` (default 0.05, i.e. 5 %) → `warn`; more than `slope_change_fail` (default 0.15) → `fail`. `slope_change` gives α / α_previous − 1 and `offset_change` β − β_previous. (Common practice, no source.)
          *
          *     Requires the scope `standardizations:write`.
          */
         post: operations["createStandardization"];
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
+    "/instruments/{id}/standardizations/file": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        get?: never;
+        put?: never;
+        /**
+         * Read the result file in which the reference materials were sparked
+         * @description Reads the file with the parser and import profiles of the sample import and stores nothing. Answers each sample of the file with its burns in % (the method's elements only), the reference material its code matches (ignoring case and separators; null when none does, so a client lets the user map it) and the latest burn time. Send the burns of the chosen samples to `POST /instruments/{id}/standardizations` with `unit` `%`, `measured_at` from the file and `source_file` to record where they came from.
+         *
+         *     Requires the scope `standardizations:write`.
+         */
+        post: operations["readStandardizationFile"];
         delete?: never;
         options?: never;
         head?: never;
@@ -2170,7 +2193,7 @@ export interface components {
              */
             repeatability_sd: string | null;
         };
-        /** @description Limits on the distance of a standardization slope from 1, as decimal strings. Defaults warn 0.2, fail 0.5 (a slope outside 0.8–1.2 deserves a look, outside 0.5–1.5 signals trouble): common practice, no source — set them from your own validation data. */
+        /** @description Limits on the distance of a standardization slope from 1, as decimal strings. Defaults warn 0.2, fail 0.5 (a slope outside 0.8–1.2 deserves a look, outside 0.5–1.5 signals trouble). And limits on how far the slope moved from the set before it: defaults 0.05 and 0.15 (5 % and 15 %). Common practice, no source — set them from your own validation data. */
         DriftLimits: {
             /**
              * @description Flag an element `warn` when |slope − 1| is above this.
@@ -2182,6 +2205,23 @@ export interface components {
              * @example 0.5
              */
             fail: string;
+            /**
+             * @description Flag an element `warn` when its slope moved more than this fraction from the set in force at the run's measurement time: |α / α_previous − 1| (0.05 = 5 %). null: not compared.
+             * @default 0.05
+             * @example 0.05
+             */
+            slope_change_warn: string | null;
+            /**
+             * @description Flag an element `fail` when its slope moved more than this fraction from the set before. null: not compared.
+             * @default 0.15
+             * @example 0.15
+             */
+            slope_change_fail: string | null;
+            /**
+             * @description When true, a standardization run of this method is activated by someone other than the person (or key) who ran it (409 otherwise): a second pair of eyes on every correction set. Default false.
+             * @default false
+             */
+            second_person_activation: boolean;
         };
         /** @description Reporting rules of the method (see the result rules in GET /samples/{id}). Changing them affects results computed from then on. */
         MethodReporting: {
@@ -3208,6 +3248,12 @@ export interface components {
          * @enum {string}
          */
         CorrectionFlag: "ok" | "warn" | "fail";
+        /** @description The result file the burns were read from; null when they were typed. */
+        StandardizationSourceFile: {
+            name: string;
+            /** @description As answered by `POST /instruments/{id}/standardizations/file`. */
+            sha256: string;
+        } | null;
         StandardizationMeasurement: {
             reference_material: {
                 id: string;
@@ -3248,6 +3294,16 @@ export interface components {
             /** @description α of the set in force at the run's measurement time; null when none corrected the element. */
             previous_slope: string | null;
             previous_offset: string | null;
+            /**
+             * @description How far the slope moved from the set before: α / previous_slope − 1 (0.08 = +8 %), 20 significant digits; null without both.
+             * @example 0.0123
+             */
+            slope_change: string | null;
+            /**
+             * @description offset − previous_offset, %, exact; null without both.
+             * @example -0.0004
+             */
+            offset_change: string | null;
             flag: components["schemas"]["CorrectionFlag"] & unknown;
             /** @description One sentence per finding, each explaining itself; empty when `ok`. */
             reasons: string[];
@@ -3290,6 +3346,7 @@ export interface components {
             /** Format: date-time */
             measured_at: string;
             note: string | null;
+            source_file: components["schemas"]["StandardizationSourceFile"];
             /** @description For `type`: the set in force that this one was computed on top of. */
             base_set_id: string | null;
             activation: {
@@ -3321,6 +3378,7 @@ export interface components {
              */
             unit?: "%" | "ppm" | "mg/kg" | "ppb" | "µg/kg" | "ug/kg" | "fraction";
             note?: string;
+            source_file?: components["schemas"]["StandardizationSourceFile"] & unknown;
             measurements: components["schemas"]["StandardizationMeasurementInput"][];
         };
         StandardizationMeasurementInput: {
@@ -3337,6 +3395,81 @@ export interface components {
                     [key: string]: number | string;
                 };
             }[];
+        };
+        StandardizationFileReading: {
+            file: {
+                name: string;
+                size_bytes: number;
+                sha256: string;
+            };
+            method: {
+                id: string;
+                code: string;
+            };
+            /**
+             * Format: date-time
+             * @description The latest burn time among the samples matched to a reference material (else among all samples); null without times.
+             */
+            measured_at: string | null;
+            samples: components["schemas"]["StandardizationFileSample"][];
+            /** @description Element columns of the file the method does not measure: left out of the burns. */
+            elements_not_in_method: string[];
+            /** @description Elements of the method the file has no column for: they will not be corrected from this file. */
+            missing_elements: string[];
+            /**
+             * @description What times written without a UTC offset were read in: the profile's `time.time_zone` or `time.utc_offset`, else `UTC` (with a warning); null when the file has no time column.
+             * @example Europe/Berlin
+             */
+            time_zone: string | null;
+            warnings: components["schemas"]["ImportIssue"][];
+            /** @description Lines that could not be read; their burns are left out. */
+            rejected: components["schemas"]["ImportIssue"][];
+        };
+        StandardizationFileSample: {
+            sample_code: string;
+            first_line: number;
+            /**
+             * Format: date-time
+             * @description The latest burn time of the sample; null when the file gives no times.
+             */
+            measured_at: string | null;
+            /** @description The reference material whose code matches the sample code (ignoring case, spaces, "-", "_", "." and "/"), of the method's matrix; null when none does (map it yourself). */
+            reference_material: {
+                id: string;
+                code: string;
+                name: string;
+                kind: components["schemas"]["ReferenceKind"];
+            } | null;
+            burns: {
+                /** @description Physical line of the file the burn was read from. */
+                line: number;
+                burn_number: number;
+                /** Format: date-time */
+                measured_at: string | null;
+                /**
+                 * @description Element → value in %, written as a burn value of a standardization request accepts it: "0.452", "<0.002", ">1.5" or "n.d.". Only the method's elements.
+                 * @example {
+                 *       "C": "0.452",
+                 *       "Mn": "1.498",
+                 *       "S": "<0.002"
+                 *     }
+                 */
+                values: {
+                    [key: string]: string;
+                };
+            }[];
+            /** @description Lines of this sample that could not be read (listed in `rejected`). */
+            rejected: number;
+        };
+        ReadStandardizationFileRequest: {
+            /**
+             * Format: binary
+             * @description The result file (CSV or other delimited text), as the instrument wrote it.
+             */
+            file: string;
+            method_id: string;
+            /** @description An import profile describing the layout (the same profiles the sample import uses); without it the layout is detected. */
+            profile_id?: string;
         };
         StandardizationList: {
             data: components["schemas"]["Standardization"][];
@@ -9744,6 +9877,130 @@ export interface operations {
             };
         };
     };
+    readStandardizationFile: {
+        parameters: {
+            query?: never;
+            header?: {
+                /**
+                 * @description A unique key per logical write (e.g. a UUID), up to 255 characters. Retrying with the same key and the same request within 24 hours returns the first response again with `Idempotent-Replayed: true` instead of repeating the write. Keys are kept per API key or user; anonymous calls are not deduplicated.
+                 * @example 7f1c9a52-3b8e-4e5d-9a1f-0c2d4b6e8a10
+                 */
+                "Idempotency-Key"?: string;
+            };
+            path: {
+                id: string;
+            };
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "multipart/form-data": components["schemas"]["ReadStandardizationFileRequest"];
+            };
+        };
+        responses: {
+            /** @description How the file reads. */
+            200: {
+                headers: {
+                    /** @description `true` when this response is a replay for a repeated `Idempotency-Key`. */
+                    "Idempotent-Replayed"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["StandardizationFileReading"];
+                };
+            };
+            /** @description The request is not valid; `errors[]` names each field. */
+            400: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No valid session or API key. */
+            401: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The caller lacks the scope `standardizations:write`. Or: Sent with the session cookie from another site (`Origin` not Meltwire's own, or `Sec-Fetch-Site: cross-site`/`same-site`). */
+            403: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description No such instrument. */
+            404: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description A request with the same `Idempotency-Key` is still being processed. */
+            409: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The file is larger than 1048576 bytes: not a standardization file. */
+            413: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Not a multipart/form-data request. */
+            415: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description The file cannot be read as result data (`errors[]` locates each issue as `file:line 12:Mn`, `issues[]` gives them structured), or the method or profile does not exist. */
+            422: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Rate limit exceeded; see `Retry-After`. */
+            429: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+            /** @description Unexpected server error. */
+            500: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/problem+json": components["schemas"]["Problem"];
+                };
+            };
+        };
+    };
     getStandardization: {
         parameters: {
             query?: never;
@@ -9888,7 +10145,7 @@ export interface operations {
                     "application/problem+json": components["schemas"]["Problem"];
                 };
             };
-            /** @description Already activated; a run measured later is already activated; or an element is flagged `fail` and no `override_reason` was given (`failing_elements` lists them). */
+            /** @description Already activated; a run measured later is already activated; the method asks for a second person (`drift_limits.second_person_activation`) and the caller ran this standardization (`rule`: `second_person_activation`); or an element is flagged `fail` and no `override_reason` was given (`failing_elements` lists them). */
             409: {
                 headers: {
                     [name: string]: unknown;

@@ -2,6 +2,7 @@
 // effective_from (default: now) until a later activation takes over. Rules:
 // - only drafts (409 otherwise), and only when no run measured later is already activated (409):
 //   activating an older run by mistake would roll the instrument back;
+// - with the method's second_person_activation rule, not by the one who ran it (409);
 // - an element flagged `fail` needs override_reason (409 without it), which is recorded;
 // - effective_from may be later than now (scheduled), never earlier (422): results already stored
 //   are never changed by an activation — recompute them explicitly instead.
@@ -15,6 +16,7 @@ import { type Actor, actorOf } from '../audit/actor.ts';
 import { recordAudit } from '../audit/audit.repository.ts';
 import { recordEvent } from '../events/events.repository.ts';
 import { assertInstrumentAllowed } from '../instruments/instruments.service.ts';
+import { findMethod } from '../methods/methods.repository.ts';
 import type { ElementCorrection, StandardizationRow } from './standardizations.repository.ts';
 import {
   findSetInForce,
@@ -53,6 +55,13 @@ export async function applyActivation(
   if (latest && latest > row.measured_at) {
     throw new ConflictProblem(
       `A standardization measured later (${latest}) is already activated for this instrument and method; activating this older one would roll the correction back. Run a new standardization instead.`,
+    );
+  }
+  const method = await findMethod(trx, row.method_id);
+  if (method?.drift_limits.second_person_activation && actor.label === row.created_by_label) {
+    throw new ConflictProblem(
+      `Method ${method.code} needs a second person to activate a standardization: ${actor.label} ran this one, so someone else activates it.`,
+      { rule: 'second_person_activation' },
     );
   }
   const corrections = JSON.parse(row.corrections_json) as ElementCorrection[];

@@ -17,7 +17,7 @@ import {
   twoPoint,
   typeCorrection,
 } from './correction-math.ts';
-import { agreementFlag, type FlagResult, limitFlags, spanFlag, worstFlag } from './correction-flags.ts';
+import { agreementFlag, changeFlag, type FlagResult, limitFlags, spanFlag, worstFlag } from './correction-flags.ts';
 import type { ReferenceMaterial } from './reference-materials.repository.ts';
 import type { ElementCorrection, ElementLevel, StoredMeasurement } from './standardizations.repository.ts';
 
@@ -122,6 +122,8 @@ export function computeRun(input: RunInput): RunOutput {
         row.slope = correction.slope;
         row.offset = correction.offset;
         found.push(...limitFlags(input.mode, correction, input.method.drift_limits, input.method.code, known[0]));
+        const moved = changeFlag(correction.slope, row.previous_slope, input.method.drift_limits, input.method.code);
+        if (moved) found.push(moved);
         if (input.mode === 'two_point') {
           const span = spanFlag(known[0], known[1], known[0].code, known[1].code);
           if (span) found.push(span);

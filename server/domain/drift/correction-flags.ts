@@ -11,6 +11,8 @@
  *    element is not corrected by this set.                              — our choice
  * 5. A reference's burns that disagree (range above the ISO 5725-6 critical range f(n)·σr with the
  *    method's σr) → warn.                                               — ISO 5725-6:1994 §5.2
+ * 6. The slope moved from the set in force at the measurement time by more than the method's
+ *    slope_change_warn / slope_change_fail (defaults 5 % / 15 %).      — common practice, no source
  */
 import { Decimal } from 'decimal.js';
 import { isAbove } from '../chemistry/decimal-compare.ts';
@@ -103,4 +105,30 @@ export function agreementFlag(check: RepeatabilityCheck | null, n: number, sigma
     flag: 'warn',
     reason: `The ${n} burns of ${code} disagree: their range ${short(check.range)} % exceeds the ISO 5725-6 critical range f(${n})·σr = ${short(check.critical_range)} % (σr ${sigmaR} %). Spark it again before relying on this correction.`,
   };
+}
+
+/**
+ * Rule 6: the slope moved too far from the set in force at the run's measurement time:
+ * |α / α_previous − 1| above the method's slope_change_warn / slope_change_fail.
+ *                                                                       — common practice, no source
+ */
+export function changeFlag(slope: string, previousSlope: string | null, limits: DriftLimits, methodCode: string): FlagResult | null {
+  if (previousSlope === null || new Exact(previousSlope).isZero()) return null;
+  const change = new Exact(slope).div(previousSlope).minus(1);
+  const distance = change.abs().toFixed();
+  const percent = (value: string) => `${roundHalfEven(new Exact(value).times(100).toFixed(), 1).replace(/\.0$/, '')} %`;
+  const what = `Slope ${short(slope)} moved ${change.isNegative() ? '−' : '+'}${percent(distance)} from ${short(previousSlope)} of the set before`;
+  if (limits.slope_change_fail !== null && isAbove(distance, limits.slope_change_fail)) {
+    return {
+      flag: 'fail',
+      reason: `${what}: more than the ${percent(limits.slope_change_fail)} method ${methodCode} allows between runs. Check the references and the instrument before activating; activating it needs an override reason.`,
+    };
+  }
+  if (limits.slope_change_warn !== null && isAbove(distance, limits.slope_change_warn)) {
+    return {
+      flag: 'warn',
+      reason: `${what}: more than the ${percent(limits.slope_change_warn)} method ${methodCode} expects between runs${limits.slope_change_fail ? ` (fail above ${percent(limits.slope_change_fail)})` : ''}.`,
+    };
+  }
+  return null;
 }

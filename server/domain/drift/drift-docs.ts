@@ -14,6 +14,7 @@ export const CORRECTION_FLAGS_DOC = [
   '- `two_point` with the measured levels closer than 10 % of the higher one (|H − L| < 0.1·max(|H|, |L|)) → `warn`: burn noise then moves the slope a lot. (Common practice, no source.)',
   '- An element without a nominal value or without a numeric measurement in a reference → `warn`, and the set does not correct that element (slope and offset null): its results stay uncorrected while the set is in force.',
   "- A reference's burns that disagree — range above the ISO 5725-6 critical range f(n)·σr with the method's σr — → `warn`. (ISO 5725-6:1994 §5.2.)",
+  "- Compared with the previous run: the slope moved from `previous_slope` (the set in force at the run's measurement time) by more than the method's `drift_limits.slope_change_warn` (default 0.05, i.e. 5 %) → `warn`; more than `slope_change_fail` (default 0.15) → `fail`. `slope_change` gives α / α_previous − 1 and `offset_change` β − β_previous. (Common practice, no source.)",
 ].join('\n');
 
 export const CORRECTION_APPLY_DOC = [

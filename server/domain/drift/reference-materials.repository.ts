@@ -76,3 +76,8 @@ export async function listReferenceMaterials(
   if (filters.kind) query.where('kind', filters.kind);
   return mapPage(await keysetPage(query, REFERENCE_KEYSET, page), toReferenceMaterial);
 }
+
+/** Every reference material of one matrix (a lab holds tens of them, not thousands). */
+export async function listReferenceMaterialsOfMatrix(db: Queryable, matrix: string): Promise<ReferenceMaterial[]> {
+  return (await db<ReferenceMaterialRow>('reference_materials').where({ matrix }).orderBy('code_key')).map(toReferenceMaterial);
+}

@@ -1,4 +1,5 @@
 // Stored standardization runs → API representations.
+import { Decimal } from 'decimal.js';
 import { nowIso } from '../../lib/time.ts';
 import type { AppContext } from '../../context.ts';
 import { type Page } from '../../lib/pagination.ts';
@@ -15,6 +16,18 @@ import {
 } from './standardizations.repository.ts';
 import type { Queryable } from '../../db/transaction.ts';
 
+const Exact = Decimal.clone({ precision: 60, rounding: Decimal.ROUND_HALF_EVEN });
+
+/** How far each element moved from the set before: α / α_previous − 1 (20 significant digits) and β − β_previous. */
+function withChange(c: ElementCorrection) {
+  const slopeChange =
+    c.slope !== null && c.previous_slope !== null && !new Exact(c.previous_slope).isZero()
+      ? new Exact(c.slope).div(c.previous_slope).minus(1).toSignificantDigits(20).toFixed()
+      : null;
+  const offsetChange = c.offset !== null && c.previous_offset !== null ? new Exact(c.offset).minus(c.previous_offset).toFixed() : null;
+  return { ...c, slope_change: slopeChange, offset_change: offsetChange };
+}
+
 export function toStandardizationView(row: StandardizationRowWithRefs, inForceId: string | null) {
   const measurements = JSON.parse(row.measurements_json) as StoredMeasurement[];
   return {
@@ -27,6 +40,7 @@ export function toStandardizationView(row: StandardizationRowWithRefs, inForceId
     in_force: row.id === inForceId,
     measured_at: row.measured_at,
     note: row.note,
+    source_file: row.source_file_json ? (JSON.parse(row.source_file_json) as { name: string; sha256: string }) : null,
     base_set_id: row.base_set_id,
     activation:
       row.status === 'activated'
@@ -49,7 +63,7 @@ export function toStandardizationView(row: StandardizationRowWithRefs, inForceId
       })),
       means: m.means,
     })),
-    corrections: JSON.parse(row.corrections_json) as ElementCorrection[],
+    corrections: (JSON.parse(row.corrections_json) as ElementCorrection[]).map(withChange),
     created_by: row.created_by_label,
     created_at: row.created_at,
   };

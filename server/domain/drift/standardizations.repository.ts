@@ -52,6 +52,8 @@ export interface StandardizationRow {
   flag: CorrectionFlag;
   measured_at: string;
   note: string | null;
+  /** { name, sha256 } of the result file the burns were read from; null when typed. */
+  source_file_json: string | null;
   measurements_json: string;
   corrections_json: string;
   base_set_id: string | null;

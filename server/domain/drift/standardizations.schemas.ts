@@ -18,6 +18,16 @@ const StandardizationStatusSchema = z.enum(['draft', 'activated']).openapi('Stan
 
 const ref = z.object({ id: z.string(), code: z.string() });
 
+const SourceFileSchema = z
+  .object({
+    name: z.string().trim().min(1).max(255),
+    sha256: z
+      .string()
+      .regex(/^[0-9a-f]{64}$/, 'the SHA-256 of the file as 64 lowercase hex digits')
+      .openapi({ description: 'As answered by `POST /instruments/{id}/standardizations/file`.' }),
+  })
+  .openapi('StandardizationSourceFile');
+
 const ElementLevelSchema = z
   .object({
     reference_material_id: z.string(),
@@ -45,6 +55,15 @@ const ElementCorrectionSchema = z
       .nullable()
       .openapi({ description: "α of the set in force at the run's measurement time; null when none corrected the element." }),
     previous_offset: z.string().nullable(),
+    slope_change: z.string().nullable().openapi({
+      description:
+        'How far the slope moved from the set before: α / previous_slope − 1 (0.08 = +8 %), 20 significant digits; null without both.',
+      example: '0.0123',
+    }),
+    offset_change: z
+      .string()
+      .nullable()
+      .openapi({ description: 'offset − previous_offset, %, exact; null without both.', example: '-0.0004' }),
     flag: CorrectionFlagSchema,
     reasons: z.array(z.string()).openapi({ description: 'One sentence per finding, each explaining itself; empty when `ok`.' }),
     levels: z.array(ElementLevelSchema).openapi({ description: 'Nominal and measured value of each reference for this element.' }),
@@ -77,6 +96,9 @@ export const StandardizationSchema = z
     in_force: z.boolean().openapi({ description: 'True when this is the set in force now for its instrument and method.' }),
     measured_at: z.string().openapi({ format: 'date-time' }),
     note: z.string().nullable(),
+    source_file: SourceFileSchema.nullable().openapi({
+      description: 'The result file the burns were read from; null when they were typed.',
+    }),
     base_set_id: z.string().nullable().openapi({ description: 'For `type`: the set in force that this one was computed on top of.' }),
     activation: z
       .object({
@@ -122,6 +144,9 @@ export const CreateStandardizationRequestSchema = z
       .openapi({ description: 'When the references were sparked; defaults to now. Not in the future.' }),
     unit: unitInput("Unit of every burn value; defaults to the method's default unit.").optional(),
     note: z.string().trim().max(500).optional(),
+    source_file: SourceFileSchema.optional().openapi({
+      description: 'The result file the burns were read from (name and SHA-256), recorded with the run and in the audit trail.',
+    }),
     measurements: z.array(MeasurementInput).min(1).max(2),
   })
   .openapi('CreateStandardizationRequest');

@@ -139,6 +139,7 @@ export async function createStandardization(
       measurements,
       measuredAt,
       note: input.note ?? null,
+      sourceFile: input.source_file ?? null,
       actor: actorOf(auth),
       now,
       requestId,
@@ -154,6 +155,7 @@ export interface StoreRunInput {
   measurements: RunMeasurement[];
   measuredAt: string;
   note: string | null;
+  sourceFile?: { name: string; sha256: string } | null;
   actor: Actor;
   now: string;
   requestId?: string;
@@ -184,6 +186,7 @@ export async function storeRun(trx: Transaction, input: StoreRunInput): Promise<
     flag: worstFlag(run.corrections.map((c) => c.flag)),
     measured_at: measuredAt,
     note: input.note,
+    source_file_json: input.sourceFile ? JSON.stringify(input.sourceFile) : null,
     measurements_json: JSON.stringify(run.measurements),
     corrections_json: JSON.stringify(run.corrections),
     base_set_id: input.mode === 'type' ? (inForce?.id ?? null) : null,
@@ -202,7 +205,7 @@ export async function storeRun(trx: Transaction, input: StoreRunInput): Promise<
     action: 'standardization.created',
     targetType: 'standardization',
     targetId: id,
-    after: { ...summary, corrections: run.corrections.map(({ levels: _levels, ...c }) => c) },
+    after: { ...summary, source_file: input.sourceFile ?? null, corrections: run.corrections.map(({ levels: _levels, ...c }) => c) },
   });
   if (row.flag !== 'ok') {
     const flagged = run.corrections.filter((c) => c.flag !== 'ok').map((c) => ({ element: c.element, flag: c.flag, reasons: c.reasons }));

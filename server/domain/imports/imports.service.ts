@@ -36,7 +36,7 @@ function issueLocation(issue: ImportIssue): string {
   return ['file', issue.line !== undefined ? `line ${issue.line}` : null, issue.column ?? null].filter(Boolean).join(':');
 }
 
-function fileProblem(detail: string, issues: ImportIssue[]): UnprocessableProblem {
+export function fileProblem(detail: string, issues: ImportIssue[]): UnprocessableProblem {
   const errors: FieldError[] = issues
     .slice(0, MAX_LISTED_ISSUES)
     .map((issue) => ({ location: issueLocation(issue), message: issue.message, code: issue.code }));

@@ -40,8 +40,8 @@ function toMethod(row: MethodRow): Method {
   return {
     ...rest,
     elements: JSON.parse(elements_json) as MethodElement[],
-    drift_limits: drift_limits_json ? (JSON.parse(drift_limits_json) as DriftLimits) : DEFAULT_DRIFT_LIMITS,
-    // Rules added later default one by one, so a stored subset stays valid.
+    // Limits and rules added later default one by one, so a stored subset stays valid.
+    drift_limits: { ...DEFAULT_DRIFT_LIMITS, ...(drift_limits_json ? (JSON.parse(drift_limits_json) as Partial<DriftLimits>) : {}) },
     reporting: { ...DEFAULT_REPORTING, ...(reporting_json ? (JSON.parse(reporting_json) as Partial<MethodReporting>) : {}) },
   };
 }

@@ -37,14 +37,30 @@ const MethodElementSchema = z
   })
   .openapi('MethodElement');
 
-/** Limits on |slope − 1| of a standardization, as decimal strings. */
+/** Limits on |slope − 1| of a standardization, and on the slope's move from the set before, as decimal strings. */
 export interface DriftLimits {
   warn: string;
   fail: string;
+  /** |α / α_previous − 1| above this → warn; null = not compared. */
+  slope_change_warn: string | null;
+  /** |α / α_previous − 1| above this → fail; null = not compared. */
+  slope_change_fail: string | null;
+  /** When true, a run is activated by someone other than the one who ran it. */
+  second_person_activation: boolean;
 }
 
-/** Common practice, no source: a slope more than 20 % from 1 deserves a look, more than 50 % is trouble. */
-export const DEFAULT_DRIFT_LIMITS: DriftLimits = { warn: '0.2', fail: '0.5' };
+/**
+ * Common practice, no source: a slope more than 20 % from 1 deserves a look, more than 50 % is
+ * trouble; between two runs an instrument in good order moves a few %, so a move of more than
+ * 5 % deserves a look and more than 15 % is trouble.
+ */
+export const DEFAULT_DRIFT_LIMITS: DriftLimits = {
+  warn: '0.2',
+  fail: '0.5',
+  slope_change_warn: '0.05',
+  slope_change_fail: '0.15',
+  second_person_activation: false,
+};
 
 const DriftLimitsSchema = z
   .object({
@@ -56,6 +72,19 @@ const DriftLimitsSchema = z
       description: 'Flag an element `fail` when |slope − 1| is above this; activation then needs an override reason.',
       example: DEFAULT_DRIFT_LIMITS.fail,
     }),
+    slope_change_warn: DecimalString.nullable().default(DEFAULT_DRIFT_LIMITS.slope_change_warn).openapi({
+      description:
+        "Flag an element `warn` when its slope moved more than this fraction from the set in force at the run's measurement time: |α / α_previous − 1| (0.05 = 5 %). null: not compared.",
+      example: DEFAULT_DRIFT_LIMITS.slope_change_warn,
+    }),
+    slope_change_fail: DecimalString.nullable().default(DEFAULT_DRIFT_LIMITS.slope_change_fail).openapi({
+      description: 'Flag an element `fail` when its slope moved more than this fraction from the set before. null: not compared.',
+      example: DEFAULT_DRIFT_LIMITS.slope_change_fail,
+    }),
+    second_person_activation: z.boolean().default(DEFAULT_DRIFT_LIMITS.second_person_activation).openapi({
+      description:
+        'When true, a standardization run of this method is activated by someone other than the person (or key) who ran it (409 otherwise): a second pair of eyes on every correction set. Default false.',
+    }),
   })
   .refine(
     (limits) => !/^\d+(\.\d+)?$/.test(limits.warn) || !/^\d+(\.\d+)?$/.test(limits.fail) || Number(limits.warn) <= Number(limits.fail),
@@ -64,8 +93,17 @@ const DriftLimitsSchema = z
       path: ['fail'],
     },
   )
+  .refine(
+    (l) =>
+      !l.slope_change_warn ||
+      !l.slope_change_fail ||
+      !/^\d+(\.\d+)?$/.test(l.slope_change_warn) ||
+      !/^\d+(\.\d+)?$/.test(l.slope_change_fail) ||
+      Number(l.slope_change_warn) <= Number(l.slope_change_fail),
+    { message: 'slope_change_warn must not be above slope_change_fail', path: ['slope_change_fail'] },
+  )
   .openapi('DriftLimits', {
-    description: `Limits on the distance of a standardization slope from 1, as decimal strings. Defaults warn ${DEFAULT_DRIFT_LIMITS.warn}, fail ${DEFAULT_DRIFT_LIMITS.fail} (a slope outside 0.8–1.2 deserves a look, outside 0.5–1.5 signals trouble): common practice, no source — set them from your own validation data.`,
+    description: `Limits on the distance of a standardization slope from 1, as decimal strings. Defaults warn ${DEFAULT_DRIFT_LIMITS.warn}, fail ${DEFAULT_DRIFT_LIMITS.fail} (a slope outside 0.8–1.2 deserves a look, outside 0.5–1.5 signals trouble). And limits on how far the slope moved from the set before it: defaults ${DEFAULT_DRIFT_LIMITS.slope_change_warn} and ${DEFAULT_DRIFT_LIMITS.slope_change_fail} (5 % and 15 %). Common practice, no source — set them from your own validation data.`,
   });
 
 /** How a method turns results into a report beyond each element's own settings. */

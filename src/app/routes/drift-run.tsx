@@ -4,10 +4,12 @@ import { Button } from '../../components/ui/button.tsx';
 import { Alert, ProblemAlert, Spinner } from '../../components/ui/feedback.tsx';
 import { Card, PageHeader } from '../../components/ui/layout.tsx';
 import { hasScope, useMe } from '../../api/me.ts';
+import { useMethods } from '../../api/lookups.ts';
 import { RequireScope } from '../../features/auth/components/require-scope.tsx';
 import { useCorrectionsInForce, useRun } from '../../features/drift/api/standardizations.ts';
 import { ActivateDialog } from '../../features/drift/components/activate-dialog.tsx';
 import { CorrectionsTable } from '../../features/drift/components/corrections-table.tsx';
+import { ReferenceBurns } from '../../features/drift/components/reference-burns.tsx';
 import { FlagBadge, StatusText } from '../../features/drift/components/flag-badge.tsx';
 import { paths } from '../../config/paths.ts';
 import { Timestamp } from '../../components/ui/timestamp.tsx';
@@ -17,6 +19,10 @@ export function DriftRunPage() {
   const { id = '' } = useParams();
   const { data: me } = useMe();
   const run = useRun(id);
+  const methods = useMethods();
+  const methodElements = methods.data?.find((m) => m.id === run.data?.method.id)?.elements ?? [];
+  // Without the method (deleted elements, still loading) figures get 4 decimals: nothing is hidden.
+  const decimalsOf = (element: string) => methodElements.find((e) => e.element === element)?.decimals ?? 4;
   const [activating, setActivating] = useState(false);
   const inForce = useCorrectionsInForce(run.data?.instrument.id ?? '');
   const current = inForce.data?.data.find((d) => d.method.id === run.data?.method.id)?.set;
@@ -36,7 +42,18 @@ export function DriftRunPage() {
             title={`Standardization of ${run.data.instrument.code} · ${run.data.method.code}`}
             description={
               <>
-                Measured <Timestamp value={run.data.measured_at} /> by {run.data.created_by}.{' '}
+                Measured <Timestamp value={run.data.measured_at} />, run by {run.data.created_by}
+                {run.data.source_file ? (
+                  <>
+                    , burns read from{' '}
+                    <span className="font-mono" title={`SHA-256 ${run.data.source_file.sha256}`}>
+                      {run.data.source_file.name}
+                    </span>
+                  </>
+                ) : (
+                  ', burns typed'
+                )}
+                .{' '}
                 <Link className="text-copper-700 underline" to={paths.driftOf(run.data.instrument.id, run.data.method.id)}>
                   Back to the drift history
                 </Link>
@@ -75,16 +92,13 @@ export function DriftRunPage() {
             {run.data.status === 'draft' && !superseded && !canActivate && (
               <p className="text-sm text-slag-500">A draft: a lab manager or admin reviews and activates it.</p>
             )}
-            <CorrectionsTable corrections={run.data.corrections} />
-            <Card title="Reference measurements">
-              <ul className="space-y-1 text-sm">
+            <CorrectionsTable corrections={run.data.corrections} decimalsOf={decimalsOf} />
+            <Card title="Reference measurements (as measured, uncorrected)">
+              <div className="space-y-3">
                 {run.data.measurements.map((m) => (
-                  <li key={m.reference_material.id}>
-                    <strong>{m.reference_material.code}</strong> ({m.reference_material.kind}) — {m.burns.length} burn
-                    {m.burns.length === 1 ? '' : 's'}
-                  </li>
+                  <ReferenceBurns key={m.reference_material.id} measurement={m} />
                 ))}
-              </ul>
+              </div>
             </Card>
           </div>
           <ActivateDialog run={run.data} open={activating} onClose={() => setActivating(false)} />

@@ -3,7 +3,7 @@ import { EmptyState, ProblemAlert, Spinner } from '../../components/ui/feedback.
 import { Card, PageHeader } from '../../components/ui/layout.tsx';
 import { hasScope, useMe } from '../../api/me.ts';
 import { RequireScope } from '../../features/auth/components/require-scope.tsx';
-import { useInstruments, useMethods } from '../../api/lookups.ts';
+import { type Method, useInstruments, useMethods } from '../../api/lookups.ts';
 import { useCorrectionsInForce, useDrift } from '../../features/drift/api/standardizations.ts';
 import { DriftChart } from '../../features/drift/components/drift-chart.tsx';
 import { DriftFilters, type DriftSelection } from '../../features/drift/components/drift-filters.tsx';
@@ -11,13 +11,13 @@ import { InForceCard } from '../../features/drift/components/in-force-card.tsx';
 import { RunsTable } from '../../features/drift/components/runs-table.tsx';
 import { paths } from '../../config/paths.ts';
 
-function DriftHistory({ selection, instrumentCode }: { selection: DriftSelection; instrumentCode: string }) {
+function DriftHistory({ selection, instrumentCode, method }: { selection: DriftSelection; instrumentCode: string; method: Method }) {
   const drift = useDrift(selection.instrumentId, selection.element, selection.methodId);
   if (drift.isPending) return <Spinner label="Loading the drift history…" />;
   if (drift.error) return <ProblemAlert error={drift.error} />;
   if (drift.data.points.length === 0)
     return <EmptyState title={`No standardization of ${selection.element} yet`}>Run one to start the history.</EmptyState>;
-  return <DriftChart points={drift.data.points} element={selection.element} instrumentCode={instrumentCode} />;
+  return <DriftChart points={drift.data.points} element={selection.element} instrumentCode={instrumentCode} method={method} />;
 }
 
 export function DriftPage() {
@@ -64,7 +64,7 @@ export function DriftPage() {
             <InForceCard instrumentId={instrumentId} methodId={methodId} />
           </div>
           <Card title={`${selection.element} on ${instrument.code} — slope and offset over time`}>
-            <DriftHistory selection={selection} instrumentCode={instrument.code} />
+            <DriftHistory selection={selection} instrumentCode={instrument.code} method={method} />
           </Card>
           <section className="space-y-3">
             <h2 className="text-sm font-semibold uppercase tracking-wide text-slag-500">

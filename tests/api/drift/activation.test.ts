@@ -81,7 +81,8 @@ describe('POST /api/v1/standardizations/{id}/activate', () => {
       expect([c.previous_slope, c.previous_offset]).toEqual([before.slope, before.offset]);
     }
     const later = new Date(Date.now() + 3600_000).toISOString();
-    const scheduled = await activate(s, run.id, {}, s.admin);
+    // The set in force was activated over a fail; this run moves every slope back by far more than 15 %.
+    const scheduled = await activate(s, run.id, { override_reason: 'back on the references after the override' }, s.admin);
     expect(scheduled.in_force).toBe(true);
     const next = await createRun(s, twoPointRun(s, burnsAt('high', 0.96), burnsAt('low', 0.96)));
     const planned = await activate(s, next.id, { effective_from: later });

@@ -207,12 +207,24 @@ describe('POST /api/v1/instruments/{id}/standardizations', () => {
 
   it("flags against the method's own drift limits (defaults 0.2 / 0.5), which a manager sets", async () => {
     const method = await s.viewer.get(`/api/v1/methods/${s.method.id}`);
-    expect(method.body.drift_limits).toEqual({ warn: '0.2', fail: '0.5' });
+    expect(method.body.drift_limits).toEqual({
+      warn: '0.2',
+      fail: '0.5',
+      slope_change_warn: '0.05',
+      slope_change_fail: '0.15',
+      second_person_activation: false,
+    });
     const bad = await s.manager.patch(`/api/v1/methods/${s.method.id}`).send({ drift_limits: { warn: '0.3', fail: '0.1' } });
     expectProblem(bad, 400);
     expect(problemBody(bad).errors?.[0].location).toBe('body.drift_limits.fail');
     const changed = await s.manager.patch(`/api/v1/methods/${s.method.id}`).send({ drift_limits: { warn: '0.01', fail: '0.02' } });
-    expect(changed.body.drift_limits).toEqual({ warn: '0.01', fail: '0.02' });
+    expect(changed.body.drift_limits).toEqual({
+      warn: '0.01',
+      fail: '0.02',
+      slope_change_warn: '0.05',
+      slope_change_fail: '0.15',
+      second_person_activation: false,
+    });
     // Every level read 3 % low → α ≈ 1/0.97 ≈ 1.031: beyond the fail limit 0.02.
     const run = await createRun(s, twoPointRun(s, burnsAt('high', 0.97), burnsAt('low', 0.97)));
     expect(run.corrections.map((c) => c.flag)).toEqual(['fail', 'fail', 'fail']);

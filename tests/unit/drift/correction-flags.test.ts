@@ -2,9 +2,9 @@
 // source), negative slopes, levels too close, and disagreeing reference burns (ISO 5725-6 §5.2).
 import { describe, expect, it } from 'vitest';
 import { repeatabilityCheck } from '../../../server/domain/chemistry/repeatability.ts';
-import { agreementFlag, limitFlags, spanFlag, worstFlag } from '../../../server/domain/drift/correction-flags.ts';
+import { agreementFlag, changeFlag, limitFlags, spanFlag, worstFlag } from '../../../server/domain/drift/correction-flags.ts';
 
-const LIMITS = { warn: '0.2', fail: '0.5' };
+const LIMITS = { warn: '0.2', fail: '0.5', slope_change_warn: '0.05', slope_change_fail: '0.15', second_person_activation: false };
 
 describe('slope limits', () => {
   it('passes a distance equal to a limit and flags anything beyond it', () => {
@@ -25,12 +25,12 @@ describe('slope limits', () => {
   });
 
   it("uses the method's own limits", () => {
-    expect(limitFlags('two_point', { slope: '1.06', offset: '0' }, { warn: '0.05', fail: '0.1' }, 'AL-WR').map((f) => f.flag)).toEqual([
-      'warn',
-    ]);
-    expect(limitFlags('two_point', { slope: '1.11', offset: '0' }, { warn: '0.05', fail: '0.1' }, 'AL-WR').map((f) => f.flag)).toEqual([
-      'fail',
-    ]);
+    expect(
+      limitFlags('two_point', { slope: '1.06', offset: '0' }, { ...LIMITS, warn: '0.05', fail: '0.1' }, 'AL-WR').map((f) => f.flag),
+    ).toEqual(['warn']);
+    expect(
+      limitFlags('two_point', { slope: '1.11', offset: '0' }, { ...LIMITS, warn: '0.05', fail: '0.1' }, 'AL-WR').map((f) => f.flag),
+    ).toEqual(['fail']);
   });
 
   it('fails a negative slope and says the references look swapped', () => {
@@ -77,5 +77,22 @@ describe('other checks', () => {
     expect(worstFlag([])).toBe('ok');
     expect(worstFlag(['ok', 'warn'])).toBe('warn');
     expect(worstFlag(['warn', 'fail', 'ok'])).toBe('fail');
+  });
+
+  it('compares the slope with the set before: |α / α_previous − 1| against 5 % and 15 %, a move equal to a limit passing', () => {
+    // 1.05 / 1 − 1 = 0.05 exactly: equal to the warn limit, so it passes (by hand).
+    expect(changeFlag('1.05', '1', LIMITS, 'FE-LA')).toBeNull();
+    // 1.08 / 1 − 1 = 0.08: the 8 % move the drift chart once showed as OK.
+    expect(changeFlag('1.08', '1', LIMITS, 'FE-LA')).toEqual({
+      flag: 'warn',
+      reason: 'Slope 1.08 moved +8 % from 1 of the set before: more than the 5 % method FE-LA expects between runs (fail above 15 %).',
+    });
+    // 0.85 / 1.02 − 1 = −0.16666…: a fall of 16.7 %.
+    expect(changeFlag('0.85', '1.02', LIMITS, 'FE-LA')?.reason).toMatch(
+      /^Slope 0\.85 moved −16\.7 % from 1\.02 of the set before: more than the 15 % method FE-LA allows between runs\./,
+    );
+    expect(changeFlag('0.85', '1.02', LIMITS, 'FE-LA')?.flag).toBe('fail');
+    expect(changeFlag('1.5', null, LIMITS, 'FE-LA')).toBeNull();
+    expect(changeFlag('1.5', '1', { ...LIMITS, slope_change_warn: null, slope_change_fail: null }, 'FE-LA')).toBeNull();
   });
 });

@@ -26,7 +26,7 @@ const METHOD: Method = {
   name: 'test',
   matrix: 'Fe',
   default_unit: '%',
-  drift_limits: { warn: '0.2', fail: '0.5' },
+  drift_limits: { warn: '0.2', fail: '0.5', slope_change_warn: null, slope_change_fail: null, second_person_activation: false },
   reporting: DEFAULT_REPORTING,
   created_at: '',
   updated_at: '',
