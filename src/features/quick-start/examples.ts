@@ -1,13 +1,21 @@
 // Copy-paste examples for the Quick start page, written for the server the console is served
-// from. Plain functions of the origin, so a test can run them against a live server.
+// from. Plain functions of the origin, so a test can run them against a live server. The
+// TypeScript project is the repository's examples/quick-start, shown as it is checked in.
+import packageJson from '../../../examples/quick-start/package.json?raw';
+import quickStartScript from '../../../examples/quick-start/quick-start.ts?raw';
+import sampleOutput from '../../../examples/quick-start/sample-output.txt?raw';
+import tsconfigJson from '../../../examples/quick-start/tsconfig.json?raw';
 
 export interface QuickStartExample {
   id: string;
   title: string;
   intro: string;
   code: string;
-  /** What a successful run looks like (illustrative values). */
+  /** Files to save before running `code`. */
+  files?: { name: string; code: string }[];
+  /** What a successful run looks like; "…" stands for values that differ from run to run. */
   output?: string;
+  outputNote?: string;
 }
 
 export function quickStartExamples(origin: string): QuickStartExample[] {
@@ -69,22 +77,23 @@ export function quickStartExamples(origin: string): QuickStartExample[] {
       id: 'typescript',
       title: '6. A typed client in TypeScript',
       intro:
-        "Generate types from this server's OpenAPI document with openapi-typescript, then call the API with openapi-fetch: paths, parameters and responses are checked by the compiler. examples/client.ts in the repository is a complete script.",
+        "A project of its own (Node.js 20.19+): make a folder with the two files below, install, generate the types from this server's OpenAPI document, then run the script with tsx — paths, parameters and fields are checked by the compiler. The same files are in the repository's examples/quick-start.",
       code: [
-        `npx openapi-typescript ${api}/openapi.json -o meltwire.d.ts`,
-        ``,
-        `// client.ts`,
-        `import createClient from 'openapi-fetch';`,
-        `import type { paths } from './meltwire.d.ts';`,
-        ``,
-        `const meltwire = createClient<paths>({`,
-        `  baseUrl: '${api}',`,
-        `  headers: { Authorization: \`Bearer \${process.env.MELTWIRE_KEY}\` },`,
-        `});`,
-        `const { data, error } = await meltwire.GET('/samples', { params: { query: { limit: 50 } } });`,
-        `if (error) throw new Error(\`\${error.title}: \${error.detail} (request \${error.request_id})\`);`,
-        `console.log(data.data, data.next_cursor);`,
+        `mkdir meltwire-quick-start && cd meltwire-quick-start   # save package.json, tsconfig.json and quick-start.ts here`,
+        `npm install`,
+        `export MELTWIRE_URL=${origin}`,
+        `npm run types        # writes meltwire.d.ts from ${api}/openapi.json`,
+        `npm run typecheck    # optional`,
+        `npx tsx quick-start.ts`,
       ].join('\n'),
+      files: [
+        { name: 'package.json', code: packageJson },
+        { name: 'tsconfig.json', code: tsconfigJson },
+        { name: 'quick-start.ts', code: quickStartScript },
+      ],
+      output: sampleOutput.trimEnd(),
+      outputNote:
+        'With a samples:read key of the demo integrator on the demo data. A test runs these steps against a live server and compares its output with this text.',
     },
   ];
 }
