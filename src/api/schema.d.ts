@@ -1751,7 +1751,10 @@ export interface components {
     schemas: {
         /** @description RFC 9457 problem details. */
         Problem: {
-            /** @example /problems/validation-failed */
+            /**
+             * @description A URI relative to the server; it opens a page that explains the problem and what to do (GET /problems lists them all).
+             * @example /problems/validation-failed
+             */
             type: string;
             title: string;
             status: number;
@@ -1765,6 +1768,10 @@ export interface components {
         FieldError: {
             /** @example body.email */
             location: string;
+            /**
+             * @description What is wrong with the field, in words.
+             * @example email must be an e-mail address
+             */
             message: string;
             code?: string;
         };
