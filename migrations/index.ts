@@ -38,6 +38,7 @@ import * as createAlertPreferences from './20261203400500_create_alert_preferenc
 import * as createPendingAlerts from './20261203400600_create_pending_alerts.ts';
 import * as createNodeCoordination from './20261203500100_create_node_coordination.ts';
 import * as addInstrumentFeedsStaleAlert from './20261203500200_add_instrument_feeds_stale_alert.ts';
+import * as addRequestLogFromConsole from './20261203613100_add_request_log_from_console.ts';
 
 export interface Migration {
   up(knex: Knex): Promise<void>;
@@ -82,4 +83,5 @@ export const migrations: Record<string, Migration> = {
   '20261203400600_create_pending_alerts': createPendingAlerts,
   '20261203500100_create_node_coordination': createNodeCoordination,
   '20261203500200_add_instrument_feeds_stale_alert': addInstrumentFeedsStaleAlert,
+  '20261203613100_add_request_log_from_console': addRequestLogFromConsole,
 };

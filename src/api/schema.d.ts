@@ -3803,6 +3803,8 @@ export interface components {
             request_id: string;
             /** @description The entry this call replayed. */
             replay_of: string | null;
+            /** @description A call the console made for its own pages (signed in, sent by the console's client); left out of lists unless `include_console=true`. */
+            from_console: boolean;
         };
         RequestLogCaller: {
             /** @enum {string} */
@@ -12496,6 +12498,8 @@ export interface operations {
                 since?: string;
                 /** @description Calls before this time (ISO 8601 UTC). */
                 until?: string;
+                /** @description Also list the console's own calls (its pages loading and polling). Calls made with API keys, replays and the API reference's Try it out are always listed. */
+                include_console?: "true" | "false";
             };
             header?: never;
             path?: never;

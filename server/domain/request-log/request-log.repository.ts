@@ -31,6 +31,8 @@ export interface RequestLogRow {
   response_body_size: number;
   response_body_truncated: boolean;
   replay_of: string | null;
+  /** A call the console made for its own pages (see server/http/request-log.ts). */
+  from_console: boolean;
 }
 
 export interface RequestLogFilters {
@@ -45,6 +47,8 @@ export interface RequestLogFilters {
   onlyCallerId?: string;
   since?: string;
   until?: string;
+  /** Also list the console's own calls (left out by default). */
+  includeConsole?: boolean;
 }
 
 const SUMMARY_COLUMNS = [
@@ -60,6 +64,7 @@ const SUMMARY_COLUMNS = [
   'caller_label',
   'request_id',
   'replay_of',
+  'from_console',
 ] as const;
 
 export type RequestLogSummaryRow = Pick<RequestLogRow, (typeof SUMMARY_COLUMNS)[number]>;
@@ -71,6 +76,7 @@ function normalise(row: RequestLogRow): RequestLogRow {
     request_body_truncated: Boolean(row.request_body_truncated),
     request_redacted: Boolean(row.request_redacted),
     response_body_truncated: Boolean(row.response_body_truncated),
+    from_console: Boolean(row.from_console),
   };
 }
 
@@ -98,6 +104,7 @@ export function listRequestLogRows(db: Queryable, filters: RequestLogFilters, pa
   if (filters.onlyCallerId) query.where('caller_id', filters.onlyCallerId);
   if (filters.since) query.where('occurred_at', '>=', filters.since);
   if (filters.until) query.where('occurred_at', '<', filters.until);
+  if (!filters.includeConsole) query.where('from_console', false);
   return keysetPage(query, REQUEST_LOG_KEYSET, page);
 }
 

@@ -13,11 +13,11 @@ function toIso(local: string): string | undefined {
 
 export function RequestLogFilterForm({ onApply }: { onApply: (filters: RequestLogFilters) => void }) {
   const [form, setForm] = useState(EMPTY);
+  const [includeConsole, setIncludeConsole] = useState(false);
   const set = (field: keyof typeof EMPTY) => (event: { target: { value: string } }) =>
     setForm((f) => ({ ...f, [field]: event.target.value }));
 
-  function submit(event: FormEvent) {
-    event.preventDefault();
+  function apply(withConsole: boolean) {
     onApply({
       method: (form.method || undefined) as RequestLogFilters['method'],
       status: form.status.trim() || undefined,
@@ -25,7 +25,13 @@ export function RequestLogFilterForm({ onApply }: { onApply: (filters: RequestLo
       caller_id: form.caller_id.trim() || undefined,
       since: toIso(form.since),
       until: toIso(form.until),
+      include_console: withConsole ? 'true' : undefined,
     });
+  }
+
+  function submit(event: FormEvent) {
+    event.preventDefault();
+    apply(includeConsole);
   }
 
   return (
@@ -51,12 +57,25 @@ export function RequestLogFilterForm({ onApply }: { onApply: (filters: RequestLo
           variant="secondary"
           onClick={() => {
             setForm(EMPTY);
+            setIncludeConsole(false);
             onApply({});
           }}
         >
           Reset
         </Button>
       </div>
+      <label className="col-span-full flex items-center gap-2 text-sm text-slag-700">
+        <input
+          type="checkbox"
+          className="accent-ember-600"
+          checked={includeConsole}
+          onChange={(event) => {
+            setIncludeConsole(event.target.checked);
+            apply(event.target.checked);
+          }}
+        />
+        Show the console&apos;s own calls (its pages loading and refreshing; hidden by default)
+      </label>
     </form>
   );
 }

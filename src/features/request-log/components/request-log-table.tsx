@@ -14,7 +14,8 @@ export function RequestLogTable({ filters, onOpen }: { filters: RequestLogFilter
       {log.isPending && <Spinner label="Loading calls…" />}
       {!log.isPending && !log.error && rows.length === 0 && (
         <EmptyState title="No calls match">
-          Calls to /api/v1 appear here as soon as they are answered. Try wider filters, or make a call with a key.
+          Calls to /api/v1 appear here as soon as they are answered. Try wider filters, or make a call with a key. The console's own calls
+          are hidden unless you tick the box above.
         </EmptyState>
       )}
       {rows.length > 0 && (
@@ -29,6 +30,11 @@ export function RequestLogTable({ filters, onOpen }: { filters: RequestLogFilter
                 {entry.replay_of && (
                   <span className="ml-2">
                     <Badge tone="accent">replay</Badge>
+                  </span>
+                )}
+                {entry.from_console && (
+                  <span className="ml-2">
+                    <Badge tone="neutral">console</Badge>
                   </span>
                 )}
               </td>
