@@ -305,7 +305,7 @@ export interface paths {
         put?: never;
         /**
          * Replace a key, letting the old one live for an overlap
-         * @description Issues a new key with the same name, scopes and restrictions; the old key expires after `overlap_minutes`.
+         * @description Issues a new key with the same name, scopes and restrictions; the old key keeps working for `overlap_minutes` (never past its own expiry), then expires. `previous.expires_at` says when.
          *
          *     Requires the scope `api-keys:write`.
          */
@@ -1919,9 +1919,20 @@ export interface components {
             /** @description Restrict the key to these instruments. */
             instrument_ids?: string[];
         };
+        RolledApiKey: components["schemas"]["ApiKeyWithSecret"] & {
+            /** @description The key this one replaces. */
+            previous: {
+                id: string;
+                /**
+                 * Format: date-time
+                 * @description When the old key stops working: now + overlap_minutes, or its own expiry when that comes first.
+                 */
+                expires_at: string;
+            };
+        };
         RollApiKeyRequest: {
             /**
-             * @description How long the old key keeps working after the roll (0–10080 minutes).
+             * @description How long the old key keeps working after the roll, so integrations can switch to the new one: 0 (stops at once) to 10080 minutes (7 days); 60 when omitted.
              * @default 60
              */
             overlap_minutes: number;
@@ -5492,7 +5503,7 @@ export interface operations {
             };
         };
         responses: {
-            /** @description The replacement, with its secret shown once. */
+            /** @description The replacement, with its secret shown once, and when the old key stops working. */
             201: {
                 headers: {
                     /** @description The new key. */
@@ -5502,7 +5513,7 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/json": components["schemas"]["ApiKeyWithSecret"];
+                    "application/json": components["schemas"]["RolledApiKey"];
                 };
             };
             /** @description The request is not valid; `errors[]` names each field. */
