@@ -45,7 +45,9 @@ export function QuickStartPage() {
                 <pre data-testid={`quick-start-${example.id}-output`} className="overflow-x-auto rounded-md bg-ash-100 p-3 text-xs">
                   {example.output}
                 </pre>
-                {example.outputNote && <p className="mt-1 text-xs text-slag-500">{example.outputNote}</p>}
+                <p className="mt-1 text-xs text-slag-500">
+                  {example.outputNote ?? 'On the demo data; “…” marks what is left out or differs from run to run (ids, times).'}
+                </p>
               </div>
             )}
           </Card>
