@@ -1,5 +1,5 @@
-// The scopes a key can be given, grouped by the resource they guard (`resource:action`), in the
-// order the server lists them. Every scope guards a built operation (tests/api/api-key-roll.test.ts).
+// The scopes a key can be given, grouped by the resource they guard (`resource:action`), resources
+// in the order below, scopes in the order given. Every scope guards a built operation (tests/api/api-key-roll.test.ts).
 import type { Scope } from '../../api/me.ts';
 
 const RESOURCES: Record<string, string> = {
@@ -32,5 +32,7 @@ export function groupScopes(scopes: readonly Scope[]): ScopeGroup[] {
     group.scopes.push(scope);
     groups.set(resource, group);
   }
-  return [...groups.values()];
+  const order = Object.keys(RESOURCES);
+  const rank = (resource: string) => (order.includes(resource) ? order.indexOf(resource) : order.length);
+  return [...groups.values()].sort((a, b) => rank(a.resource) - rank(b.resource));
 }
