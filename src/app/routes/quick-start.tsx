@@ -42,7 +42,10 @@ export function QuickStartPage() {
             {example.output && (
               <div className="mt-3">
                 <p className="mb-1 text-xs font-medium uppercase tracking-wide text-slag-500">You get</p>
-                <pre data-testid={`quick-start-${example.id}-output`} className="overflow-x-auto rounded-md bg-ash-100 p-3 text-xs">
+                <pre
+                  data-testid={`quick-start-${example.id}-output`}
+                  className="whitespace-pre-wrap break-all rounded-md bg-ash-100 p-3 text-xs"
+                >
                   {example.output}
                 </pre>
                 <p className="mt-1 text-xs text-slag-500">
