@@ -146,6 +146,12 @@ describe.each(JOURNEY_WIDTHS)('integrator runs the quick start at %i px', (width
       .first()
       .waitFor();
     expect(await rows.filter({ hasText: 'console' }).count()).toBe(0);
+    // Every column fits at this width: the last row's Details button is inside the window.
+    const details = await rows
+      .first()
+      .getByRole('button', { name: /^Details of / })
+      .boundingBox();
+    expect(details!.x + details!.width).toBeLessThanOrEqual(width);
     await saveScreen(page, JOURNEY, 'request-log');
     await page.getByRole('checkbox', { name: /Show the console.s own calls/ }).check();
     await rows.filter({ hasText: 'console' }).first().waitFor();

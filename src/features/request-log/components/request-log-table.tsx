@@ -22,9 +22,13 @@ export function RequestLogTable({ filters, onOpen }: { filters: RequestLogFilter
         <Table head={['When (UTC)', 'Method', 'Path', 'Status', 'ms', 'Caller', '']} caption="Calls to the API, newest first">
           {rows.map((entry) => (
             <tr key={entry.id} className="align-top hover:bg-ash-50" data-testid="request-log-row">
-              <td className="whitespace-nowrap px-3 py-2 font-mono text-xs">{entry.occurred_at.replace('T', ' ').replace('Z', '')}</td>
-              <td className="px-3 py-2 font-mono text-xs font-semibold">{entry.method}</td>
-              <td className="max-w-md break-all px-3 py-2 font-mono text-xs">
+              <td className="px-2 py-2 font-mono text-xs">
+                {/* Date above time, so the path keeps its width on a 1024 px tablet. */}
+                <span className="block whitespace-nowrap">{entry.occurred_at.slice(0, 10)}</span>
+                <span className="block whitespace-nowrap text-slag-500">{entry.occurred_at.slice(11).replace('Z', '')}</span>
+              </td>
+              <td className="px-2 py-2 font-mono text-xs font-semibold">{entry.method}</td>
+              <td className="min-w-40 max-w-md break-all px-2 py-2 font-mono text-xs">
                 {entry.path}
                 {entry.query && <span className="text-slag-500">?{entry.query}</span>}
                 {entry.replay_of && (
@@ -38,14 +42,14 @@ export function RequestLogTable({ filters, onOpen }: { filters: RequestLogFilter
                   </span>
                 )}
               </td>
-              <td className="px-3 py-2">
+              <td className="px-2 py-2">
                 <StatusBadge status={entry.status} />
               </td>
-              <td className="px-3 py-2 text-right font-mono text-xs">{entry.duration_ms.toFixed(1)}</td>
-              <td className="px-3 py-2 text-xs">
+              <td className="px-2 py-2 text-right font-mono text-xs">{entry.duration_ms.toFixed(1)}</td>
+              <td className="max-w-48 break-words px-2 py-2 text-xs">
                 {entry.caller.label ?? 'anonymous'} <span className="text-slag-500">({entry.caller.type.replace('_', ' ')})</span>
               </td>
-              <td className="px-3 py-2 text-right">
+              <td className="px-2 py-2 text-right">
                 <Button
                   variant="ghost"
                   onClick={() => onOpen(entry.id)}
