@@ -41,6 +41,7 @@ import * as addInstrumentFeedsStaleAlert from './20261203500200_add_instrument_f
 import * as addSamplesPreparedDocuments from './20261203600100_add_samples_prepared_documents.ts';
 import * as createSampleFieldDefinitions from './20261203600100_create_sample_field_definitions.ts';
 import * as addStandardizationsSourceFile from './20261203600100_add_standardizations_source_file.ts';
+import * as addRequestLogFromConsole from './20261203613100_add_request_log_from_console.ts';
 
 export interface Migration {
   up(knex: Knex): Promise<void>;
@@ -88,4 +89,5 @@ export const migrations: Record<string, Migration> = {
   '20261203600100_add_samples_prepared_documents': addSamplesPreparedDocuments,
   '20261203600100_create_sample_field_definitions': createSampleFieldDefinitions,
   '20261203600100_add_standardizations_source_file': addStandardizationsSourceFile,
+  '20261203613100_add_request_log_from_console': addRequestLogFromConsole,
 };

@@ -21,6 +21,7 @@ import { apiLimiter } from './http/rate-limit.ts';
 import { requestId } from './http/request-id.ts';
 import { requestLog } from './http/request-log.ts';
 import { responseValidation } from './http/response-validation.ts';
+import { problemPages } from './http/problem-pages.ts';
 import { type AnyRoute, mountRoutes } from './http/route.ts';
 import { createLogger } from './logger.ts';
 import type { Outbox } from './mail/fake-smtp.ts';
@@ -112,6 +113,8 @@ export function createApp(options: AppOptions): Express & { locals: { ctx: AppCo
   api.use(notFoundHandler());
   app.use('/api/v1', api);
   app.use('/api', notFoundHandler());
+  // Each problem type URI opens a page that explains it (before the console, which would 404 it).
+  app.use('/problems', problemPages());
 
   const consoleDir = options.consoleDir ?? DEFAULT_CONSOLE_DIR;
   if (existsSync(resolve(consoleDir, 'index.html'))) {

@@ -13,6 +13,7 @@ import {
   ProblemError,
 } from '../lib/problems.ts';
 import { isUnstorableValue } from '../db/errors.ts';
+import { statusSlug } from '../lib/problem-types.ts';
 
 interface HttpishError {
   type?: string;
@@ -28,9 +29,6 @@ function clientStatus(e: HttpishError): number | undefined {
   const status = typeof e.status === 'number' ? e.status : typeof e.statusCode === 'number' ? e.statusCode : undefined;
   return status !== undefined && status >= 400 && status < 500 ? status : undefined;
 }
-
-/** "Unsupported Media Type" → "unsupported-media-type", the form of the problem type slugs. */
-const slugOf = (status: number) => (STATUS_CODES[status] ?? 'Bad Request').toLowerCase().replace(/[^a-z]+/g, '-');
 
 function toProblem(error: unknown, bodyLimit: string): ProblemError | undefined {
   if (error instanceof ProblemError) return error;
@@ -71,7 +69,7 @@ function toProblem(error: unknown, bodyLimit: string): ProblemError | undefined 
   if (error instanceof URIError || /malformed uri|decode param/i.test(e.message ?? '')) {
     return new MalformedUrlProblem('The path is not valid percent-encoding (such as "%ZZ"); write a literal "%" as "%25".');
   }
-  return new ProblemError(status, slugOf(status), STATUS_CODES[status] ?? 'Bad request', e.expose === false ? undefined : e.message);
+  return new ProblemError(status, statusSlug(status), STATUS_CODES[status] ?? 'Bad request', e.expose === false ? undefined : e.message);
 }
 
 export function sendProblem(res: Parameters<RequestHandler>[1], problem: ProblemError, instance: string, requestId?: string): void {

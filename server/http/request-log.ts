@@ -16,6 +16,8 @@ import { captureResponse } from './response-capture.ts';
 const NOT_LOGGED = new Set(['/health', '/openapi.json']);
 /** Carries a replay's one-time token from the replay endpoint to the replayed request. */
 export const REPLAY_TOKEN_HEADER = 'x-meltwire-replay';
+/** Sent by the console's API client: its session calls are its own page loads and polling. */
+export const CONSOLE_CLIENT_HEADER = 'x-meltwire-client';
 /** Responses are captured up to this size so JSON can be parsed and redacted before it is cut. */
 const MIN_CAPTURE_BYTES = 1024 * 1024;
 
@@ -47,6 +49,8 @@ function buildRow(
     status: res.statusCode,
     duration_ms: Math.round(durationMs * 1000) / 1000,
     ...caller(req),
+    // Only a signed-in session counts: an API key call is an integration's, whatever it sends.
+    from_console: req.auth?.kind === 'session' && req.get(CONSOLE_CLIENT_HEADER) === 'console' && base.replay_of === null,
     request_id: req.requestId,
     request_headers_json: JSON.stringify(redactHeaders(req.headers)),
     request_content_type: request.contentType?.slice(0, 200) ?? null,

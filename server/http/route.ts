@@ -8,7 +8,8 @@ import type { Scope } from '../domain/auth/scopes.ts';
 import { idempotency } from './idempotency.ts';
 import { PreparedJson } from '../lib/prepared-json.ts';
 import { sendPreparedJson } from './prepared-json.ts';
-import { ForbiddenProblem, UnauthorizedProblem, ValidationProblem } from '../lib/problems.ts';
+import { ForbiddenProblem, UnauthorizedProblem } from '../lib/problems.ts';
+import { parseOrProblem } from '../lib/readable-issues.ts';
 import type { AuthContext } from '../domain/auth/auth-context.ts';
 
 /**
@@ -121,15 +122,7 @@ function authorize(access: Access, req: Request): void {
 
 function parsePart(part: 'params' | 'query' | 'body', schema: ZodType | undefined, value: unknown): unknown {
   if (!schema) return undefined;
-  const result = schema.safeParse(value ?? (part === 'body' ? undefined : {}));
-  if (result.success) return result.data;
-  throw new ValidationProblem(
-    result.error.issues.map((issue) => ({
-      location: [part, ...issue.path.map(String)].join('.'),
-      message: issue.message,
-      code: issue.code,
-    })),
-  );
+  return parseOrProblem(part, schema, value ?? (part === 'body' ? undefined : {}));
 }
 
 export function mountRoutes(router: Router, routes: AnyRoute[], ctx: AppContext): void {

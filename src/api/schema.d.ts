@@ -305,7 +305,7 @@ export interface paths {
         put?: never;
         /**
          * Replace a key, letting the old one live for an overlap
-         * @description Issues a new key with the same name, scopes and restrictions; the old key expires after `overlap_minutes`.
+         * @description Issues a new key with the same name, scopes and restrictions; the old key keeps working for `overlap_minutes` (never past its own expiry), then expires. `previous.expires_at` says when.
          *
          *     Requires the scope `api-keys:write`.
          */
@@ -1828,7 +1828,10 @@ export interface components {
     schemas: {
         /** @description RFC 9457 problem details. */
         Problem: {
-            /** @example /problems/validation-failed */
+            /**
+             * @description A URI relative to the server; it opens a page that explains the problem and what to do (GET /problems lists them all).
+             * @example /problems/validation-failed
+             */
             type: string;
             title: string;
             status: number;
@@ -1842,6 +1845,10 @@ export interface components {
         FieldError: {
             /** @example body.email */
             location: string;
+            /**
+             * @description What is wrong with the field, in words.
+             * @example email must be an e-mail address
+             */
             message: string;
             code?: string;
         };
@@ -1989,9 +1996,20 @@ export interface components {
             /** @description Restrict the key to these instruments. */
             instrument_ids?: string[];
         };
+        RolledApiKey: components["schemas"]["ApiKeyWithSecret"] & {
+            /** @description The key this one replaces. */
+            previous: {
+                id: string;
+                /**
+                 * Format: date-time
+                 * @description When the old key stops working: now + overlap_minutes, or its own expiry when that comes first.
+                 */
+                expires_at: string;
+            };
+        };
         RollApiKeyRequest: {
             /**
-             * @description How long the old key keeps working after the roll (0–10080 minutes).
+             * @description How long the old key keeps working after the roll, so integrations can switch to the new one: 0 (stops at once) to 10080 minutes (7 days); 60 when omitted.
              * @default 60
              */
             overlap_minutes: number;
@@ -4102,6 +4120,8 @@ export interface components {
             request_id: string;
             /** @description The entry this call replayed. */
             replay_of: string | null;
+            /** @description A call the console made for its own pages (signed in, sent by the console's client); left out of lists unless `include_console=true`. */
+            from_console: boolean;
         };
         RequestLogCaller: {
             /** @enum {string} */
@@ -5789,7 +5809,7 @@ export interface operations {
             };
         };
         responses: {
-            /** @description The replacement, with its secret shown once. */
+            /** @description The replacement, with its secret shown once, and when the old key stops working. */
             201: {
                 headers: {
                     /** @description The new key. */
@@ -5799,7 +5819,7 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/json": components["schemas"]["ApiKeyWithSecret"];
+                    "application/json": components["schemas"]["RolledApiKey"];
                 };
             };
             /** @description The request is not valid; `errors[]` names each field. */
@@ -13174,6 +13194,8 @@ export interface operations {
                 since?: string;
                 /** @description Calls before this time (ISO 8601 UTC). */
                 until?: string;
+                /** @description Also list the console's own calls (its pages loading and polling). Calls made with API keys, replays and the API reference's Try it out are always listed. */
+                include_console?: "true" | "false";
             };
             header?: never;
             path?: never;

@@ -1,6 +1,7 @@
 // Multipart uploads with progress. openapi-fetch (fetch) cannot report upload progress, so file
 // uploads go through XMLHttpRequest, whose `upload.onprogress` can; answers and problems are
 // handled exactly as `unwrap` handles them.
+import { CONSOLE_CLIENT_HEADER } from './client.ts';
 import { ApiProblem, NETWORK_PROBLEM, problemFromResponse } from './problem.ts';
 import type { paths } from './schema';
 
@@ -47,6 +48,7 @@ export function postMultipart<P extends MultipartPath, T extends MultipartAnswer
     xhr.open('POST', `/api/v1${path}`);
     xhr.withCredentials = true;
     xhr.setRequestHeader('Accept', 'application/json');
+    xhr.setRequestHeader(...CONSOLE_CLIENT_HEADER);
     xhr.upload.onprogress = (event) => onProgress?.({ loaded: event.loaded, total: event.lengthComputable ? event.total : null });
     xhr.onload = () => {
       const body = parseJson(xhr.responseText);

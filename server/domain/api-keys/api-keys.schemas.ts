@@ -23,6 +23,18 @@ export const ApiKeyWithSecretSchema = ApiKeySchema.extend({
   secret: z.string().openapi({ description: 'Shown once. Store it now: Meltwire keeps only its hash.', example: 'mw_live_…' }),
 }).openapi('ApiKeyWithSecret');
 
+export const RolledApiKeySchema = ApiKeyWithSecretSchema.extend({
+  previous: z
+    .object({
+      id: z.string(),
+      expires_at: z.string().openapi({
+        format: 'date-time',
+        description: 'When the old key stops working: now + overlap_minutes, or its own expiry when that comes first.',
+      }),
+    })
+    .openapi({ description: 'The key this one replaces.' }),
+}).openapi('RolledApiKey');
+
 export const ApiKeyListSchema = listOf(ApiKeySchema, 'ApiKeyList');
 
 export const ApiKeyListQuerySchema = paginationQuery.extend({
@@ -57,7 +69,10 @@ export const RollApiKeyRequestSchema = z
       .min(0)
       .max(7 * 24 * 60)
       .default(60)
-      .openapi({ description: 'How long the old key keeps working after the roll (0–10080 minutes).' }),
+      .openapi({
+        description:
+          'How long the old key keeps working after the roll, so integrations can switch to the new one: 0 (stops at once) to 10080 minutes (7 days); 60 when omitted.',
+      }),
   })
   .openapi('RollApiKeyRequest');
 

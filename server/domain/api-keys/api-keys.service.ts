@@ -109,7 +109,7 @@ export async function rollApiKey(
   id: string,
   overlapMinutes: number,
   requestId?: string,
-): Promise<ApiKey & { secret: string }> {
+): Promise<ApiKey & { secret: string; previous: { id: string; expires_at: string } }> {
   const old = await loadManageable(ctx.db, auth, id);
   const current = toApiKey(old);
   if (current.status !== 'active') throw new ConflictProblem(`Only an active key can be rolled; this one is ${current.status}.`);
@@ -136,5 +136,5 @@ export async function rollApiKey(
       after: { ...current, expires_at: oldExpiry, replaced_by: row.id },
     });
   });
-  return { ...toApiKey({ ...row, created_by_email: auth.email }), secret };
+  return { ...toApiKey({ ...row, created_by_email: auth.email }), secret, previous: { id, expires_at: oldExpiry } };
 }

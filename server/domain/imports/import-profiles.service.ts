@@ -2,7 +2,8 @@
 // merged into the stored profile and the result validated as a whole, so no change can leave
 // a profile the parser cannot use. Every change is audited in the same transaction.
 import type { AppContext } from '../../context.ts';
-import { ConflictProblem, NotFoundProblem, ValidationProblem } from '../../lib/problems.ts';
+import { ConflictProblem, NotFoundProblem } from '../../lib/problems.ts';
+import { parseOrProblem } from '../../lib/readable-issues.ts';
 import { newId } from '../../lib/ids.ts';
 import { nowIso } from '../../lib/time.ts';
 import type { Actor } from '../audit/actor.ts';
@@ -105,22 +106,16 @@ export async function updateImportProfile(
     if (!row) throw new NotFoundProblem(`No import profile ${id}.`);
     const before = toImportProfile(row);
     const { id: _id, revision: _revision, created_at: _created, updated_at: _updated, ...stored } = before;
-    const merged = CreateImportProfileRequestSchema.safeParse({ ...stored, ...changes });
-    if (!merged.success) {
-      throw new ValidationProblem(
-        merged.error.issues.map((issue) => ({
-          location: ['body', ...issue.path.map(String)].join('.'),
-          message: issue.message,
-          code: issue.code,
-        })),
-        'The profile would not be valid after this change; see errors[].',
-      );
-    }
-    if (profileNameKey(merged.data.name) !== row.name_key && (await findImportProfileByName(trx, merged.data.name)))
-      throw duplicateName(merged.data.name);
+    const merged = parseOrProblem(
+      'body',
+      CreateImportProfileRequestSchema,
+      { ...stored, ...changes },
+      'The profile would not be valid after this change; see errors[].',
+    );
+    if (profileNameKey(merged.name) !== row.name_key && (await findImportProfileByName(trx, merged.name))) throw duplicateName(merged.name);
     const changed: Partial<ImportProfileRow> = {
-      ...splitInput(merged.data),
-      name_key: profileNameKey(merged.data.name),
+      ...splitInput(merged),
+      name_key: profileNameKey(merged.name),
       revision: Number(row.revision) + 1,
       updated_at: nowIso(),
     };

@@ -32,6 +32,8 @@ export interface RequestLogRow {
   response_body_size: number;
   response_body_truncated: boolean;
   replay_of: string | null;
+  /** A call the console made for its own pages (see server/http/request-log.ts). */
+  from_console: boolean;
 }
 
 export interface RequestLogFilters {
@@ -46,6 +48,8 @@ export interface RequestLogFilters {
   onlyCallerId?: string;
   since?: string;
   until?: string;
+  /** Also list the console's own calls (left out by default). */
+  includeConsole?: boolean;
 }
 
 const SUMMARY_COLUMNS = [
@@ -61,6 +65,7 @@ const SUMMARY_COLUMNS = [
   'caller_label',
   'request_id',
   'replay_of',
+  'from_console',
 ] as const;
 
 export type RequestLogSummaryRow = Pick<RequestLogRow, (typeof SUMMARY_COLUMNS)[number]>;
@@ -72,6 +77,7 @@ function normalise(row: RequestLogRow): RequestLogRow {
     request_body_truncated: Boolean(row.request_body_truncated),
     request_redacted: Boolean(row.request_redacted),
     response_body_truncated: Boolean(row.response_body_truncated),
+    from_console: Boolean(row.from_console),
   };
 }
 
@@ -99,6 +105,7 @@ export function listRequestLogRows(db: Queryable, filters: RequestLogFilters, pa
   if (filters.onlyCallerId) query.where('caller_id', filters.onlyCallerId);
   if (filters.since) query.where('occurred_at', '>=', filters.since);
   if (filters.until) query.where('occurred_at', '<', filters.until);
+  if (!filters.includeConsole) query.where('from_console', false);
   return keysetPage(query, REQUEST_LOG_KEYSET, page);
 }
 

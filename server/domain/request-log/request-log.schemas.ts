@@ -24,6 +24,10 @@ const RequestLogSummarySchema = z
     caller: CallerSchema,
     request_id: z.string(),
     replay_of: z.string().nullable().openapi({ description: 'The entry this call replayed.' }),
+    from_console: z.boolean().openapi({
+      description:
+        "A call the console made for its own pages (signed in, sent by the console's client); left out of lists unless `include_console=true`.",
+    }),
   })
   .openapi('RequestLogSummary');
 
@@ -61,6 +65,14 @@ export const RequestLogQuerySchema = paginationQuery.extend({
   caller_id: z.string().min(1).max(40).optional().openapi({ description: 'Calls by this user id or API key id.' }),
   since: z.iso.datetime().optional().openapi({ description: 'Calls at or after this time (ISO 8601 UTC).' }),
   until: z.iso.datetime().optional().openapi({ description: 'Calls before this time (ISO 8601 UTC).' }),
+  include_console: z
+    .enum(['true', 'false'])
+    .default('false')
+    .transform((value) => value === 'true')
+    .openapi({
+      description:
+        "Also list the console's own calls (its pages loading and polling). Calls made with API keys, replays and the API reference's Try it out are always listed.",
+    }),
 });
 
 export const RequestLogIdParams = z.object({ id: z.string().min(1).max(40) });

@@ -42,6 +42,7 @@ function toSummary(row: RequestLogSummaryRow) {
     caller: { type: row.caller_type, id: row.caller_id, label: row.caller_label },
     request_id: row.request_id,
     replay_of: row.replay_of,
+    from_console: Boolean(row.from_console),
   };
 }
 
@@ -111,6 +112,7 @@ export interface ListQuery {
   caller_id?: string;
   since?: string;
   until?: string;
+  include_console?: boolean;
 }
 
 function statusFilter(status: string | undefined): RequestLogFilters['status'] {
@@ -134,6 +136,7 @@ export async function listEntries(ctx: AppContext, auth: AuthContext, query: Lis
     onlyCallerId: onlyOwnCalls(auth),
     since: query.since,
     until: query.until,
+    includeConsole: query.include_console,
   };
   return mapPage(await listRequestLogRows(ctx.db, filters, query), toSummary);
 }

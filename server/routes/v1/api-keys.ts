@@ -6,6 +6,7 @@ import {
   ApiKeyWithSecretSchema,
   CreateApiKeyRequestSchema,
   RollApiKeyRequestSchema,
+  RolledApiKeySchema,
 } from '../../domain/api-keys/api-keys.schemas.ts';
 import { createApiKey, getApiKey, listApiKeysPage, revokeApiKey, rollApiKey } from '../../domain/api-keys/api-keys.service.ts';
 import { defineRoute } from '../../http/route.ts';
@@ -75,7 +76,8 @@ export const apiKeyRoutes = [
     path: '/api-keys/{id}/roll',
     operationId: 'rollApiKey',
     summary: 'Replace a key, letting the old one live for an overlap',
-    description: 'Issues a new key with the same name, scopes and restrictions; the old key expires after `overlap_minutes`.',
+    description:
+      'Issues a new key with the same name, scopes and restrictions; the old key keeps working for `overlap_minutes` (never past its own expiry), then expires. `previous.expires_at` says when.',
     tag: 'API keys',
     access: { scope: 'api-keys:write' },
     params: ApiKeyIdParams,
@@ -83,8 +85,8 @@ export const apiKeyRoutes = [
     secretInResponse: true,
     responses: {
       201: {
-        description: 'The replacement, with its secret shown once.',
-        schema: ApiKeyWithSecretSchema,
+        description: 'The replacement, with its secret shown once, and when the old key stops working.',
+        schema: RolledApiKeySchema,
         headers: { Location: 'The new key.' },
       },
       404: { description: 'No such key, or not yours.' },

@@ -33,11 +33,24 @@ export function QuickStartPage() {
         {examples.map((example) => (
           <Card key={example.id} title={example.title}>
             <p className="mb-3 text-sm text-slag-700">{example.intro}</p>
+            {example.files?.map((file) => (
+              <div key={file.name} className="mb-3">
+                <CodeBlock label={file.name} code={file.code} testId={`quick-start-${example.id}-${file.name}`} />
+              </div>
+            ))}
             <CodeBlock label="shell" code={example.code} testId={`quick-start-${example.id}`} />
             {example.output && (
               <div className="mt-3">
                 <p className="mb-1 text-xs font-medium uppercase tracking-wide text-slag-500">You get</p>
-                <pre className="overflow-x-auto rounded-md bg-ash-100 p-3 text-xs">{example.output}</pre>
+                <pre
+                  data-testid={`quick-start-${example.id}-output`}
+                  className="whitespace-pre-wrap break-all rounded-md bg-ash-100 p-3 text-xs"
+                >
+                  {example.output}
+                </pre>
+                <p className="mt-1 text-xs text-slag-500">
+                  {example.outputNote ?? 'On the demo data; “…” marks what is left out or differs from run to run (ids, times).'}
+                </p>
               </div>
             )}
           </Card>

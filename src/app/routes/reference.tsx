@@ -4,6 +4,7 @@ import SwaggerUI from 'swagger-ui-react';
 import { Alert } from '../../components/ui/feedback.tsx';
 import { PageHeader } from '../../components/ui/layout.tsx';
 import { useMe } from '../../api/me.ts';
+import { tryItCurlPlugin } from '../../features/reference/try-it-curl.tsx';
 
 /** Sends "Try it out" calls with the console's session cookie (same origin, httpOnly). */
 function withSession(request: { credentials?: RequestCredentials; [key: string]: unknown }) {
@@ -22,11 +23,18 @@ export function ReferencePage() {
       <div className="mb-4">
         <Alert tone="info" title={`“Try it out” calls the API as ${me?.user.email ?? 'you'}`}>
           Calls made here carry your session, so your role&apos;s scopes apply ({me?.scopes.length ?? 0} scopes) and they appear in the
-          Request log. Integrations use an API key instead: <code>Authorization: Bearer mw_live_…</code>.
+          Request log. Integrations use an API key instead: the curl command shown after each call sends{' '}
+          <code>Authorization: Bearer $MELTWIRE_KEY</code>, so set <code>MELTWIRE_KEY</code> to your key before you paste it.
         </Alert>
       </div>
       <div className="meltwire-reference rounded-lg border border-ash-200 bg-white px-4" data-testid="api-reference">
-        <SwaggerUI url="/api/v1/openapi.json" deepLinking tryItOutEnabled={false} requestInterceptor={withSession} />
+        <SwaggerUI
+          url="/api/v1/openapi.json"
+          deepLinking
+          tryItOutEnabled={false}
+          requestInterceptor={withSession}
+          plugins={[tryItCurlPlugin]}
+        />
       </div>
     </>
   );

@@ -58,6 +58,13 @@ export function ProblemAlert({ error, fields = [] }: { error: ApiProblem | Error
           ))}
         </ul>
       )}
+      {problem?.problem.type.startsWith('/problems/') && (
+        <p className="mt-1 text-xs">
+          <a className="underline" href={problem.problem.type} target="_blank" rel="noreferrer">
+            What this error means and what to do
+          </a>
+        </p>
+      )}
     </Alert>
   );
 }

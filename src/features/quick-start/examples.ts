@@ -1,13 +1,21 @@
 // Copy-paste examples for the Quick start page, written for the server the console is served
-// from. Plain functions of the origin, so a test can run them against a live server.
+// from. Plain functions of the origin, so a test can run them against a live server. The
+// TypeScript project is the repository's examples/quick-start, shown as it is checked in.
+import packageJson from '../../../examples/quick-start/package.json?raw';
+import quickStartScript from '../../../examples/quick-start/quick-start.ts?raw';
+import sampleOutput from '../../../examples/quick-start/sample-output.txt?raw';
+import tsconfigJson from '../../../examples/quick-start/tsconfig.json?raw';
 
 export interface QuickStartExample {
   id: string;
   title: string;
   intro: string;
   code: string;
-  /** What a successful run looks like (illustrative values). */
+  /** Files to save before running `code`. */
+  files?: { name: string; code: string }[];
+  /** What a run prints on the demo data; "…" stands for what is left out or differs from run to run (ids, times). */
   output?: string;
+  outputNote?: string;
 }
 
 export function quickStartExamples(origin: string): QuickStartExample[] {
@@ -25,7 +33,7 @@ export function quickStartExamples(origin: string): QuickStartExample[] {
       title: '2. Your first call',
       intro: 'Ask who the key belongs to and which scopes it carries. Every call sends the key as a Bearer token.',
       code: `curl -sS ${api}/auth/me \\\n  -H "Authorization: Bearer $MELTWIRE_KEY"`,
-      output: `{"user":{"email":"mes-bridge@kestrelbend.test",…},"scopes":["samples:read"],"auth":"api_key",…}`,
+      output: `{"user":{"id":"usr_…","email":"mes-bridge@kestrelbend.test","name":"MES bridge (integrator)","role":"integrator",…},"scopes":["samples:read"],"auth":"api_key","session_expires_at":null}`,
     },
     {
       id: 'list',
@@ -33,7 +41,7 @@ export function quickStartExamples(origin: string): QuickStartExample[] {
       intro:
         'Lists return a page of data and a cursor for the next page; next_cursor is null on the last page. limit is 1–200 (default 50).',
       code: `curl -sS "${api}/samples?limit=2" \\\n  -H "Authorization: Bearer $MELTWIRE_KEY"`,
-      output: `{"data":[{"id":"smp_…","sample_code":"K24-0419-F1","heat":"K24-0419",…,"results":[{"element":"C","mean":0.4597,"reported":"0.460",…}]},…],"next_cursor":"eyJieSI6…"}`,
+      output: `{"data":[{"id":"smp_…","sample_code":"KB-CTRL-AL1","heat":null,"grade":null,"kind":"control","status":"draft",…,"results":[{"element":"Si","mean":0.4552…,"unit":"%",…,"reported":"0.46",…}],"correction":{…},…},…],"next_cursor":"…"}`,
     },
     {
       id: 'pages',
@@ -54,37 +62,38 @@ export function quickStartExamples(origin: string): QuickStartExample[] {
       id: 'errors',
       title: '5. Read errors',
       intro:
-        'Every error is an RFC 9457 problem (application/problem+json). Validation errors list each field in errors[]; quote request_id when you ask for help — it finds the call in the Request log. A key without the scope gets 403 naming the scope it needs.',
+        'Every error is an RFC 9457 problem (application/problem+json). Validation errors list each field in errors[]; quote request_id when you ask for help — it finds the call in the Request log. A key without the scope gets 403 naming the scope it needs. The type (here /problems/forbidden) opens a page on this server that explains the problem and what to do.',
       code: `curl -sS -i ${api}/users \\\n  -H "Authorization: Bearer $MELTWIRE_KEY"`,
       output: [
         'HTTP/1.1 403 Forbidden',
+        '…',
         'Content-Type: application/problem+json; charset=utf-8',
+        '…',
         '',
-        '{"type":"/problems/forbidden","title":"Not allowed","status":403,',
-        ' "detail":"This action needs the scope \\"users:read\\".","instance":"/api/v1/users",',
-        ' "required_scope":"users:read","request_id":"…"}',
+        '{"type":"/problems/forbidden","title":"Not allowed","status":403,"detail":"This action needs the scope \\"users:read\\".","instance":"/api/v1/users","required_scope":"users:read","request_id":"…"}',
       ].join('\n'),
     },
     {
       id: 'typescript',
       title: '6. A typed client in TypeScript',
       intro:
-        "Generate types from this server's OpenAPI document with openapi-typescript, then call the API with openapi-fetch: paths, parameters and responses are checked by the compiler. examples/client.ts in the repository is a complete script.",
+        "A project of its own (Node.js 20.19+): save the three files below in a new folder meltwire-quick-start, install, generate the types from this server's OpenAPI document, then run the script with tsx — paths, parameters and fields are checked by the compiler. The same files are in the repository's examples/quick-start.",
       code: [
-        `npx openapi-typescript ${api}/openapi.json -o meltwire.d.ts`,
-        ``,
-        `// client.ts`,
-        `import createClient from 'openapi-fetch';`,
-        `import type { paths } from './meltwire.d.ts';`,
-        ``,
-        `const meltwire = createClient<paths>({`,
-        `  baseUrl: '${api}',`,
-        `  headers: { Authorization: \`Bearer \${process.env.MELTWIRE_KEY}\` },`,
-        `});`,
-        `const { data, error } = await meltwire.GET('/samples', { params: { query: { limit: 50 } } });`,
-        `if (error) throw new Error(\`\${error.title}: \${error.detail} (request \${error.request_id})\`);`,
-        `console.log(data.data, data.next_cursor);`,
+        `cd meltwire-quick-start   # the folder holding package.json, tsconfig.json and quick-start.ts`,
+        `npm install`,
+        `export MELTWIRE_URL=${origin}`,
+        `npm run types        # writes meltwire.d.ts from ${api}/openapi.json`,
+        `npm run typecheck    # optional`,
+        `npx tsx quick-start.ts`,
       ].join('\n'),
+      files: [
+        { name: 'package.json', code: packageJson },
+        { name: 'tsconfig.json', code: tsconfigJson },
+        { name: 'quick-start.ts', code: quickStartScript },
+      ],
+      output: sampleOutput.trimEnd(),
+      outputNote:
+        'With a samples:read key of the demo integrator on the demo data. A test runs these steps against a live server and compares its output with this text.',
     },
   ];
 }

@@ -1,18 +1,17 @@
 import { useState } from 'react';
 import { Button } from '../../../components/ui/button.tsx';
-import { ConfirmDialog, Dialog } from '../../../components/ui/dialog.tsx';
+import { ConfirmDialog } from '../../../components/ui/dialog.tsx';
 import { EmptyState, ProblemAlert, Spinner } from '../../../components/ui/feedback.tsx';
 import { Badge, Table } from '../../../components/ui/layout.tsx';
-import { useApiKeys, useRevokeApiKey, useRollApiKey, type ApiKey } from '../api/api-keys.ts';
-import { SecretOnce } from '../../../components/ui/secret-once.tsx';
-import { KEY_SECRET_WARNING } from './key-secret-warning.ts';
+import { useApiKeys, useRevokeApiKey, type ApiKey } from '../api/api-keys.ts';
+import { RollKeyDialog } from './roll-key-dialog.tsx';
 import { Timestamp } from '../../../components/ui/timestamp.tsx';
 
 export function ApiKeysTable({ canWrite }: { canWrite: boolean }) {
   const [includeRevoked, setIncludeRevoked] = useState(false);
   const keys = useApiKeys(includeRevoked);
   const revoke = useRevokeApiKey();
-  const roll = useRollApiKey();
+  const [rolling, setRolling] = useState<ApiKey | null>(null);
   const [revoking, setRevoking] = useState<ApiKey | null>(null);
   const rows = keys.data?.pages.flatMap((page) => page.data) ?? [];
 
@@ -27,7 +26,7 @@ export function ApiKeysTable({ canWrite }: { canWrite: boolean }) {
         />
         Show revoked keys
       </label>
-      <ProblemAlert error={keys.error ?? revoke.error ?? roll.error} />
+      <ProblemAlert error={keys.error ?? revoke.error} />
       {keys.isPending && <Spinner label="Loading keys…" />}
       {!keys.isPending && rows.length === 0 && (
         <EmptyState title="No API keys yet">Issue one for each integration, with only the scopes it needs.</EmptyState>
@@ -62,9 +61,8 @@ export function ApiKeysTable({ canWrite }: { canWrite: boolean }) {
                   <>
                     <Button
                       variant="ghost"
-                      onClick={() => roll.mutate({ id: key.id, overlap_minutes: 60 })}
-                      disabled={roll.isPending}
-                      title="Issue a replacement; this key keeps working for 60 minutes"
+                      onClick={() => setRolling(key)}
+                      title="Issue a replacement; you choose how long this key keeps working"
                     >
                       Roll
                     </Button>
@@ -94,9 +92,7 @@ export function ApiKeysTable({ canWrite }: { canWrite: boolean }) {
       >
         <p>Calls with this key fail at once with 401. Integrations using it stop working until they get a new key.</p>
       </ConfirmDialog>
-      <Dialog open={!!roll.data} title="Replacement key issued" onClose={() => roll.reset()}>
-        {roll.data && <SecretOnce secret={roll.data.secret} warning={KEY_SECRET_WARNING} onDone={() => roll.reset()} />}
-      </Dialog>
+      <RollKeyDialog key={rolling?.id ?? 'none'} apiKey={rolling} onClose={() => setRolling(null)} />
     </div>
   );
 }

@@ -7,6 +7,7 @@ import { TextField } from '../../../components/ui/field.tsx';
 import type { Scope } from '../../../api/me.ts';
 import { useCreateApiKey } from '../api/api-keys.ts';
 import { SecretOnce } from '../../../components/ui/secret-once.tsx';
+import { groupScopes } from '../scope-groups.ts';
 import { KEY_SECRET_WARNING } from './key-secret-warning.ts';
 import { DateTimeField } from '../../../components/ui/date-field.tsx';
 import { readIsoDateTime } from '../../../lib/iso-date.ts';
@@ -55,12 +56,24 @@ export function CreateKeyDialog({ open, grantable, onClose }: { open: boolean; g
           <fieldset>
             <legend className="mb-1 text-sm font-medium text-slag-800">Scopes</legend>
             <p className="mb-2 text-xs text-slag-500">Grant only what the integration does. You can grant the scopes your role holds.</p>
-            <div className="grid grid-cols-2 gap-1">
-              {grantable.map((scope) => (
-                <label key={scope} className="flex items-center gap-2 text-sm">
-                  <input type="checkbox" checked={scopes.includes(scope)} onChange={() => toggle(scope)} className="accent-ember-600" />
-                  <code className="text-xs">{scope}</code>
-                </label>
+            <div className="max-h-72 space-y-2 overflow-y-auto pr-1">
+              {groupScopes(grantable).map((group) => (
+                <div key={group.resource} role="group" aria-label={group.label} className="grid grid-cols-[10rem_1fr] items-start gap-2">
+                  <span className="pt-0.5 text-xs font-medium text-slag-700">{group.label}</span>
+                  <div className="flex flex-wrap gap-x-4 gap-y-1">
+                    {group.scopes.map((scope) => (
+                      <label key={scope} className="flex items-center gap-2 text-sm">
+                        <input
+                          type="checkbox"
+                          checked={scopes.includes(scope)}
+                          onChange={() => toggle(scope)}
+                          className="accent-ember-600"
+                        />
+                        <code className="text-xs">{scope}</code>
+                      </label>
+                    ))}
+                  </div>
+                </div>
               ))}
             </div>
             {problem?.fieldError('scopes') && (

@@ -4,7 +4,7 @@ import { CodeBlock } from '../../../components/ui/code-block.tsx';
 import { Alert, ProblemAlert, Spinner } from '../../../components/ui/feedback.tsx';
 import { Badge } from '../../../components/ui/layout.tsx';
 import { useReplay, useRequestLogEntry, type RequestLogEntry } from '../api/request-log.ts';
-import { curlCommand } from '../curl.ts';
+import { curlCommand } from '../../../lib/curl.ts';
 import { StatusBadge } from './status-badge.tsx';
 import { paths } from '../../../config/paths.ts';
 import { Timestamp } from '../../../components/ui/timestamp.tsx';

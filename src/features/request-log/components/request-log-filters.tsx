@@ -15,11 +15,11 @@ function toIso(local: string): string | undefined {
 
 export function RequestLogFilterForm({ onApply }: { onApply: (filters: RequestLogFilters) => void }) {
   const [form, setForm] = useState(EMPTY);
+  const [includeConsole, setIncludeConsole] = useState(false);
   const set = (field: keyof typeof EMPTY) => (event: { target: { value: string } }) =>
     setForm((f) => ({ ...f, [field]: event.target.value }));
 
-  function submit(event: FormEvent) {
-    event.preventDefault();
+  function apply(withConsole: boolean) {
     // A time that is not yyyy-mm-dd hh:mm is not applied; its field says why.
     if ([form.since, form.until].some((text) => text.trim() !== '' && !toIso(text))) return;
     onApply({
@@ -29,7 +29,13 @@ export function RequestLogFilterForm({ onApply }: { onApply: (filters: RequestLo
       caller_id: form.caller_id.trim() || undefined,
       since: toIso(form.since),
       until: toIso(form.until),
+      include_console: withConsole ? 'true' : undefined,
     });
+  }
+
+  function submit(event: FormEvent) {
+    event.preventDefault();
+    apply(includeConsole);
   }
 
   return (
@@ -55,12 +61,25 @@ export function RequestLogFilterForm({ onApply }: { onApply: (filters: RequestLo
           variant="secondary"
           onClick={() => {
             setForm(EMPTY);
+            setIncludeConsole(false);
             onApply({});
           }}
         >
           Reset
         </Button>
       </div>
+      <label className="col-span-full flex items-center gap-2 text-sm text-slag-700">
+        <input
+          type="checkbox"
+          className="accent-ember-600"
+          checked={includeConsole}
+          onChange={(event) => {
+            setIncludeConsole(event.target.checked);
+            apply(event.target.checked);
+          }}
+        />
+        Show the console&apos;s own calls (its pages loading and refreshing; hidden by default)
+      </label>
     </form>
   );
 }

@@ -16,18 +16,19 @@ export function RequestLogTable({ filters, onOpen }: { filters: RequestLogFilter
       {log.isPending && <Spinner label="Loading calls…" />}
       {!log.isPending && !log.error && rows.length === 0 && (
         <EmptyState title="No calls match">
-          Calls to /api/v1 appear here as soon as they are answered. Try wider filters, or make a call with a key.
+          Calls to /api/v1 appear here as soon as they are answered. Try wider filters, or make a call with a key. The console's own calls
+          are hidden unless you tick the box above.
         </EmptyState>
       )}
       {rows.length > 0 && (
         <Table head={['When', 'Method', 'Path', 'Status', 'ms', 'Caller', '']} caption="Calls to the API, newest first">
           {rows.map((entry) => (
             <tr key={entry.id} className="align-top hover:bg-ash-50" data-testid="request-log-row">
-              <td className="whitespace-nowrap px-3 py-2 font-mono text-xs">
+              <td className="px-2 py-2 font-mono text-xs">
                 <Timestamp value={entry.occurred_at} seconds />
               </td>
-              <td className="px-3 py-2 font-mono text-xs font-semibold">{entry.method}</td>
-              <td className="max-w-md break-all px-3 py-2 font-mono text-xs">
+              <td className="px-2 py-2 font-mono text-xs font-semibold">{entry.method}</td>
+              <td className="min-w-40 max-w-md break-all px-2 py-2 font-mono text-xs">
                 {entry.path}
                 {entry.query && <span className="text-slag-500">?{entry.query}</span>}
                 {entry.replay_of && (
@@ -35,15 +36,20 @@ export function RequestLogTable({ filters, onOpen }: { filters: RequestLogFilter
                     <Badge tone="accent">replay</Badge>
                   </span>
                 )}
+                {entry.from_console && (
+                  <span className="ml-2">
+                    <Badge tone="neutral">console</Badge>
+                  </span>
+                )}
               </td>
-              <td className="px-3 py-2">
+              <td className="px-2 py-2">
                 <StatusBadge status={entry.status} />
               </td>
-              <td className="px-3 py-2 text-right font-mono text-xs">{entry.duration_ms.toFixed(1)}</td>
-              <td className="px-3 py-2 text-xs">
+              <td className="px-2 py-2 text-right font-mono text-xs">{entry.duration_ms.toFixed(1)}</td>
+              <td className="max-w-48 break-words px-2 py-2 text-xs">
                 {entry.caller.label ?? 'anonymous'} <span className="text-slag-500">({entry.caller.type.replace('_', ' ')})</span>
               </td>
-              <td className="px-3 py-2 text-right">
+              <td className="px-2 py-2 text-right">
                 <Button
                   variant="ghost"
                   onClick={() => onOpen(entry.id)}

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { curlCommand, shellQuote } from '../../../../src/features/request-log/curl.ts';
+import { curlCommand, shellQuote } from '../../../src/lib/curl.ts';
 
 const noBody = { headers: {}, body: null, body_kind: 'none' as const, content_type: null };
 

@@ -1,5 +1,6 @@
-// The curl command equivalent to a logged call, for the detail drawer. Credentials are never
-// copied from the log (they were redacted anyway): the command reads $MELTWIRE_KEY.
+// The curl command equivalent to a call: a logged one (Request log) or one made with the API
+// reference's "Try it out". Credentials are never copied (a log's were redacted anyway, a
+// console call carries a session cookie): the command reads $MELTWIRE_KEY.
 // Structural on purpose (a subset of RequestLogEntry): the unit tests import this file under the
 // server's module settings, which the generated client types do not satisfy.
 export interface CurlInput {
