@@ -50,6 +50,7 @@ describe('method reporting rules', () => {
       balance_by_difference: false,
       sum_tolerance: '0.5',
       unlisted_elements: 'keep_unreported',
+      min_included_burns: 2,
     });
   });
 
