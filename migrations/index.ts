@@ -39,8 +39,8 @@ import * as createPendingAlerts from './20261203400600_create_pending_alerts.ts'
 import * as createNodeCoordination from './20261203500100_create_node_coordination.ts';
 import * as addInstrumentFeedsStaleAlert from './20261203500200_add_instrument_feeds_stale_alert.ts';
 import * as addSamplesPreparedDocuments from './20261203600100_add_samples_prepared_documents.ts';
-import * as createSampleFieldDefinitions from './20261203600100_create_sample_field_definitions.ts';
 import * as addStandardizationsSourceFile from './20261203600100_add_standardizations_source_file.ts';
+import * as createSampleFieldDefinitions from './20261203600100_create_sample_field_definitions.ts';
 import * as addRequestLogFromConsole from './20261203613100_add_request_log_from_console.ts';
 
 export interface Migration {
@@ -87,7 +87,7 @@ export const migrations: Record<string, Migration> = {
   '20261203500100_create_node_coordination': createNodeCoordination,
   '20261203500200_add_instrument_feeds_stale_alert': addInstrumentFeedsStaleAlert,
   '20261203600100_add_samples_prepared_documents': addSamplesPreparedDocuments,
-  '20261203600100_create_sample_field_definitions': createSampleFieldDefinitions,
   '20261203600100_add_standardizations_source_file': addStandardizationsSourceFile,
+  '20261203600100_create_sample_field_definitions': createSampleFieldDefinitions,
   '20261203613100_add_request_log_from_console': addRequestLogFromConsole,
 };
