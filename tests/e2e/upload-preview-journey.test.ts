@@ -117,7 +117,7 @@ describe('previews a file with an ambiguous column', () => {
       await report.waitFor();
       const summary = page.getByTestId('flag-summary');
       const coRow = summary.locator('[data-testid="flag-summary-row"][data-element="Co"][data-flag="not_in_method"]');
-      expect(await coRow.innerText()).toMatch(/Co\s+Not in method: not reported\s+2 of 2/);
+      expect(await coRow.innerText()).toMatch(/Co\s+Not in the method: not reported\s+2 of 2/);
       expect(await summary.locator('[data-element="Ce"]').count()).toBe(0);
       expect(await summary.locator('[data-element="Fe"]').count()).toBe(0);
       const samplesLink = await coRow.getByRole('link').getAttribute('href');

@@ -33,7 +33,7 @@ export function Badge({ children, tone = 'neutral' }: { children: ReactNode; ton
 
 export function Table({ head, children, caption }: { head: ReactNode[]; children: ReactNode; caption?: string }) {
   return (
-    <div className="overflow-x-auto rounded-lg border border-ash-200 bg-white">
+    <div className="relative overflow-x-auto rounded-lg border border-ash-200 bg-white">
       <table className="min-w-full text-left text-sm">
         {caption && <caption className="sr-only">{caption}</caption>}
         <thead className="bg-ash-100 text-xs uppercase tracking-wide text-slag-500">

@@ -25,7 +25,8 @@ export function RequestLogTable({ filters, onOpen }: { filters: RequestLogFilter
           {rows.map((entry) => (
             <tr key={entry.id} className="align-top hover:bg-ash-50" data-testid="request-log-row">
               <td className="px-2 py-2 font-mono text-xs">
-                <Timestamp value={entry.occurred_at} seconds />
+                {/* Date above time, so the path keeps its width on a 1024 px tablet. */}
+                <Timestamp value={entry.occurred_at} seconds stacked />
               </td>
               <td className="px-2 py-2 font-mono text-xs font-semibold">{entry.method}</td>
               <td className="min-w-40 max-w-md break-all px-2 py-2 font-mono text-xs">

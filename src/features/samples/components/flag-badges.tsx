@@ -13,7 +13,7 @@ export function FlagBadge({ name }: { name: string }) {
   const tone = TONE[info.tone];
   return (
     <span
-      className={`inline-flex items-center gap-1 whitespace-nowrap rounded border px-1.5 py-0.5 text-xs ${tone.className}`}
+      className={`inline-flex max-w-full items-center gap-1 rounded border px-1.5 py-0.5 text-xs ${tone.className}`}
       title={info.description ?? `Flag ${info.name}`}
       data-flag={info.name}
       data-tone={info.tone}

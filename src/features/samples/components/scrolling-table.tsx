@@ -52,7 +52,7 @@ export function ScrollingTable({
       <div className="relative">
         <div
           ref={box}
-          className="overflow-x-auto rounded-lg border border-ash-200 bg-white"
+          className="relative overflow-x-auto rounded-lg border border-ash-200 bg-white"
           role="region"
           aria-label={`${label}${scrolls ? ' (scrolls sideways)' : ''}`}
           tabIndex={scrolls ? 0 : undefined}
