@@ -8,12 +8,10 @@ import { sha256Hex } from '../../lib/secrets.ts';
 import { latestMeasurementTime } from '../../lib/time.ts';
 import type { z } from '../../lib/zod.ts';
 import type { AuthContext } from '../auth/auth-context.ts';
-import { getImportProfile } from '../imports/import-profiles.service.ts';
-import { fileProblem } from '../imports/imports.service.ts';
+import { fileProblem, findMethodAndProfile } from '../imports/imports.service.ts';
 import { FileLayoutError, parseResultFile, type ParsedSample, type ParsedValue } from '../imports/parse/index.ts';
 import { findInstrument } from '../instruments/instruments.repository.ts';
 import { assertInstrumentAllowed } from '../instruments/instruments.service.ts';
-import { findMethod } from '../methods/methods.repository.ts';
 import { listReferenceMaterialsOfMatrix, type ReferenceMaterial } from './reference-materials.repository.ts';
 import type { ReadStandardizationFileRequestSchema } from './standardization-file.schemas.ts';
 
@@ -63,17 +61,7 @@ export async function readStandardizationFile(ctx: AppContext, auth: AuthContext
   if (!instrument) throw new NotFoundProblem(`No instrument ${instrumentId}.`);
   assertInstrumentAllowed(auth, instrumentId);
   const errors: FieldError[] = [];
-  const method = await findMethod(ctx.db, input.method_id);
-  if (!method) errors.push({ location: 'body.method_id', message: `no method ${input.method_id}`, code: 'unknown_reference' });
-  let profile;
-  if (input.profile_id) {
-    try {
-      profile = await getImportProfile(ctx, input.profile_id);
-    } catch (error) {
-      if (!(error instanceof NotFoundProblem)) throw error;
-      errors.push({ location: 'body.profile_id', message: `no import profile ${input.profile_id}`, code: 'unknown_reference' });
-    }
-  }
+  const { method, profile } = await findMethodAndProfile(ctx, input, errors);
   if (errors.length || !method) throw new UnprocessableProblem('The request refers to a method or profile that does not exist.', errors);
 
   let parsed;

@@ -45,13 +45,9 @@ export function fileProblem(detail: string, issues: ImportIssue[]): Unprocessabl
   return problem;
 }
 
-/** The instrument, method and profile the upload names; every unknown reference is reported at once. */
-async function resolveReferences(ctx: AppContext, auth: AuthContext, input: UploadInput) {
-  const errors: FieldError[] = [];
-  const instrument = await findInstrument(ctx.db, input.instrument_id);
-  if (!instrument)
-    errors.push({ location: 'body.instrument_id', message: `no instrument ${input.instrument_id}`, code: 'unknown_reference' });
-  else assertInstrumentAllowed(auth, instrument.id);
+/** The method and import profile a request names (a file upload, a standardization file); each
+ * unknown one becomes an entry of `errors`. */
+export async function findMethodAndProfile(ctx: AppContext, input: { method_id: string; profile_id?: string }, errors: FieldError[]) {
   const method = await findMethod(ctx.db, input.method_id);
   if (!method) errors.push({ location: 'body.method_id', message: `no method ${input.method_id}`, code: 'unknown_reference' });
   let profile;
@@ -63,6 +59,17 @@ async function resolveReferences(ctx: AppContext, auth: AuthContext, input: Uplo
       errors.push({ location: 'body.profile_id', message: `no import profile ${input.profile_id}`, code: 'unknown_reference' });
     }
   }
+  return { method, profile };
+}
+
+/** The instrument, method and profile the upload names; every unknown reference is reported at once. */
+async function resolveReferences(ctx: AppContext, auth: AuthContext, input: UploadInput) {
+  const errors: FieldError[] = [];
+  const instrument = await findInstrument(ctx.db, input.instrument_id);
+  if (!instrument)
+    errors.push({ location: 'body.instrument_id', message: `no instrument ${input.instrument_id}`, code: 'unknown_reference' });
+  else assertInstrumentAllowed(auth, instrument.id);
+  const { method, profile } = await findMethodAndProfile(ctx, input, errors);
   if (errors.length) throw new UnprocessableProblem('The upload refers to an instrument, method or profile that does not exist.', errors);
   const review = {
     code: method!.code,
